@@ -1,0 +1,236 @@
+import { z } from 'zod';
+
+/**
+ * The Linewright project file: one schema, every type inferred from it.
+ *
+ * Direction is explicit: a conductor or bus link runs `from` the supply side
+ * `to` the load side (line → load, primary → secondary). Every optional
+ * engineering fact that a rule needs and the user has not entered stays
+ * absent, so the analyzer can say "incomplete" instead of guessing.
+ */
+
+export const PROJECT_FORMAT = 'linewright-project';
+export const PROJECT_VERSION = 1;
+
+export const nodeId = z.string().min(1, 'an id must not be empty').max(64).brand<'NodeId'>();
+export type NodeId = z.infer<typeof nodeId>;
+export const conductorId = z.string().min(1, 'an id must not be empty').max(64).brand<'ConductorId'>();
+export type ConductorId = z.infer<typeof conductorId>;
+export const busLinkId = z.string().min(1, 'an id must not be empty').max(64).brand<'BusLinkId'>();
+export type BusLinkId = z.infer<typeof busLinkId>;
+
+const label = z.string().max(200);
+const amps = z.number().positive().max(100_000);
+const volts = z.number().positive().max(1000, 'Linewright covers systems of 1000 V and less');
+const kiloAmps = z.number().positive().max(500);
+const phases = z.union([z.literal(1), z.literal(3)]);
+const position = z.object({ x: z.number().finite(), y: z.number().finite() });
+
+/** Conductor sizes of NFPA 70 Table 310.16, AWG then kcmil, smallest first. */
+export const CONDUCTOR_SIZES = [
+  '18', '16', '14', '12', '10', '8', '6', '4', '3', '2', '1', '1/0', '2/0', '3/0', '4/0',
+  '250', '300', '350', '400', '500', '600', '700', '750', '800', '900', '1000', '1250', '1500', '1750', '2000',
+] as const;
+export const conductorSize = z.enum(CONDUCTOR_SIZES);
+export type ConductorSize = z.infer<typeof conductorSize>;
+
+export const MATERIALS = ['cu', 'al', 'cu-clad-al'] as const;
+export const material = z.enum(MATERIALS);
+export type Material = z.infer<typeof material>;
+
+/** Insulation types; their temperature rating and class live in tables/insulation.ts. */
+export const INSULATIONS = ['TW', 'UF', 'THW', 'THWN', 'RHW', 'XHHW', 'USE', 'THHN', 'THWN-2', 'THHW', 'XHHW-2', 'RHH', 'RHW-2', 'USE-2'] as const;
+export const insulation = z.enum(INSULATIONS);
+export type Insulation = z.infer<typeof insulation>;
+
+export const WIRING_METHODS = ['steel-conduit', 'aluminum-conduit', 'pvc-conduit', 'cable', 'cable-tray', 'open'] as const;
+export const wiringMethod = z.enum(WIRING_METHODS);
+export type WiringMethod = z.infer<typeof wiringMethod>;
+
+export const DAMAGE_PROTECTION = ['raceway', 'other-approved-means', 'none'] as const;
+
+const common = {
+  id: nodeId,
+  label: label.optional(),
+  notes: z.string().max(4000).optional(),
+  position: position.optional(),
+};
+
+export const utilityNode = z.object({
+  ...common,
+  kind: z.literal('utility'),
+  voltsLL: volts,
+  phases,
+  availableFaultKA: kiloAmps.optional(),
+  xOverR: z.number().positive().max(100).optional(),
+});
+
+export const generatorNode = z.object({
+  ...common,
+  kind: z.literal('generator'),
+  voltsLL: volts,
+  phases,
+  kva: z.number().positive().max(50_000),
+  /** 445.13: the design prevents overload, so 100 % of nameplate instead of 115 %. */
+  overloadPreventedByDesign: z.boolean().default(false),
+});
+
+export const BUS_TYPES = ['switchgear', 'switchboard', 'panelboard', 'tap-box', 'busway'] as const;
+export const busNode = z.object({
+  ...common,
+  kind: z.literal('bus'),
+  busType: z.enum(BUS_TYPES),
+  busRatingA: amps.optional(),
+});
+
+const ocpdCommon = {
+  ...common,
+  /** Rating in A; for an adjustable-trip breaker the rating that 240.6(B)/(C) makes count. */
+  ratingA: amps.optional(),
+  interruptingKA: kiloAmps.optional(),
+  clearingTimeS: z.number().positive().max(10).optional(),
+  /** 'single': one breaker or one set of fuses; 'group': several devices counted together. */
+  arrangement: z.enum(['single', 'group']).default('single'),
+  /** 240.21(B)(5), (C)(4): the device is part of or next to the disconnecting means. */
+  atDisconnectingMeans: z.boolean().default(false),
+  /** 240.21(B)(5), (C)(4): where that disconnecting means is. */
+  disconnectLocation: z.enum(['outside', 'inside-nearest-entrance', 'elsewhere']).optional(),
+};
+
+export const breakerNode = z.object({
+  ...ocpdCommon,
+  kind: z.literal('breaker'),
+  /** 240.6(B): adjustable long-time pickup; with restricted access 240.6(C) lets the setting count. */
+  adjustableTrip: z
+    .object({
+      maxSettingA: amps,
+      longTimeSettingA: amps,
+      restrictedAccess: z.boolean().default(false),
+    })
+    .optional(),
+});
+
+export const fuseNode = z.object({
+  ...ocpdCommon,
+  kind: z.literal('fuse'),
+  currentLimiting: z.boolean().default(false),
+});
+
+export const disconnectNode = z.object({
+  ...common,
+  kind: z.literal('disconnect'),
+  ratingA: amps.optional(),
+});
+
+export const spliceNode = z.object({ ...common, kind: z.literal('splice') });
+
+export const TRANSFORMER_CONNECTIONS = [
+  'delta-wye', 'delta-delta-3w', 'delta-delta-4w', 'wye-wye', 'wye-delta', 'single-phase-2w', 'single-phase-3w',
+] as const;
+export const transformerNode = z.object({
+  ...common,
+  kind: z.literal('transformer'),
+  kva: z.number().positive().max(50_000),
+  primaryVoltsLL: volts,
+  secondaryVoltsLL: volts,
+  phases,
+  impedancePct: z.number().positive().max(30).optional(),
+  connection: z.enum(TRANSFORMER_CONNECTIONS),
+});
+
+export const loadNode = z.object({
+  ...common,
+  kind: z.literal('load'),
+  /** Exactly one of currentA or kva. */
+  currentA: amps.optional(),
+  kva: z.number().positive().max(50_000).optional(),
+  powerFactor: z.number().gt(0).max(1).default(0.9),
+  /** Continuous: maximum current for 3 h or more (Article 100). */
+  continuous: z.boolean().default(false),
+  /** Phases of the load itself; defaults to the system's. */
+  phases: phases.optional(),
+});
+
+export const equipmentNode = z.discriminatedUnion('kind', [
+  utilityNode, generatorNode, busNode, breakerNode, fuseNode, disconnectNode, spliceNode, transformerNode, loadNode,
+]);
+export type EquipmentNode = z.infer<typeof equipmentNode>;
+export type EquipmentKind = EquipmentNode['kind'];
+export type NodeOfKind<K extends EquipmentKind> = Extract<EquipmentNode, { kind: K }>;
+export const EQUIPMENT_KINDS = equipmentNode.options.map((o) => o.shape.kind.value) as EquipmentKind[];
+
+export const highBayFacts = z.object({
+  horizontalFt: z.number().nonnegative().max(20_000),
+  tapHeightAboveFloorFt: z.number().nonnegative().max(1_000),
+  penetratesWallFloorCeiling: z.boolean().default(false),
+});
+
+export const conductor = z.object({
+  id: conductorId,
+  from: nodeId,
+  to: nodeId,
+  label: label.optional(),
+  notes: z.string().max(4000).optional(),
+  material: material.default('cu'),
+  size: conductorSize,
+  parallelSets: z.number().int().min(1).max(20).default(1),
+  insulation: insulation.default('THHN'),
+  /** Conductor length from its supply point to its termination; a raceway length is not a tap length. */
+  lengthFt: z.number().positive().max(20_000, 'a run longer than 20 000 ft is not a building conductor; check the units').optional(),
+  wiring: wiringMethod.default('steel-conduit'),
+  ambientC: z.number().min(-40).max(90).default(30),
+  /** Current-carrying conductors in the raceway or cable, all sets counted (310.15(C)(1)). */
+  currentCarrying: z.number().int().min(1).max(200).default(3),
+  /** 110.14(C): lowest temperature rating of the terminations at either end. */
+  terminalTempC: z.union([z.literal(60), z.literal(75), z.literal(90)]).default(75),
+  /** 240.21(B)(1), (C)(2): a field installation that leaves the enclosure where the tap is made. */
+  leavesEnclosure: z.boolean().default(false),
+  /** 240.21(B)(1), (C)(2): the conductor runs past the equipment it supplies. */
+  extendsBeyondEquipment: z.boolean().default(false),
+  /** 240.21(B)(5), (C)(4): outdoors except at the point of termination. */
+  outdoors: z.boolean().default(false),
+  damageProtection: z.enum(DAMAGE_PROTECTION).default('raceway'),
+  /** 240.4(B)(1): a multioutlet branch circuit supplying receptacles for cord-and-plug loads. */
+  multioutletCordAndPlug: z.boolean().default(false),
+  highBay: highBayFacts.optional(),
+});
+export type Conductor = z.infer<typeof conductor>;
+
+export const busLink = z.object({
+  id: busLinkId,
+  from: nodeId,
+  to: nodeId,
+  label: label.optional(),
+});
+export type BusLink = z.infer<typeof busLink>;
+
+export const CODE_EDITIONS = [2020, 2023] as const;
+export const codeEdition = z.union([z.literal(2020), z.literal(2023)]);
+export type CodeEdition = z.infer<typeof codeEdition>;
+
+export const projectSettings = z.object({
+  name: label.min(1, 'give the project a name'),
+  codeEdition: codeEdition.default(2023),
+  units: z.literal('imperial').default('imperial'),
+  /** 240.21(B)(4): manufacturing building, wall height in ft. */
+  manufacturingWallHeightFt: z.number().positive().max(1000).optional(),
+  /** 240.21(B)(4), (C)(3): conditions of maintenance and supervision ensure only qualified persons service the system. */
+  qualifiedMaintenance: z.boolean().default(false),
+  /** 240.21(C)(3): an industrial installation. */
+  industrialInstallation: z.boolean().default(false),
+  preparedBy: label.optional(),
+  notes: z.string().max(4000).optional(),
+});
+export type ProjectSettings = z.infer<typeof projectSettings>;
+
+export const project = z.object({
+  format: z.literal(PROJECT_FORMAT),
+  version: z.literal(PROJECT_VERSION),
+  project: projectSettings,
+  nodes: z.array(equipmentNode).max(500_000),
+  conductors: z.array(conductor).max(500_000),
+  busLinks: z.array(busLink).max(500_000).default([]),
+});
+export type Project = z.infer<typeof project>;
+/** What a file may hold before defaults are filled in. */
+export type ProjectInput = z.input<typeof project>;
