@@ -24,7 +24,7 @@ const amps = z.number().positive().max(100_000);
 const volts = z.number().positive().max(1000, 'Linewright covers systems of 1000 V and less');
 const kiloAmps = z.number().positive().max(500);
 const phases = z.union([z.literal(1), z.literal(3)]);
-const position = z.object({ x: z.number().finite(), y: z.number().finite() });
+const position = z.strictObject({ x: z.number().finite(), y: z.number().finite() });
 
 /** Conductor sizes of NFPA 70 Table 310.16, AWG then kcmil, smallest first. */
 export const CONDUCTOR_SIZES = [
@@ -56,7 +56,7 @@ const common = {
   position: position.optional(),
 };
 
-export const utilityNode = z.object({
+export const utilityNode = z.strictObject({
   ...common,
   kind: z.literal('utility'),
   voltsLL: volts,
@@ -65,7 +65,7 @@ export const utilityNode = z.object({
   xOverR: z.number().positive().max(100).optional(),
 });
 
-export const generatorNode = z.object({
+export const generatorNode = z.strictObject({
   ...common,
   kind: z.literal('generator'),
   voltsLL: volts,
@@ -76,7 +76,7 @@ export const generatorNode = z.object({
 });
 
 export const BUS_TYPES = ['switchgear', 'switchboard', 'panelboard', 'tap-box', 'busway'] as const;
-export const busNode = z.object({
+export const busNode = z.strictObject({
   ...common,
   kind: z.literal('bus'),
   busType: z.enum(BUS_TYPES),
@@ -97,7 +97,7 @@ const ocpdCommon = {
   disconnectLocation: z.enum(['outside', 'inside-nearest-entrance', 'elsewhere']).optional(),
 };
 
-export const breakerNode = z.object({
+export const breakerNode = z.strictObject({
   ...ocpdCommon,
   kind: z.literal('breaker'),
   /** 240.6(B): adjustable long-time pickup; with restricted access 240.6(C) lets the setting count. */
@@ -110,24 +110,24 @@ export const breakerNode = z.object({
     .optional(),
 });
 
-export const fuseNode = z.object({
+export const fuseNode = z.strictObject({
   ...ocpdCommon,
   kind: z.literal('fuse'),
   currentLimiting: z.boolean().default(false),
 });
 
-export const disconnectNode = z.object({
+export const disconnectNode = z.strictObject({
   ...common,
   kind: z.literal('disconnect'),
   ratingA: amps.optional(),
 });
 
-export const spliceNode = z.object({ ...common, kind: z.literal('splice') });
+export const spliceNode = z.strictObject({ ...common, kind: z.literal('splice') });
 
 export const TRANSFORMER_CONNECTIONS = [
   'delta-wye', 'delta-delta-3w', 'delta-delta-4w', 'wye-wye', 'wye-delta', 'single-phase-2w', 'single-phase-3w',
 ] as const;
-export const transformerNode = z.object({
+export const transformerNode = z.strictObject({
   ...common,
   kind: z.literal('transformer'),
   kva: z.number().positive().max(50_000),
@@ -138,7 +138,7 @@ export const transformerNode = z.object({
   connection: z.enum(TRANSFORMER_CONNECTIONS),
 });
 
-export const loadNode = z.object({
+export const loadNode = z.strictObject({
   ...common,
   kind: z.literal('load'),
   /** Exactly one of currentA or kva. */
@@ -159,13 +159,13 @@ export type EquipmentKind = EquipmentNode['kind'];
 export type NodeOfKind<K extends EquipmentKind> = Extract<EquipmentNode, { kind: K }>;
 export const EQUIPMENT_KINDS = equipmentNode.options.map((o) => o.shape.kind.value) as EquipmentKind[];
 
-export const highBayFacts = z.object({
+export const highBayFacts = z.strictObject({
   horizontalFt: z.number().nonnegative().max(20_000),
   tapHeightAboveFloorFt: z.number().nonnegative().max(1_000),
   penetratesWallFloorCeiling: z.boolean().default(false),
 });
 
-export const conductor = z.object({
+export const conductor = z.strictObject({
   id: conductorId,
   from: nodeId,
   to: nodeId,
@@ -196,7 +196,7 @@ export const conductor = z.object({
 });
 export type Conductor = z.infer<typeof conductor>;
 
-export const busLink = z.object({
+export const busLink = z.strictObject({
   id: busLinkId,
   from: nodeId,
   to: nodeId,
@@ -208,7 +208,7 @@ export const CODE_EDITIONS = [2020, 2023] as const;
 export const codeEdition = z.union([z.literal(2020), z.literal(2023)]);
 export type CodeEdition = z.infer<typeof codeEdition>;
 
-export const projectSettings = z.object({
+export const projectSettings = z.strictObject({
   name: label.min(1, 'give the project a name'),
   codeEdition: codeEdition.default(2023),
   units: z.literal('imperial').default('imperial'),
@@ -223,7 +223,7 @@ export const projectSettings = z.object({
 });
 export type ProjectSettings = z.infer<typeof projectSettings>;
 
-export const project = z.object({
+export const project = z.strictObject({
   format: z.literal(PROJECT_FORMAT),
   version: z.literal(PROJECT_VERSION),
   project: projectSettings,

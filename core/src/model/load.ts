@@ -1,0 +1,150 @@
+import type { z } from 'zod';
+import { CONDUCTOR_SIZES, project, type Project } from './schema';
+import { migrateToCurrent } from './migrations';
+import type { LoadError } from '../analyze/types';
+
+export type LoadResult =
+  | { ok: true; project: Project; notices: string[] }
+  | { ok: false; errors: LoadError[] };
+
+/** Most errors worth listing at once; past that the file is wrong wholesale. */
+const MAX_ERRORS = 50;
+
+/**
+ * Read a project from JSON text or an already-parsed value: parse, migrate,
+ * validate against the schema, then check what the schema cannot see (ids,
+ * ends, loads). Every problem becomes a LoadError naming its JSON path.
+ */
+export function loadProject(input: unknown): LoadResult {
+  let raw: unknown = input;
+  if (typeof input === 'string') {
+    if (input.trim() === '') return fail([{ path: '', message: 'The file is empty; a Linewright project is a JSON object.' }]);
+    try {
+      raw = JSON.parse(input);
+    } catch (e) {
+      const why = e instanceof Error ? e.message : String(e);
+      return fail([{ path: '', message: `The file is not valid JSON (${why}). Save it again from Linewright or fix the syntax.` }]);
+    }
+  }
+  if (typeof raw !== 'object' || raw === null || Array.isArray(raw)) {
+    return fail([{ path: '', message: `A project file is a JSON object; this one holds ${describe(raw)}.` }]);
+  }
+  const migrated = migrateToCurrent(raw as Record<string, unknown>);
+  if (!migrated.ok) return fail(migrated.errors);
+
+  const parsed = project.safeParse(migrated.value);
+  if (!parsed.success) return fail(parsed.error.issues.slice(0, MAX_ERRORS).map(issueToError));
+
+  const errors = checkConsistency(parsed.data);
+  if (errors.length > 0) return fail(errors.slice(0, MAX_ERRORS));
+  const notices = migrated.migratedFrom === null ? [] : [`Upgraded from file version ${migrated.migratedFrom}.`];
+  return { ok: true, project: parsed.data, notices };
+}
+
+function fail(errors: LoadError[]): LoadResult {
+  return { ok: false, errors };
+}
+
+function describe(v: unknown): string {
+  if (v === null) return 'null';
+  if (Array.isArray(v)) return 'an array';
+  return `a ${typeof v}`;
+}
+
+/** `['conductors', 3, 'lengthFt']` → `conductors[3].lengthFt`. */
+export function formatPath(path: readonly PropertyKey[]): string {
+  let out = '';
+  for (const part of path) {
+    if (typeof part === 'number') out += `[${part}]`;
+    else out += out === '' ? String(part) : `.${String(part)}`;
+  }
+  return out;
+}
+
+function issueToError(issue: z.core.$ZodIssue): LoadError {
+  const path = formatPath(issue.path);
+  const field = String(issue.path[issue.path.length - 1] ?? 'value');
+  switch (issue.code) {
+    case 'invalid_type':
+      return {
+        path,
+        message:
+          issue.input === undefined
+            ? `"${field}" is required (${issue.expected}).`
+            : `"${field}" must be a ${issue.expected}; found ${describe(issue.input)}.`,
+      };
+    case 'invalid_value': {
+      const values = field === 'size' ? CONDUCTOR_SIZES : issue.values;
+      return { path, message: `"${field}" must be one of ${values.map((v) => JSON.stringify(v)).join(', ')}.` };
+    }
+    case 'invalid_union': {
+      if ('options' in issue && Array.isArray(issue.options)) {
+        return { path, message: `"${field}" must be one of ${issue.options.map((v) => JSON.stringify(v)).join(', ')}.` };
+      }
+      const literals = issue.errors.flat().flatMap((e) => (e.code === 'invalid_value' ? e.values : []));
+      if (literals.length > 0) {
+        return { path, message: `"${field}" must be ${literals.map((v) => JSON.stringify(v)).join(' or ')}.` };
+      }
+      return { path, message: `"${field}" is not valid: ${issue.message}.` };
+    }
+    case 'too_small':
+    case 'too_big': {
+      // Our own messages (set in the schema) already say what to do.
+      if (!issue.message.startsWith('Too ')) return { path, message: `"${field}": ${issue.message}.` };
+      const bound = issue.code === 'too_small' ? issue.minimum : issue.maximum;
+      const word = issue.code === 'too_small' ? (issue.inclusive ? 'at least' : 'more than') : issue.inclusive ? 'at most' : 'less than';
+      const what = issue.origin === 'array' ? 'items' : issue.origin === 'string' ? 'characters' : '';
+      return { path, message: `"${field}" must be ${word} ${String(bound)}${what ? ` ${what}` : ''}.` };
+    }
+    case 'unrecognized_keys':
+      return {
+        path,
+        message: `Unknown field${issue.keys.length > 1 ? 's' : ''} ${issue.keys.map((k) => `"${k}"`).join(', ')}; check the spelling (names are case-sensitive).`,
+      };
+    default:
+      return { path, message: issue.message };
+  }
+}
+
+/** What the schema cannot check alone: unique ids, ends that exist and point the right way, load data. */
+export function checkConsistency(p: Project): LoadError[] {
+  const errors: LoadError[] = [];
+  const kindById = new Map<string, string>();
+  const seen = new Map<string, string>();
+  const claim = (id: string, path: string) => {
+    const first = seen.get(id);
+    if (first !== undefined) errors.push({ path: `${path}.id`, message: `Id "${id}" is already used at ${first}; every id must be unique.` });
+    else seen.set(id, path);
+  };
+  p.nodes.forEach((n, i) => {
+    claim(n.id, `nodes[${i}]`);
+    kindById.set(n.id, n.kind);
+    if (n.kind === 'load') {
+      const given = (n.currentA === undefined ? 0 : 1) + (n.kva === undefined ? 0 : 1);
+      if (given !== 1) {
+        errors.push({
+          path: `nodes[${i}].${n.currentA === undefined ? 'currentA' : 'kva'}`,
+          message: given === 0 ? 'A load needs its current ("currentA") or its apparent power ("kva").' : 'Give either "currentA" or "kva" for a load, not both.',
+        });
+      }
+    }
+    if (n.kind === 'breaker' && n.adjustableTrip && n.adjustableTrip.longTimeSettingA > n.adjustableTrip.maxSettingA) {
+      errors.push({ path: `nodes[${i}].adjustableTrip.longTimeSettingA`, message: 'The long-time setting cannot exceed the maximum setting.' });
+    }
+  });
+  const checkEnds = (e: { id: string; from: string; to: string }, path: string) => {
+    claim(e.id, path);
+    const fromKind = kindById.get(e.from);
+    const toKind = kindById.get(e.to);
+    if (fromKind === undefined) errors.push({ path: `${path}.from`, message: `No equipment has the id "${e.from}"; connect the supply end to existing equipment.` });
+    if (toKind === undefined) errors.push({ path: `${path}.to`, message: `No equipment has the id "${e.to}"; connect the load end to existing equipment.` });
+    if (e.from === e.to) errors.push({ path: `${path}.to`, message: 'Both ends are the same equipment; a connection must join two different items.' });
+    if (fromKind === 'load') errors.push({ path: `${path}.from`, message: `"${e.from}" is a load, which supplies nothing; draw the connection from the supply side.` });
+    if (toKind === 'utility' || toKind === 'generator') {
+      errors.push({ path: `${path}.to`, message: `"${e.to}" is a source and has no line side; draw the connection from it, not to it.` });
+    }
+  };
+  p.conductors.forEach((c, i) => checkEnds(c, `conductors[${i}]`));
+  p.busLinks.forEach((b, i) => checkEnds(b, `busLinks[${i}]`));
+  return errors;
+}
