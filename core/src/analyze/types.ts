@@ -21,6 +21,26 @@ export const VERDICTS = [
 ] as const;
 export type Verdict = (typeof VERDICTS)[number];
 
+/** The words a reviewer reads for each verdict (text always accompanies any colour or shape). */
+export const VERDICT_LABELS: Readonly<Record<Verdict, string>> = {
+  protected: 'protected',
+  'protected-next-size': 'protected (next size up)',
+  'tap-10ft': 'tap: 10 ft',
+  'tap-25ft': 'tap: 25 ft',
+  'tap-transformer': 'tap: transformer',
+  'tap-high-bay': 'tap: high bay',
+  'tap-outside': 'tap: outside',
+  'secondary-primary-protected': 'secondary: primary-protected',
+  'secondary-10ft': 'secondary: 10 ft',
+  'secondary-25ft': 'secondary: 25 ft',
+  'secondary-outside': 'secondary: outside',
+  service: 'service',
+  generator: 'generator',
+  'tap-from-tap': 'tap from a tap',
+  unprotected: 'unprotected',
+  incomplete: 'incomplete (missing data)',
+};
+
 /** Verdicts that mean "no rule makes this conductor acceptable". */
 export const FAILING_VERDICTS: ReadonlySet<Verdict> = new Set(['tap-from-tap', 'unprotected']);
 
@@ -59,6 +79,8 @@ export interface ConditionResult {
   /** Rendered from the rule's template and `data`. */
   text: string;
   data: Record<string, string | number>;
+  /** Met only on a judgement the AHJ must accept, e.g. "other approved means". */
+  needsAhj?: boolean;
 }
 
 /** One rule tried on one conductor: the working a reviewer reads. */

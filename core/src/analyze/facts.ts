@@ -1,0 +1,191 @@
+import { computeAmpacity } from '../ampacity/ampacity';
+import type { CodeEdition, Conductor, EquipmentNode, Project } from '../model/schema';
+import type { RunFacts, Termination } from '../rules/facts';
+import { transformerFullLoadA } from '../tables/transformer';
+import type { Graph } from '../topology/graph';
+import type { Runs } from '../topology/runs';
+import { conductorLoadA, type SystemLoads } from './loads';
+import type { AmpacityWorking } from './types';
+
+/** The rating that counts for an OCPD node (240.6): adjustable trips count their maximum setting unless access is restricted. */
+export function effectiveRatingA(node: EquipmentNode): number | null {
+  if (node.kind === 'breaker') {
+    const t = node.adjustableTrip;
+    if (t) return t.restrictedAccess ? t.longTimeSettingA : t.maxSettingA;
+    return node.ratingA ?? null;
+  }
+  if (node.kind === 'fuse') return node.ratingA ?? null;
+  return null;
+}
+
+export const isOcpd = (node: EquipmentNode): boolean => node.kind === 'breaker' || node.kind === 'fuse';
+
+export function nodeLabel(node: EquipmentNode): string {
+  return node.label && node.label.trim() !== '' ? node.label : node.id;
+}
+
+export function terminationOf(g: Graph, v: number): Termination {
+  const none: Termination = {
+    kind: 'none', nodeId: null, label: '', single: false, ratingA: null,
+    atDisconnectingMeans: false, disconnectLocation: null, busType: null, groupedOcpdSumA: null,
+  };
+  if (v < 0) return none;
+  const node = g.nodes[v]!;
+  const base = { ...none, nodeId: node.id, label: nodeLabel(node) };
+  switch (node.kind) {
+    case 'breaker':
+    case 'fuse':
+      return {
+        ...base,
+        kind: 'ocpd',
+        single: node.arrangement === 'single',
+        ratingA: effectiveRatingA(node),
+        atDisconnectingMeans: node.atDisconnectingMeans,
+        disconnectLocation: node.disconnectLocation ?? null,
+      };
+    case 'bus': {
+      let sum = 0;
+      let devices = 0;
+      for (const e of g.outEdges[v]!) {
+        const w = e < 0 ? g.linkTo[-e - 1]! : -1;
+        if (w < 0 || !isOcpd(g.nodes[w]!)) continue;
+        const r = effectiveRatingA(g.nodes[w]!);
+        devices++;
+        sum = r === null || Number.isNaN(sum) ? Number.NaN : sum + r;
+      }
+      return { ...base, kind: 'bus', ratingA: node.busRatingA ?? null, busType: node.busType, groupedOcpdSumA: devices === 0 || Number.isNaN(sum) ? null : sum };
+    }
+    case 'transformer':
+      return { ...base, kind: 'transformer' };
+    case 'load':
+      return { ...base, kind: 'load' };
+    case 'splice':
+      return { ...base, kind: 'splice' };
+    case 'disconnect':
+      return { ...base, kind: 'disconnect', ratingA: node.ratingA ?? null };
+    default:
+      return { ...base, kind: 'none' };
+  }
+}
+
+const RACEWAYS: ReadonlySet<Conductor['wiring']> = new Set(['steel-conduit', 'aluminum-conduit', 'pvc-conduit']);
+
+export interface ConductorAmpacity {
+  working: AmpacityWorking | null;
+  /** Why there is no ampacity: the field and how to fix it. */
+  problem: { field: string; message: string } | null;
+}
+
+export function conductorAmpacity(c: Conductor, edition: CodeEdition): ConductorAmpacity {
+  const r = computeAmpacity({
+    material: c.material,
+    size: c.size,
+    insulation: c.insulation,
+    parallelSets: c.parallelSets,
+    ambientC: c.ambientC,
+    currentCarrying: c.currentCarrying,
+    terminalTempC: c.terminalTempC,
+    edition,
+  });
+  return r.ok ? { working: r.working, problem: null } : { working: null, problem: { field: r.field, message: r.message } };
+}
+
+/**
+ * Facts of each run that do not depend on how anything upstream is judged:
+ * ampacity, length, termination, load, installation. Supply facts (R, the
+ * transformer, the upstream run) are filled in by the classifier.
+ */
+export function baseRunFacts(
+  project: Project,
+  g: Graph,
+  runs: Runs,
+  loads: SystemLoads,
+  ampacities: readonly ConductorAmpacity[],
+): RunFacts[] {
+  const edition = project.project.codeEdition;
+  const site = {
+    qualifiedMaintenance: project.project.qualifiedMaintenance,
+    industrialInstallation: project.project.industrialInstallation,
+    manufacturingWallHeightFt: project.project.manufacturingWallHeightFt ?? null,
+  };
+  const out: RunFacts[] = new Array(runs.members.length);
+  for (let r = 0; r < runs.members.length; r++) {
+    const members = runs.members[r]!;
+    const first = g.conductors[members[0]!]!;
+    let lengthFt: number | null = 0;
+    let ampacityA: number | null = Number.POSITIVE_INFINITY;
+    let small: number | null = null;
+    let inRaceway = true;
+    let damage: RunFacts['damageProtection'] = 'raceway';
+    let outdoors = true;
+    let leaves = false;
+    let beyond = false;
+    let cord = false;
+    for (const ci of members) {
+      const c = g.conductors[ci]!;
+      lengthFt = lengthFt === null || c.lengthFt === undefined ? null : lengthFt + c.lengthFt;
+      const w = ampacities[ci]!.working;
+      if (w === null) ampacityA = null;
+      else if (ampacityA !== null && w.ampacityA < ampacityA) ampacityA = w.ampacityA;
+      if (w?.smallConductorMaxOcpdA != null) small = small === null ? w.smallConductorMaxOcpdA : Math.min(small, w.smallConductorMaxOcpdA);
+      if (!RACEWAYS.has(c.wiring)) inRaceway = false;
+      if (c.damageProtection === 'none') damage = 'none';
+      else if (c.damageProtection === 'other-approved-means' && damage === 'raceway') damage = 'other-approved-means';
+      if (!c.outdoors) outdoors = false;
+      leaves ||= c.leavesEnclosure;
+      beyond ||= c.extendsBeyondEquipment;
+      cord ||= c.multioutletCordAndPlug;
+    }
+    const lastIndex = members[members.length - 1]!;
+    const toNode = g.conductorTo[lastIndex]!;
+    const load = conductorLoadA(loads, g.conductorFrom[members[0]!]!, toNode);
+    out[r] = {
+      edition,
+      conductorIds: members.map((ci) => g.conductors[ci]!.id),
+      material: first.material,
+      size: first.size,
+      parallelSets: first.parallelSets,
+      lengthFt: lengthFt === null ? null : Math.round(lengthFt * 100) / 100,
+      ampacityA,
+      smallConductorMaxOcpdA: small,
+      supplyOcpdA: null,
+      supplyOcpdId: null,
+      supplyOcpdKind: null,
+      termination: terminationOf(g, toNode),
+      loadA: load?.flowingA ?? null,
+      calculatedLoadA: load?.calculatedA ?? null,
+      inRaceway,
+      damageProtection: damage,
+      outdoors,
+      leavesEnclosure: leaves,
+      extendsBeyondEquipment: beyond,
+      multioutletCordAndPlug: cord,
+      hasSplices: members.length > 1,
+      highBay: first.highBay ?? null,
+      site,
+      transformer: null,
+      secondaries: [],
+      generator: null,
+      suppliedFrom: null,
+    };
+  }
+  return out;
+}
+
+export function transformerFacts(g: Graph, v: number, primaryOcpd: { ratingA: number | null; id: string | null }): NonNullable<RunFacts['transformer']> {
+  const t = g.nodes[v]!;
+  if (t.kind !== 'transformer') throw new Error(`node ${t.id} is not a transformer`);
+  return {
+    id: t.id,
+    label: nodeLabel(t),
+    kva: t.kva,
+    primaryVoltsLL: t.primaryVoltsLL,
+    secondaryVoltsLL: t.secondaryVoltsLL,
+    phases: t.phases,
+    connection: t.connection,
+    primaryFlaA: transformerFullLoadA(t.kva, t.primaryVoltsLL, t.phases),
+    secondaryFlaA: transformerFullLoadA(t.kva, t.secondaryVoltsLL, t.phases),
+    primaryOcpdA: primaryOcpd.ratingA,
+    primaryOcpdId: (primaryOcpd.id as NonNullable<RunFacts['transformer']>['primaryOcpdId']) ?? null,
+  };
+}

@@ -1,0 +1,106 @@
+import { cite } from '../tables/citations';
+import type { ConditionResult, ConditionStatus, RuleTrial, Verdict } from '../analyze/types';
+import type { RunFacts } from './facts';
+
+export type RuleFamily = 'protection' | 'feeder-tap' | 'transformer-secondary' | 'service' | 'generator' | 'tap-from-tap';
+
+export interface Check<K extends string = string> {
+  id: K;
+  status: ConditionStatus;
+  data: Record<string, string | number>;
+  /** The condition passed only on a judgement the AHJ must accept (e.g. "other approved means"). */
+  needsAhj?: boolean;
+}
+
+export interface Rule<K extends string = string> {
+  id: string;
+  /** The verdict a conductor gets when this rule holds. */
+  verdict: Verdict;
+  family: RuleFamily;
+  section: string;
+  title: string;
+  /** Condition templates, phrased as the requirement with the values filled in. */
+  messages: Readonly<Record<K, string>>;
+  /** Pure: facts in, every condition out. No lookups beyond `facts`, no I/O, no clock. */
+  check(facts: RunFacts): Check<NoInfer<K>>[];
+}
+
+export function defineRule<K extends string>(rule: Rule<K>): Rule<K> {
+  return rule;
+}
+
+/** A condition that is met when `ok` is true, failed when false, unknown when null. */
+export function when<K extends string>(id: K, ok: boolean | null, data: Record<string, string | number> = {}): Check<K> {
+  return { id, status: ok === null ? 'unknown' : ok ? 'pass' : 'fail', data };
+}
+
+const TEMPLATE = /\{\{(\w+)\}\}/g;
+
+export function renderTemplate(template: string, data: Record<string, string | number>): string {
+  return template.replace(TEMPLATE, (_, key: string) => {
+    const v = data[key];
+    return v === undefined ? '?' : typeof v === 'number' ? formatNumber(v) : v;
+  });
+}
+
+/** Amperes and feet as a reviewer writes them: no float noise, at most two decimals. */
+export function formatNumber(n: number): string {
+  return Number.isInteger(n) ? String(n) : String(Math.round(n * 100) / 100);
+}
+
+export function outcomeOf(checks: readonly Check[]): RuleTrial['outcome'] {
+  let unknown = false;
+  for (const c of checks) {
+    if (c.status === 'fail') return 'fails';
+    if (c.status === 'unknown') unknown = true;
+  }
+  return unknown ? 'unknown' : 'holds';
+}
+
+export function runRule(rule: Rule, facts: RunFacts): RuleTrial {
+  const checks = rule.check(facts);
+  const conditions: ConditionResult[] = checks.map((c) => ({
+    id: c.id,
+    status: c.status,
+    text: renderTemplate(rule.messages[c.id] ?? c.id, c.data),
+    data: c.data,
+    ...(c.needsAhj ? { needsAhj: true } : {}),
+  }));
+  return { ruleId: rule.id, title: rule.title, cites: cite(rule.section, facts.edition), outcome: outcomeOf(checks), conditions };
+}
+
+/** Shared condition: protection from physical damage (240.21(B)(2)–(5), (C)(3)–(6)). */
+export function damageCheck(f: RunFacts): Check<'damage'> {
+  const p = f.damageProtection;
+  return {
+    id: 'damage',
+    status: p === 'none' ? 'fail' : 'pass',
+    data: { protection: p === 'raceway' ? 'a raceway' : p === 'other-approved-means' ? 'other approved means' : 'nothing' },
+    ...(p === 'other-approved-means' ? { needsAhj: true } : {}),
+  };
+}
+
+/** Shared condition: ends in a single breaker or set of fuses. */
+export function singleDeviceCheck(f: RunFacts): Check<'single'> {
+  const t = f.termination;
+  return when('single', t.kind === 'ocpd' && t.single, { termination: t.label || t.kind });
+}
+
+/** Shared condition: the device at the end limits the load to the run's ampacity. */
+export function deviceLimitCheck(f: RunFacts): Check<'device'> {
+  const t = f.termination;
+  if (t.kind !== 'ocpd') return when('device', false, { deviceA: '—', ampacityA: f.ampacityA ?? '?' });
+  return when('device', t.ratingA === null || f.ampacityA === null ? null : t.ratingA <= f.ampacityA, {
+    deviceA: t.ratingA ?? '?',
+    ampacityA: f.ampacityA ?? '?',
+  });
+}
+
+export function atMost(value: number | null, limit: number): boolean | null {
+  return value === null ? null : value <= limit;
+}
+
+/** a ≥ b, or null when either is unknown. Float noise below 1 mA is ignored. */
+export function atLeast(a: number | null, b: number | null): boolean | null {
+  return a === null || b === null ? null : a + 1e-6 >= b;
+}

@@ -1,0 +1,92 @@
+import type {
+  CodeEdition,
+  ConductorId,
+  ConductorSize,
+  Material,
+  NodeId,
+  ProjectSettings,
+} from '../model/schema';
+import type { Verdict } from '../analyze/types';
+
+/** Where a run ends, as the tap rules see it. */
+export interface Termination {
+  kind: 'ocpd' | 'bus' | 'transformer' | 'load' | 'splice' | 'disconnect' | 'none';
+  nodeId: NodeId | null;
+  label: string;
+  /** A single circuit breaker or a single set of fuses (240.21(B)(2)). */
+  single: boolean;
+  /** Rating of the OCPD at the termination, or of the equipment containing it (a bus rating). */
+  ratingA: number | null;
+  atDisconnectingMeans: boolean;
+  disconnectLocation: 'outside' | 'inside-nearest-entrance' | 'elsewhere' | null;
+  busType: 'switchgear' | 'switchboard' | 'panelboard' | 'tap-box' | 'busway' | null;
+  /** For a bus: the sum of the ratings of the OCPDs it feeds directly (240.21(C)(3)); null when one lacks a rating. */
+  groupedOcpdSumA: number | null;
+}
+
+export interface TransformerFacts {
+  id: NodeId;
+  label: string;
+  kva: number;
+  primaryVoltsLL: number;
+  secondaryVoltsLL: number;
+  phases: 1 | 3;
+  connection: string;
+  primaryFlaA: number;
+  secondaryFlaA: number;
+  /** Rating of the OCPD protecting the primary; null when unknown or absent. */
+  primaryOcpdA: number | null;
+  primaryOcpdId: NodeId | null;
+}
+
+export interface GeneratorFacts {
+  id: NodeId;
+  kva: number;
+  nameplateA: number;
+  overloadPreventedByDesign: boolean;
+}
+
+/**
+ * Everything a rule may read about one run (one conductor, or several joined
+ * at pass-through splices). Rules are pure functions of this object.
+ */
+export interface RunFacts {
+  edition: CodeEdition;
+  conductorIds: ConductorId[];
+  material: Material;
+  size: ConductorSize;
+  parallelSets: number;
+  /** Sum of the run's conductor lengths; null when any is missing. */
+  lengthFt: number | null;
+  /** Lowest ampacity along the run; null when a segment's ampacity cannot be found. */
+  ampacityA: number | null;
+  smallConductorMaxOcpdA: number | null;
+  /** R: rating of the OCPD ahead of the run's supply point; null when unknown. */
+  supplyOcpdA: number | null;
+  supplyOcpdId: NodeId | null;
+  supplyOcpdKind: 'breaker' | 'fuse' | null;
+  termination: Termination;
+  /** Sum of the loads served, not factored (A). */
+  loadA: number | null;
+  /** Continuous × 1.25 + noncontinuous (A), 215.2(A)(1). */
+  calculatedLoadA: number | null;
+  /** Every segment is enclosed in a raceway (conduit). */
+  inRaceway: boolean;
+  /** Weakest protection from physical damage along the run. */
+  damageProtection: 'raceway' | 'other-approved-means' | 'none';
+  outdoors: boolean;
+  leavesEnclosure: boolean;
+  extendsBeyondEquipment: boolean;
+  multioutletCordAndPlug: boolean;
+  /** The run passes through splices. */
+  hasSplices: boolean;
+  highBay: { horizontalFt: number; tapHeightAboveFloorFt: number; penetratesWallFloorCeiling: boolean } | null;
+  site: Pick<ProjectSettings, 'qualifiedMaintenance' | 'industrialInstallation'> & { manufacturingWallHeightFt: number | null };
+  /** For a secondary: the transformer supplying it. For a primary run ending at a transformer: that transformer. */
+  transformer: TransformerFacts | null;
+  /** For a primary run ending at a transformer: the transformer's secondary runs. */
+  secondaries: RunFacts[];
+  generator: GeneratorFacts | null;
+  /** When the supply point lies on another run: that run's ids and verdict. */
+  suppliedFrom: { conductorIds: ConductorId[]; verdict: Verdict } | null;
+}

@@ -1,0 +1,34 @@
+import { atLeast, defineRule, when } from './define';
+import { TEN_FOOT_MESSAGES, tenFootChecks } from './tap-10ft';
+
+/** 240.21(C)(2): transformer secondary conductors not over 10 ft. */
+export const secondary10ft = defineRule({
+  id: 'secondary-10ft',
+  verdict: 'secondary-10ft',
+  family: 'transformer-secondary',
+  section: '240.21(C)(2)',
+  title: 'Transformer secondary not over 10 ft',
+  messages: {
+    ...TEN_FOOT_MESSAGES,
+    fieldTenth:
+      'Field installation leaving the enclosure: the {{primaryA}} A primary device × {{vp}} V / {{vs}} V ({{reflectedA}} A) is at most 10 × the ampacity of {{ampacityA}} A.',
+  },
+  check(f) {
+    const out = tenFootChecks(f);
+    if (f.leavesEnclosure) {
+      const t = f.transformer;
+      const P = t?.primaryOcpdA ?? null;
+      const reflected = t && P !== null ? (P * t.primaryVoltsLL) / t.secondaryVoltsLL : null;
+      out.push(
+        when('fieldTenth', atLeast(f.ampacityA === null ? null : f.ampacityA * 10, reflected), {
+          primaryA: P ?? '?',
+          vp: t?.primaryVoltsLL ?? '?',
+          vs: t?.secondaryVoltsLL ?? '?',
+          reflectedA: reflected ?? '?',
+          ampacityA: f.ampacityA ?? '?',
+        }),
+      );
+    }
+    return out;
+  },
+});

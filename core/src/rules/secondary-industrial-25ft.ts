@@ -1,0 +1,35 @@
+import { atLeast, atMost, damageCheck, defineRule, when } from './define';
+
+/** 240.21(C)(3): industrial installations, secondary not over 25 ft to switchgear or a switchboard. */
+export const secondaryIndustrial25ft = defineRule({
+  id: 'secondary-industrial-25ft',
+  verdict: 'secondary-25ft',
+  family: 'transformer-secondary',
+  section: '240.21(C)(3)',
+  title: 'Industrial transformer secondary not over 25 ft',
+  messages: {
+    industrial: 'An industrial installation (project setting).',
+    qualified: 'Maintenance and supervision ensure that only qualified persons service the system.',
+    length: 'The run is {{lengthFt}} ft; at most 25 ft.',
+    switchboard: 'Supplies switchgear or a switchboard (ends in: {{termination}}).',
+    rated: 'The ampacity of {{ampacityA}} A is at least the transformer secondary current rating of {{flaA}} A.',
+    grouped: 'The ampacity of {{ampacityA}} A is at least the sum of the grouped devices it supplies ({{sumA}} A).',
+    damage: 'Protected from physical damage by {{protection}}.',
+  },
+  check(f) {
+    const t = f.termination;
+    const tx = f.transformer;
+    return [
+      when('industrial', f.site.industrialInstallation),
+      when('qualified', f.site.qualifiedMaintenance),
+      when('length', atMost(f.lengthFt, 25), { lengthFt: f.lengthFt ?? '?' }),
+      when('switchboard', t.kind === 'bus' && (t.busType === 'switchgear' || t.busType === 'switchboard'), { termination: t.label || t.kind }),
+      when('rated', atLeast(f.ampacityA, tx?.secondaryFlaA ?? null), {
+        ampacityA: f.ampacityA ?? '?',
+        flaA: tx ? Math.round(tx.secondaryFlaA * 100) / 100 : '?',
+      }),
+      when('grouped', t.kind === 'bus' ? atLeast(f.ampacityA, t.groupedOcpdSumA) : false, { ampacityA: f.ampacityA ?? '?', sumA: t.groupedOcpdSumA ?? '?' }),
+      damageCheck(f),
+    ];
+  },
+});

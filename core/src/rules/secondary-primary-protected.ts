@@ -1,0 +1,36 @@
+import { maxPrimaryOcpd } from '../tables/transformer';
+import { atLeast, defineRule, when } from './define';
+
+/**
+ * 240.21(C)(1): secondary conductors protected by the primary device, for a
+ * 2-wire single-voltage or 3-wire delta-delta secondary, when the primary
+ * device meets 450.3 and does not exceed secondary ampacity × Vs / Vp.
+ */
+export const secondaryPrimaryProtected = defineRule({
+  id: 'secondary-primary-protected',
+  verdict: 'secondary-primary-protected',
+  family: 'transformer-secondary',
+  section: '240.21(C)(1)',
+  title: 'Secondary protected by the primary device',
+  messages: {
+    connection: 'A single-phase 2-wire or three-phase 3-wire delta-delta secondary (here {{connection}}).',
+    primary450: 'The {{primaryA}} A primary device meets Table 450.3(B) for primary-only protection (largest {{allowedA}} A, {{pct}} % of {{flaA}} A).',
+    ratio: 'The {{primaryA}} A primary device is at most secondary ampacity {{ampacityA}} A × {{vs}} V / {{vp}} V ({{maxA}} A).',
+  },
+  check(f) {
+    const t = f.transformer;
+    const P = t?.primaryOcpdA ?? null;
+    const limit = t ? maxPrimaryOcpd(t.primaryFlaA, 'primary-only', f.edition, 'breaker') : null;
+    const maxA = t && f.ampacityA !== null ? (f.ampacityA * t.secondaryVoltsLL) / t.primaryVoltsLL : null;
+    return [
+      when('connection', t ? t.connection === 'single-phase-2w' || t.connection === 'delta-delta-3w' : false, { connection: t?.connection ?? '?' }),
+      when('primary450', limit?.allowedA == null ? null : atLeast(limit.allowedA, P), {
+        primaryA: P ?? '?',
+        allowedA: limit?.allowedA ?? '?',
+        pct: limit?.maxPct ?? '?',
+        flaA: t ? Math.round(t.primaryFlaA * 100) / 100 : '?',
+      }),
+      when('ratio', atLeast(maxA, P), { primaryA: P ?? '?', ampacityA: f.ampacityA ?? '?', vs: t?.secondaryVoltsLL ?? '?', vp: t?.primaryVoltsLL ?? '?', maxA: maxA ?? '?' }),
+    ];
+  },
+});

@@ -1,0 +1,55 @@
+import { atLeast, atMost, defineRule, when } from './define';
+import type { Check } from './define';
+import type { RunFacts } from './facts';
+
+type Id = 'length' | 'load' | 'termination' | 'beyond' | 'raceway' | 'fieldTenth';
+
+/**
+ * The checks that 240.21(B)(1) and 240.21(C)(2) share: at most 10 ft, carries
+ * the load, at least the rating at the termination, stays within the
+ * equipment, in a raceway. The field-installation limit differs and is added by each rule.
+ */
+export function tenFootChecks(f: RunFacts): Check<Id>[] {
+  const t = f.termination;
+  const terminationOk = t.kind === 'ocpd' || t.kind === 'bus' ? atLeast(f.ampacityA, t.ratingA) : false;
+  return [
+    when('length', atMost(f.lengthFt, 10), { lengthFt: f.lengthFt ?? '?' }),
+    when('load', atLeast(f.ampacityA, f.loadA), { ampacityA: f.ampacityA ?? '?', loadA: f.loadA ?? '?' }),
+    when('termination', terminationOk, {
+      ampacityA: f.ampacityA ?? '?',
+      ratingA: t.ratingA ?? '?',
+      termination: t.label || t.kind,
+    }),
+    when('beyond', !f.extendsBeyondEquipment),
+    when('raceway', f.inRaceway),
+  ];
+}
+
+export const TEN_FOOT_MESSAGES = {
+  length: 'The run is {{lengthFt}} ft; at most 10 ft.',
+  load: 'The ampacity of {{ampacityA}} A carries the {{loadA}} A load it serves.',
+  termination: 'The ampacity of {{ampacityA}} A is at least the {{ratingA}} A rating of the device or equipment it ends in ({{termination}}).',
+  beyond: 'Does not extend beyond the equipment it supplies.',
+  raceway: 'Enclosed in a raceway from the tap to the enclosure it ends in.',
+} as const;
+
+/** 240.21(B)(1): feeder tap not over 10 ft. */
+export const tap10ft = defineRule<Id>({
+  id: 'tap-10ft',
+  verdict: 'tap-10ft',
+  family: 'feeder-tap',
+  section: '240.21(B)(1)',
+  title: 'Feeder tap not over 10 ft',
+  messages: {
+    ...TEN_FOOT_MESSAGES,
+    fieldTenth: 'Field installation leaving the enclosure: ampacity {{ampacityA}} A is at least one tenth of the {{feederA}} A feeder device ({{minA}} A).',
+  },
+  check(f) {
+    const out = tenFootChecks(f);
+    if (f.leavesEnclosure) {
+      const minA = f.supplyOcpdA === null ? null : f.supplyOcpdA / 10;
+      out.push(when('fieldTenth', atLeast(f.ampacityA, minA), { ampacityA: f.ampacityA ?? '?', feederA: f.supplyOcpdA ?? '?', minA: minA ?? '?' }));
+    }
+    return out;
+  },
+});

@@ -1,0 +1,29 @@
+import { atLeast, atMost, damageCheck, defineRule, deviceLimitCheck, singleDeviceCheck, when } from './define';
+
+/** 240.21(B)(2): feeder tap not over 25 ft. Round-up (240.4(B)) never applies, so raw values are compared. */
+export const tap25ft = defineRule({
+  id: 'tap-25ft',
+  verdict: 'tap-25ft',
+  family: 'feeder-tap',
+  section: '240.21(B)(2)',
+  title: 'Feeder tap not over 25 ft',
+  messages: {
+    length: 'The run is {{lengthFt}} ft; at most 25 ft.',
+    third: 'The ampacity of {{ampacityA}} A is at least one third of the {{feederA}} A feeder device ({{minA}} A).',
+    load: 'The ampacity of {{ampacityA}} A carries the {{loadA}} A load it serves.',
+    single: 'Ends in a single circuit breaker or a single set of fuses ({{termination}}).',
+    device: 'The device at the end ({{deviceA}} A) limits the load to the ampacity of {{ampacityA}} A.',
+    damage: 'Protected from physical damage by {{protection}}.',
+  },
+  check(f) {
+    const minA = f.supplyOcpdA === null ? null : f.supplyOcpdA / 3;
+    return [
+      when('length', atMost(f.lengthFt, 25), { lengthFt: f.lengthFt ?? '?' }),
+      when('third', atLeast(f.ampacityA, minA), { ampacityA: f.ampacityA ?? '?', feederA: f.supplyOcpdA ?? '?', minA: minA ?? '?' }),
+      when('load', atLeast(f.ampacityA, f.loadA), { ampacityA: f.ampacityA ?? '?', loadA: f.loadA ?? '?' }),
+      singleDeviceCheck(f),
+      deviceLimitCheck(f),
+      damageCheck(f),
+    ];
+  },
+});

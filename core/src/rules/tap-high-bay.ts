@@ -1,0 +1,44 @@
+import { sizeIndexOf } from '../tables/sizes';
+import { atLeast, atMost, damageCheck, defineRule, deviceLimitCheck, singleDeviceCheck, when } from './define';
+
+/** 240.21(B)(4): feeder tap over 25 ft in a high-bay manufacturing building. */
+export const tapHighBay = defineRule({
+  id: 'tap-high-bay',
+  verdict: 'tap-high-bay',
+  family: 'feeder-tap',
+  section: '240.21(B)(4)',
+  title: 'Feeder tap in a high-bay manufacturing building, up to 100 ft',
+  messages: {
+    building: 'A manufacturing building whose walls are over 35 ft high (project: {{wallFt}} ft).',
+    qualified: 'Maintenance and supervision ensure that only qualified persons service the system.',
+    horizontal: 'Horizontal run {{horizontalFt}} ft; at most 25 ft.',
+    total: 'The run is {{lengthFt}} ft; at most 100 ft in all.',
+    third: 'The ampacity of {{ampacityA}} A is at least one third of the {{feederA}} A feeder device ({{minA}} A).',
+    single: 'Ends in a single circuit breaker or a single set of fuses ({{termination}}).',
+    device: 'The device at the end ({{deviceA}} A) limits the load to the ampacity of {{ampacityA}} A.',
+    damage: 'Protected from physical damage by {{protection}}.',
+    noSplices: 'Continuous from end to end, without splices.',
+    minSize: 'At least 6 AWG copper or 4 AWG aluminum (here {{size}} {{material}}).',
+    noPenetration: 'Does not penetrate walls, floors or ceilings.',
+    height: 'The tap is made {{heightFt}} ft above the floor; at least 30 ft.',
+  },
+  check(f) {
+    const minA = f.supplyOcpdA === null ? null : f.supplyOcpdA / 3;
+    const hb = f.highBay;
+    const minSize = sizeIndexOf(f.material === 'cu' ? '6' : '4');
+    return [
+      when('building', (f.site.manufacturingWallHeightFt ?? 0) > 35, { wallFt: f.site.manufacturingWallHeightFt ?? 'not given' }),
+      when('qualified', f.site.qualifiedMaintenance),
+      when('horizontal', hb ? hb.horizontalFt <= 25 : null, { horizontalFt: hb?.horizontalFt ?? '?' }),
+      when('total', atMost(f.lengthFt, 100), { lengthFt: f.lengthFt ?? '?' }),
+      when('third', atLeast(f.ampacityA, minA), { ampacityA: f.ampacityA ?? '?', feederA: f.supplyOcpdA ?? '?', minA: minA ?? '?' }),
+      singleDeviceCheck(f),
+      deviceLimitCheck(f),
+      damageCheck(f),
+      when('noSplices', !f.hasSplices),
+      when('minSize', sizeIndexOf(f.size) >= minSize, { size: f.size, material: f.material }),
+      when('noPenetration', hb ? !hb.penetratesWallFloorCeiling : null),
+      when('height', hb ? hb.tapHeightAboveFloorFt >= 30 : null, { heightFt: hb?.tapHeightAboveFloorFt ?? '?' }),
+    ];
+  },
+});

@@ -1,0 +1,41 @@
+import type { Check } from './define';
+import { damageCheck, defineRule, deviceLimitCheck, singleDeviceCheck, when } from './define';
+import type { RunFacts } from './facts';
+
+type Id = 'outdoors' | 'damage' | 'single' | 'device' | 'atDisconnect' | 'accessible';
+
+/** The checks 240.21(B)(5) and 240.21(C)(4) share: outside conductors of any length. */
+export function outsideChecks(f: RunFacts): Check<Id>[] {
+  const t = f.termination;
+  const location = t.kind === 'ocpd' ? t.disconnectLocation : null;
+  return [
+    when('outdoors', f.outdoors),
+    damageCheck(f),
+    singleDeviceCheck(f),
+    deviceLimitCheck(f),
+    when('atDisconnect', t.kind === 'ocpd' && t.atDisconnectingMeans),
+    when('accessible', location === null ? (t.kind === 'ocpd' ? null : false) : location !== 'elsewhere', {
+      location: location ?? 'not given',
+    }),
+  ];
+}
+
+export const OUTSIDE_MESSAGES = {
+  outdoors: 'Installed outdoors of a building except at the point of termination.',
+  damage: 'Protected from physical damage by {{protection}}.',
+  single: 'Ends in a single circuit breaker or a single set of fuses ({{termination}}).',
+  device: 'The device at the end ({{deviceA}} A) limits the load to the ampacity of {{ampacityA}} A.',
+  atDisconnect: 'That device is part of, or next to, the disconnecting means.',
+  accessible: 'The disconnecting means is readily accessible outside, or inside nearest the point of entrance (here: {{location}}).',
+} as const;
+
+/** 240.21(B)(5): outside feeder taps of unlimited length. */
+export const tapOutside = defineRule<Id>({
+  id: 'tap-outside',
+  verdict: 'tap-outside',
+  family: 'feeder-tap',
+  section: '240.21(B)(5)',
+  title: 'Outside feeder tap, any length',
+  messages: OUTSIDE_MESSAGES,
+  check: outsideChecks,
+});

@@ -1,0 +1,64 @@
+import { atLeast, atMost, defineRule, when } from './define';
+import type { RunFacts } from './facts';
+
+/**
+ * 240.21(B)(3): a feeder tap to a transformer, primary plus secondary at most
+ * 25 ft. Judged on the primary run; its facts carry the transformer and the
+ * secondary runs. The secondary gets the same verdict (240.21(C)(5)).
+ */
+export const tapTransformer = defineRule({
+  id: 'tap-transformer',
+  verdict: 'tap-transformer',
+  family: 'feeder-tap',
+  section: '240.21(B)(3)',
+  title: 'Feeder tap to a transformer, primary plus secondary not over 25 ft',
+  messages: {
+    transformer: 'The tap supplies a transformer ({{transformer}}).',
+    oneSecondary: 'The transformer has one secondary run (it has {{count}}).',
+    primaryThird: 'Primary ampacity {{ampacityA}} A is at least one third of the {{feederA}} A feeder device ({{minA}} A).',
+    secondaryThird:
+      'Secondary ampacity {{secondaryA}} A is at least one third of {{feederA}} A × {{vp}} V / {{vs}} V ({{minA}} A).',
+    length: 'Primary {{primaryFt}} ft plus secondary {{secondaryFt}} ft is {{totalFt}} ft; at most 25 ft.',
+    damage: 'Primary and secondary are protected from physical damage (weakest: {{protection}}).',
+    single: 'The secondary ends in a single circuit breaker or set of fuses ({{termination}}).',
+    device: 'That device ({{deviceA}} A) limits the load to the secondary ampacity of {{secondaryA}} A.',
+  },
+  check(f) {
+    const t = f.transformer;
+    const R = f.supplyOcpdA;
+    const s: RunFacts | undefined = f.secondaries.length === 1 ? f.secondaries[0] : undefined;
+    const minP = R === null ? null : R / 3;
+    const minS = R === null || t === null ? null : (R * t.primaryVoltsLL) / t.secondaryVoltsLL / 3;
+    const total = s && f.lengthFt !== null && s.lengthFt !== null ? f.lengthFt + s.lengthFt : null;
+    const weakest = [f.damageProtection, s?.damageProtection ?? 'raceway'].includes('none')
+      ? 'none'
+      : [f.damageProtection, s?.damageProtection].includes('other-approved-means')
+        ? 'other-approved-means'
+        : 'raceway';
+    const sEnd = s?.termination;
+    return [
+      when('transformer', t !== null, { transformer: t?.label ?? 'none' }),
+      when('oneSecondary', s !== undefined, { count: f.secondaries.length }),
+      when('primaryThird', atLeast(f.ampacityA, minP), { ampacityA: f.ampacityA ?? '?', feederA: R ?? '?', minA: minP ?? '?' }),
+      when('secondaryThird', s ? atLeast(s.ampacityA, minS) : false, {
+        secondaryA: s?.ampacityA ?? '?',
+        feederA: R ?? '?',
+        vp: t?.primaryVoltsLL ?? '?',
+        vs: t?.secondaryVoltsLL ?? '?',
+        minA: minS ?? '?',
+      }),
+      when('length', s ? atMost(total, 25) : false, { primaryFt: f.lengthFt ?? '?', secondaryFt: s?.lengthFt ?? '?', totalFt: total ?? '?' }),
+      {
+        id: 'damage',
+        status: weakest === 'none' ? 'fail' : 'pass',
+        data: { protection: weakest === 'raceway' ? 'a raceway' : weakest === 'other-approved-means' ? 'other approved means' : 'nothing' },
+        ...(weakest === 'other-approved-means' ? { needsAhj: true } : {}),
+      },
+      when('single', sEnd ? sEnd.kind === 'ocpd' && sEnd.single : false, { termination: sEnd ? sEnd.label || sEnd.kind : 'none' }),
+      when('device', sEnd?.kind === 'ocpd' ? atLeast(s?.ampacityA ?? null, sEnd.ratingA) : false, {
+        deviceA: sEnd?.ratingA ?? '?',
+        secondaryA: s?.ampacityA ?? '?',
+      }),
+    ];
+  },
+});

@@ -1,0 +1,87 @@
+import type { BusLink, Conductor, EquipmentNode, Project } from '../model/schema';
+
+/**
+ * The project as arrays indexed by position, built once in linear time.
+ * Edges are encoded as numbers: a conductor `i` is `i`, a bus link `j` is
+ * `-(j + 1)`. No judgement happens here.
+ */
+export interface Graph {
+  nodes: readonly EquipmentNode[];
+  conductors: readonly Conductor[];
+  links: readonly BusLink[];
+  nodeIndex: ReadonlyMap<string, number>;
+  /** Edges arriving at each node (its supply side). */
+  inEdges: readonly number[][];
+  /** Edges leaving each node (its load side). */
+  outEdges: readonly number[][];
+  conductorFrom: Int32Array;
+  conductorTo: Int32Array;
+  linkFrom: Int32Array;
+  linkTo: Int32Array;
+}
+
+export const isLinkEdge = (e: number): boolean => e < 0;
+export const linkIndexOf = (e: number): number => -e - 1;
+
+export function buildGraph(project: Project): Graph {
+  const { nodes, conductors, busLinks: links } = project;
+  const nodeIndex = new Map<string, number>();
+  for (let i = 0; i < nodes.length; i++) nodeIndex.set(nodes[i]!.id, i);
+  const inEdges: number[][] = Array.from({ length: nodes.length }, () => []);
+  const outEdges: number[][] = Array.from({ length: nodes.length }, () => []);
+  const conductorFrom = new Int32Array(conductors.length);
+  const conductorTo = new Int32Array(conductors.length);
+  for (let i = 0; i < conductors.length; i++) {
+    const c = conductors[i]!;
+    const f = nodeIndex.get(c.from) ?? -1;
+    const t = nodeIndex.get(c.to) ?? -1;
+    conductorFrom[i] = f;
+    conductorTo[i] = t;
+    if (f >= 0) outEdges[f]!.push(i);
+    if (t >= 0) inEdges[t]!.push(i);
+  }
+  const linkFrom = new Int32Array(links.length);
+  const linkTo = new Int32Array(links.length);
+  for (let j = 0; j < links.length; j++) {
+    const l = links[j]!;
+    const f = nodeIndex.get(l.from) ?? -1;
+    const t = nodeIndex.get(l.to) ?? -1;
+    linkFrom[j] = f;
+    linkTo[j] = t;
+    if (f >= 0) outEdges[f]!.push(-(j + 1));
+    if (t >= 0) inEdges[t]!.push(-(j + 1));
+  }
+  return { nodes, conductors, links, nodeIndex, inEdges, outEdges, conductorFrom, conductorTo, linkFrom, linkTo };
+}
+
+export function edgeFrom(g: Graph, e: number): number {
+  return e >= 0 ? g.conductorFrom[e]! : g.linkFrom[-e - 1]!;
+}
+
+export function edgeTo(g: Graph, e: number): number {
+  return e >= 0 ? g.conductorTo[e]! : g.linkTo[-e - 1]!;
+}
+
+/**
+ * Kahn's algorithm over nodes. Returns the nodes in supply-to-load order and,
+ * separately, the nodes that lie on or below a cycle (never reached).
+ */
+export function topologicalOrder(g: Graph): { order: Int32Array; count: number; onCycle: Uint8Array } {
+  const n = g.nodes.length;
+  const indegree = new Int32Array(n);
+  for (let i = 0; i < n; i++) indegree[i] = g.inEdges[i]!.length;
+  const order = new Int32Array(n);
+  let head = 0;
+  let tail = 0;
+  for (let i = 0; i < n; i++) if (indegree[i] === 0) order[tail++] = i;
+  while (head < tail) {
+    const v = order[head++]!;
+    for (const e of g.outEdges[v]!) {
+      const w = edgeTo(g, e);
+      if (--indegree[w]! === 0) order[tail++] = w;
+    }
+  }
+  const onCycle = new Uint8Array(n);
+  for (let i = 0; i < n; i++) if (indegree[i]! > 0) onCycle[i] = 1;
+  return { order, count: tail, onCycle };
+}
