@@ -101,7 +101,7 @@ describe('Table 310.16 (NFPA 70-2023 / 2020), transcription checks', () => {
     for (const m of ['cu', 'al'] as const)
       for (const s of TABLE_SIZES) {
         const [a60, a75, a90] = COLUMNS.map((t) => baseAmpacityA(m, s, t));
-        if (a60 === null) continue;
+        if (a60 === null || a60 === undefined) continue;
         expect(a75!, `${m} ${s}`).toBeGreaterThan(a60);
         expect(a90!, `${m} ${s}`).toBeGreaterThan(a75!);
       }
