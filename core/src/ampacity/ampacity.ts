@@ -34,9 +34,10 @@ export type AmpacityResult =
 /*
  * Speed: the analyzer calls computeAmpacity once per conductor, 100 000 times
  * for a large riser. Table reads are array reads (tables/*), citations are
- * shared frozen objects per edition, and the step texts that depend only on
- * table keys are rendered once and kept; only the arithmetic lines are built
- * per call. The working objects are fresh per call, so callers may keep them.
+ * shared frozen objects per edition, and every step text is rendered once
+ * per distinct key and kept (the arithmetic lines in bounded caches). The
+ * working, its steps array and step objects are fresh per call, so callers
+ * may keep them; the Citation objects inside are shared and frozen.
  */
 
 interface EditionCites {
@@ -230,7 +231,9 @@ export function computeAmpacity(input: AmpacityInput): AmpacityResult {
   if (baseA === null) {
     if (si < SIZE_INDEX_14)
       return fail('size', `Table 310.16 starts at 14 AWG and lists no ampacity for ${sizeLabel(size)} (a fixture and control size); use 14 AWG or larger.`);
-    return fail('size', `Table 310.16 lists no ${materialName(material)} ${sizeLabel(size)}; use 12 AWG or larger, or copper.`);
+    // 2023 240.4(D) names 14 AWG copper-clad aluminum (10 A), yet Table 310.16 still has no row for it.
+    const note = material === 'cu-clad-al' && edition === 2023 ? ' (240.4(D) names it, but gives no ampacity)' : '';
+    return fail('size', `Table 310.16 lists no ${materialName(material)} ${sizeLabel(size)}${note}; use 12 AWG or larger, or copper.`);
   }
 
   if (parallelSets > 1 && si < SIZE_INDEX_1_0)

@@ -115,6 +115,10 @@ describe('computeAmpacity: worked cases (NFPA 70-2023 Table 310.16, 310.15, 110.
   it('240.4(D): 14 AWG copper-clad aluminum is 10 A in 2023, but Table 310.16 lists no 14 AWG Cu-clad Al ampacity', () => {
     const r = computeAmpacity(run({ material: 'cu-clad-al', size: '14' }));
     expect(r.ok).toBe(false);
+    if (!r.ok) {
+      expect(r.field).toBe('size');
+      expect(r.message).toContain('240.4(D) names it');
+    }
   });
 
   it('copper-clad aluminum reads the aluminum column: 1/0 THHN at 75 °C terminals = 120 A', () => {
