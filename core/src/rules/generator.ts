@@ -8,7 +8,7 @@ export const generatorRule = defineRule({
   section: '445.13(A)',
   title: 'Generator conductors, terminals to the first OCPD',
   messages: {
-    ampacity: 'The ampacity of {{ampacityA}} A is at least {{pct}} % of the {{nameplateA}} A nameplate current ({{minA}} A).',
+    ampacity: 'Ampacity ({{ampacityA}} A) must be at least {{pct}} % of the nameplate current {{nameplateA}} A ({{minA}} A).',
   },
   check(f) {
     const g = f.generator;

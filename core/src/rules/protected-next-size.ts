@@ -14,11 +14,11 @@ export const protectedNextSize = defineRule({
   section: '240.4(B)',
   title: 'Protected by the next standard rating up',
   messages: {
-    atMost800: 'The device is {{deviceA}} A; round-up is allowed only up to 800 A (240.4(C) above).',
-    notStandard: 'The ampacity of {{ampacityA}} A is not itself a standard rating (240.6(A)).',
-    nextSize: 'The {{deviceA}} A device is no larger than the next standard rating above {{ampacityA}} A, which is {{nextA}} A.',
-    notCordAndPlug: 'Not a multioutlet branch circuit supplying receptacles for cord-and-plug loads.',
-    small: '240.4(D): {{size}} may be protected at no more than {{maxA}} A; the device is {{deviceA}} A.',
+    atMost800: 'The device ({{deviceA}} A) must be 800 A or less; above that 240.4(C) allows no round-up.',
+    notStandard: 'The ampacity ({{ampacityA}} A) must not itself be a standard rating (240.6(A)).',
+    nextSize: 'The device ({{deviceA}} A) must not exceed the next standard rating above the ampacity ({{ampacityA}} A), which is {{nextA}} A.',
+    notCordAndPlug: 'Must not be a multioutlet branch circuit supplying receptacles for cord-and-plug loads.',
+    small: '240.4(D): a {{size}} conductor may be protected at no more than {{maxA}} A; the device is {{deviceA}} A.',
   },
   check(f) {
     const R = f.supplyOcpdA;

@@ -8,8 +8,8 @@ export const protectedRule = defineRule({
   section: '240.4',
   title: 'Protected at its ampacity',
   messages: {
-    rating: 'The {{deviceA}} A device ahead does not exceed the ampacity of {{ampacityA}} A.',
-    small: '240.4(D): {{size}} may be protected at no more than {{maxA}} A; the device is {{deviceA}} A.',
+    rating: 'The device ahead ({{deviceA}} A) must not exceed the ampacity ({{ampacityA}} A).',
+    small: '240.4(D): a {{size}} conductor may be protected at no more than {{maxA}} A; the device is {{deviceA}} A.',
   },
   check(f) {
     const out: Check<'rating' | 'small'>[] = [

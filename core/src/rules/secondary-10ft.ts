@@ -11,7 +11,7 @@ export const secondary10ft = defineRule({
   messages: {
     ...TEN_FOOT_MESSAGES,
     fieldTenth:
-      'Field installation leaving the enclosure: the {{primaryA}} A primary device × {{vp}} V / {{vs}} V ({{reflectedA}} A) is at most 10 × the ampacity of {{ampacityA}} A.',
+      'Field installation leaving the enclosure: the primary device {{primaryA}} A × {{vp}} V / {{vs}} V ({{reflectedA}} A) must not exceed 10 × the ampacity ({{ampacityA}} A).',
   },
   check(f) {
     const out = tenFootChecks(f);

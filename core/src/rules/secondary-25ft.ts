@@ -8,11 +8,11 @@ export const secondary25ft = defineRule({
   section: '240.21(C)(6)',
   title: 'Transformer secondary not over 25 ft',
   messages: {
-    length: 'The run is {{lengthFt}} ft; at most 25 ft.',
-    third: 'The ampacity of {{ampacityA}} A is at least one third of the {{primaryA}} A primary device × {{vp}} V / {{vs}} V ({{minA}} A).',
-    single: 'Ends in a single circuit breaker or a single set of fuses ({{termination}}).',
-    device: 'The device at the end ({{deviceA}} A) limits the load to the ampacity of {{ampacityA}} A.',
-    damage: 'Protected from physical damage by {{protection}}.',
+    length: 'Length {{lengthFt}} ft; must be at most 25 ft.',
+    third: 'Ampacity ({{ampacityA}} A) must be at least one third of the primary device {{primaryA}} A × {{vp}} V / {{vs}} V ({{minA}} A).',
+    single: 'Must end in a single circuit breaker or a single set of fuses (ends in: {{termination}}).',
+    device: 'The device at the end ({{deviceA}} A) must not exceed the ampacity ({{ampacityA}} A).',
+    damage: 'Must be protected from physical damage (here: {{protection}}).',
   },
   check(f) {
     const t = f.transformer;

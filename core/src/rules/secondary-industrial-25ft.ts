@@ -8,13 +8,13 @@ export const secondaryIndustrial25ft = defineRule({
   section: '240.21(C)(3)',
   title: 'Industrial transformer secondary not over 25 ft',
   messages: {
-    industrial: 'An industrial installation (project setting).',
-    qualified: 'Maintenance and supervision ensure that only qualified persons service the system.',
-    length: 'The run is {{lengthFt}} ft; at most 25 ft.',
-    switchboard: 'Supplies switchgear or a switchboard (ends in: {{termination}}).',
-    rated: 'The ampacity of {{ampacityA}} A is at least the transformer secondary current rating of {{flaA}} A.',
-    grouped: 'The ampacity of {{ampacityA}} A is at least the sum of the grouped devices it supplies ({{sumA}} A).',
-    damage: 'Protected from physical damage by {{protection}}.',
+    industrial: 'Must be an industrial installation (project setting).',
+    qualified: 'Maintenance and supervision must ensure that only qualified persons service the system (project setting).',
+    length: 'Length {{lengthFt}} ft; must be at most 25 ft.',
+    switchboard: 'Must supply switchgear or a switchboard (ends in: {{termination}}).',
+    rated: 'Ampacity ({{ampacityA}} A) must be at least the transformer secondary current rating ({{flaA}} A).',
+    grouped: 'Ampacity ({{ampacityA}} A) must be at least the sum of the ratings of the grouped devices it supplies ({{sumA}} A).',
+    damage: 'Must be protected from physical damage (here: {{protection}}).',
   },
   check(f) {
     const t = f.termination;

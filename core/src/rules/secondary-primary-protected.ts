@@ -13,9 +13,9 @@ export const secondaryPrimaryProtected = defineRule({
   section: '240.21(C)(1)',
   title: 'Secondary protected by the primary device',
   messages: {
-    connection: 'A single-phase 2-wire or three-phase 3-wire delta-delta secondary (here {{connection}}).',
-    primary450: 'The {{primaryA}} A primary device meets Table 450.3(B) for primary-only protection (largest {{allowedA}} A, {{pct}} % of {{flaA}} A).',
-    ratio: 'The {{primaryA}} A primary device is at most secondary ampacity {{ampacityA}} A × {{vs}} V / {{vp}} V ({{maxA}} A).',
+    connection: 'Must be a single-phase 2-wire or three-phase 3-wire delta-delta secondary (here: {{connection}}).',
+    primary450: 'The primary device ({{primaryA}} A) must meet Table 450.3(B) for primary-only protection: at most {{allowedA}} A ({{pct}} % of {{flaA}} A, next standard size where allowed).',
+    ratio: 'The primary device ({{primaryA}} A) must not exceed the secondary ampacity {{ampacityA}} A × {{vs}} V / {{vp}} V ({{maxA}} A).',
   },
   check(f) {
     const t = f.transformer;

@@ -13,7 +13,7 @@ export const serviceRule = defineRule({
   section: '230.90(A)',
   title: 'Service conductors, protected at their load end',
   messages: {
-    loadEnd: 'The {{deviceA}} A service device at the load end does not exceed the ampacity of {{ampacityA}} A (or its next standard rating, {{nextA}} A).',
+    loadEnd: 'The service device at the load end ({{deviceA}} A) must not exceed the ampacity ({{ampacityA}} A), or the next standard rating above it ({{nextA}} A).',
   },
   check(f) {
     const t = f.termination;

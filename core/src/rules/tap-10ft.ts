@@ -17,8 +17,11 @@ export function tenFootChecks(f: RunFacts): Check<Id>[] {
     when('load', atLeast(f.ampacityA, f.loadA), { ampacityA: f.ampacityA ?? '?', loadA: f.loadA ?? '?' }),
     when('termination', terminationOk, {
       ampacityA: f.ampacityA ?? '?',
-      ratingA: t.ratingA ?? '?',
       termination: t.label || t.kind,
+      rating:
+        t.kind === 'ocpd' || t.kind === 'bus'
+          ? t.ratingA === null ? 'rating not given' : `${t.ratingA} A`
+          : `a ${t.kind}, not a device or rated equipment`,
     }),
     when('beyond', !f.extendsBeyondEquipment),
     when('raceway', f.inRaceway),
@@ -26,11 +29,11 @@ export function tenFootChecks(f: RunFacts): Check<Id>[] {
 }
 
 export const TEN_FOOT_MESSAGES = {
-  length: 'The run is {{lengthFt}} ft; at most 10 ft.',
-  load: 'The ampacity of {{ampacityA}} A carries the {{loadA}} A load it serves.',
-  termination: 'The ampacity of {{ampacityA}} A is at least the {{ratingA}} A rating of the device or equipment it ends in ({{termination}}).',
-  beyond: 'Does not extend beyond the equipment it supplies.',
-  raceway: 'Enclosed in a raceway from the tap to the enclosure it ends in.',
+  length: 'Length {{lengthFt}} ft; must be at most 10 ft.',
+  load: 'Ampacity ({{ampacityA}} A) must be at least the load it serves ({{loadA}} A).',
+  termination: 'Ampacity ({{ampacityA}} A) must be at least the rating of the device or equipment it ends in: {{termination}}, {{rating}}.',
+  beyond: 'Must not extend beyond the equipment it supplies.',
+  raceway: 'Must be enclosed in a raceway from the tap to the enclosure it ends in.',
 } as const;
 
 /** 240.21(B)(1): feeder tap not over 10 ft. */
@@ -42,7 +45,7 @@ export const tap10ft = defineRule<Id>({
   title: 'Feeder tap not over 10 ft',
   messages: {
     ...TEN_FOOT_MESSAGES,
-    fieldTenth: 'Field installation leaving the enclosure: ampacity {{ampacityA}} A is at least one tenth of the {{feederA}} A feeder device ({{minA}} A).',
+    fieldTenth: 'Field installation leaving the enclosure: ampacity ({{ampacityA}} A) must be at least one tenth of the {{feederA}} A feeder device ({{minA}} A).',
   },
   check(f) {
     const out = tenFootChecks(f);

@@ -8,12 +8,12 @@ export const tap25ft = defineRule({
   section: '240.21(B)(2)',
   title: 'Feeder tap not over 25 ft',
   messages: {
-    length: 'The run is {{lengthFt}} ft; at most 25 ft.',
-    third: 'The ampacity of {{ampacityA}} A is at least one third of the {{feederA}} A feeder device ({{minA}} A).',
-    load: 'The ampacity of {{ampacityA}} A carries the {{loadA}} A load it serves.',
-    single: 'Ends in a single circuit breaker or a single set of fuses ({{termination}}).',
-    device: 'The device at the end ({{deviceA}} A) limits the load to the ampacity of {{ampacityA}} A.',
-    damage: 'Protected from physical damage by {{protection}}.',
+    length: 'Length {{lengthFt}} ft; must be at most 25 ft.',
+    third: 'Ampacity ({{ampacityA}} A) must be at least one third of the {{feederA}} A feeder device ({{minA}} A).',
+    load: 'Ampacity ({{ampacityA}} A) must be at least the load it serves ({{loadA}} A).',
+    single: 'Must end in a single circuit breaker or a single set of fuses (ends in: {{termination}}).',
+    device: 'The device at the end ({{deviceA}} A) must not exceed the ampacity ({{ampacityA}} A).',
+    damage: 'Must be protected from physical damage (here: {{protection}}).',
   },
   check(f) {
     const minA = f.supplyOcpdA === null ? null : f.supplyOcpdA / 3;

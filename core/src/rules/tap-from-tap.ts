@@ -12,7 +12,7 @@ export const tapFromTap = defineRule({
   section: '240.21',
   title: 'No tap from a tap',
   messages: {
-    supply: 'The supply point is not on a conductor that is itself a tap or secondary (it is on {{upstream}}, judged "{{upstreamVerdict}}").',
+    supply: 'The supply point must not lie on a conductor that is itself a tap or secondary (it lies on {{upstream}}: {{upstreamVerdict}}).',
   },
   check(f) {
     const s = f.suppliedFrom;

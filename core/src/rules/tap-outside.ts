@@ -21,12 +21,12 @@ export function outsideChecks(f: RunFacts): Check<Id>[] {
 }
 
 export const OUTSIDE_MESSAGES = {
-  outdoors: 'Installed outdoors of a building except at the point of termination.',
-  damage: 'Protected from physical damage by {{protection}}.',
-  single: 'Ends in a single circuit breaker or a single set of fuses ({{termination}}).',
-  device: 'The device at the end ({{deviceA}} A) limits the load to the ampacity of {{ampacityA}} A.',
-  atDisconnect: 'That device is part of, or next to, the disconnecting means.',
-  accessible: 'The disconnecting means is readily accessible outside, or inside nearest the point of entrance (here: {{location}}).',
+  outdoors: 'Must be outdoors of a building except at the point of termination.',
+  damage: 'Must be protected from physical damage (here: {{protection}}).',
+  single: 'Must end in a single circuit breaker or a single set of fuses (ends in: {{termination}}).',
+  device: 'The device at the end ({{deviceA}} A) must not exceed the ampacity ({{ampacityA}} A).',
+  atDisconnect: 'That device must be part of, or next to, the disconnecting means.',
+  accessible: 'The disconnecting means must be readily accessible outside, or inside nearest the point of entrance (here: {{location}}).',
 } as const;
 
 /** 240.21(B)(5): outside feeder taps of unlimited length. */

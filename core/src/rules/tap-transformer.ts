@@ -13,15 +13,15 @@ export const tapTransformer = defineRule({
   section: '240.21(B)(3)',
   title: 'Feeder tap to a transformer, primary plus secondary not over 25 ft',
   messages: {
-    transformer: 'The tap supplies a transformer ({{transformer}}).',
-    oneSecondary: 'The transformer has one secondary run (it has {{count}}).',
-    primaryThird: 'Primary ampacity {{ampacityA}} A is at least one third of the {{feederA}} A feeder device ({{minA}} A).',
+    transformer: 'The tap must supply a transformer (here: {{transformer}}).',
+    oneSecondary: 'The transformer must have one secondary run (it has {{count}}).',
+    primaryThird: 'Primary ampacity ({{ampacityA}} A) must be at least one third of the {{feederA}} A feeder device ({{minA}} A).',
     secondaryThird:
-      'Secondary ampacity {{secondaryA}} A is at least one third of {{feederA}} A × {{vp}} V / {{vs}} V ({{minA}} A).',
-    length: 'Primary {{primaryFt}} ft plus secondary {{secondaryFt}} ft is {{totalFt}} ft; at most 25 ft.',
-    damage: 'Primary and secondary are protected from physical damage (weakest: {{protection}}).',
-    single: 'The secondary ends in a single circuit breaker or set of fuses ({{termination}}).',
-    device: 'That device ({{deviceA}} A) limits the load to the secondary ampacity of {{secondaryA}} A.',
+      'Secondary ampacity ({{secondaryA}} A) must be at least one third of {{feederA}} A × {{vp}} V / {{vs}} V ({{minA}} A).',
+    length: 'Primary {{primaryFt}} ft plus secondary {{secondaryFt}} ft = {{totalFt}} ft; must be at most 25 ft.',
+    damage: 'Primary and secondary must be protected from physical damage (weakest: {{protection}}).',
+    single: 'The secondary must end in a single circuit breaker or set of fuses (ends in: {{termination}}).',
+    device: 'That device ({{deviceA}} A) must not exceed the secondary ampacity ({{secondaryA}} A).',
   },
   check(f) {
     const t = f.transformer;

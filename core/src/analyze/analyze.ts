@@ -1,0 +1,123 @@
+import { CAUTION } from '../caution';
+import type { Project } from '../model/schema';
+import { buildGraph, topologicalOrder } from '../topology/graph';
+import { buildRuns } from '../topology/runs';
+import { classifyRuns } from './classify';
+import { collectFindings } from './findings';
+import { rollUpLoads } from './loads';
+import { suggestFixes } from './fixes';
+import {
+  SEVERITIES,
+  VERDICTS,
+  type AnalysisReport,
+  type ConductorReport,
+  type DeviceRef,
+  type Fix,
+  type Severity,
+  type Verdict,
+} from './types';
+import { describeRun } from './summary';
+import { baseRunFacts, conductorAmpacity, effectiveRatingA, nodeLabel } from './facts';
+
+/**
+ * The whole analysis, top to bottom. Every stage is a pure function; odd
+ * networks (cycles, islands, several supplies, missing data) come out as
+ * findings and "incomplete" verdicts, never as exceptions.
+ */
+export function analyze(project: Project): AnalysisReport {
+  const edition = project.project.codeEdition;
+  const graph = buildGraph(project);
+  const { order, count, onCycle } = topologicalOrder(graph);
+  const loads = rollUpLoads(graph, order, count);
+  const runs = buildRuns(graph);
+  const ampacities = graph.conductors.map((c) => conductorAmpacity(c, edition));
+  const base = baseRunFacts(project, graph, runs, loads, ampacities);
+  const verdicts = classifyRuns(project, graph, runs, order, count, onCycle, base);
+
+  const runFixes: Fix[][] = verdicts.map((v, r) => {
+    if (v.verdict !== 'unprotected' && v.verdict !== 'tap-from-tap') return [];
+    const members = runs.members[r]!.map((ci) => graph.conductors[ci]!);
+    return suggestFixes(v.facts, members, v.verdict === 'tap-from-tap' ? [] : v.candidates, v.tried, edition);
+  });
+
+  const findings = collectFindings(project, graph, runs, verdicts, runFixes, ampacities, onCycle);
+  const findingIdsBySubject = new Map<string, string[]>();
+  for (const f of findings) {
+    if (f.subject.kind !== 'conductor') continue;
+    const list = findingIdsBySubject.get(f.subject.id) ?? [];
+    list.push(f.id);
+    findingIdsBySubject.set(f.subject.id, list);
+  }
+
+  const conductors: ConductorReport[] = graph.conductors.map((c, ci) => {
+    const r = runs.runOf[ci]!;
+    const v = verdicts[r]!;
+    const device: DeviceRef | null =
+      v.deviceNode >= 0
+        ? { id: graph.nodes[v.deviceNode]!.id, kind: graph.nodes[v.deviceNode]!.kind, label: nodeLabel(graph.nodes[v.deviceNode]!), ratingA: effectiveRatingA(graph.nodes[v.deviceNode]!) }
+        : null;
+    const supplyNode = 'node' in v.supply ? v.supply.node : -1;
+    const isTap = v.family === 'fed-by-ocpd' && v.verdict !== 'protected' && v.verdict !== 'protected-next-size' && v.verdict !== 'incomplete';
+    const tapLengthFt =
+      v.verdict === 'tap-transformer' && v.facts.secondaries.length === 1 && v.facts.lengthFt !== null && v.facts.secondaries[0]!.lengthFt !== null
+        ? v.facts.lengthFt + v.facts.secondaries[0]!.lengthFt
+        : isTap || v.family === 'on-tap' || v.family === 'secondary'
+          ? v.facts.lengthFt
+          : null;
+    return {
+      id: c.id,
+      label: c.label ?? c.id,
+      from: c.from,
+      to: c.to,
+      verdict: v.verdict,
+      rule: v.rule?.id ?? null,
+      cites: v.rule ? { code: 'NEC', edition, section: v.rule.section } : null,
+      role: v.role,
+      summary: describeRun(v),
+      size: c.size,
+      material: c.material,
+      parallelSets: c.parallelSets,
+      lengthFt: c.lengthFt ?? null,
+      ampacity: ampacities[ci]!.working,
+      upstreamDevice: device,
+      supply: {
+        kind: v.supply.kind === 'ocpd' || v.supply.kind === 'utility' || v.supply.kind === 'generator' || v.supply.kind === 'transformer' ? v.supply.kind : v.deviceNode >= 0 ? 'ocpd' : 'none',
+        id: supplyNode >= 0 && v.supply.kind !== 'none' && v.supply.kind !== 'several' && v.supply.kind !== 'cycle' ? graph.nodes[supplyNode]!.id : device?.id ?? null,
+      },
+      chain: v.facts.conductorIds,
+      tapLengthFt,
+      load: v.facts.loadA === null || v.facts.calculatedLoadA === null ? null : { flowingA: v.facts.loadA, calculatedA: v.facts.calculatedLoadA },
+      tried: v.tried,
+      fixes: runFixes[r]!,
+      findingIds: findingIdsBySubject.get(c.id) ?? [],
+    };
+  });
+
+  const byVerdict = Object.fromEntries(VERDICTS.map((v) => [v, 0])) as Record<Verdict, number>;
+  for (const c of conductors) byVerdict[c.verdict]++;
+  const bySeverity = Object.fromEntries(SEVERITIES.map((s) => [s, 0])) as Record<Severity, number>;
+  for (const f of findings) bySeverity[f.severity]++;
+
+  return {
+    format: 'linewright-analysis',
+    version: 1,
+    projectName: project.project.name,
+    edition,
+    assumptions: assumptionsFor(project),
+    caution: CAUTION,
+    conductors,
+    findings,
+    counts: { conductors: conductors.length, byVerdict, bySeverity },
+  };
+}
+
+function assumptionsFor(project: Project): string[] {
+  const terminals = new Set(project.conductors.map((c) => c.terminalTempC));
+  return [
+    `Code edition: NFPA 70 (NEC) ${project.project.codeEdition}, without local amendments.`,
+    `Termination temperature ratings used (110.14(C)): ${[...terminals].sort().map((t) => `${t} °C`).join(', ') || 'none'}; 75 °C is the default for equipment marked 60/75 °C (common practice). Confirm the equipment's markings.`,
+    'Ampacities from Table 310.16 (not more than three current-carrying conductors in raceway, cable or earth, 30 °C basis), corrected by Table 310.15(B)(1) and adjusted by Table 310.15(C)(1).',
+    'Loads roll up as volt-amperes: continuous × 1.25 plus noncontinuous for the calculated load (215.2(A)(1)); tap conductors are compared with the unfactored sum. Single-phase loads on three-phase systems are taken as line to line.',
+    'Tap lengths are conductor lengths as entered, not raceway lengths.',
+  ];
+}

@@ -1,0 +1,112 @@
+import type { Conductor, CodeEdition, ConductorSize } from '../model/schema';
+import { CONDUCTOR_SIZES } from '../model/schema';
+import { outcomeOf, type Rule } from '../rules/define';
+import type { RunFacts } from '../rules/facts';
+import { sizeIndexOf, sizeLabel, materialLabel } from '../tables/sizes';
+import { isStandardRating, largestStandardRatingAtMost, nextStandardRatingAbove } from '../tables/standardRatings';
+import { conductorAmpacity } from './facts';
+import type { Fix, RuleTrial } from './types';
+
+/** Longest run each length-limited rule allows. */
+const LENGTH_LIMITS: Readonly<Record<string, { ft: number; conditions: readonly string[] }>> = {
+  'tap-10ft': { ft: 10, conditions: ['length'] },
+  'tap-25ft': { ft: 25, conditions: ['length'] },
+  'tap-high-bay': { ft: 100, conditions: ['total'] },
+  'secondary-10ft': { ft: 10, conditions: ['length'] },
+  'secondary-industrial-25ft': { ft: 25, conditions: ['length'] },
+  'secondary-25ft': { ft: 25, conditions: ['length'] },
+};
+
+/**
+ * The cheapest changes that make an unacceptable run acceptable: the smallest
+ * conductor that qualifies under each rule (same material, insulation, sets
+ * and conditions), the longest length a length rule allows the present size,
+ * and an OCPD at the supply point sized to the run.
+ */
+export function suggestFixes(
+  facts: RunFacts,
+  members: readonly Conductor[],
+  rules: readonly Rule[],
+  trials: readonly RuleTrial[],
+  edition: CodeEdition,
+): Fix[] {
+  const fixes: Fix[] = [];
+  const ids = facts.conductorIds;
+  const resized = new Map<string, ConductorSize>();
+  const start = sizeIndexOf(facts.size) + 1;
+  for (let i = start; i < CONDUCTOR_SIZES.length && resized.size < rules.length; i++) {
+    const size = CONDUCTOR_SIZES[i]!;
+    let ampacityA: number | null = Number.POSITIVE_INFINITY;
+    let small: number | null = null;
+    for (const c of members) {
+      const w = conductorAmpacity({ ...c, size }, edition).working;
+      if (w === null) { ampacityA = null; break; }
+      ampacityA = Math.min(ampacityA, w.ampacityA);
+      if (w.smallConductorMaxOcpdA !== null) small = small === null ? w.smallConductorMaxOcpdA : Math.min(small, w.smallConductorMaxOcpdA);
+    }
+    if (ampacityA === null) continue;
+    const trial: RunFacts = { ...facts, size, ampacityA, smallConductorMaxOcpdA: small };
+    for (const rule of rules) {
+      if (resized.has(rule.id)) continue;
+      if (outcomeOf(rule.check(trial)) === 'holds') resized.set(rule.id, size);
+    }
+    // Once the run is protected outright, no larger size says anything new.
+    if (resized.has('protected') || resized.has('protected-next-size')) break;
+  }
+  const seen = new Set<ConductorSize>();
+  const bySize = [...resized.entries()].sort((a, b) => sizeIndexOf(a[1]) - sizeIndexOf(b[1]));
+  for (const [ruleId, size] of bySize) {
+    if (seen.has(size)) continue;
+    seen.add(size);
+    const rule = rules.find((r) => r.id === ruleId)!;
+    const sets = facts.parallelSets > 1 ? `${facts.parallelSets} sets of ` : '';
+    fixes.push({
+      kind: 'resize',
+      conductorIds: ids,
+      size,
+      material: facts.material,
+      parallelSets: facts.parallelSets,
+      forRule: ruleId,
+      label: `Upsize to ${sets}${sizeLabel(size)} ${materialLabel(facts.material)}: meets ${rule.section} (${rule.title.toLowerCase()}).`,
+    });
+  }
+  for (const t of trials) {
+    const limit = LENGTH_LIMITS[t.ruleId];
+    if (!limit || t.outcome !== 'fails') continue;
+    const failing = t.conditions.filter((c) => c.status !== 'pass');
+    if (failing.length > 0 && failing.every((c) => limit.conditions.includes(c.id))) {
+      fixes.push({
+        kind: 'shorten',
+        conductorIds: ids,
+        maxLengthFt: limit.ft,
+        forRule: t.ruleId,
+        label: `Shorten the run to ${limit.ft} ft or less: then it meets ${t.cites.section} at its present size.`,
+      });
+    }
+  }
+  const ocpd = largestProtectingRatingA(facts, edition);
+  if (ocpd !== null && ids[0] !== undefined) {
+    fixes.push({
+      kind: 'add-ocpd',
+      conductorId: ids[0],
+      ratingA: ocpd,
+      label: `Add a ${ocpd} A breaker at the supply end of ${ids[0]}: the run is then protected at its ampacity (240.4).`,
+    });
+  }
+  return fixes;
+}
+
+/** The largest rating that protects a run of this ampacity under 240.4, including (B) and (D). */
+export function largestProtectingRatingA(facts: Pick<RunFacts, 'ampacityA' | 'smallConductorMaxOcpdA' | 'multioutletCordAndPlug'>, edition: CodeEdition): number | null {
+  const A = facts.ampacityA;
+  if (A === null) return null;
+  let best = largestStandardRatingAtMost(A, edition, 'breaker');
+  if (!facts.multioutletCordAndPlug && !isStandardRating(A, edition, 'breaker')) {
+    const up = nextStandardRatingAbove(A, edition, 'breaker');
+    if (up !== null && up <= 800) best = up;
+  }
+  if (best !== null && facts.smallConductorMaxOcpdA !== null && best > facts.smallConductorMaxOcpdA) {
+    best = largestStandardRatingAtMost(facts.smallConductorMaxOcpdA, edition, 'breaker');
+  }
+  return best;
+}
