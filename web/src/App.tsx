@@ -1,0 +1,113 @@
+import { useEffect, useState } from 'react';
+import { ReactFlowProvider } from '@xyflow/react';
+import { Canvas } from './canvas/Canvas';
+import { copySelection, deleteSelection, paste, redo, saveJson, selectAll, undo, zoomToFit, type CommandContext } from './editor/commands';
+import { EMPTY_SELECTION } from './editor/store';
+import { EditorContext } from './editor/useEditor';
+import { DetailsPanel } from './panels/DetailsPanel';
+import { CautionDialog, LoadErrorsDialog, Notices } from './panels/Dialogs';
+import { FindingsPanel } from './panels/FindingsPanel';
+import { Footer } from './panels/Footer';
+import { Legend, Palette } from './panels/Palette';
+import { Toolbar, openFile } from './panels/Toolbar';
+
+function isTyping(t: EventTarget | null): boolean {
+  const el = t as HTMLElement | null;
+  if (!el || !el.tagName) return false;
+  return el.tagName === 'INPUT' || el.tagName === 'TEXTAREA' || el.tagName === 'SELECT' || el.isContentEditable;
+}
+
+/** Keyboard shortcuts; all of them call the same commands as the buttons. */
+function useShortcuts(ctx: CommandContext, openPicker: () => void) {
+  useEffect(() => {
+    const onKey = (e: KeyboardEvent) => {
+      const mod = e.ctrlKey || e.metaKey;
+      const k = e.key.toLowerCase();
+      if (mod && k === 's') {
+        e.preventDefault();
+        saveJson.run(ctx);
+        return;
+      }
+      if (mod && k === 'o') {
+        e.preventDefault();
+        openPicker();
+        return;
+      }
+      if (isTyping(e.target) || document.querySelector('dialog[open]')) return;
+      if (mod && k === 'z' && !e.shiftKey) undo.run(ctx);
+      else if (mod && ((k === 'z' && e.shiftKey) || k === 'y')) redo.run(ctx);
+      else if (mod && k === 'c') copySelection.run(ctx);
+      else if (mod && k === 'v') paste.run(ctx);
+      else if (mod && k === 'a') selectAll.run(ctx);
+      else if (!mod && (e.key === 'Delete' || e.key === 'Backspace')) deleteSelection.run(ctx);
+      else if (!mod && k === 'f') zoomToFit.run(ctx);
+      else if (e.key === 'Escape') ctx.store.setSelection(EMPTY_SELECTION);
+      else return;
+      e.preventDefault();
+    };
+    window.addEventListener('keydown', onKey);
+    return () => window.removeEventListener('keydown', onKey);
+  }, [ctx, openPicker]);
+}
+
+/** Drop a project file anywhere on the window to open it. */
+function useFileDrop(ctx: CommandContext): boolean {
+  const [over, setOver] = useState(false);
+  useEffect(() => {
+    const hasFiles = (e: DragEvent) => e.dataTransfer?.types.includes('Files') ?? false;
+    const onOver = (e: DragEvent) => {
+      if (!hasFiles(e)) return;
+      e.preventDefault();
+      setOver(true);
+    };
+    const onLeave = (e: DragEvent) => {
+      if (e.relatedTarget === null) setOver(false);
+    };
+    const onDrop = (e: DragEvent) => {
+      if (!hasFiles(e)) return;
+      e.preventDefault();
+      setOver(false);
+      const f = e.dataTransfer?.files[0];
+      if (f) void openFile(ctx, f);
+    };
+    window.addEventListener('dragover', onOver);
+    window.addEventListener('dragleave', onLeave);
+    window.addEventListener('drop', onDrop);
+    return () => {
+      window.removeEventListener('dragover', onOver);
+      window.removeEventListener('dragleave', onLeave);
+      window.removeEventListener('drop', onDrop);
+    };
+  }, [ctx]);
+  return over;
+}
+
+export function App({ ctx, savedAt }: { ctx: CommandContext; savedAt: string | null }) {
+  const dropping = useFileDrop(ctx);
+  useShortcuts(ctx, () => document.querySelector<HTMLInputElement>('[data-testid="open-file-input"]')?.click());
+  return (
+    <EditorContext.Provider value={ctx}>
+      <ReactFlowProvider>
+        <div className="lw-app">
+          <Toolbar />
+          <aside className="lw-left">
+            <Palette />
+            <FindingsPanel />
+            <Legend />
+          </aside>
+          <main className="lw-main">
+            <Canvas />
+          </main>
+          <aside className="lw-right">
+            <DetailsPanel />
+          </aside>
+          <Footer savedAt={savedAt} />
+        </div>
+        {dropping && <div className="lw-drop-overlay" data-testid="drop-overlay">Drop a Linewright project file to open it</div>}
+        <Notices />
+        <CautionDialog />
+        <LoadErrorsDialog />
+      </ReactFlowProvider>
+    </EditorContext.Provider>
+  );
+}

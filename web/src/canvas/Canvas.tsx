@@ -1,0 +1,160 @@
+import { useCallback, useEffect, useMemo, useRef } from 'react';
+import {
+  Background, BackgroundVariant, ConnectionLineType, Controls, MiniMap, ReactFlow, useReactFlow,
+  type Connection, type EdgeChange, type IsValidConnection, type NodeChange,
+} from '@xyflow/react';
+import type { EquipmentKind } from '@linewright/core';
+import { EQUIPMENT_KINDS } from '@linewright/core';
+import { addEquipment, connect, moveNodes } from '../editor/commands';
+import { kindSpec } from '../editor/equipment';
+import { useCommandContext, useEditorState } from '../editor/useEditor';
+import { edgeTypes } from '../edges';
+import { nodeTypes } from '../nodes';
+import { KIND_DRAG_TYPE } from '../panels/Palette';
+import { FlowDeriver, selectionAfter, type FlowEdge, type FlowNode } from './flowElements';
+
+/** Above this many elements only what is on screen is rendered. */
+const CULL_FROM = 300;
+const GRID = 20;
+
+export function Canvas() {
+  const ctx = useCommandContext();
+  const { store } = ctx;
+  const deriver = useMemo(() => new FlowDeriver(), []);
+  const nodes = useEditorState((s) => deriver.nodes(s));
+  const edges = useEditorState((s) => deriver.edges(s));
+  const snap = useEditorState((s) => s.view.snapToGrid);
+  const frameRequest = useEditorState((s) => s.view.frameRequest);
+  const rf = useReactFlow<FlowNode, FlowEdge>();
+  const wrapper = useRef<HTMLDivElement>(null);
+
+  // Give commands a way to read and move the view without knowing React Flow.
+  useEffect(() => {
+    ctx.canvas = {
+      visibleCentre: () => {
+        const r = wrapper.current?.getBoundingClientRect();
+        if (!r) return { x: 0, y: 0 };
+        return rf.screenToFlowPosition({ x: r.left + r.width / 2, y: r.top + r.height / 2 });
+      },
+      fitAll: () => {
+        // Wait a frame so React Flow holds the newly committed nodes.
+        requestAnimationFrame(() => void rf.fitView({ padding: 0.12, maxZoom: 1.2, duration: 0 }));
+      },
+    };
+    return () => {
+      ctx.canvas = null;
+    };
+  }, [ctx, rf]);
+
+  useEffect(() => {
+    if (!frameRequest) return;
+    requestAnimationFrame(() => void rf.fitView({ nodes: frameRequest.nodeIds.map((id) => ({ id })), padding: 0.6, maxZoom: 1.1, duration: 250 }));
+  }, [frameRequest, rf]);
+
+  const onNodesChange = useCallback(
+    (changes: NodeChange<FlowNode>[]) => {
+      const sel: { id: string; selected: boolean }[] = [];
+      let dragging: Map<string, { x: number; y: number }> | null = null;
+      let finished: Map<string, { x: number; y: number }> | null = null;
+      for (const c of changes) {
+        if (c.type === 'select') sel.push({ id: c.id, selected: c.selected });
+        else if (c.type === 'position' && c.position) {
+          if (c.dragging) (dragging ??= new Map()).set(c.id, c.position);
+          else (finished ??= new Map()).set(c.id, c.position);
+        }
+      }
+      const s = store.getState();
+      if (sel.length) store.setSelection(selectionAfter(s.view.selection, sel, []));
+      if (dragging) {
+        // In flight: view state only. No history, no autosave, no analysis until release.
+        const merged = new Map(s.view.dragPositions ?? []);
+        for (const [id, p] of dragging) merged.set(id, p);
+        store.setView({ dragPositions: merged });
+      }
+      if (finished) {
+        const all = new Map(s.view.dragPositions ?? []);
+        for (const [id, p] of finished) all.set(id, p);
+        if (!moveNodesChanged(s.doc.nodes, all)) store.setView({ dragPositions: null });
+        else moveNodes.run(ctx, all);
+      }
+    },
+    [ctx, store],
+  );
+
+  const onEdgesChange = useCallback(
+    (changes: EdgeChange<FlowEdge>[]) => {
+      const sel = changes.flatMap((c) => (c.type === 'select' ? [{ id: c.id, selected: c.selected }] : []));
+      if (sel.length) store.setSelection(selectionAfter(store.getState().view.selection, [], sel));
+    },
+    [store],
+  );
+
+  const onConnect = useCallback(
+    (c: Connection) => {
+      connect.run(ctx, { from: c.source, to: c.target, as: store.getState().view.connectAs });
+    },
+    [ctx, store],
+  );
+
+  const isValidConnection: IsValidConnection<FlowEdge> = useCallback((c) => c.source !== c.target, []);
+
+  const onDragOver = useCallback((e: React.DragEvent) => {
+    if (e.dataTransfer.types.includes(KIND_DRAG_TYPE)) {
+      e.preventDefault();
+      e.dataTransfer.dropEffect = 'copy';
+    }
+  }, []);
+
+  const onDrop = useCallback(
+    (e: React.DragEvent) => {
+      const kind = e.dataTransfer.getData(KIND_DRAG_TYPE) as EquipmentKind;
+      if (!EQUIPMENT_KINDS.includes(kind)) return;
+      e.preventDefault();
+      e.stopPropagation();
+      const spec = kindSpec(kind);
+      const p = rf.screenToFlowPosition({ x: e.clientX, y: e.clientY });
+      addEquipment.run(ctx, { kind, position: { x: p.x - spec.wireX, y: p.y - spec.height / 2 } });
+    },
+    [ctx, rf],
+  );
+
+  const big = nodes.length + edges.length > CULL_FROM;
+  return (
+    <div className="lw-canvas" ref={wrapper} onDragOver={onDragOver} onDrop={onDrop} data-testid="canvas">
+      <ReactFlow<FlowNode, FlowEdge>
+        nodes={nodes}
+        edges={edges}
+        nodeTypes={nodeTypes}
+        edgeTypes={edgeTypes}
+        onNodesChange={onNodesChange}
+        onEdgesChange={onEdgesChange}
+        onConnect={onConnect}
+        isValidConnection={isValidConnection}
+        connectionLineType={ConnectionLineType.SmoothStep}
+        snapToGrid={snap}
+        snapGrid={[GRID, GRID]}
+        deleteKeyCode={null}
+        multiSelectionKeyCode={['Control', 'Meta']}
+        selectionKeyCode="Shift"
+        onlyRenderVisibleElements={big}
+        minZoom={0.03}
+        maxZoom={3}
+        fitView
+        fitViewOptions={{ padding: 0.12, maxZoom: 1.2 }}
+        elevateEdgesOnSelect
+      >
+        <Background variant={BackgroundVariant.Dots} gap={GRID} size={1} color="#c9ccd1" />
+        <Controls showInteractive={false} position="bottom-left" />
+        {!big && <MiniMap pannable zoomable position="bottom-right" nodeStrokeWidth={2} ariaLabel="Overview of the drawing" />}
+      </ReactFlow>
+    </div>
+  );
+}
+
+function moveNodesChanged(nodes: readonly { id: string; position?: { x: number; y: number } }[], moved: Map<string, { x: number; y: number }>): boolean {
+  for (const n of nodes) {
+    const p = moved.get(n.id);
+    if (p && (n.position?.x !== p.x || n.position?.y !== p.y)) return true;
+  }
+  return false;
+}

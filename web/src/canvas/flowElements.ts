@@ -1,0 +1,199 @@
+import type { Edge, Node } from '@xyflow/react';
+import type { BusLink, Conductor, EquipmentNode, Project } from '@linewright/core';
+import { indexReport, type ReportIndex } from '../analysis/reportIndex';
+import { FAMILY_LOOK, VERDICT_TEXT, verdictFamily } from '../analysis/verdicts';
+import { conductorLine, kindSpec } from '../editor/equipment';
+import type { EditorState, Selection } from '../editor/store';
+import type { ConductorEdgeData } from '../edges/ConductorEdge';
+import type { BusLinkEdgeData } from '../edges/BusLinkEdge';
+import type { EquipmentNodeData } from '../nodes/NodeFrame';
+
+export type FlowNode = Node<EquipmentNodeData>;
+export type FlowEdge = Edge<ConductorEdgeData> | Edge<BusLinkEdgeData>;
+
+export const conductorEdgeId = (id: string) => `c:${id}`;
+export const busLinkEdgeId = (id: string) => `b:${id}`;
+
+interface NodeEntry {
+  src: EquipmentNode;
+  selected: boolean;
+  x: number;
+  y: number;
+  worst: EquipmentNodeData['worst'];
+  count: number;
+  out: FlowNode;
+}
+interface EdgeEntry {
+  src: Conductor | BusLink;
+  selected: boolean;
+  key: string;
+  out: FlowEdge;
+}
+
+/**
+ * Derives React Flow nodes and edges from the document, the selection, an
+ * in-flight drag and the report, so they are never stored twice. Each element
+ * keeps its previous object while nothing it shows changed: immer's structural
+ * sharing makes that an identity check, and React Flow then re-renders only
+ * the elements that did change (after an edit, usually one node and the few
+ * conductors whose verdict moved).
+ */
+export class FlowDeriver {
+  private nodeCache = new Map<string, NodeEntry>();
+  private edgeCache = new Map<string, EdgeEntry>();
+  private lastNodesKey: unknown[] = [];
+  private lastNodes: FlowNode[] = [];
+  private lastEdgesKey: unknown[] = [];
+  private lastEdges: FlowEdge[] = [];
+  private kindById = new Map<string, EquipmentNode['kind']>();
+  private kindFor: Project['nodes'] | null = null;
+
+  nodes(s: EditorState): FlowNode[] {
+    const key = [s.doc.nodes, s.view.selection, s.view.dragPositions, s.report];
+    if (sameKey(key, this.lastNodesKey)) return this.lastNodes;
+    const idx = indexReport(s.report);
+    const sel = new Set(s.view.selection.nodes);
+    const drag = s.view.dragPositions;
+    const next = new Map<string, NodeEntry>();
+    const out: FlowNode[] = new Array(s.doc.nodes.length);
+    let i = 0;
+    for (const n of s.doc.nodes) {
+      const p = drag?.get(n.id) ?? n.position ?? { x: 0, y: 0 };
+      const selected = sel.has(n.id);
+      const worst = idx.worstByElement.get(n.id) ?? null;
+      const count = idx.findingsByElement.get(n.id)?.length ?? 0;
+      const prev = this.nodeCache.get(n.id);
+      let e: NodeEntry;
+      if (prev && prev.src === n && prev.selected === selected && prev.x === p.x && prev.y === p.y && prev.worst === worst && prev.count === count) e = prev;
+      else {
+        const spec = kindSpec(n.kind);
+        const data: EquipmentNodeData =
+          prev && prev.src === n && prev.worst === worst && prev.count === count ? prev.out.data : { node: n, worst, findingCount: count };
+        e = {
+          src: n, selected, x: p.x, y: p.y, worst, count,
+          out: { id: n.id, type: n.kind, position: { x: p.x, y: p.y }, data, selected, width: spec.width, height: spec.height },
+        };
+      }
+      next.set(n.id, e);
+      out[i++] = e.out;
+    }
+    this.nodeCache = next;
+    this.lastNodesKey = key;
+    this.lastNodes = out;
+    return out;
+  }
+
+  edges(s: EditorState): FlowEdge[] {
+    const key = [s.doc.conductors, s.doc.busLinks, s.doc.nodes, s.view.selection, s.report];
+    if (sameKey(key, this.lastEdgesKey)) return this.lastEdges;
+    const idx = indexReport(s.report);
+    const kinds = this.kinds(s.doc.nodes);
+    const selC = new Set(s.view.selection.conductors);
+    const selB = new Set(s.view.selection.busLinks);
+    const next = new Map<string, EdgeEntry>();
+    const out: FlowEdge[] = [];
+    for (const c of s.doc.conductors) {
+      const e = this.conductorEdge(c, selC.has(c.id), idx, kinds, s.report !== null);
+      if (e) {
+        next.set(e.out.id, e);
+        out.push(e.out);
+      }
+    }
+    for (const b of s.doc.busLinks) {
+      const e = this.busLinkEdge(b, selB.has(b.id), kinds);
+      if (e) {
+        next.set(e.out.id, e);
+        out.push(e.out);
+      }
+    }
+    this.edgeCache = next;
+    this.lastEdgesKey = key;
+    this.lastEdges = out;
+    return out;
+  }
+
+  private kinds(nodes: Project['nodes']): Map<string, EquipmentNode['kind']> {
+    if (this.kindFor !== nodes) {
+      this.kindById = new Map(nodes.map((n) => [n.id, n.kind]));
+      this.kindFor = nodes;
+    }
+    return this.kindById;
+  }
+
+  private conductorEdge(c: Conductor, selected: boolean, idx: ReportIndex, kinds: Map<string, EquipmentNode['kind']>, checked: boolean): EdgeEntry | null {
+    const fk = kinds.get(c.from);
+    const tk = kinds.get(c.to);
+    if (!fk || !tk) return null;
+    const id = conductorEdgeId(c.id);
+    const r = idx.conductor.get(c.id);
+    const verdict = r?.verdict ?? null;
+    const family = checked ? verdictFamily(verdict) : 'pending';
+    const verdictText = verdict ? VERDICT_TEXT[verdict] : checked ? 'not checked' : 'checking…';
+    const line = (c.label ? `${clip(c.label, 18)} · ` : '') + conductorLine(c);
+    const key = `${verdict}|${family}|${line}|${fk}|${tk}`;
+    const prev = this.edgeCache.get(id);
+    if (prev && prev.src === c && prev.selected === selected && prev.key === key) return prev;
+    const data: ConductorEdgeData =
+      prev && prev.key === key && prev.out.type === 'conductor' ? (prev.out.data as ConductorEdgeData) : { conductorId: c.id, line, verdict, verdictText, family };
+    return {
+      src: c, selected, key,
+      out: {
+        id, type: 'conductor', source: c.from, target: c.to,
+        sourceHandle: kindSpec(fk).ports.out, targetHandle: kindSpec(tk).ports.in,
+        selected, data, ariaLabel: `Conductor ${line}, ${verdictText}`,
+        style: { color: FAMILY_LOOK[family].colour },
+      },
+    };
+  }
+
+  private busLinkEdge(b: BusLink, selected: boolean, kinds: Map<string, EquipmentNode['kind']>): EdgeEntry | null {
+    const fk = kinds.get(b.from);
+    const tk = kinds.get(b.to);
+    if (!fk || !tk) return null;
+    const id = busLinkEdgeId(b.id);
+    const key = `${fk}|${tk}`;
+    const prev = this.edgeCache.get(id);
+    if (prev && prev.src === b && prev.selected === selected && prev.key === key) return prev;
+    return {
+      src: b, selected, key,
+      out: {
+        id, type: 'busLink', source: b.from, target: b.to,
+        sourceHandle: kindSpec(fk).ports.out, targetHandle: kindSpec(tk).ports.in,
+        selected, data: { busLinkId: b.id }, ariaLabel: `Bus link${b.label ? ` ${b.label}` : ''}`,
+      },
+    };
+  }
+}
+
+function sameKey(a: unknown[], b: unknown[]): boolean {
+  return a.length === b.length && a.every((x, i) => x === b[i]);
+}
+
+/** Applies React Flow select changes to our selection (view state). */
+export function selectionAfter(sel: Selection, nodeChanges: { id: string; selected: boolean }[], edgeChanges: { id: string; selected: boolean }[]): Selection {
+  let nodes = sel.nodes;
+  let conductors = sel.conductors;
+  let busLinks = sel.busLinks;
+  if (nodeChanges.length) {
+    const s = new Set(nodes);
+    for (const c of nodeChanges) c.selected ? s.add(c.id) : s.delete(c.id);
+    nodes = [...s];
+  }
+  if (edgeChanges.length) {
+    const cs = new Set(conductors);
+    const bs = new Set(busLinks);
+    for (const c of edgeChanges) {
+      const raw = c.id.slice(2);
+      const set = c.id.startsWith('c:') ? cs : bs;
+      c.selected ? set.add(raw) : set.delete(raw);
+    }
+    conductors = [...cs];
+    busLinks = [...bs];
+  }
+  return { nodes, conductors, busLinks };
+}
+
+/** Long user labels would cover the drawing; the full label is in the details panel. */
+function clip(s: string, n: number): string {
+  return s.length <= n ? s : s.slice(0, n - 1).trimEnd() + '…';
+}

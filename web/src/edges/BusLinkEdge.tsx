@@ -1,0 +1,30 @@
+import { memo } from 'react';
+import { getSmoothStepPath, type Edge, type EdgeProps } from '@xyflow/react';
+
+export interface BusLinkEdgeData extends Record<string, unknown> {
+  busLinkId: string;
+}
+
+/**
+ * A bus link inside equipment (e.g. a main breaker to its panelboard bus):
+ * drawn as a double bar with no length and no label, unlike a conductor.
+ */
+export const BusLinkEdge = memo(function BusLinkEdge(props: EdgeProps<Edge<BusLinkEdgeData, 'busLink'>>) {
+  const [path] = getSmoothStepPath({
+    sourceX: props.sourceX,
+    sourceY: props.sourceY,
+    sourcePosition: props.sourcePosition,
+    targetX: props.targetX,
+    targetY: props.targetY,
+    targetPosition: props.targetPosition,
+    borderRadius: 0,
+  });
+  return (
+    <g data-testid={`buslink-${props.data?.busLinkId ?? props.id}`}>
+      {props.selected && <path d={path} className="lw-edge-halo" />}
+      <path d={path} className="lw-buslink-outer" />
+      <path d={path} className="lw-buslink-inner" />
+      <path d={path} className="react-flow__edge-interaction" fill="none" strokeOpacity={0} strokeWidth={14} />
+    </g>
+  );
+});

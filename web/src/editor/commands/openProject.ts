@@ -1,0 +1,36 @@
+import { coreLoadProject } from '../../analysis/coreApi';
+import { layoutTopToBottom } from '../../canvas/layout';
+import { defineCommand } from './types';
+
+export interface OpenArg {
+  fileName: string;
+  text: string;
+}
+
+/**
+ * Opens a project file. A file that fails to load shows the core's errors and
+ * leaves the current drawing untouched; a good one replaces it as one undoable
+ * step. Equipment without positions is arranged first.
+ */
+export const openProject = defineCommand<OpenArg>({
+  id: 'open-project',
+  label: 'Open project file',
+  shortcut: 'Ctrl+O',
+  canRun: () => true,
+  run: async (ctx, { fileName, text }) => {
+    const r = coreLoadProject(text);
+    if (!r.ok) {
+      ctx.store.setView({ loadErrors: { fileName, errors: r.errors } });
+      return;
+    }
+    let doc = r.project;
+    if (doc.nodes.some((n) => !n.position)) {
+      const pos = await layoutTopToBottom(doc);
+      doc = { ...doc, nodes: doc.nodes.map((n) => (n.position ? n : { ...n, position: pos.get(n.id) ?? { x: 0, y: 0 } })) };
+    }
+    ctx.store.setView({ loadErrors: null });
+    ctx.store.replaceDocument(`Open ${fileName}`, doc);
+    ctx.store.notify(`Opened ${fileName}: ${doc.nodes.length} equipment, ${doc.conductors.length} conductors.${r.notices.length ? ' ' + r.notices.join(' ') : ''}`);
+    ctx.canvas?.fitAll();
+  },
+});

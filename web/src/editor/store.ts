@@ -1,0 +1,212 @@
+import { applyPatches, enablePatches, produceWithPatches, type Draft } from 'immer';
+import type { AnalysisReport, LoadError, Project } from '@linewright/core';
+import { History, type HistoryIntent } from './history';
+
+enablePatches();
+
+/** What is selected on the drawing. View state: never saved, never undone. */
+export interface Selection {
+  nodes: readonly string[];
+  conductors: readonly string[];
+  busLinks: readonly string[];
+}
+export const EMPTY_SELECTION: Selection = Object.freeze({ nodes: [], conductors: [], busLinks: [] });
+
+export type ConnectAs = 'conductor' | 'busLink';
+
+export interface Notice {
+  id: number;
+  tone: 'info' | 'error';
+  text: string;
+}
+
+export interface ViewState {
+  selection: Selection;
+  snapToGrid: boolean;
+  /** Kind of connection a drag from port to port makes. */
+  connectAs: ConnectAs;
+  notices: readonly Notice[];
+  /** Errors from the last file that failed to open; the drawing was kept. */
+  loadErrors: { fileName: string; errors: LoadError[] } | null;
+  cautionOpen: boolean;
+  /** Positions of nodes while a drag is in flight; committed as one edit on release. */
+  dragPositions: ReadonlyMap<string, { x: number; y: number }> | null;
+  /** Bumped to ask the canvas to frame these element ids. */
+  frameRequest: { seq: number; nodeIds: readonly string[] } | null;
+}
+
+export interface EditorState {
+  doc: Project;
+  /** Bumped by every committed document change (edit, undo, redo, open). */
+  docVersion: number;
+  view: ViewState;
+  report: AnalysisReport | null;
+  /** docVersion the report was computed from. */
+  reportVersion: number;
+  analysisError: string | null;
+  history: { undoLabel: string | null; redoLabel: string | null; undoDepth: number; redoDepth: number };
+}
+
+type Listener = () => void;
+
+/**
+ * The editor's one store: the Project document plus view state beside it.
+ * Every document change goes through `edit`, which states its history intent
+ * (tldraw's batch `history` option, excalidraw's captureUpdate). No React here,
+ * so the same store drives the UI, the unit tests and the bench hook.
+ */
+export class EditorStore {
+  private state: EditorState;
+  private readonly history = new History();
+  private readonly listeners = new Set<Listener>();
+  private readonly docListeners = new Set<(s: EditorState) => void>();
+  private noticeSeq = 0;
+  private frameSeq = 0;
+
+  constructor(doc: Project) {
+    this.state = {
+      doc,
+      docVersion: 1,
+      view: {
+        selection: EMPTY_SELECTION,
+        snapToGrid: true,
+        connectAs: 'conductor',
+        notices: [],
+        loadErrors: null,
+        cautionOpen: false,
+        dragPositions: null,
+        frameRequest: null,
+      },
+      report: null,
+      reportVersion: 0,
+      analysisError: null,
+      history: this.historySummary(),
+    };
+  }
+
+  getState = (): EditorState => this.state;
+
+  subscribe = (l: Listener): (() => void) => {
+    this.listeners.add(l);
+    return () => this.listeners.delete(l);
+  };
+
+  /** Called after every committed document change (not for view changes). */
+  onDocumentCommitted(l: (s: EditorState) => void): () => void {
+    this.docListeners.add(l);
+    return () => this.docListeners.delete(l);
+  }
+
+  private set(next: EditorState, docChanged: boolean): void {
+    this.state = next;
+    for (const l of this.listeners) l();
+    if (docChanged) for (const l of this.docListeners) l(next);
+  }
+
+  private historySummary(): EditorState['history'] {
+    return {
+      undoLabel: this.history.undoLabel,
+      redoLabel: this.history.redoLabel,
+      undoDepth: this.history.undoDepth,
+      redoDepth: this.history.redoDepth,
+    };
+  }
+
+  /**
+   * The one way to change the document. A recipe that changes nothing leaves
+   * no undo step. Returns true when the document changed.
+   */
+  edit(label: string, recipe: (d: Draft<Project>) => void, intent: HistoryIntent = 'record'): boolean {
+    const [next, redo, undo] = produceWithPatches(this.state.doc, recipe);
+    if (redo.length === 0) return false;
+    if (intent !== 'skip') this.history.push({ label, redo, undo }, intent === 'merge');
+    this.commitDoc(next);
+    return true;
+  }
+
+  private commitDoc(doc: Project, extra?: Partial<EditorState>): void {
+    const s = this.state;
+    const view = { ...s.view, selection: pruneSelection(s.view.selection, doc), dragPositions: null };
+    this.set({ ...s, ...extra, doc, docVersion: s.docVersion + 1, view, history: this.historySummary() }, true);
+  }
+
+  undo(): boolean {
+    const e = this.history.takeUndo();
+    if (!e) return false;
+    this.commitDoc(applyPatches(this.state.doc, e.undo));
+    return true;
+  }
+
+  redo(): boolean {
+    const e = this.history.takeRedo();
+    if (!e) return false;
+    this.commitDoc(applyPatches(this.state.doc, e.redo));
+    return true;
+  }
+
+  /** Replace the whole document (open a file, new drawing) as one undoable step. */
+  replaceDocument(label: string, doc: Project, intent: HistoryIntent = 'record'): void {
+    this.edit(label, () => doc as Draft<Project>, intent);
+    this.setSelection(EMPTY_SELECTION);
+  }
+
+  /** Start afresh with no history (first load, restore from autosave). */
+  resetDocument(doc: Project): void {
+    this.history.clear();
+    this.commitDoc(doc, { view: { ...this.state.view, selection: EMPTY_SELECTION } });
+  }
+
+  setView(patch: Partial<ViewState>): void {
+    this.set({ ...this.state, view: { ...this.state.view, ...patch } }, false);
+  }
+
+  setSelection(selection: Selection): void {
+    const cur = this.state.view.selection;
+    if (sameSelection(cur, selection)) return;
+    this.setView({ selection });
+  }
+
+  setReport(report: AnalysisReport | null, forVersion: number, error: string | null = null): void {
+    this.set({ ...this.state, report, reportVersion: forVersion, analysisError: error }, false);
+  }
+
+  notify(text: string, tone: Notice['tone'] = 'info'): number {
+    const id = ++this.noticeSeq;
+    this.setView({ notices: [...this.state.view.notices, { id, tone, text }].slice(-4) });
+    return id;
+  }
+
+  dismissNotice(id: number): void {
+    this.setView({ notices: this.state.view.notices.filter((n) => n.id !== id) });
+  }
+
+  requestFrame(nodeIds: readonly string[]): void {
+    this.setView({ frameRequest: { seq: ++this.frameSeq, nodeIds } });
+  }
+}
+
+function sameList(a: readonly string[], b: readonly string[]): boolean {
+  return a.length === b.length && a.every((x, i) => x === b[i]);
+}
+
+export function sameSelection(a: Selection, b: Selection): boolean {
+  return sameList(a.nodes, b.nodes) && sameList(a.conductors, b.conductors) && sameList(a.busLinks, b.busLinks);
+}
+
+/** Drop selected ids that no longer exist (after delete, undo). */
+function pruneSelection(sel: Selection, doc: Project): Selection {
+  if (sel.nodes.length + sel.conductors.length + sel.busLinks.length === 0) return sel;
+  const n = new Set<string>(doc.nodes.map((x) => x.id));
+  const c = new Set<string>(doc.conductors.map((x) => x.id));
+  const b = new Set<string>(doc.busLinks.map((x) => x.id));
+  const next = {
+    nodes: sel.nodes.filter((id) => n.has(id)),
+    conductors: sel.conductors.filter((id) => c.has(id)),
+    busLinks: sel.busLinks.filter((id) => b.has(id)),
+  };
+  return sameSelection(next, sel) ? sel : next;
+}
+
+export function isEmptySelection(s: Selection): boolean {
+  return s.nodes.length === 0 && s.conductors.length === 0 && s.busLinks.length === 0;
+}

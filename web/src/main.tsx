@@ -1,0 +1,83 @@
+import '@xyflow/react/dist/style.css';
+import './styles.css';
+import { StrictMode, useSyncExternalStore } from 'react';
+import { createRoot } from 'react-dom/client';
+import demoSample from '../../samples/demo-clinic.json';
+import { coreLoadProject } from './analysis/coreApi';
+import { startAnalysis } from './analysis/scheduler';
+import { App } from './App';
+import { emptyProject, type CommandContext } from './editor/commands';
+import { EditorStore } from './editor/store';
+import { CAUTION_SEEN_KEY } from './panels/Dialogs';
+import { loadDraft, startAutosave } from './persistence/autosave';
+import { downloadFile } from './persistence/download';
+import { installTestHook } from './testHook';
+
+/** Time as a reader wants it in a notice: 22:41:03. */
+function clock(iso: string): string {
+  return new Date(iso).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit', second: '2-digit' });
+}
+
+async function boot() {
+  const store = new EditorStore(emptyProject());
+  const ctx: CommandContext = { store, canvas: null, clipboard: { fragment: null, pasteCount: 0 }, download: downloadFile };
+
+  // Restore the autosaved drawing if there is one; otherwise open on the demo so a newcomer sees a checked one-line.
+  const draft = await loadDraft();
+  let restored = false;
+  if (draft) {
+    const r = coreLoadProject(draft.project);
+    if (r.ok) {
+      store.resetDocument(r.project);
+      store.notify(`Restored your drawing from this browser (autosaved ${clock(draft.savedAt)}).`);
+      restored = true;
+    } else {
+      store.notify(`The drawing autosaved in this browser could not be read (${r.errors[0]?.message ?? 'unknown problem'}); opened the demo instead.`, 'error');
+    }
+  }
+  if (!restored) {
+    const r = coreLoadProject(demoSample);
+    if (r.ok) store.resetDocument(r.project);
+    else store.notify(`The demo project did not load: ${r.errors.map((e) => `${e.path} ${e.message}`).join('; ')}`, 'error');
+  }
+
+  let seen = false;
+  try {
+    seen = localStorage.getItem(CAUTION_SEEN_KEY) === '1';
+  } catch {
+    seen = false;
+  }
+  if (!seen) store.setView({ cautionOpen: true });
+
+  startAnalysis(store);
+  let savedAt: string | null = draft && restored ? clock(draft.savedAt) : null;
+  const savedListeners = new Set<() => void>();
+  startAutosave(
+    store,
+    (iso) => {
+      savedAt = clock(iso);
+      for (const l of savedListeners) l();
+    },
+    (e) => store.notify(`Autosave failed: ${e.message}. Save the project file to keep your work.`, 'error'),
+  );
+  installTestHook(ctx);
+
+  function Root() {
+    const s = useSyncExternalStore(
+      (l) => {
+        savedListeners.add(l);
+        return () => savedListeners.delete(l);
+      },
+      () => savedAt,
+    );
+    return <App ctx={ctx} savedAt={s} />;
+  }
+
+  createRoot(document.getElementById('root')!).render(
+    <StrictMode>
+      <Root />
+    </StrictMode>,
+  );
+}
+
+void boot();

@@ -1,0 +1,90 @@
+import { indexReport } from '../analysis/reportIndex';
+import { deleteSelection } from '../editor/commands';
+import { kindSpec } from '../editor/equipment';
+import { useCommandContext, useEditorState } from '../editor/useEditor';
+import { ElementForm } from './ElementForm';
+import { BUS_LINK_FIELDS, CONDUCTOR_FIELDS, NODE_FIELDS, PROJECT_FIELDS } from './fields';
+import { FindingCard } from './FindingItem';
+import { VerdictSummary, WorkingPanel } from './WorkingPanel';
+
+/** The right-hand panel: edits whatever is selected, or the project when nothing is. */
+export function DetailsPanel() {
+  const ctx = useCommandContext();
+  const sel = useEditorState((s) => s.view.selection);
+  const doc = useEditorState((s) => s.doc);
+  const report = useEditorState((s) => s.report);
+  const count = sel.nodes.length + sel.conductors.length + sel.busLinks.length;
+
+  if (count === 0) {
+    return (
+      <div className="lw-details" data-testid="details">
+        <h2>Project</h2>
+        <ElementForm key="project" target={{ kind: 'project' }} value={doc.project} fields={PROJECT_FIELDS} />
+        <p className="lw-muted">
+          {doc.nodes.length} equipment · {doc.conductors.length} conductors · {doc.busLinks.length} bus links. Select something on the drawing to edit it.
+        </p>
+        {report && report.assumptions.length > 0 && (
+          <>
+            <h4>Assumptions of the check</h4>
+            <ul className="lw-assumptions">{report.assumptions.map((a, i) => <li key={i}>{a}</li>)}</ul>
+          </>
+        )}
+      </div>
+    );
+  }
+  if (count > 1) {
+    return (
+      <div className="lw-details" data-testid="details">
+        <h2>{count} elements selected</h2>
+        <p className="lw-muted">
+          {sel.nodes.length} equipment, {sel.conductors.length} conductors, {sel.busLinks.length} bus links. Drag to move them together; Ctrl+C copies them.
+        </p>
+        <button type="button" onClick={() => deleteSelection.run(ctx)}>Delete selected</button>
+      </div>
+    );
+  }
+  const idx = indexReport(report);
+  if (sel.nodes.length === 1) {
+    const n = doc.nodes.find((x) => x.id === sel.nodes[0]);
+    if (!n) return null;
+    const findings = (idx.findingsByElement.get(n.id) ?? []).filter((f) => f.subject.kind === 'node' && f.subject.id === n.id);
+    return (
+      <div className="lw-details" data-testid="details">
+        <h2>{kindSpec(n.kind).title}</h2>
+        <ElementForm key={`n:${n.id}`} target={{ kind: 'node', id: n.id }} value={n} fields={NODE_FIELDS[n.kind]} />
+        {findings.length > 0 && (
+          <>
+            <h4>Findings</h4>
+            {findings.map((f) => <FindingCard key={f.id} finding={f} />)}
+          </>
+        )}
+      </div>
+    );
+  }
+  if (sel.conductors.length === 1) {
+    const c = doc.conductors.find((x) => x.id === sel.conductors[0]);
+    if (!c) return null;
+    const from = doc.nodes.find((x) => x.id === c.from);
+    const to = doc.nodes.find((x) => x.id === c.to);
+    return (
+      <div className="lw-details" data-testid="details">
+        <h2>Conductor</h2>
+        <p className="lw-muted">From {from?.label || c.from} (load side) to {to?.label || c.to} (line side)</p>
+        <VerdictSummary conductorId={c.id} />
+        <ElementForm key={`c:${c.id}`} target={{ kind: 'conductor', id: c.id }} value={c} fields={CONDUCTOR_FIELDS} />
+        <WorkingPanel conductorId={c.id} />
+      </div>
+    );
+  }
+  const b = doc.busLinks.find((x) => x.id === sel.busLinks[0]);
+  if (!b) return null;
+  return (
+    <div className="lw-details" data-testid="details">
+      <h2>Bus link</h2>
+      <p className="lw-muted">
+        Inside equipment, no length: {doc.nodes.find((x) => x.id === b.from)?.label || b.from} → {doc.nodes.find((x) => x.id === b.to)?.label || b.to}
+      </p>
+      <ElementForm key={`b:${b.id}`} target={{ kind: 'busLink', id: b.id }} value={b} fields={BUS_LINK_FIELDS} />
+    </div>
+  );
+}

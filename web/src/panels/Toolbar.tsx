@@ -1,0 +1,96 @@
+import { useRef } from 'react';
+import {
+  arrangeDrawing, copySelection, deleteSelection, exportPdf, newDrawing, openProject, paste, redo, saveJson, toggleSnap, undo, zoomToFit,
+  type Command,
+} from '../editor/commands';
+import { useCommandContext, useEditorState } from '../editor/useEditor';
+
+function CmdButton({ cmd, testId, children }: { cmd: Command; testId: string; children?: React.ReactNode }) {
+  const ctx = useCommandContext();
+  // Re-render when anything a canRun reads may have changed.
+  useEditorState((s) => s.history);
+  useEditorState((s) => s.view.selection);
+  useEditorState((s) => s.report);
+  const enabled = cmd.canRun(ctx, undefined);
+  return (
+    <button type="button" data-testid={testId} disabled={!enabled} onClick={() => void cmd.run(ctx, undefined)} title={cmd.shortcut ? `${cmd.label} (${cmd.shortcut})` : cmd.label}>
+      {children ?? cmd.label}
+    </button>
+  );
+}
+
+/** Reads a chosen or dropped file and hands it to the open command. */
+export async function openFile(ctx: ReturnType<typeof useCommandContext>, file: File): Promise<void> {
+  const text = await file.text();
+  await openProject.run(ctx, { fileName: file.name, text });
+}
+
+export function Toolbar() {
+  const ctx = useCommandContext();
+  const fileInput = useRef<HTMLInputElement>(null);
+  const name = useEditorState((s) => s.doc.project.name);
+  const history = useEditorState((s) => s.history);
+  const snap = useEditorState((s) => s.view.snapToGrid);
+  const connectAs = useEditorState((s) => s.view.connectAs);
+  return (
+    <header className="lw-top">
+      <div className="lw-brand">
+        <svg className="lw-logo" width={18} height={18} viewBox="0 0 18 18" aria-hidden="true">
+          <line x1={9} y1={1} x2={9} y2={17} />
+          <line x1={3} y1={6} x2={15} y2={6} />
+          <path d="M 9 9 A 4 4 0 0 1 9 15" />
+        </svg>
+        Linewright
+        <span className="lw-project-name" data-testid="project-name" title={name}>{name}</span>
+      </div>
+      <nav className="lw-tools" aria-label="Commands">
+        <div className="lw-tool-group" role="group" aria-label="File">
+          <CmdButton cmd={newDrawing} testId="cmd-new">New</CmdButton>
+          <button type="button" data-testid="cmd-open" onClick={() => fileInput.current?.click()} title="Open a project file (Ctrl+O); you can also drop one on the window">
+            Open…
+          </button>
+          <input
+            ref={fileInput}
+            type="file"
+            accept=".json,application/json"
+            hidden
+            data-testid="open-file-input"
+            onChange={(e) => {
+              const f = e.target.files?.[0];
+              e.target.value = '';
+              if (f) void openFile(ctx, f);
+            }}
+          />
+          <CmdButton cmd={saveJson} testId="cmd-save">Save file</CmdButton>
+          <CmdButton cmd={exportPdf} testId="cmd-pdf">Export PDF</CmdButton>
+        </div>
+        <div className="lw-tool-group" role="group" aria-label="Edit">
+          <CmdButton cmd={undo} testId="cmd-undo">Undo</CmdButton>
+          <CmdButton cmd={redo} testId="cmd-redo">Redo</CmdButton>
+          <CmdButton cmd={copySelection} testId="cmd-copy" />
+          <CmdButton cmd={paste} testId="cmd-paste" />
+          <CmdButton cmd={deleteSelection} testId="cmd-delete" />
+        </div>
+        <div className="lw-tool-group" role="group" aria-label="View">
+          <CmdButton cmd={zoomToFit} testId="cmd-fit" />
+          <CmdButton cmd={arrangeDrawing} testId="cmd-arrange">Arrange</CmdButton>
+          <label className="lw-toggle" title="Snap moved equipment to a 20-unit grid">
+            <input type="checkbox" checked={snap} onChange={() => toggleSnap.run(ctx)} data-testid="toggle-snap" /> Snap
+          </label>
+        </div>
+        <div className="lw-tool-group" role="radiogroup" aria-label="A drag between ports adds">
+          <span className="lw-tool-caption">Connect with</span>
+          <label className="lw-toggle">
+            <input type="radio" name="connect-as" checked={connectAs === 'conductor'} onChange={() => ctx.store.setView({ connectAs: 'conductor' })} data-testid="connect-conductor" /> conductor
+          </label>
+          <label className="lw-toggle">
+            <input type="radio" name="connect-as" checked={connectAs === 'busLink'} onChange={() => ctx.store.setView({ connectAs: 'busLink' })} data-testid="connect-buslink" /> bus link
+          </label>
+        </div>
+      </nav>
+      <div className="lw-history-hint" data-testid="history-hint" aria-live="polite">
+        {history.undoLabel ? `Undo: ${history.undoLabel}` : 'Nothing to undo'}
+      </div>
+    </header>
+  );
+}

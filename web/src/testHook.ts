@@ -1,0 +1,55 @@
+import type { Project } from '@linewright/core';
+import { stats as analysisStats } from './analysis/scheduler';
+import { openProject, replaceElement, type CommandContext } from './editor/commands';
+import { stats as saveStats } from './persistence/autosave';
+
+/**
+ * A small window hook for the e2e suite and the benchmark: read the state,
+ * open a project, make an edit through the same commands as the UI, and wait
+ * until the check of that edit is on screen. It never changes the document
+ * by any other path.
+ */
+export interface TestHook {
+  docVersion(): number;
+  reportVersion(): number;
+  doc(): Project;
+  open(text: string, fileName?: string): Promise<void>;
+  setConductorLength(id: string, lengthFt: number): number;
+  /** Resolves after the report for `version` (or a later one) has been rendered and painted. */
+  whenChecked(version: number): Promise<void>;
+  stats(): { analysisRuns: number; lastAnalysisMs: number; saves: number };
+}
+
+declare global {
+  interface Window {
+    __linewright?: TestHook;
+  }
+}
+
+export function installTestHook(ctx: CommandContext): void {
+  const { store } = ctx;
+  window.__linewright = {
+    docVersion: () => store.getState().docVersion,
+    reportVersion: () => store.getState().reportVersion,
+    doc: () => store.getState().doc,
+    open: (text, fileName = 'bench.json') => Promise.resolve(openProject.run(ctx, { fileName, text })),
+    setConductorLength: (id, lengthFt) => {
+      const c = store.getState().doc.conductors.find((x) => x.id === id);
+      if (!c) throw new Error(`no conductor ${id}`);
+      replaceElement.run(ctx, { target: { kind: 'conductor', id }, value: { ...c, lengthFt }, label: 'Set length' });
+      return store.getState().docVersion;
+    },
+    whenChecked: (version) =>
+      new Promise<void>((resolve) => {
+        const painted = () => requestAnimationFrame(() => requestAnimationFrame(() => resolve()));
+        if (store.getState().reportVersion >= version) return painted();
+        const off = store.subscribe(() => {
+          if (store.getState().reportVersion >= version) {
+            off();
+            painted();
+          }
+        });
+      }),
+    stats: () => ({ analysisRuns: analysisStats.runs, lastAnalysisMs: analysisStats.lastMs, saves: saveStats.saves }),
+  };
+}
