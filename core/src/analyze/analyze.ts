@@ -49,13 +49,20 @@ export function analyze(project: Project): AnalysisReport {
     findingIdsBySubject.set(f.subject.id, list);
   }
 
+  const summaries: (string | undefined)[] = new Array(verdicts.length);
+  const devices = new Map<number, DeviceRef>();
+  const deviceRef = (v: number): DeviceRef => {
+    let d = devices.get(v);
+    if (!d) {
+      const n = graph.nodes[v]!;
+      devices.set(v, (d = { id: n.id, kind: n.kind, label: nodeLabel(n), ratingA: effectiveRatingA(n) }));
+    }
+    return d;
+  };
   const conductors: ConductorReport[] = graph.conductors.map((c, ci) => {
     const r = runs.runOf[ci]!;
     const v = verdicts[r]!;
-    const device: DeviceRef | null =
-      v.deviceNode >= 0
-        ? { id: graph.nodes[v.deviceNode]!.id, kind: graph.nodes[v.deviceNode]!.kind, label: nodeLabel(graph.nodes[v.deviceNode]!), ratingA: effectiveRatingA(graph.nodes[v.deviceNode]!) }
-        : null;
+    const device = v.deviceNode >= 0 ? deviceRef(v.deviceNode) : null;
     const supplyNode = 'node' in v.supply ? v.supply.node : -1;
     const isTap = v.family === 'fed-by-ocpd' && v.verdict !== 'protected' && v.verdict !== 'protected-next-size' && v.verdict !== 'incomplete';
     const tapLengthFt =
@@ -73,7 +80,7 @@ export function analyze(project: Project): AnalysisReport {
       rule: v.rule?.id ?? null,
       cites: v.rule ? { code: 'NEC', edition, section: v.rule.section } : null,
       role: v.role,
-      summary: describeRun(v),
+      summary: (summaries[r] ??= describeRun(v)),
       size: c.size,
       material: c.material,
       parallelSets: c.parallelSets,

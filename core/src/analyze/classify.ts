@@ -92,7 +92,8 @@ export function classifyRuns(
   return results as RunVerdict[];
 
   function judgeRun(r: number, supply: Supply): RunVerdict {
-    const facts: RunFacts = { ...baseFacts[r]! };
+    // The base facts are this stage's own copy: fill in the supply facts in place.
+    const facts: RunFacts = baseFacts[r]!;
     const endNode = g.conductorTo[runs.members[r]![runs.members[r]!.length - 1]!]!;
     const endsAtTransformer = endNode >= 0 && g.nodes[endNode]!.kind === 'transformer';
     const feedsDevice = endNode >= 0 && (isOcpd(g.nodes[endNode]!) || below[endNode] === 1);
@@ -160,7 +161,7 @@ export function classifyRuns(
     if (facts.transformer) facts.transformer = { ...facts.transformer, primaryOcpdA: facts.supplyOcpdA, primaryOcpdId: node.id };
     const tried: RuleTrial[] = [];
     for (const rule of PROTECTION_RULES) {
-      const t = runRule(rule, facts);
+      const t = protectionTrial(rule, facts);
       tried.push(t);
       if (t.outcome === 'holds') return done(rule, 'fed-by-ocpd', role);
       // Without the ampacity or the rating nothing further can be decided.
@@ -217,6 +218,25 @@ export function classifyRuns(
     }
     return { device: -1, run: null };
   }
+}
+
+/**
+ * Protection trials depend on four numbers only, and a riser repeats the same
+ * few combinations thousands of times (20 A on 12 AWG…), so equal trials are
+ * shared. Trials are read-only.
+ */
+const protectionTrials = new Map<string, RuleTrial>();
+const MAX_SHARED_TRIALS = 4096;
+
+function protectionTrial(rule: Rule, f: RunFacts): RuleTrial {
+  const key = `${rule.id}|${f.edition}|${f.supplyOcpdA}|${f.supplyOcpdKind}|${f.ampacityA}|${f.smallConductorMaxOcpdA}|${f.size}|${f.multioutletCordAndPlug}`;
+  let t = protectionTrials.get(key);
+  if (!t) {
+    t = runRule(rule, f);
+    if (protectionTrials.size >= MAX_SHARED_TRIALS) protectionTrials.clear();
+    protectionTrials.set(key, t);
+  }
+  return t;
 }
 
 /** Try rules in code order; every rule is tried and kept, the first that holds names the verdict. */

@@ -38,12 +38,12 @@ export function collectFindings(
     const v = verdicts[runs.runOf[ci]!]!;
     const f = v.facts;
     const subject: ElementRef = { kind: 'conductor', id: c.id };
-    const who = `Conductor ${c.label ? `${c.label} (${c.id})` : c.id}, ${f.parallelSets > 1 ? `${f.parallelSets} sets of ` : ''}${sizeLabel(c.size)} ${materialLabel(c.material)}`;
-    const device: ElementRef[] = v.deviceNode >= 0 ? [{ kind: 'node', id: g.nodes[v.deviceNode]!.id }] : [];
+
+
     const fixes = runFixes[runs.runOf[ci]!]!;
     const amp = ampacities[ci]!;
     if (amp.problem) {
-      push({ ruleId: 'ampacity', messageId: `no-ampacity-${amp.problem.field}`, severity: 'warning', cites: cites('310.16'), subject, message: `${who}: ${amp.problem.message}` });
+      push({ ruleId: 'ampacity', messageId: `no-ampacity-${amp.problem.field}`, severity: 'warning', cites: cites('310.16'), subject, message: `${describeConductor(c, f.parallelSets)}: ${amp.problem.message}` });
     }
     switch (v.verdict) {
       case 'unprotected': {
@@ -55,10 +55,10 @@ export function collectFindings(
           severity: 'violation',
           cites: n?.cites ?? cites('240.4'),
           subject,
-          related: device,
+          related: deviceRefs(g, v),
           fixes,
           data: { ampacityA: f.ampacityA ?? '?', deviceA: f.supplyOcpdA ?? '?' },
-          message: `${who}, ${f.ampacityA === null ? '?' : formatNumber(f.ampacityA)} A${R}: no rule of NEC ${edition} makes it acceptable.${n ? ` Nearest is ${n.cites.section} (${n.title.toLowerCase()}), which fails: ${failedTexts(n).join(' ')}` : ''}`,
+          message: `${describeConductor(c, f.parallelSets)}, ${f.ampacityA === null ? '?' : formatNumber(f.ampacityA)} A${R}: no rule of NEC ${edition} makes it acceptable.${n ? ` Nearest is ${n.cites.section} (${n.title.toLowerCase()}), which fails: ${failedTexts(n).join(' ')}` : ''}`,
         });
         break;
       }
@@ -69,14 +69,14 @@ export function collectFindings(
           severity: 'violation',
           cites: cites('240.21'),
           subject,
-          related: [...(f.suppliedFrom?.conductorIds ?? []).map((id): ElementRef => ({ kind: 'conductor', id })), ...device],
+          related: [...(f.suppliedFrom?.conductorIds ?? []).map((id): ElementRef => ({ kind: 'conductor', id })), ...deviceRefs(g, v)],
           fixes,
-          message: `${who} is tapped from ${f.suppliedFrom?.conductorIds.join(' → ') ?? '?'}, which is itself a tap or transformer secondary; a conductor supplied under 240.21 may supply another only through an OCPD that meets 240.4.`,
+          message: `${describeConductor(c, f.parallelSets)} is tapped from ${f.suppliedFrom?.conductorIds.join(' → ') ?? '?'}, which is itself a tap or transformer secondary; a conductor supplied under 240.21 may supply another only through an OCPD that meets 240.4.`,
         });
         break;
       case 'incomplete':
         if (v.supply.kind === 'run' || v.supply.kind === 'ocpd' || v.supply.kind === 'transformer') {
-          push({ ruleId: 'incomplete', messageId: 'missing-data', severity: 'warning', cites: null, subject, related: device, message: `${who}: no verdict yet; ${incompleteReason(v)}.` });
+          push({ ruleId: 'incomplete', messageId: 'missing-data', severity: 'warning', cites: null, subject, related: deviceRefs(g, v), message: `${describeConductor(c, f.parallelSets)}: no verdict yet; ${incompleteReason(v)}.` });
         }
         break;
       case 'protected-next-size':
@@ -86,8 +86,8 @@ export function collectFindings(
           severity: 'info',
           cites: cites('240.4(B)'),
           subject,
-          related: device,
-          message: `${who}: the ${formatNumber(f.supplyOcpdA ?? 0)} A device is the next standard rating above its ${formatNumber(f.ampacityA ?? 0)} A ampacity (240.4(B)); confirm the circuit is not a multioutlet branch circuit for cord-and-plug loads.`,
+          related: deviceRefs(g, v),
+          message: `${describeConductor(c, f.parallelSets)}: the ${formatNumber(f.supplyOcpdA ?? 0)} A device is the next standard rating above its ${formatNumber(f.ampacityA ?? 0)} A ampacity (240.4(B)); confirm the circuit is not a multioutlet branch circuit for cord-and-plug loads.`,
         });
         break;
       default:
@@ -102,13 +102,13 @@ export function collectFindings(
           severity: 'needs-ahj',
           cites: t.cites,
           subject,
-          message: `${who}: meets ${t.cites.section} only if the AHJ accepts its protection from physical damage by "other approved means".`,
+          message: `${describeConductor(c, f.parallelSets)}: meets ${t.cites.section} only if the AHJ accepts its protection from physical damage by "other approved means".`,
         });
       }
     }
     if ((v.verdict === 'service' || v.verdict === 'generator') && v.tried[0]?.outcome === 'fails') {
       const t = v.tried[0];
-      push({ ruleId: t.ruleId, messageId: 'fails', severity: 'violation', cites: t.cites, subject, message: `${who}: ${failedTexts(t).join(' ')} Fails ${t.cites.section}.` });
+      push({ ruleId: t.ruleId, messageId: 'fails', severity: 'violation', cites: t.cites, subject, message: `${describeConductor(c, f.parallelSets)}: ${failedTexts(t).join(' ')} Fails ${t.cites.section}.` });
     }
     if (f.ampacityA !== null && f.calculatedLoadA !== null && f.calculatedLoadA > f.ampacityA + 1e-6 && v.role !== 'service') {
       const section = v.role === 'branch' ? '210.19(A)(1)' : '215.2(A)(1)';
@@ -119,7 +119,7 @@ export function collectFindings(
         cites: cites(section),
         subject,
         data: { ampacityA: f.ampacityA, calculatedA: f.calculatedLoadA },
-        message: `${who}: ampacity ${formatNumber(f.ampacityA)} A is below the calculated load of ${formatNumber(f.calculatedLoadA)} A (continuous × 1.25 plus noncontinuous, ${section}).`,
+        message: `${describeConductor(c, f.parallelSets)}: ampacity ${formatNumber(f.ampacityA)} A is below the calculated load of ${formatNumber(f.calculatedLoadA)} A (continuous × 1.25 plus noncontinuous, ${section}).`,
       });
     }
   }
@@ -167,6 +167,14 @@ export function collectFindings(
     });
   }
   return out;
+}
+
+function describeConductor(c: Graph['conductors'][number], sets: number): string {
+  return `Conductor ${c.label ? `${c.label} (${c.id})` : c.id}, ${sets > 1 ? `${sets} sets of ` : ''}${sizeLabel(c.size)} ${materialLabel(c.material)}`;
+}
+
+function deviceRefs(g: Graph, v: RunVerdict): ElementRef[] {
+  return v.deviceNode >= 0 ? [{ kind: 'node', id: g.nodes[v.deviceNode]!.id }] : [];
 }
 
 function edgeRef(g: Graph, e: number): ElementRef {

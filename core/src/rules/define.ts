@@ -57,16 +57,44 @@ export function outcomeOf(checks: readonly Check[]): RuleTrial['outcome'] {
   return unknown ? 'unknown' : 'holds';
 }
 
+/**
+ * A condition whose text is rendered when first read. Most conductors are
+ * never displayed one by one, and rendering every template of a 100 000
+ * conductor riser up front costs more than the whole classification.
+ * `toJSON` keeps the text in serialized reports.
+ */
+class Condition implements ConditionResult {
+  readonly id: string;
+  readonly status: ConditionResult['status'];
+  readonly data: Record<string, string | number>;
+  readonly needsAhj?: boolean;
+  readonly #template: string;
+  #text: string | undefined;
+  constructor(template: string, c: Check) {
+    this.id = c.id;
+    this.status = c.status;
+    this.data = c.data;
+    if (c.needsAhj) this.needsAhj = true;
+    this.#template = template;
+  }
+  get text(): string {
+    return (this.#text ??= renderTemplate(this.#template, this.data));
+  }
+  toJSON(): ConditionResult {
+    return { id: this.id, status: this.status, text: this.text, data: this.data, ...(this.needsAhj ? { needsAhj: true } : {}) };
+  }
+}
+
+const citations = new Map<string, ReturnType<typeof cite>>();
+
 export function runRule(rule: Rule, facts: RunFacts): RuleTrial {
   const checks = rule.check(facts);
-  const conditions: ConditionResult[] = checks.map((c) => ({
-    id: c.id,
-    status: c.status,
-    text: renderTemplate(rule.messages[c.id] ?? c.id, c.data),
-    data: c.data,
-    ...(c.needsAhj ? { needsAhj: true } : {}),
-  }));
-  return { ruleId: rule.id, title: rule.title, cites: cite(rule.section, facts.edition), outcome: outcomeOf(checks), conditions };
+  const conditions: ConditionResult[] = new Array(checks.length);
+  for (let i = 0; i < checks.length; i++) conditions[i] = new Condition(rule.messages[checks[i]!.id] ?? checks[i]!.id, checks[i]!);
+  const key = `${rule.section}|${facts.edition}`;
+  let cites = citations.get(key);
+  if (!cites) citations.set(key, (cites = Object.freeze(cite(rule.section, facts.edition))));
+  return { ruleId: rule.id, title: rule.title, cites, outcome: outcomeOf(checks), conditions };
 }
 
 /** Shared condition: protection from physical damage (240.21(B)(2)–(5), (C)(3)–(6)). */
