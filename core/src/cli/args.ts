@@ -1,0 +1,122 @@
+import { CAUTION } from '../caution';
+import type { CodeEdition } from '../model/schema';
+import { wrap } from '../report/text';
+
+/** Pure argument parsing for the `linewright` command: no I/O here, so every case is a unit test. */
+
+export const FORMATS = ['text', 'json', 'sarif', 'csv'] as const;
+export type OutputFormat = (typeof FORMATS)[number];
+export const EDITIONS = ['2020', '2023'] as const;
+
+export interface CheckCommand {
+  command: 'check';
+  file: string;
+  format: OutputFormat;
+  /** Also write the permit-set PDF here. */
+  pdf: string | null;
+  /** Write the report here instead of stdout. */
+  out: string | null;
+  /** Analyze under this edition instead of the project's own setting. */
+  edition: CodeEdition | null;
+  color: boolean;
+}
+
+export type ParsedArgs =
+  | CheckCommand
+  | { command: 'help' }
+  | { command: 'version' }
+  | { command: 'error'; message: string };
+
+export const USAGE_SHORT = `Usage: linewright check FILE [--format text|json|sarif|csv] [--out FILE] [--pdf FILE] [--edition 2020|2023] [--color]
+       linewright --help | --version
+`;
+
+/** The full help; ends with the caution, as every output of Linewright does. */
+export const USAGE = `${USAGE_SHORT}
+Checks every conductor of a one-line project file against the conductor
+overcurrent-protection and feeder-tap rules (NEC 240.4, 240.21(B), 240.21(C))
+and prints a report. FILE may be - to read the project from stdin.
+
+Options for check:
+  --format text|json|sarif|csv   report format on stdout (default: text)
+  --out FILE                     write the report to FILE instead of stdout
+  --pdf FILE                     also write the annotated permit-set PDF to FILE
+  --edition 2020|2023            analyze under this NEC edition instead of the project's
+  --color                        colour the text report (off by default)
+  -h, --help                     show this help
+  -V, --version                  show the version
+
+Exit status:
+  0  no violations found
+  1  violations found (see the report)
+  2  the file could not be read as a project, or the arguments are wrong
+  3  Linewright itself failed (please report it with the file)
+
+${wrap(`Caution: ${CAUTION}`, 78).join('\n')}
+`;
+
+function error(message: string): ParsedArgs {
+  return { command: 'error', message };
+}
+
+const VALUE_FLAGS = new Set(['--format', '--out', '--pdf', '--edition']);
+
+/** Parses `argv` (without node and the script). Flags may be written `--flag value` or `--flag=value`. */
+export function parseArgs(argv: readonly string[]): ParsedArgs {
+  if (argv.length === 0) return error('no command given; expected "check FILE"');
+  const positional: string[] = [];
+  const values = new Map<string, string>();
+  let color = false;
+  let help = false;
+  let version = false;
+  for (let i = 0; i < argv.length; i++) {
+    const arg = argv[i]!;
+    if (arg === '--') {
+      positional.push(...argv.slice(i + 1));
+      break;
+    }
+    if (arg === '-h' || arg === '--help') help = true;
+    else if (arg === '-V' || arg === '--version') version = true;
+    else if (arg === '--color' || arg === '--colour') color = true;
+    else if (arg.startsWith('--')) {
+      const eq = arg.indexOf('=');
+      const name = eq === -1 ? arg : arg.slice(0, eq);
+      if (!VALUE_FLAGS.has(name)) return error(`unknown option ${name}`);
+      let value: string | undefined;
+      if (eq !== -1) value = arg.slice(eq + 1);
+      else {
+        value = argv[i + 1];
+        if (value === undefined || (value.startsWith('-') && value !== '-')) return error(`option ${name} needs a value`);
+        i++;
+      }
+      if (value === '') return error(`option ${name} needs a value`);
+      if (values.has(name)) return error(`option ${name} given twice`);
+      values.set(name, value);
+    } else if (arg.startsWith('-') && arg !== '-') return error(`unknown option ${arg}`);
+    else positional.push(arg);
+  }
+  if (help) return { command: 'help' };
+  if (version) return { command: 'version' };
+
+  const [command, file, ...rest] = positional;
+  if (command === undefined) return error('no command given; expected "check FILE"');
+  if (command !== 'check') return error(`unknown command "${command}"; expected "check FILE"`);
+  if (file === undefined) return error('check needs a project file: linewright check FILE');
+  if (rest.length > 0) return error(`unexpected argument "${rest[0]}"; check takes one file`);
+
+  const format = values.get('--format') ?? 'text';
+  if (!(FORMATS as readonly string[]).includes(format)) return error(`option --format must be one of ${FORMATS.join(', ')} (got "${format}")`);
+  const editionText = values.get('--edition');
+  if (editionText !== undefined && !(EDITIONS as readonly string[]).includes(editionText)) {
+    return error(`option --edition must be ${EDITIONS.join(' or ')} (got "${editionText}")`);
+  }
+  return {
+    command: 'check',
+    file,
+    format: format as OutputFormat,
+    pdf: values.get('--pdf') ?? null,
+    out: values.get('--out') ?? null,
+    edition: editionText === undefined ? null : (Number(editionText) as CodeEdition),
+    color,
+  };
+}

@@ -1,0 +1,145 @@
+import { readFileSync, realpathSync, writeFileSync } from 'node:fs';
+import { isAbsolute, relative, resolve, sep } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import type { AnalysisReport } from '../analyze/types';
+import { CAUTION } from '../caution';
+import type { Project } from '../model/schema';
+import { TOOL_NAME, TOOL_VERSION } from '../report/version';
+import { USAGE, USAGE_SHORT, parseArgs, type CheckCommand } from './args';
+
+/** The only file of core that touches the file system and the process. */
+
+export const EXIT_CLEAN = 0;
+export const EXIT_VIOLATIONS = 1;
+export const EXIT_BAD_INPUT = 2;
+export const EXIT_INTERNAL = 3;
+
+function say(s: string): void {
+  process.stderr.write(s.endsWith('\n') ? s : `${s}\n`);
+}
+
+function readInput(file: string): string {
+  return file === '-' ? readFileSync(0, 'utf8') : readFileSync(file, 'utf8');
+}
+
+function ioMessage(e: unknown): string {
+  const err = e as NodeJS.ErrnoException;
+  switch (err?.code) {
+    case 'ENOENT':
+      return 'no such file';
+    case 'EACCES':
+    case 'EPERM':
+      return 'permission denied';
+    case 'EISDIR':
+      return 'it is a directory, not a file';
+    default:
+      return err instanceof Error ? err.message : String(e);
+  }
+}
+
+/** SARIF wants a URI reference: relative to the working directory when the file is inside it. */
+function artifactUri(file: string): string {
+  if (file === '-') return 'stdin';
+  const abs = resolve(file);
+  const rel = relative(process.cwd(), abs);
+  if (rel && !rel.startsWith('..') && !isAbsolute(rel)) return rel.split(sep).join('/');
+  return pathToFileURL(abs).href;
+}
+
+async function render(cmd: CheckCommand, report: AnalysisReport): Promise<string> {
+  switch (cmd.format) {
+    case 'text':
+      return (await import('../report/text')).renderText(report, { color: cmd.color });
+    case 'json':
+      return `${JSON.stringify((await import('../report/json')).toJsonReport(report), null, 2)}\n`;
+    case 'sarif':
+      return `${JSON.stringify((await import('../report/sarif')).toSarif(report, { artifactUri: artifactUri(cmd.file) }), null, 2)}\n`;
+    case 'csv':
+      return (await import('../report/csv')).toConductorScheduleCsv(report);
+  }
+}
+
+// The analyzer, the renderers and jspdf load only for `check`, so --help and --version stay instant.
+async function check(cmd: CheckCommand): Promise<number> {
+  const { loadProject } = await import('../model/load');
+  const { analyze } = await import('../analyze/analyze');
+  const { hasViolations } = await import('../report/format');
+  let text: string;
+  try {
+    text = readInput(cmd.file);
+  } catch (e) {
+    say(`linewright: cannot read ${cmd.file}: ${ioMessage(e)}`);
+    return EXIT_BAD_INPUT;
+  }
+  const loaded = loadProject(text);
+  if (!loaded.ok) {
+    say(`linewright: ${cmd.file} is not a usable Linewright project (${loaded.errors.length} problem${loaded.errors.length === 1 ? '' : 's'}):`);
+    for (const e of loaded.errors) say(`${e.path || '(file)'}: ${e.message}`);
+    return EXIT_BAD_INPUT;
+  }
+  for (const notice of loaded.notices ?? []) say(`linewright: ${notice}`);
+  const project: Project =
+    cmd.edition === null ? loaded.project : { ...loaded.project, project: { ...loaded.project.project, codeEdition: cmd.edition } };
+  const report = analyze(project);
+  const output = await render(cmd, report);
+
+  const written: string[] = [];
+  try {
+    if (cmd.out !== null) {
+      writeFileSync(cmd.out, output);
+      written.push(`report (${cmd.format}) to ${cmd.out}`);
+    }
+    if (cmd.pdf !== null) {
+      const { renderPermitPdf } = await import('../report/pdf');
+      writeFileSync(cmd.pdf, renderPermitPdf(project, report));
+      written.push(`permit-set PDF to ${cmd.pdf}`);
+    }
+  } catch (e) {
+    say(`linewright: cannot write ${written.length === 0 && cmd.out !== null ? cmd.out : cmd.pdf}: ${ioMessage(e)}`);
+    return EXIT_BAD_INPUT;
+  }
+  if (cmd.out === null) process.stdout.write(output);
+  for (const w of written) say(`linewright: wrote ${w}`);
+  // The text report ends with the caution; the other formats carry it inside, and CSV cannot, so say it here.
+  if (cmd.format !== 'text' || cmd.out !== null) say(`Caution: ${report.caution || CAUTION}`);
+  return hasViolations(report) ? EXIT_VIOLATIONS : EXIT_CLEAN;
+}
+
+/** Runs the command line; returns the exit status instead of exiting, so output is flushed first. */
+export async function main(argv: readonly string[]): Promise<number> {
+  const args = parseArgs(argv);
+  switch (args.command) {
+    case 'help':
+      process.stdout.write(USAGE);
+      return EXIT_CLEAN;
+    case 'version':
+      process.stdout.write(`${TOOL_NAME} ${TOOL_VERSION}\n`);
+      return EXIT_CLEAN;
+    case 'error':
+      say(`linewright: ${args.message}`);
+      say(`${USAGE_SHORT}Run "linewright --help" for the options and exit codes.`);
+      return EXIT_BAD_INPUT;
+    case 'check':
+      try {
+        return await check(args);
+      } catch (e) {
+        // A bug of ours, not bad input: name it plainly; the stack only when asked for.
+        say(`linewright: internal error: ${e instanceof Error ? e.message : String(e)}`);
+        if (process.env.LINEWRIGHT_DEBUG && e instanceof Error && e.stack) say(e.stack);
+        say('Please report this with the project file.');
+        return EXIT_INTERNAL;
+      }
+  }
+}
+
+function isEntry(): boolean {
+  const script = process.argv[1];
+  if (!script) return false;
+  try {
+    return import.meta.url === pathToFileURL(realpathSync(script)).href;
+  } catch {
+    return false;
+  }
+}
+
+if (isEntry()) process.exitCode = await main(process.argv.slice(2));

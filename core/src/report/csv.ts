@@ -1,0 +1,44 @@
+import type { AnalysisReport } from '../analyze/types';
+import { VERDICT_WORDS, citationText, sizeText } from './format';
+
+/** RFC 4180 field: quoted when it holds a comma, quote, CR or LF; quotes doubled. */
+export function csvField(value: string | number | null): string {
+  const s = value === null ? '' : String(value);
+  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}
+
+export const SCHEDULE_COLUMNS = [
+  'id', 'label', 'from', 'to', 'role', 'parallel_sets', 'size', 'material', 'length_ft',
+  'ampacity_a', 'ampacity_governed_by', 'upstream_device', 'upstream_rating_a', 'tap_length_ft',
+  'calculated_load_a', 'verdict', 'verdict_text', 'rule', 'citation', 'finding_ids',
+] as const;
+
+/** The conductor schedule as RFC 4180 CSV: a header row, then one row per conductor, CRLF line breaks. */
+export function toConductorScheduleCsv(report: AnalysisReport): string {
+  const rows: (string | number | null)[][] = [[...SCHEDULE_COLUMNS]];
+  for (const c of report.conductors) {
+    rows.push([
+      c.id,
+      c.label,
+      c.from,
+      c.to,
+      c.role,
+      c.parallelSets,
+      sizeText(c.size),
+      c.material,
+      c.lengthFt,
+      c.ampacity ? c.ampacity.ampacityA : null,
+      c.ampacity ? c.ampacity.governedBy : null,
+      c.upstreamDevice ? c.upstreamDevice.label || c.upstreamDevice.id : null,
+      c.upstreamDevice ? c.upstreamDevice.ratingA : null,
+      c.tapLengthFt,
+      c.load ? c.load.calculatedA : null,
+      c.verdict,
+      VERDICT_WORDS[c.verdict],
+      c.rule,
+      citationText(c.cites),
+      c.findingIds.join(' '),
+    ]);
+  }
+  return rows.map((r) => r.map(csvField).join(',')).join('\r\n') + '\r\n';
+}

@@ -1,0 +1,171 @@
+import type { ConductorSize, Material } from '../model/schema';
+import type { AnalysisReport, Citation, ConductorReport, ConductorRole, DeviceRef, ElementRef, Finding, Fix, Severity, Verdict } from '../analyze/types';
+import { FAILING_VERDICTS } from '../analyze/types';
+
+/**
+ * Words shared by every report (text, CSV, PDF, SARIF) and the editor, so a verdict reads the
+ * same everywhere. Trade words only; none of them is a verdict of acceptance.
+ */
+export const VERDICT_WORDS: Record<Verdict, string> = {
+  protected: 'protected',
+  'protected-next-size': 'protected (next size up)',
+  'tap-10ft': 'tap: 10 ft',
+  'tap-25ft': 'tap: 25 ft',
+  'tap-transformer': 'tap: transformer',
+  'tap-high-bay': 'tap: high bay',
+  'tap-outside': 'tap: outside',
+  'secondary-primary-protected': 'secondary: primary-protected',
+  'secondary-10ft': 'secondary: 10 ft',
+  'secondary-25ft': 'secondary: 25 ft',
+  'secondary-outside': 'secondary: outside',
+  service: 'service',
+  generator: 'generator',
+  'tap-from-tap': 'tap from a tap',
+  unprotected: 'unprotected',
+  incomplete: 'incomplete (missing data)',
+};
+
+/** How a verdict is drawn: a line style and mark that do not rely on colour. */
+export type VerdictClass = 'protected' | 'tap-rule' | 'failing' | 'incomplete';
+
+/** Groups verdicts into the four marks of the drawing legend. */
+export function verdictClass(verdict: Verdict): VerdictClass {
+  switch (verdict) {
+    case 'protected':
+    case 'protected-next-size':
+    case 'service':
+    case 'generator':
+      return 'protected';
+    case 'tap-from-tap':
+    case 'unprotected':
+      return 'failing';
+    case 'incomplete':
+      return 'incomplete';
+    default:
+      return 'tap-rule';
+  }
+}
+
+export const SEVERITY_WORDS: Record<Severity, string> = {
+  violation: 'violation',
+  'needs-ahj': 'needs AHJ review',
+  warning: 'warning',
+  info: 'info',
+};
+
+export const ROLE_WORDS: Record<ConductorRole, string> = {
+  service: 'service',
+  feeder: 'feeder',
+  branch: 'branch circuit',
+  'transformer-primary': 'xfmr primary',
+  'transformer-secondary': 'xfmr secondary',
+  generator: 'generator',
+  unknown: 'unknown',
+};
+
+export const MATERIAL_WORDS: Record<Material, string> = { cu: 'Cu', al: 'Al', 'cu-clad-al': 'Cu-clad Al' };
+
+const KCMIL_FROM = 250;
+
+/** '4/0 AWG', '500 kcmil': sizes of 250 and up are in kcmil (Table 310.16). */
+export function sizeText(size: ConductorSize): string {
+  const n = Number(size);
+  return Number.isFinite(n) && n >= KCMIL_FROM ? `${size} kcmil` : `${size} AWG`;
+}
+
+/** '2×500 kcmil Cu' or '3/0 AWG Al' (sets shown only when more than one). */
+export function conductorText(c: Pick<ConductorReport, 'parallelSets' | 'size' | 'material'>): string {
+  const sets = c.parallelSets > 1 ? `${c.parallelSets}×` : '';
+  return `${sets}${sizeText(c.size)} ${MATERIAL_WORDS[c.material]}`;
+}
+
+/** 'NEC 2023 240.21(B)(2)'. */
+export function citationText(cites: Citation | null): string {
+  return cites ? `NEC ${cites.edition} ${cites.section}` : '';
+}
+
+/** 'tap: 25 ft (240.21(B)(2))': the verdict word with the section that supports it. */
+export function verdictText(c: Pick<ConductorReport, 'verdict' | 'cites'>): string {
+  const word = VERDICT_WORDS[c.verdict];
+  return c.cites ? `${word} (${c.cites.section})` : word;
+}
+
+/** Rounds for display: whole numbers stay whole, others keep one decimal. */
+export function num(value: number): string {
+  if (Number.isInteger(value)) return String(value);
+  return (Math.round(value * 10) / 10).toFixed(1).replace(/\.0$/, '');
+}
+
+export function lengthText(lengthFt: number | null): string {
+  return lengthFt === null ? '?' : `${num(lengthFt)} ft`;
+}
+
+export function ampsText(a: number | null | undefined): string {
+  return a === null || a === undefined ? '?' : `${num(a)} A`;
+}
+
+/** True when a device's label already states its rating ('MDP-2 roof feeder 400 A'). */
+export function labelStatesRating(label: string, ratingA: number): boolean {
+  return new RegExp(`(^|[^0-9.])${num(ratingA).replace('.', '\\.')}\\s?A\\b`).test(label);
+}
+
+/** 'CB-2 400 A' or 'CB-2 (rating ?)'; the rating is not repeated when the label already gives it. */
+export function deviceText(d: DeviceRef | null): string {
+  if (!d) return 'none';
+  const name = d.label || d.id;
+  if (d.ratingA === null) return `${name} (rating ?)`;
+  return labelStatesRating(name, d.ratingA) ? name : `${name} ${num(d.ratingA)} A`;
+}
+
+/** 'conductor C7', 'node CB-2', 'project'. */
+export function refText(ref: ElementRef): string {
+  switch (ref.kind) {
+    case 'conductor':
+      return `conductor ${ref.id}`;
+    case 'node':
+      return `node ${ref.id}`;
+    case 'busLink':
+      return `bus link ${ref.id}`;
+    case 'project':
+      return 'project';
+  }
+}
+
+/** The fix in words; the analyzer's label already names sizes and lengths, so prefer it. */
+export function fixText(fix: Fix): string {
+  if (fix.label) return fix.label;
+  switch (fix.kind) {
+    case 'resize':
+      return `use ${fix.parallelSets > 1 ? `${fix.parallelSets}×` : ''}${sizeText(fix.size)} ${MATERIAL_WORDS[fix.material]} (${fix.forRule})`;
+    case 'shorten':
+      return `keep the run at most ${num(fix.maxLengthFt)} ft (${fix.forRule})`;
+    case 'add-ocpd':
+      return `add an OCPD of at most ${num(fix.ratingA)} A at the tap point`;
+    case 'set-field':
+      return `set ${fix.field} to ${String(fix.value)}`;
+  }
+}
+
+/** A finding with its display number; the same number labels its callout on the drawing. */
+export interface NumberedFinding {
+  n: number;
+  finding: Finding;
+}
+
+const SEVERITY_ORDER: readonly Severity[] = ['violation', 'needs-ahj', 'warning', 'info'];
+
+/** Findings grouped by severity (violation, needs-ahj, warning, info), report order kept inside a group, numbered from 1. */
+export function numberFindings(findings: readonly Finding[]): NumberedFinding[] {
+  const out: NumberedFinding[] = [];
+  for (const severity of SEVERITY_ORDER) {
+    for (const finding of findings) if (finding.severity === severity) out.push({ n: out.length + 1, finding });
+  }
+  return out;
+}
+
+export { SEVERITY_ORDER };
+
+/** True when the report holds a violation: the CLI's exit code 1. */
+export function hasViolations(report: Pick<AnalysisReport, 'findings' | 'conductors'>): boolean {
+  return report.findings.some((f) => f.severity === 'violation') || report.conductors.some((c) => FAILING_VERDICTS.has(c.verdict));
+}

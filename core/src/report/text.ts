@@ -1,0 +1,148 @@
+import { CAUTION } from '../caution';
+import type { AnalysisReport, ConductorReport, Severity } from '../analyze/types';
+import {
+  ROLE_WORDS,
+  SEVERITY_ORDER,
+  SEVERITY_WORDS,
+  ampsText,
+  citationText,
+  conductorText,
+  deviceText,
+  num,
+  fixText,
+  lengthText,
+  numberFindings,
+  refText,
+  verdictClass,
+  verdictText,
+} from './format';
+
+export interface TextOptions {
+  /** ANSI colour on verdicts and severities; off by default (and words carry the meaning either way). */
+  color?: boolean;
+  /** Wrap width for paragraphs (the table is as wide as it needs). */
+  width?: number;
+}
+
+const SEVERITY_PLURAL: Record<Severity, string> = { violation: 'violations', 'needs-ahj': 'needs AHJ review', warning: 'warnings', info: 'info' };
+
+const ANSI = { red: '\x1b[31m', yellow: '\x1b[33m', blue: '\x1b[34m', gray: '\x1b[90m', bold: '\x1b[1m', reset: '\x1b[0m' };
+
+interface Column {
+  head: string;
+  max: number;
+  align?: 'right';
+  cell: (c: ConductorReport, numbers: Map<string, number>) => string;
+}
+
+const COLUMNS: Column[] = [
+  { head: 'Conductor', max: 14, cell: (c) => c.id },
+  { head: 'Label', max: 30, cell: (c) => c.label },
+  { head: 'Role', max: 14, cell: (c) => ROLE_WORDS[c.role] },
+  { head: 'Size', max: 24, cell: (c) => conductorText(c) },
+  { head: 'Length', max: 10, align: 'right', cell: (c) => lengthText(c.lengthFt) },
+  { head: 'Ampacity', max: 10, align: 'right', cell: (c) => ampsText(c.ampacity?.ampacityA) },
+  // The rating must survive clipping, so only the device's name is shortened.
+  { head: 'Upstream OCPD', max: 30, cell: (c) => deviceCell(c) },
+  { head: 'Findings', max: 16, cell: (c, numbers) => c.findingIds.map((id) => numbers.get(id)).filter((n) => n !== undefined).map((n) => `[${n}]`).join(' ') },
+  { head: 'Verdict', max: 48, cell: (c) => verdictText(c) },
+];
+
+function deviceCell(c: ConductorReport): string {
+  const d = c.upstreamDevice;
+  if (!d || d.ratingA === null) return deviceText(d);
+  const whole = deviceText(d);
+  if (whole.length <= 30) return whole;
+  const rating = ` ${num(d.ratingA)} A`;
+  return clip(d.label || d.id, 30 - rating.length) + rating;
+}
+
+function clip(s: string, max: number): string {
+  return s.length <= max ? s : `${s.slice(0, max - 1)}…`;
+}
+
+function pad(s: string, width: number, align?: 'right'): string {
+  return align === 'right' ? s.padStart(width) : s.padEnd(width);
+}
+
+/** Greedy word wrap; words longer than the width stay whole. `hang` indents the continuation lines further. */
+export function wrap(text: string, width: number, indent = '', hang = ''): string[] {
+  const lines: string[] = [];
+  for (const para of text.split('\n')) {
+    let line = '';
+    let lead = indent;
+    for (const word of para.split(/\s+/).filter(Boolean)) {
+      if (line && lead.length + line.length + 1 + word.length > width) {
+        lines.push(lead + line);
+        lead = indent + hang;
+        line = word;
+      } else line = line ? `${line} ${word}` : word;
+    }
+    lines.push(lead + line);
+  }
+  return lines;
+}
+
+/** Renders the analysis as a fixed-width plain-text report ending with the caution. */
+export function renderText(report: AnalysisReport, options: TextOptions = {}): string {
+  const width = options.width ?? 100;
+  const paint = (code: string, s: string) => (options.color ? `${code}${s}${ANSI.reset}` : s);
+  const verdictColour = (c: ConductorReport) => {
+    const k = verdictClass(c.verdict);
+    return k === 'failing' ? ANSI.red : k === 'incomplete' ? ANSI.gray : k === 'tap-rule' ? ANSI.blue : '';
+  };
+  const severityColour: Record<Severity, string> = { violation: ANSI.red, 'needs-ahj': ANSI.yellow, warning: ANSI.yellow, info: ANSI.gray };
+
+  const out: string[] = [];
+  const sev = report.counts.bySeverity;
+  out.push(paint(ANSI.bold, `Linewright check: ${report.projectName}`));
+  out.push(
+    `NEC ${report.edition} · ${report.conductors.length} conductor${report.conductors.length === 1 ? '' : 's'} · ` +
+      SEVERITY_ORDER.map((s) => `${SEVERITY_PLURAL[s]}: ${sev[s] ?? 0}`).join(', '),
+  );
+  out.push('');
+
+  const numbered = numberFindings(report.findings);
+  const numbers = new Map(numbered.map((x) => [x.finding.id, x.n]));
+  out.push(paint(ANSI.bold, 'CONDUCTORS'));
+  if (report.conductors.length === 0) out.push('  (the drawing has no conductors)');
+  else {
+    const cells = report.conductors.map((c) => COLUMNS.map((col) => clip(col.cell(c, numbers), col.max)));
+    const widths = COLUMNS.map((col, i) => Math.max(col.head.length, ...cells.map((row) => row[i]!.length)));
+    const line = (row: string[]) => row.map((s, i) => pad(s, widths[i]!, COLUMNS[i]!.align)).join('  ').trimEnd();
+    out.push(line(COLUMNS.map((c) => c.head)));
+    out.push(widths.map((w) => '-'.repeat(w)).join('  '));
+    report.conductors.forEach((c, r) => {
+      const row = cells[r]!;
+      const last = row.length - 1;
+      // Pad the other columns first, then colour the verdict, so ANSI codes never shift the columns.
+      const prefix = row.slice(0, last).map((s, i) => `${pad(s, widths[i]!, COLUMNS[i]!.align)}  `).join('');
+      out.push(prefix + paint(verdictColour(c), row[last]!));
+    });
+  }
+  out.push('');
+
+  out.push(paint(ANSI.bold, 'FINDINGS'));
+  if (numbered.length === 0) out.push('  none');
+  for (const severity of SEVERITY_ORDER) {
+    const group = numbered.filter((f) => f.finding.severity === severity);
+    if (group.length === 0) continue;
+    out.push(paint(severityColour[severity], `${SEVERITY_WORDS[severity]} (${group.length})`));
+    for (const { n, finding } of group) {
+      const cite = citationText(finding.cites);
+      out.push(`  [${n}] ${refText(finding.subject)} · ${[cite, `rule ${finding.ruleId}`].filter(Boolean).join(' · ')}`);
+      out.push(...wrap(finding.message, width, '      '));
+      for (const fix of finding.fixes) out.push(...wrap(`fix: ${fixText(fix)}`, width, '      ', '     '));
+    }
+  }
+  out.push('');
+
+  out.push(paint(ANSI.bold, 'ASSUMPTIONS'));
+  if (report.assumptions.length === 0) out.push('  none stated');
+  for (const a of report.assumptions) out.push(...wrap(`- ${a}`, width, '  ', '  '));
+  out.push('');
+
+  out.push(paint(ANSI.bold, 'CAUTION'));
+  out.push(...wrap(report.caution || CAUTION, width, '  '));
+  return `${out.join('\n')}\n`;
+}
