@@ -38,7 +38,10 @@ export function Canvas() {
       },
       fitAll: () => {
         // Wait a frame so React Flow holds the newly committed nodes.
-        requestAnimationFrame(() => void rf.fitView({ padding: 0.12, maxZoom: 1.2, duration: 0 }));
+        requestAnimationFrame(() => {
+          if (rf.getNodes().length === 0) void rf.setViewport({ x: 0, y: 0, zoom: 1 });
+          else void rf.fitView({ padding: 0.12, maxZoom: 1.2, duration: 0 });
+        });
       },
     };
     return () => {

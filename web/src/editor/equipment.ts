@@ -26,7 +26,7 @@ export interface KindSpec {
   defaults: () => { kind: EquipmentKind } & Record<string, unknown>;
 }
 
-const std = { width: 200, height: 72, wireX: 30 } as const;
+const std = { width: 200, height: 72, wireX: 40 } as const;
 
 export const KIND_SPECS = {
   utility: {
@@ -56,12 +56,12 @@ export const KIND_SPECS = {
   },
   splice: {
     kind: 'splice', short: 'Splice / tap', title: 'Splice or tap point', labelPrefix: 'SP', ports: { in: 'line', out: 'load' },
-    width: 180, height: 44, wireX: 30,
+    width: 180, height: 44, wireX: 40,
     defaults: () => ({ kind: 'splice' }),
   },
   transformer: {
     kind: 'transformer', short: 'Transformer', title: 'Transformer', labelPrefix: 'T', ports: { in: 'primary', out: 'secondary' },
-    width: 200, height: 88, wireX: 30,
+    width: 200, height: 88, wireX: 40,
     defaults: () => ({ kind: 'transformer', kva: 75, primaryVoltsLL: 480, secondaryVoltsLL: 208, phases: 3, impedancePct: 5, connection: 'delta-wye' }),
   },
   load: {

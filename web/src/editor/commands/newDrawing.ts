@@ -17,7 +17,8 @@ export const newDrawing = defineCommand({
   id: 'new-drawing',
   label: 'New drawing',
   canRun: () => true,
-  run: ({ store }) => {
+  run: ({ store, canvas }) => {
     store.replaceDocument('New drawing', emptyProject());
+    canvas?.fitAll();
   },
 });
