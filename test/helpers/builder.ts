@@ -37,6 +37,8 @@ export class DiagramBuilder {
   private readonly depth = new Map<string, number>();
   private readonly perRow = new Map<number, number>();
   private seq = 0;
+  private conductorSeq = 0;
+  private readonly edgeIds = new Set<string>();
 
   constructor(settings: Partial<SettingsInput> = {}) {
     this.settingsInput = { name: 'Test fixture', ...settings };
@@ -104,6 +106,28 @@ export class DiagramBuilder {
     return this.conductor(spec);
   }
 
+  /**
+   * Join two existing nodes: by a conductor when `spec` is given, else by a bus link.
+   * For loops, double feeds and other odd shapes; the current node does not change.
+   */
+  join(from: string, to: string, spec?: ConductorSpec): this {
+    for (const id of [from, to]) if (!this.depth.has(id)) throw new Error(`builder: no node '${id}' yet`);
+    if (spec) {
+      const { id: cid, ...rest } = spec;
+      this.pushConductor(cid, from, to, rest);
+    } else {
+      this.pushBusLink(from, to);
+    }
+    return this;
+  }
+
+  /** The next equipment call starts a new, separate tree (a second source, an island). */
+  startTree(): this {
+    this.cursor = null;
+    this.pending = null;
+    return this;
+  }
+
   /** Make an existing node current, to draw a branch from it. */
   at(id: string): this {
     if (!this.depth.has(id)) throw new Error(`builder: no node '${id}' yet`);
@@ -134,6 +158,20 @@ export class DiagramBuilder {
     }) as ProjectInput;
   }
 
+  private pushConductor(id: string | undefined, from: string, to: string, spec: Omit<ConductorSpec, 'id'>): void {
+    let cid = id;
+    while (cid === undefined || this.edgeIds.has(cid)) {
+      if (id !== undefined) throw new Error(`builder: duplicate conductor id '${id}'`);
+      cid = `C${++this.conductorSeq}`;
+    }
+    this.edgeIds.add(cid);
+    this.conductors.push({ id: cid, from, to, ...spec } as ConductorInput);
+  }
+
+  private pushBusLink(from: string, to: string): void {
+    this.busLinks.push({ id: `BL${this.busLinks.length + 1}`, from, to } as BusLinkInput);
+  }
+
   private add(raw: NodeInput): this {
     const id = raw.id ?? `${raw.kind}${++this.seq}`;
     if (this.depth.has(id)) throw new Error(`builder: duplicate node id '${id}'`);
@@ -146,9 +184,9 @@ export class DiagramBuilder {
     if (parent !== null) {
       if (this.pending) {
         const { id: cid, ...spec } = this.pending;
-        this.conductors.push({ id: cid ?? `C${this.conductors.length + 1}`, from: parent, to: id, ...spec } as ConductorInput);
+        this.pushConductor(cid, parent, id, spec);
       } else {
-        this.busLinks.push({ id: `BL${this.busLinks.length + 1}`, from: parent, to: id } as BusLinkInput);
+        this.pushBusLink(parent, id);
       }
     }
     this.pending = null;

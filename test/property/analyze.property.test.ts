@@ -1,0 +1,181 @@
+/**
+ * Properties of analyze() over random, schema-valid networks (fast-check).
+ * Run counts are bounded so the suite stays quick. On failure fast-check
+ * prints the seed and path; replay with FC_SEED=<seed> (and FC_PATH=<path>)
+ * in the environment. FC_RUNS raises the run count for a longer soak.
+ */
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import {
+  CONDUCTOR_SIZES, VERDICTS, analyze, loadProject,
+  type AnalysisReport, type ElementRef, type Fix, type Project, type ProjectInput,
+} from '@linewright/core';
+import { oddNetwork, treeNetwork } from '../helpers/networks';
+
+const runs = (n: number) => Number(process.env.FC_RUNS ?? n);
+const replay = {
+  ...(process.env.FC_SEED ? { seed: Number(process.env.FC_SEED) } : {}),
+  ...(process.env.FC_PATH ? { path: process.env.FC_PATH } : {}),
+};
+const settings = (numRuns: number): fc.Parameters<unknown> => ({ numRuns: runs(numRuns), ...replay });
+
+/** Load a generated input; the generators only draw valid files, so a refusal is a failure. */
+function load(input: ProjectInput): Project {
+  const loaded = loadProject(JSON.parse(JSON.stringify(input)));
+  if (!loaded.ok) throw new Error(`generated network refused: ${JSON.stringify(loaded.errors.slice(0, 5))}`);
+  return loaded.project;
+}
+
+function verdictsById(report: AnalysisReport) {
+  return Object.fromEntries(report.conductors.map((c) => [c.id, { verdict: c.verdict, rule: c.rule, tapLengthFt: c.tapLengthFt }]));
+}
+
+/** A fixed shuffle from a seed (mulberry32 + Fisher–Yates), so failures replay. */
+function shuffled<T>(items: readonly T[], seed: number): T[] {
+  let a = seed >>> 0;
+  const rand = () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = Math.imul(a ^ (a >>> 15), a | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+  const out = [...items];
+  for (let i = out.length - 1; i > 0; i--) {
+    const j = Math.floor(rand() * (i + 1));
+    [out[i], out[j]] = [out[j]!, out[i]!];
+  }
+  return out;
+}
+
+function checkOneVerdictEach(project: Project, report: AnalysisReport) {
+  const ids = project.conductors.map((c) => c.id as string).sort();
+  expect(report.conductors.map((c) => c.id as string).sort()).toEqual(ids);
+  for (const c of report.conductors) expect(VERDICTS).toContain(c.verdict);
+  const counted = Object.values(report.counts.byVerdict).reduce((a, b) => a + b, 0);
+  expect(counted).toBe(project.conductors.length);
+}
+
+function checkReferences(project: Project, report: AnalysisReport) {
+  const nodes = new Set<string>(project.nodes.map((n) => n.id));
+  const conductors = new Set<string>(project.conductors.map((c) => c.id));
+  const links = new Set<string>(project.busLinks.map((l) => l.id));
+  const findingIds = new Set(report.findings.map((f) => f.id));
+  const bad: string[] = [];
+  const ref = (r: ElementRef, where: string) => {
+    if (r.kind === 'node' && !nodes.has(r.id)) bad.push(`${where}: node ${r.id}`);
+    if (r.kind === 'conductor' && !conductors.has(r.id)) bad.push(`${where}: conductor ${r.id}`);
+    if (r.kind === 'busLink' && !links.has(r.id)) bad.push(`${where}: bus link ${r.id}`);
+  };
+  const fix = (f: Fix, where: string) => {
+    if (f.kind === 'resize' || f.kind === 'shorten') for (const id of f.conductorIds) if (!conductors.has(id)) bad.push(`${where}: fix names conductor ${id}`);
+    if (f.kind === 'add-ocpd' && !conductors.has(f.conductorId)) bad.push(`${where}: fix names conductor ${f.conductorId}`);
+    if (f.kind === 'set-field') ref(f.ref, `${where} fix`);
+  };
+  for (const f of report.findings) {
+    ref(f.subject, `finding ${f.id} subject`);
+    f.related.forEach((r) => ref(r, `finding ${f.id} related`));
+    f.fixes.forEach((x) => fix(x, `finding ${f.id}`));
+  }
+  for (const c of report.conductors) {
+    c.chain.forEach((id) => conductors.has(id) || bad.push(`conductor ${c.id} chain: ${id}`));
+    c.findingIds.forEach((id) => findingIds.has(id) || bad.push(`conductor ${c.id} names finding ${id}`));
+    if (c.upstreamDevice && !nodes.has(c.upstreamDevice.id)) bad.push(`conductor ${c.id} upstream device ${c.upstreamDevice.id}`);
+    c.fixes.forEach((x) => fix(x, `conductor ${c.id}`));
+  }
+  expect(bad).toEqual([]);
+}
+
+describe('analyze on random radial networks', () => {
+  it('never throws and gives every conductor exactly one verdict from VERDICTS', () => {
+    fc.assert(
+      fc.property(treeNetwork(), (input) => {
+        const project = load(input);
+        const report = analyze(project);
+        checkOneVerdictEach(project, report);
+      }),
+      settings(150),
+    );
+  });
+
+  it('findings, fixes and conductor reports name only ids that exist in the project', () => {
+    fc.assert(
+      fc.property(treeNetwork(), (input) => {
+        const project = load(input);
+        checkReferences(project, analyze(project));
+      }),
+      settings(100),
+    );
+  });
+
+  it('does not depend on the order of nodes, conductors and bus links in the file', () => {
+    fc.assert(
+      fc.property(treeNetwork(), fc.integer(), (input, seed) => {
+        const reordered: ProjectInput = {
+          ...input,
+          nodes: shuffled(input.nodes, seed),
+          conductors: shuffled(input.conductors, seed + 1),
+          busLinks: shuffled(input.busLinks ?? [], seed + 2),
+        };
+        expect(verdictsById(analyze(load(reordered)))).toEqual(verdictsById(analyze(load(input))));
+      }),
+      settings(80),
+    );
+  });
+
+  it('keeps a protected conductor protected when only its size grows', () => {
+    fc.assert(
+      fc.property(treeNetwork(), fc.nat(), fc.nat(), (input, pick, grow) => {
+        const before = analyze(load(input));
+        const protectedIds = before.conductors.filter((c) => c.verdict === 'protected').map((c) => c.id as string);
+        fc.pre(protectedIds.length > 0);
+        const id = protectedIds[pick % protectedIds.length]!;
+        const original = input.conductors.find((c) => c.id === id)!;
+        const from = CONDUCTOR_SIZES.indexOf(original.size);
+        fc.pre(from < CONDUCTOR_SIZES.length - 1);
+        const size = CONDUCTOR_SIZES[from + 1 + (grow % (CONDUCTOR_SIZES.length - 1 - from))]!;
+        const bigger: ProjectInput = { ...input, conductors: input.conductors.map((c) => (c.id === id ? { ...c, size } : c)) };
+        const after = analyze(load(bigger)).conductors.find((c) => c.id === id)!;
+        expect(after.verdict, `${id}: ${original.size} -> ${size}; ${after.summary}`).toBe('protected');
+      }),
+      settings(120),
+    );
+  });
+});
+
+describe('analyze on odd networks (loops, double feeds, islands, several or no sources)', () => {
+  it('never throws, one verdict per conductor, and findings name existing ids', () => {
+    fc.assert(
+      fc.property(oddNetwork(), (input) => {
+        const loaded = loadProject(JSON.parse(JSON.stringify(input)));
+        if (!loaded.ok) {
+          // Refusing is allowed only with errors that name a place in the file.
+          for (const e of loaded.errors) expect(typeof e.path).toBe('string');
+          return;
+        }
+        const report = analyze(loaded.project);
+        checkOneVerdictEach(loaded.project, report);
+        checkReferences(loaded.project, report);
+      }),
+      settings(150),
+    );
+  });
+
+  it('gives the same verdicts whatever the order of the file', () => {
+    fc.assert(
+      fc.property(oddNetwork(), fc.integer(), (input, seed) => {
+        const first = loadProject(JSON.parse(JSON.stringify(input)));
+        fc.pre(first.ok);
+        const reordered: ProjectInput = {
+          ...input,
+          nodes: shuffled(input.nodes, seed),
+          conductors: shuffled(input.conductors, seed + 1),
+          busLinks: shuffled(input.busLinks ?? [], seed + 2),
+        };
+        const a = Object.fromEntries(analyze(load(input)).conductors.map((c) => [c.id, c.verdict]));
+        const b = Object.fromEntries(analyze(load(reordered)).conductors.map((c) => [c.id, c.verdict]));
+        expect(b).toEqual(a);
+      }),
+      settings(80),
+    );
+  });
+});
