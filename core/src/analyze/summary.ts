@@ -2,17 +2,21 @@ import { formatNumber } from '../rules/define';
 import type { RunVerdict } from './classify';
 import { VERDICT_LABELS, type RuleTrial } from './types';
 
+const LENGTH_CONDITIONS: ReadonlySet<string> = new Set(['length', 'total', 'horizontal']);
 const PROTECTION_RULE_IDS: ReadonlySet<string> = new Set(['protected', 'protected-next-size']);
 
-/** The trial closest to holding: fewest failed conditions, earliest in code order on a tie. */
+/** The trial closest to holding: fewest failed conditions (a failed length weighs 1.5), earliest in code order on a tie. */
 export function nearestTrial(tried: readonly RuleTrial[]): RuleTrial | null {
   let best: RuleTrial | null = null;
   let bestFails = Number.POSITIVE_INFINITY;
-  // Tap rules first, so that on a tie the nearest rule is a tap rule; 240.4 wins only with strictly fewer failures.
-  const ordered = [...tried.filter((t) => !PROTECTION_RULE_IDS.has(t.ruleId)), ...tried.filter((t) => PROTECTION_RULE_IDS.has(t.ruleId))];
-  for (const t of ordered) {
+  // A conductor 240.4 does not protect is a tap conductor by definition, so its nearest rule is a tap rule;
+  // the fixes still offer the size that 240.4 would protect.
+  const taps = tried.filter((t) => !PROTECTION_RULE_IDS.has(t.ruleId));
+  for (const t of taps.length > 0 ? taps : tried) {
     if (t.outcome === 'holds') return t;
-    const fails = t.conditions.filter((c) => c.status === 'fail').length;
+    // A run's length is set by the building, its size is not: a failed length counts a little more.
+    let fails = 0;
+    for (const c of t.conditions) if (c.status === 'fail') fails += LENGTH_CONDITIONS.has(c.id) ? 1.5 : 1;
     if (fails < bestFails) {
       best = t;
       bestFails = fails;
