@@ -12,6 +12,7 @@ import {
   conductorText,
   deviceText,
   fixText,
+  labelStatesRating,
   lengthText,
   num,
   numberFindings,
@@ -302,15 +303,141 @@ function callout(sh: Sheet, kind: 'violation' | 'needs-ahj', n: number, x: numbe
   sh.text(String(n), x, kind === 'violation' ? y : y + r * 0.15, { align: 'center', baseline: 'middle' });
 }
 
+interface Rect {
+  x: number;
+  y: number;
+  w: number;
+  h: number;
+}
+
+/**
+ * Greedy label placement: obstacles (symbols, lines, placed labels) go into a uniform grid, and
+ * each label takes the first candidate spot that overlaps nothing, or else the one that overlaps
+ * least. Good enough for risers of a few hundred elements and linear in practice.
+ */
+class Placer {
+  private readonly cells = new Map<string, Rect[]>();
+  constructor(private readonly cell: number) {}
+
+  private keys(r: Rect): string[] {
+    const out: string[] = [];
+    const x0 = Math.floor(r.x / this.cell), x1 = Math.floor((r.x + r.w) / this.cell);
+    const y0 = Math.floor(r.y / this.cell), y1 = Math.floor((r.y + r.h) / this.cell);
+    for (let i = x0; i <= x1; i++) for (let j = y0; j <= y1; j++) out.push(`${i},${j}`);
+    return out;
+  }
+
+  add(r: Rect): void {
+    for (const k of this.keys(r)) {
+      const list = this.cells.get(k);
+      if (list) list.push(r);
+      else this.cells.set(k, [r]);
+    }
+  }
+
+  overlap(r: Rect): number {
+    let area = 0;
+    const seen = new Set<Rect>();
+    for (const k of this.keys(r)) {
+      for (const o of this.cells.get(k) ?? []) {
+        if (seen.has(o)) continue;
+        seen.add(o);
+        const w = Math.min(r.x + r.w, o.x + o.w) - Math.max(r.x, o.x);
+        const h = Math.min(r.y + r.h, o.y + o.h) - Math.max(r.y, o.y);
+        if (w > 0 && h > 0) area += w * h;
+      }
+    }
+    return area;
+  }
+
+  /** Picks the first free candidate inside `bounds`, else the least crowded one; records it. */
+  place(candidates: Rect[], bounds: Rect): Rect {
+    let best = candidates[0]!;
+    let bestScore = Infinity;
+    for (const c of candidates) {
+      const outside = c.x < bounds.x || c.y < bounds.y || c.x + c.w > bounds.x + bounds.w || c.y + c.h > bounds.y + bounds.h;
+      const score = this.overlap(c) + (outside ? 1e6 : 0);
+      if (score === 0) {
+        best = c;
+        bestScore = 0;
+        break;
+      }
+      if (score < bestScore) {
+        best = c;
+        bestScore = score;
+      }
+    }
+    this.add(best);
+    return best;
+  }
+}
+
+interface Label {
+  lines: { text: string; style: 'normal' | 'bold' | 'italic'; color: Rgb; size: number }[];
+  callouts: { kind: 'violation' | 'needs-ahj'; n: number }[];
+  w: number;
+  h: number;
+}
+
+function measure(sh: Sheet, label: Omit<Label, 'w' | 'h'>): Label {
+  let w = 0;
+  let h = 0;
+  for (const l of label.lines) {
+    sh.font(l.size, l.style);
+    w = Math.max(w, sh.doc.getTextWidth(pdfSafe(l.text)));
+    h += l.size * 1.18;
+  }
+  const size = label.lines[0]?.size ?? 6;
+  if (label.callouts.length > 0) w += label.callouts.length * size * 2 + 2;
+  return { ...label, w: w + 3, h: h + 2 };
+}
+
+/** Draws a placed label: a white ground so lines beneath do not cross the words, callouts first. */
+function drawLabel(sh: Sheet, label: Label, at: Rect): void {
+  sh.fill([255, 255, 255]);
+  sh.doc.rect(at.x, at.y, at.w, at.h, 'F');
+  let x = at.x + 1.5;
+  const size = label.lines[0]?.size ?? 6;
+  const r = size * 0.85;
+  for (const c of label.callouts) {
+    callout(sh, c.kind, c.n, x + r, at.y + at.h / 2, r);
+    x += size * 2;
+  }
+  let y = at.y + 1;
+  for (const l of label.lines) {
+    sh.font(l.size, l.style, l.color);
+    sh.text(l.text, x, y + l.size * 0.9);
+    y += l.size * 1.18;
+  }
+}
+
+/** Node text on the drawing: the label, then the rating or size unless the label already says it. */
+function nodeLines(n: EquipmentNode): string[] {
+  const name = nodeName(n);
+  const detail = nodeDetail(n);
+  const rating = 'ratingA' in n && typeof n.ratingA === 'number' ? n.ratingA : null;
+  const redundant =
+    (rating !== null && labelStatesRating(name, rating)) ||
+    (n.kind === 'transformer' && /kva/i.test(name)) ||
+    (n.kind === 'load' && /\d\s?(kva|a)\b/i.test(name)) ||
+    n.kind === 'splice';
+  return redundant ? [name] : [name, detail];
+}
+
 function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport, box: DrawBox, numbers: Map<string, number>): void {
   const positions = layoutNodes(project.nodes, [...project.conductors, ...project.busLinks]);
   const { map, scale } = fit(positions, box);
   const s = Math.max(3, Math.min(13, scale * 38));
-  const labelFont = Math.max(2.5, Math.min(7, scale * 16));
+  const labelFont = Math.max(2.5, Math.min(6.5, scale * 14));
   const placed = new Map<string, Placed>();
   for (const node of project.nodes) {
     const p = positions.get(node.id);
-    if (p) placed.set(node.id, { node, p: map(p) });
+    if (p && !placed.has(node.id)) placed.set(node.id, { node, p: map(p) });
+  }
+  if (placed.size === 0) {
+    sh.font(12, 'italic', GREY);
+    sh.text('The project has no equipment to draw.', box.x + box.w / 2, box.y + box.h / 2, { align: 'center' });
+    return;
   }
 
   // A bus bar spans the conductors it feeds, as a switchboard does on a riser.
@@ -332,17 +459,24 @@ function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport, box: D
   }
 
   const reports = new Map(report.conductors.map((c) => [c.id as string, c]));
-  const findingsBySubject = new Map<string, { n: number; f: Finding }[]>();
+  const marksBySubject = new Map<string, { kind: 'violation' | 'needs-ahj'; n: number }[]>();
   for (const f of report.findings) {
-    if (f.severity !== 'violation' && f.severity !== 'needs-ahj') continue;
-    if (f.subject.kind === 'project') continue;
+    if ((f.severity !== 'violation' && f.severity !== 'needs-ahj') || f.subject.kind === 'project') continue;
     const key = `${f.subject.kind}:${f.subject.id}`;
-    const list = findingsBySubject.get(key) ?? [];
-    list.push({ n: numbers.get(f.id)!, f });
-    findingsBySubject.set(key, list);
+    const list = marksBySubject.get(key) ?? [];
+    list.push({ kind: f.severity === 'violation' ? 'violation' : 'needs-ahj', n: numbers.get(f.id)! });
+    marksBySubject.set(key, list);
   }
 
-  // Bus links: short heavy connections inside equipment, no label.
+  const placer = new Placer(Math.max(20, 60 * scale));
+  const obstacle = (pts: Point[]) => {
+    for (let i = 1; i < pts.length; i++) {
+      const a = pts[i - 1]!, b = pts[i]!;
+      placer.add({ x: Math.min(a.x, b.x) - 0.8, y: Math.min(a.y, b.y) - 0.8, w: Math.abs(a.x - b.x) + 1.6, h: Math.abs(a.y - b.y) + 1.6 });
+    }
+  };
+
+  // 1. Lines: bus links heavy and plain, conductors in their verdict's style.
   for (const b of project.busLinks) {
     const a = placed.get(b.from);
     const z = placed.get(b.to);
@@ -350,8 +484,10 @@ function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport, box: D
     const r = route(a.p, z.p, s, a.node.kind === 'bus' ? { half: busHalf.get(b.from)! } : null, z.node.kind === 'bus');
     sh.stroke(BLACK, Math.max(0.8, s / 6));
     polyline(sh, r.pts);
+    obstacle(r.pts);
   }
-
+  const conductorLabels: { c: (typeof project.conductors)[number]; r: Route; label: Label; urgent: boolean }[] = [];
+  const styleScale = Math.max(0.4, Math.min(1, scale * 1.5));
   for (const c of project.conductors) {
     const a = placed.get(c.from);
     const z = placed.get(c.to);
@@ -360,40 +496,75 @@ function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport, box: D
     const cls: VerdictClass = cr ? verdictClass(cr.verdict) : 'incomplete';
     const st = STYLE[cls];
     const r = route(a.p, z.p, s, a.node.kind === 'bus' ? { half: busHalf.get(c.from)! } : null, z.node.kind === 'bus');
-    sh.stroke(st.color, st.width * Math.max(0.5, Math.min(1, scale * 1.5)), st.dash.map((v) => v * Math.max(0.4, Math.min(1, scale * 1.5))));
+    sh.stroke(st.color, st.width * styleScale, st.dash.map((v) => v * styleScale));
     polyline(sh, r.pts);
-
-    const lx = r.labelAt.x + labelFont * 0.6;
-    const ly = r.labelAt.y;
-    sh.font(labelFont, 'normal');
-    const line1 = `${c.id}: ${cr ? conductorText(cr) : c.size}, ${lengthText(c.lengthFt ?? null)}`;
-    sh.text(line1, lx, ly - labelFont * 0.15);
-    sh.font(labelFont, cls === 'failing' ? 'bold' : 'italic', cls === 'failing' ? VIOLATION : BLACK);
-    sh.text(cr ? verdictText(cr) : 'not analyzed', lx, ly + labelFont * 1.05);
-
-    const marks = findingsBySubject.get(`conductor:${c.id}`) ?? [];
-    const cr0 = Math.max(2.5, labelFont * 0.9);
-    marks.forEach((m, i) => callout(sh, m.f.severity === 'violation' ? 'violation' : 'needs-ahj', m.n, r.labelAt.x - cr0 * 1.6 - i * cr0 * 2.3, ly, cr0));
+    obstacle(r.pts);
+    const callouts = marksBySubject.get(`conductor:${c.id}`) ?? [];
+    const label = measure(sh, {
+      lines: [
+        { text: `${c.id}: ${cr ? conductorText(cr) : c.size}, ${lengthText(c.lengthFt ?? null)}`, style: 'normal', color: BLACK, size: labelFont },
+        { text: cr ? verdictText(cr) : 'not analyzed', style: cls === 'failing' ? 'bold' : 'italic', color: cls === 'failing' ? VIOLATION : BLACK, size: labelFont },
+      ],
+      callouts,
+    });
+    conductorLabels.push({ c, r, label, urgent: callouts.length > 0 || cls === 'failing' });
   }
 
+  // 2. Symbols, which labels must not cover.
   for (const [id, pl] of placed) {
     const half = busHalf.get(id) ?? 0;
     drawSymbol(sh, pl.node, pl.p.x, pl.p.y, s, half);
-    const tx = pl.node.kind === 'bus' ? pl.p.x + half + 3 : pl.p.x + s * 0.9 + 2;
-    const ty = pl.node.kind === 'bus' ? pl.p.y - labelFont * 0.6 : pl.p.y - labelFont * 0.2;
-    sh.font(labelFont * 1.05, 'bold');
-    sh.text(nodeName(pl.node), tx, ty);
-    sh.font(labelFont * 0.95, 'normal', GREY);
-    sh.text(nodeDetail(pl.node), tx, ty + labelFont * 1.1);
-    const marks = findingsBySubject.get(`node:${id}`) ?? [];
-    const cr0 = Math.max(2.5, labelFont * 0.9);
-    marks.forEach((m, i) => callout(sh, m.f.severity === 'violation' ? 'violation' : 'needs-ahj', m.n, pl.p.x - s - cr0 * 1.4 - i * cr0 * 2.3, pl.p.y, cr0));
+    if (pl.node.kind === 'bus') placer.add({ x: pl.p.x - half, y: pl.p.y - s * 0.3, w: 2 * half, h: s * 0.6 });
+    else placer.add({ x: pl.p.x - s, y: pl.p.y - s, w: 2 * s, h: 2 * s });
   }
 
-  if (placed.size === 0) {
-    sh.font(12, 'italic', GREY);
-    sh.text('The project has no equipment to draw.', box.x + box.w / 2, box.y + box.h / 2, { align: 'center' });
+  // 3. Labels, flagged conductors first so they get the best spots, then equipment, then the rest.
+  const gap = labelFont * 0.5;
+  const placeConductor = ({ r, label }: { r: Route; label: Label }) => {
+    const seg = r.pts.length >= 2 ? { a: r.pts[r.pts.length - 2]!, b: r.pts[r.pts.length - 1]! } : { a: r.labelAt, b: r.labelAt };
+    const cands: Rect[] = [];
+    for (const t of [0.5, 0.3, 0.7, 0.15, 0.85, 0.05, 0.95]) {
+      const x = seg.a.x + (seg.b.x - seg.a.x) * t;
+      const y = seg.a.y + (seg.b.y - seg.a.y) * t - label.h / 2;
+      cands.push({ x: x + gap, y, w: label.w, h: label.h }, { x: x - gap - label.w, y, w: label.w, h: label.h });
+    }
+    drawLabel(sh, label, placer.place(cands, box));
+  };
+  for (const cl of conductorLabels) if (cl.urgent) placeConductor(cl);
+  for (const [id, pl] of placed) {
+    const [name, detail] = nodeLines(pl.node);
+    const callouts = marksBySubject.get(`node:${id}`) ?? [];
+    const lines: Label['lines'] = [{ text: name!, style: 'bold', color: BLACK, size: labelFont * 1.05 }];
+    if (detail) lines.push({ text: detail, style: 'normal', color: GREY, size: labelFont * 0.95 });
+    const label = measure(sh, { lines, callouts });
+    const half = pl.node.kind === 'bus' ? busHalf.get(id)! : s;
+    const { x, y } = pl.p;
+    const cands: Rect[] =
+      pl.node.kind === 'bus'
+        ? [
+            { x: x + half + gap, y: y - label.h / 2, w: label.w, h: label.h },
+            { x: x - half - gap - label.w, y: y - label.h / 2, w: label.w, h: label.h },
+            { x: x - half, y: y - s * 0.4 - label.h, w: label.w, h: label.h },
+            { x: x + half - label.w, y: y - s * 0.4 - label.h, w: label.w, h: label.h },
+            { x: x - half, y: y + s * 0.4, w: label.w, h: label.h },
+          ]
+        : [
+            { x: x + s + gap, y: y - label.h / 2, w: label.w, h: label.h },
+            { x: x - s - gap - label.w, y: y - label.h / 2, w: label.w, h: label.h },
+            { x: x + s + gap, y: y - s - label.h * 0.6, w: label.w, h: label.h },
+            { x: x + s + gap, y: y + s - label.h * 0.4, w: label.w, h: label.h },
+            { x: x - s - gap - label.w, y: y - s - label.h * 0.6, w: label.w, h: label.h },
+            { x: x - s - gap - label.w, y: y + s - label.h * 0.4, w: label.w, h: label.h },
+          ];
+    // A second ring further out, used only when every near spot is taken.
+    const near = cands.length;
+    for (let i = 0; i < near; i++) {
+      const c = cands[i]!;
+      cands.push({ ...c, y: c.y + label.h * 1.1 }, { ...c, y: c.y - label.h * 1.1 });
+    }
+    drawLabel(sh, label, placer.place(cands, box));
   }
+  for (const cl of conductorLabels) if (!cl.urgent) placeConductor(cl);
 }
 
 function drawLegend(sh: Sheet, x: number, y: number, w: number): number {
@@ -534,7 +705,11 @@ function table<T>(sh: Sheet, columns: TableColumn<T>[], rows: readonly T[], font
   };
   header();
   rows.forEach((row, i) => {
-    const cells = columns.map((col) => sh.split(col.cell(row), col.width - 6));
+    // Measure in the font the cell is drawn in, or the wrap width is wrong.
+    const cells = columns.map((col) => {
+      sh.font(fontSize, col.bold?.(row) ? 'bold' : 'normal');
+      return sh.split(col.cell(row), col.width - 6);
+    });
     const h = Math.max(...cells.map((c) => c.length)) * lineH + 4;
     if (sh.y + h > BODY_BOTTOM) {
       sh.newPage();
@@ -678,7 +853,10 @@ function footers(sh: Sheet, report: AnalysisReport, generated: string): void {
     sh.stroke(GREY, 0.5);
     sh.doc.line(M, y, PAGE_W - M, y);
     sh.font(6.5, 'normal');
-    sh.text(sh.split(report.caution || CAUTION, PAGE_W - 2 * M)[0] ?? '', M, y + 9);
+    // One line at 6.5 pt fits the standard caution; a longer one shrinks rather than being cut.
+    let size = 6.5;
+    while (size > 4 && sh.doc.getTextWidth(pdfSafe(report.caution || CAUTION)) > PAGE_W - 2 * M) sh.font((size -= 0.5), 'normal');
+    sh.text(sh.split(report.caution || CAUTION, PAGE_W - 2 * M), M, y + 9);
     sh.font(7, 'normal', GREY);
     sh.text(`${report.projectName} · NEC ${report.edition} · generated ${generated} · for review - not a verdict of acceptance`, M, y + 20);
     sh.font(8, 'bold');
