@@ -1,6 +1,6 @@
 import { jsPDF } from 'jspdf';
 import type { EquipmentNode, Project } from '../model/schema';
-import type { AnalysisReport, ConductorReport, Finding } from '../analyze/types';
+import type { AnalysisReport, ConductorReport } from '../analyze/types';
 import { CAUTION } from '../caution';
 import {
   ROLE_WORDS,
@@ -359,7 +359,6 @@ class Placer {
       const score = this.overlap(c) + (outside ? 1e6 : 0);
       if (score === 0) {
         best = c;
-        bestScore = 0;
         break;
       }
       if (score < bestScore) {
