@@ -170,7 +170,40 @@ interface DrawBox {
 }
 
 /** Maps layout points into the box, keeping the aspect ratio; returns the scale used. */
-function fit(points: Map<string, Point>, box: DrawBox): { map: (p: Point) => Point; scale: number } {
+interface View {
+  map: (p: Point) => Point;
+  scale: number;
+}
+
+interface Bounds {
+  minX: number;
+  minY: number;
+  maxX: number;
+  maxY: number;
+}
+
+function boundsOf(points: Map<string, Point>): Bounds | null {
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  for (const p of points.values()) {
+    minX = Math.min(minX, p.x);
+    maxX = Math.max(maxX, p.x);
+    minY = Math.min(minY, p.y);
+    maxY = Math.max(maxY, p.y);
+  }
+  return Number.isFinite(minX) ? { minX, minY, maxX, maxY } : null;
+}
+
+/** Scale (pt per layout unit) at which labels print at about 6.5 pt: what detail sheets aim for. */
+const LEGIBLE_SCALE = 0.5;
+/** Below this overview scale labels fall under about 4 pt on an 11 × 17 sheet: detail sheets follow. */
+const DETAIL_BELOW_SCALE = 0.3;
+
+/** A view of the layout region starting at (x0, y0) at a fixed scale, for a detail sheet. */
+function viewAt(x0: number, y0: number, scale: number, box: DrawBox): View {
+  return { map: (p) => ({ x: box.x + 30 + (p.x - x0) * scale, y: box.y + 30 + (p.y - y0) * scale }), scale };
+}
+
+function fit(points: Map<string, Point>, box: DrawBox): View {
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
   for (const p of points.values()) {
     minX = Math.min(minX, p.x);
@@ -423,17 +456,35 @@ function nodeLines(n: EquipmentNode): string[] {
   return redundant ? [name] : [name, detail];
 }
 
-function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport, box: DrawBox, numbers: Map<string, number>): void {
-  const positions = layoutNodes(project.nodes, [...project.conductors, ...project.busLinks]);
-  const { map, scale } = fit(positions, box);
+/**
+ * Draws the one-line (or the part of it the view shows) inside `box`, clipped to it. Lines that
+ * leave the box run off its edge; symbols and labels are drawn for the elements inside it.
+ */
+function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport, box: DrawBox, numbers: Map<string, number>, positions: Map<string, Point>, view: View): void {
+  const { map, scale } = view;
   const s = Math.max(3, Math.min(13, scale * 38));
   const labelFont = Math.max(2.5, Math.min(6.5, scale * 14));
-  const placed = new Map<string, Placed>();
+  const margin = 2 * s;
+  const inBox = (p: Point) => p.x >= box.x - margin && p.x <= box.x + box.w + margin && p.y >= box.y - margin && p.y <= box.y + box.h + margin;
+  const all = new Map<string, Placed>();
   for (const node of project.nodes) {
     const p = positions.get(node.id);
-    if (p && !placed.has(node.id)) placed.set(node.id, { node, p: map(p) });
+    if (p && !all.has(node.id)) all.set(node.id, { node, p: map(p) });
   }
-  if (placed.size === 0) {
+  const placed = new Map<string, Placed>();
+  for (const [id, pl] of all) if (inBox(pl.p)) placed.set(id, pl);
+  sh.doc.saveGraphicsState();
+  sh.doc.rect(box.x, box.y, box.w, box.h, null);
+  sh.doc.clip();
+  sh.doc.discardPath();
+  try {
+    drawClipped();
+  } finally {
+    sh.doc.restoreGraphicsState();
+  }
+
+  function drawClipped(): void {
+  if (all.size === 0) {
     sh.font(12, 'italic', GREY);
     sh.text('The project has no equipment to draw.', box.x + box.w / 2, box.y + box.h / 2, { align: 'center' });
     return;
@@ -447,11 +498,11 @@ function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport, box: D
     if (list) list.push(e.to);
     else edgesOut.set(e.from, [e.to]);
   }
-  for (const [id, pl] of placed) {
+  for (const [id, pl] of all) {
     if (pl.node.kind !== 'bus') continue;
     let half = s * 1.5;
     for (const to of edgesOut.get(id) ?? []) {
-      const q = placed.get(to);
+      const q = all.get(to);
       if (q && q.p.y > pl.p.y) half = Math.max(half, Math.abs(q.p.x - pl.p.x) + s * 0.6);
     }
     busHalf.set(id, half);
@@ -477,9 +528,9 @@ function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport, box: D
 
   // 1. Lines: bus links heavy and plain, conductors in their verdict's style.
   for (const b of project.busLinks) {
-    const a = placed.get(b.from);
-    const z = placed.get(b.to);
-    if (!a || !z) continue;
+    const a = all.get(b.from);
+    const z = all.get(b.to);
+    if (!a || !z || (!placed.has(b.from) && !placed.has(b.to))) continue;
     const r = route(a.p, z.p, s, a.node.kind === 'bus' ? { half: busHalf.get(b.from)! } : null, z.node.kind === 'bus');
     sh.stroke(BLACK, Math.max(0.8, s / 6));
     polyline(sh, r.pts);
@@ -488,9 +539,9 @@ function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport, box: D
   const conductorLabels: { c: (typeof project.conductors)[number]; r: Route; label: Label; urgent: boolean }[] = [];
   const styleScale = Math.max(0.4, Math.min(1, scale * 1.5));
   for (const c of project.conductors) {
-    const a = placed.get(c.from);
-    const z = placed.get(c.to);
-    if (!a || !z) continue;
+    const a = all.get(c.from);
+    const z = all.get(c.to);
+    if (!a || !z || (!placed.has(c.from) && !placed.has(c.to))) continue;
     const cr = reports.get(c.id);
     const cls: VerdictClass = cr ? verdictClass(cr.verdict) : 'incomplete';
     const st = STYLE[cls];
@@ -506,7 +557,7 @@ function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport, box: D
       ],
       callouts,
     });
-    conductorLabels.push({ c, r, label, urgent: callouts.length > 0 || cls === 'failing' });
+    if (inBox(r.labelAt)) conductorLabels.push({ c, r, label, urgent: callouts.length > 0 || cls === 'failing' });
   }
 
   // 2. Symbols, which labels must not cover.
@@ -518,6 +569,14 @@ function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport, box: D
   }
 
   // 3. Labels, flagged conductors first so they get the best spots, then equipment, then the rest.
+  // Under about 2.5 pt text is unreadable: a reduced overview shows structure and callouts only.
+  if (labelFont * 1.0 < 2.6 || scale < 0.16) {
+    for (const cl of conductorLabels) {
+      if (cl.label.callouts.length === 0) continue;
+      cl.label.callouts.forEach((m, i) => callout(sh, m.kind, m.n, cl.r.labelAt.x + 5 + i * 9, cl.r.labelAt.y, 4));
+    }
+    return;
+  }
   const gap = labelFont * 0.5;
   const placeConductor = ({ r, label }: { r: Route; label: Label }) => {
     const seg = r.pts.length >= 2 ? { a: r.pts[r.pts.length - 2]!, b: r.pts[r.pts.length - 1]! } : { a: r.labelAt, b: r.labelAt };
@@ -564,6 +623,49 @@ function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport, box: D
     drawLabel(sh, label, placer.place(cands, box));
   }
   for (const cl of conductorLabels) if (!cl.urgent) placeConductor(cl);
+  }
+}
+
+interface DetailSheet {
+  name: string;
+  x0: number;
+  y0: number;
+  w: number;
+  h: number;
+}
+
+/**
+ * Splits the layout into an even grid of regions, each small enough to draw at LEGIBLE_SCALE or
+ * larger, and keeps the regions that hold equipment. Even splits keep cuts away from sheet edges.
+ */
+function detailSheets(positions: Map<string, Point>, box: DrawBox): DetailSheet[] {
+  const b = boundsOf(positions);
+  if (!b) return [];
+  const bw = b.maxX - b.minX + 1;
+  const bh = b.maxY - b.minY + 1;
+  const nx = Math.max(1, Math.ceil(bw / ((box.w - 180) / LEGIBLE_SCALE)));
+  const ny = Math.max(1, Math.ceil(bh / ((box.h - 60) / LEGIBLE_SCALE)));
+  const tw = bw / nx;
+  const th = bh / ny;
+  const used = new Set<number>();
+  for (const p of positions.values()) {
+    const i = Math.min(nx - 1, Math.floor((p.x - b.minX) / tw));
+    const j = Math.min(ny - 1, Math.floor((p.y - b.minY) / th));
+    used.add(j * nx + i);
+  }
+  const out: DetailSheet[] = [];
+  for (let j = 0; j < ny; j++) {
+    for (let i = 0; i < nx; i++) {
+      if (!used.has(j * nx + i)) continue;
+      out.push({ name: `D${out.length + 1}`, x0: b.minX + i * tw, y0: b.minY + j * th, w: tw, h: th });
+    }
+  }
+  return out;
+}
+
+/** The scale a detail sheet draws its region at: as large as fits, never above 1.2. */
+function detailScale(d: DetailSheet, box: DrawBox): number {
+  return Math.min((box.w - 180) / d.w, (box.h - 60) / d.h, 1.2);
 }
 
 function drawLegend(sh: Sheet, x: number, y: number, w: number): number {
@@ -886,11 +988,39 @@ export function renderPermitPdf(project: Project, report: AnalysisReport, option
   const box = { x: M, y: M + 32, w: sideX - M - 14, h: BODY_BOTTOM - M - 32 };
   sh.stroke(GREY, 0.6);
   sh.doc.rect(box.x, box.y, box.w, box.h, 'S');
-  drawOneLine(sh, project, report, box, numbers);
+  const positions = layoutNodes(project.nodes, [...project.conductors, ...project.busLinks]);
+  const overview = fit(positions, box);
+  drawOneLine(sh, project, report, box, numbers, positions, overview);
+  // A drawing too big to read on one sheet gets detail sheets at a legible scale, keyed on the overview.
+  const detailBox = { x: M, y: M + 32, w: PAGE_W - 2 * M, h: BODY_BOTTOM - M - 32 };
+  const details = overview.scale < DETAIL_BELOW_SCALE ? detailSheets(positions, detailBox) : [];
+  if (details.length > 0) {
+    for (const d of details) {
+      const a = overview.map({ x: d.x0, y: d.y0 });
+      const z = overview.map({ x: d.x0 + d.w, y: d.y0 + d.h });
+      sh.stroke(GREY, 0.6, [3, 2]);
+      sh.doc.rect(a.x, a.y, Math.min(z.x, box.x + box.w) - a.x, Math.min(z.y, box.y + box.h) - a.y, 'S');
+      sh.font(7, 'bold', GREY);
+      sh.text(d.name, a.x + 2, a.y + 8);
+    }
+    sh.font(8, 'bold');
+    sh.text(`Overview at reduced scale: detail sheets ${details[0]!.name}-${details[details.length - 1]!.name} follow, each outlined here.`, box.x + 6, box.y + box.h - 6);
+  }
   let y = drawLegend(sh, sideX, M, SIDE_W);
   y = drawSummary(sh, report, sideX, y + 6);
   const tbH = 160;
   drawTitleBlock(sh, report, project, generated, { x: sideX, y: Math.max(y + 6, BODY_BOTTOM - tbH), w: SIDE_W, h: tbH });
+
+  details.forEach((d, k) => {
+    sh.newPage();
+    sh.font(15, 'bold');
+    sh.text(`One-line diagram, detail sheet ${d.name} (${k + 1} of ${details.length}): ${report.projectName}`, M, M + 12);
+    sh.font(8, 'normal', GREY);
+    sh.text('Same marks as the legend on page 1. Lines that leave the sheet continue on the neighbouring detail sheet.', M, M + 24);
+    sh.stroke(GREY, 0.6);
+    sh.doc.rect(detailBox.x, detailBox.y, detailBox.w, detailBox.h, 'S');
+    drawOneLine(sh, project, report, detailBox, numbers, positions, viewAt(d.x0, d.y0, detailScale(d, detailBox), detailBox));
+  });
 
   findingsPages(sh, report);
   schedulePages(sh, report);

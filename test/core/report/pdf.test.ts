@@ -100,8 +100,16 @@ describe('renderPermitPdf', () => {
     const big = renderPermitPdf(project, report, { generatedAt: GENERATED });
     const text = Buffer.from(big).toString('latin1');
     expect(text.startsWith('%PDF-')).toBe(true);
-    // 1 drawing page, findings, at least 4 schedule pages of 251 rows, working pages.
-    expect(pageCount(text)).toBeGreaterThanOrEqual(7);
+    // 1 overview, detail sheets, findings, at least 4 schedule pages of 251 rows, working pages.
+    expect(pageCount(text)).toBeGreaterThanOrEqual(8);
+    if (HAS_PDFTOTEXT) {
+      const path = join(dir, 'big.pdf');
+      writeFileSync(path, big);
+      // 240 branch circuits side by side do not fit one sheet legibly: detail sheets follow the overview.
+      expect(pageText(path, 1)).toContain('detail sheets D1-');
+      expect(pageText(path, 2).replace(/\s+/g, ' ')).toContain('detail sheet D1');
+      expect(pageText(path, 2)).toMatch(/CB0\.0: 12 AWG Cu, 40 ft/);
+    }
   });
 
   it('works with no positions, no conductors and no findings', () => {
