@@ -2,7 +2,7 @@ import { CAUTION } from '../caution';
 import type { Project } from '../model/schema';
 import { buildGraph, topologicalOrder } from '../topology/graph';
 import { buildRuns } from '../topology/runs';
-import { classifyRuns } from './classify';
+import { classifyRuns, type RunVerdict } from './classify';
 import { collectFindings } from './findings';
 import { rollUpLoads } from './loads';
 import { suggestFixes } from './fixes';
@@ -35,7 +35,7 @@ export function analyze(project: Project): AnalysisReport {
   const verdicts = classifyRuns(project, graph, runs, order, count, onCycle, base);
 
   const runFixes: Fix[][] = verdicts.map((v, r) => {
-    if (v.verdict !== 'unprotected' && v.verdict !== 'tap-from-tap') return [];
+    if (v.verdict !== 'unprotected' && v.verdict !== 'tap-from-tap') return NO_FIXES;
     const members = runs.members[r]!.map((ci) => graph.conductors[ci]!);
     return suggestFixes(v.facts, members, v.verdict === 'tap-from-tap' ? [] : v.candidates, v.tried, edition);
   });
@@ -65,12 +65,7 @@ export function analyze(project: Project): AnalysisReport {
     const device = v.deviceNode >= 0 ? deviceRef(v.deviceNode) : null;
     const supplyNode = 'node' in v.supply ? v.supply.node : -1;
     const isTap = v.family === 'fed-by-ocpd' && v.verdict !== 'protected' && v.verdict !== 'protected-next-size' && v.verdict !== 'incomplete';
-    const tapLengthFt =
-      v.verdict === 'tap-transformer' && v.facts.secondaries.length === 1 && v.facts.lengthFt !== null && v.facts.secondaries[0]!.lengthFt !== null
-        ? v.facts.lengthFt + v.facts.secondaries[0]!.lengthFt
-        : isTap || v.family === 'on-tap' || v.family === 'secondary'
-          ? v.facts.lengthFt
-          : null;
+    const tapLengthFt = v.verdict === 'tap-transformer' ? transformerTapLength(v) : isTap || v.family === 'on-tap' || v.family === 'secondary' ? v.facts.lengthFt : null;
     return {
       id: c.id,
       label: c.label ?? c.id,
@@ -96,7 +91,7 @@ export function analyze(project: Project): AnalysisReport {
       load: v.facts.loadA === null || v.facts.calculatedLoadA === null ? null : { flowingA: v.facts.loadA, calculatedA: v.facts.calculatedLoadA },
       tried: v.tried,
       fixes: runFixes[r]!,
-      findingIds: findingIdsBySubject.get(c.id) ?? [],
+      findingIds: findingIdsBySubject.get(c.id) ?? NONE,
     };
   });
 
@@ -117,6 +112,16 @@ export function analyze(project: Project): AnalysisReport {
     counts: { conductors: conductors.length, byVerdict, bySeverity },
   };
 }
+
+/** 240.21(B)(3) counts primary plus secondary; the trial that decided it carries the sum for both runs. */
+function transformerTapLength(v: RunVerdict): number | null {
+  const total = v.tried.find((t) => t.ruleId === 'tap-transformer')?.conditions.find((c) => c.id === 'length')?.data.totalFt;
+  return typeof total === 'number' ? total : null;
+}
+
+/** Shared empty lists: most conductors have no findings and no fixes. Reports are read-only. */
+const NONE: string[] = Object.freeze([]) as unknown as string[];
+const NO_FIXES: Fix[] = Object.freeze([]) as unknown as Fix[];
 
 function assumptionsFor(project: Project): string[] {
   const terminals = new Set(project.conductors.map((c) => c.terminalTempC));

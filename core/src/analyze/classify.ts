@@ -32,6 +32,7 @@ export interface RunVerdict {
 }
 
 const SOURCE_KINDS = new Set(['utility', 'generator', 'transformer', 'breaker', 'fuse']);
+const FED_BY_OCPD_RULES: readonly Rule[] = [...PROTECTION_RULES, ...FEEDER_TAP_RULES];
 
 /**
  * Walks the network once in supply-to-load order. Each node learns what
@@ -160,24 +161,31 @@ export function classifyRuns(
     facts.supplyOcpdKind = node.kind === 'fuse' ? 'fuse' : 'breaker';
     if (facts.transformer) facts.transformer = { ...facts.transformer, primaryOcpdA: facts.supplyOcpdA, primaryOcpdId: node.id };
     const tried: RuleTrial[] = [];
-    for (const rule of PROTECTION_RULES) {
-      const t = protectionTrial(rule, facts);
+    let verdict: Verdict | null = null;
+    let rule: Rule | null = null;
+    for (let i = 0; i < PROTECTION_RULES.length && verdict === null; i++) {
+      const r = PROTECTION_RULES[i]!;
+      const t = protectionTrial(r, facts);
       tried.push(t);
-      if (t.outcome === 'holds') return done(rule, 'fed-by-ocpd', role);
-      // Without the ampacity or the rating nothing further can be decided.
-      if (t.outcome === 'unknown' && rule === PROTECTION_RULES[0]) return done(null, 'fed-by-ocpd', role);
+      if (t.outcome === 'holds') {
+        verdict = r.verdict;
+        rule = r;
+      } else if (t.outcome === 'unknown' && i === 0) {
+        // Without the ampacity or the rating nothing further can be decided.
+        verdict = 'incomplete';
+      }
     }
-    // 240.21(B) covers feeder taps; a branch circuit (no OCPD below it) that 240.4 does not protect is simply unprotected.
-    if (role === 'branch') return { ...done(null, 'fed-by-ocpd', role), verdict: 'unprotected', candidates: PROTECTION_RULES };
-    return decide(FEEDER_TAP_RULES, 'fed-by-ocpd', role);
-
-    function done(rule: Rule | null, family: Family, r: ConductorRole): RunVerdict {
-      return { verdict: rule ? rule.verdict : 'incomplete', rule, family, role: r, supply, deviceNode: device, generatorNode: -1, facts, tried, candidates: [...PROTECTION_RULES, ...FEEDER_TAP_RULES] };
+    let candidates = FED_BY_OCPD_RULES;
+    if (verdict === null && role === 'branch') {
+      // 240.21(B) covers feeder taps; a branch circuit (no OCPD below it) that 240.4 does not protect is simply unprotected.
+      verdict = 'unprotected';
+      candidates = PROTECTION_RULES;
+    } else if (verdict === null) {
+      const v = firstHolding(FEEDER_TAP_RULES, facts, tried);
+      verdict = v.verdict;
+      rule = v.rule;
     }
-    function decide(rules: readonly Rule[], family: Family, r: ConductorRole): RunVerdict {
-      const v = firstHolding(rules, facts, tried);
-      return { ...done(v.rule, family, r), verdict: v.verdict };
-    }
+    return { verdict, rule, family: 'fed-by-ocpd', role, supply, deviceNode: device, generatorNode: -1, facts, tried, candidates };
   }
 
   function secondary(facts: RunFacts, supply: Supply, tx: number): RunVerdict {

@@ -25,24 +25,17 @@ export function nodeLabel(node: EquipmentNode): string {
 }
 
 export function terminationOf(g: Graph, v: number): Termination {
-  const none: Termination = {
-    kind: 'none', nodeId: null, label: '', single: false, ratingA: null,
-    atDisconnectingMeans: false, disconnectLocation: null, busType: null, groupedOcpdSumA: null,
-  };
-  if (v < 0) return none;
+  if (v < 0) return termination('none', null, '', false, null);
   const node = g.nodes[v]!;
-  const base = { ...none, nodeId: node.id, label: nodeLabel(node) };
+  const label = nodeLabel(node);
   switch (node.kind) {
     case 'breaker':
-    case 'fuse':
-      return {
-        ...base,
-        kind: 'ocpd',
-        single: node.arrangement === 'single',
-        ratingA: effectiveRatingA(node),
-        atDisconnectingMeans: node.atDisconnectingMeans,
-        disconnectLocation: node.disconnectLocation ?? null,
-      };
+    case 'fuse': {
+      const t = termination('ocpd', node.id, label, node.arrangement === 'single', effectiveRatingA(node));
+      t.atDisconnectingMeans = node.atDisconnectingMeans;
+      t.disconnectLocation = node.disconnectLocation ?? null;
+      return t;
+    }
     case 'bus': {
       let sum = 0;
       let devices = 0;
@@ -53,19 +46,24 @@ export function terminationOf(g: Graph, v: number): Termination {
         devices++;
         sum = r === null || Number.isNaN(sum) ? Number.NaN : sum + r;
       }
-      return { ...base, kind: 'bus', ratingA: node.busRatingA ?? null, busType: node.busType, groupedOcpdSumA: devices === 0 || Number.isNaN(sum) ? null : sum };
+      const t = termination('bus', node.id, label, false, node.busRatingA ?? null);
+      t.busType = node.busType;
+      t.groupedOcpdSumA = devices === 0 || Number.isNaN(sum) ? null : sum;
+      return t;
     }
-    case 'transformer':
-      return { ...base, kind: 'transformer' };
-    case 'load':
-      return { ...base, kind: 'load' };
-    case 'splice':
-      return { ...base, kind: 'splice' };
     case 'disconnect':
-      return { ...base, kind: 'disconnect', ratingA: node.ratingA ?? null };
+      return termination('disconnect', node.id, label, false, node.ratingA ?? null);
+    case 'transformer':
+    case 'load':
+    case 'splice':
+      return termination(node.kind, node.id, label, false, null);
     default:
-      return { ...base, kind: 'none' };
+      return termination('none', node.id, label, false, null);
   }
+}
+
+function termination(kind: Termination['kind'], nodeId: Termination['nodeId'], label: string, single: boolean, ratingA: number | null): Termination {
+  return { kind, nodeId, label, single, ratingA, atDisconnectingMeans: false, disconnectLocation: null, busType: null, groupedOcpdSumA: null };
 }
 
 const RACEWAYS: ReadonlySet<Conductor['wiring']> = new Set(['steel-conduit', 'aluminum-conduit', 'pvc-conduit']);
@@ -76,7 +74,18 @@ export interface ConductorAmpacity {
   problem: { field: string; message: string } | null;
 }
 
+/**
+ * Ampacity of one conductor. A riser repeats a few dozen combinations of
+ * size, material and conditions thousands of times, so equal inputs share one
+ * frozen result; the working is read-only.
+ */
+const ampacityMemo = new Map<string, ConductorAmpacity>();
+const MAX_MEMO = 8192;
+
 export function conductorAmpacity(c: Conductor, edition: CodeEdition): ConductorAmpacity {
+  const key = `${c.material}|${c.size}|${c.insulation}|${c.parallelSets}|${c.ambientC}|${c.currentCarrying}|${c.terminalTempC}|${edition}`;
+  let hit = ampacityMemo.get(key);
+  if (hit) return hit;
   const r = computeAmpacity({
     material: c.material,
     size: c.size,
@@ -87,7 +96,15 @@ export function conductorAmpacity(c: Conductor, edition: CodeEdition): Conductor
     terminalTempC: c.terminalTempC,
     edition,
   });
-  return r.ok ? { working: r.working, problem: null } : { working: null, problem: { field: r.field, message: r.message } };
+  hit = Object.freeze(r.ok ? { working: deepFreeze(r.working), problem: null } : { working: null, problem: Object.freeze({ field: r.field, message: r.message }) });
+  if (ampacityMemo.size >= MAX_MEMO) ampacityMemo.clear();
+  ampacityMemo.set(key, hit);
+  return hit;
+}
+
+function deepFreeze<T extends object>(o: T): T {
+  for (const v of Object.values(o)) if (v && typeof v === 'object' && !Object.isFrozen(v)) deepFreeze(v as object);
+  return Object.freeze(o);
 }
 
 /**

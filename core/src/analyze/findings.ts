@@ -37,13 +37,12 @@ export function collectFindings(
     const c = g.conductors[ci]!;
     const v = verdicts[runs.runOf[ci]!]!;
     const f = v.facts;
-    const subject: ElementRef = { kind: 'conductor', id: c.id };
 
 
     const fixes = runFixes[runs.runOf[ci]!]!;
     const amp = ampacities[ci]!;
     if (amp.problem) {
-      push({ ruleId: 'ampacity', messageId: `no-ampacity-${amp.problem.field}`, severity: 'warning', cites: cites('310.16'), subject, message: `${describeConductor(c, f.parallelSets)}: ${amp.problem.message}` });
+      push({ ruleId: 'ampacity', messageId: `no-ampacity-${amp.problem.field}`, severity: 'warning', cites: cites('310.16'), subject: { kind: 'conductor', id: c.id }, message: `${describeConductor(c, f.parallelSets)}: ${amp.problem.message}` });
     }
     switch (v.verdict) {
       case 'unprotected': {
@@ -54,7 +53,7 @@ export function collectFindings(
           messageId: 'no-rule-fits',
           severity: 'violation',
           cites: n?.cites ?? cites('240.4'),
-          subject,
+          subject: { kind: 'conductor', id: c.id },
           related: deviceRefs(g, v),
           fixes,
           data: { ampacityA: f.ampacityA ?? '?', deviceA: f.supplyOcpdA ?? '?' },
@@ -68,7 +67,7 @@ export function collectFindings(
           messageId: 'supply',
           severity: 'violation',
           cites: cites('240.21'),
-          subject,
+          subject: { kind: 'conductor', id: c.id },
           related: [...(f.suppliedFrom?.conductorIds ?? []).map((id): ElementRef => ({ kind: 'conductor', id })), ...deviceRefs(g, v)],
           fixes,
           message: `${describeConductor(c, f.parallelSets)} is tapped from ${f.suppliedFrom?.conductorIds.join(' → ') ?? '?'}, which is itself a tap or transformer secondary; a conductor supplied under 240.21 may supply another only through an OCPD that meets 240.4.`,
@@ -76,7 +75,7 @@ export function collectFindings(
         break;
       case 'incomplete':
         if (v.supply.kind === 'run' || v.supply.kind === 'ocpd' || v.supply.kind === 'transformer') {
-          push({ ruleId: 'incomplete', messageId: 'missing-data', severity: 'warning', cites: null, subject, related: deviceRefs(g, v), message: `${describeConductor(c, f.parallelSets)}: no verdict yet; ${incompleteReason(v)}.` });
+          push({ ruleId: 'incomplete', messageId: 'missing-data', severity: 'warning', cites: null, subject: { kind: 'conductor', id: c.id }, related: deviceRefs(g, v), message: `${describeConductor(c, f.parallelSets)}: no verdict yet; ${incompleteReason(v)}.` });
         }
         break;
       case 'protected-next-size':
@@ -85,7 +84,7 @@ export function collectFindings(
           messageId: 'round-up-used',
           severity: 'info',
           cites: cites('240.4(B)'),
-          subject,
+          subject: { kind: 'conductor', id: c.id },
           related: deviceRefs(g, v),
           message: `${describeConductor(c, f.parallelSets)}: the ${formatNumber(f.supplyOcpdA ?? 0)} A device is the next standard rating above its ${formatNumber(f.ampacityA ?? 0)} A ampacity (240.4(B)); confirm the circuit is not a multioutlet branch circuit for cord-and-plug loads.`,
         });
@@ -101,14 +100,14 @@ export function collectFindings(
           messageId: 'other-approved-means',
           severity: 'needs-ahj',
           cites: t.cites,
-          subject,
+          subject: { kind: 'conductor', id: c.id },
           message: `${describeConductor(c, f.parallelSets)}: meets ${t.cites.section} only if the AHJ accepts its protection from physical damage by "other approved means".`,
         });
       }
     }
     if ((v.verdict === 'service' || v.verdict === 'generator') && v.tried[0]?.outcome === 'fails') {
       const t = v.tried[0];
-      push({ ruleId: t.ruleId, messageId: 'fails', severity: 'violation', cites: t.cites, subject, message: `${describeConductor(c, f.parallelSets)}: ${failedTexts(t).join(' ')} Fails ${t.cites.section}.` });
+      push({ ruleId: t.ruleId, messageId: 'fails', severity: 'violation', cites: t.cites, subject: { kind: 'conductor', id: c.id }, message: `${describeConductor(c, f.parallelSets)}: ${failedTexts(t).join(' ')} Fails ${t.cites.section}.` });
     }
     if (f.ampacityA !== null && f.calculatedLoadA !== null && f.calculatedLoadA > f.ampacityA + 1e-6 && v.role !== 'service') {
       const section = v.role === 'branch' ? '210.19(A)(1)' : '215.2(A)(1)';
@@ -117,7 +116,7 @@ export function collectFindings(
         messageId: 'below-load',
         severity: 'violation',
         cites: cites(section),
-        subject,
+        subject: { kind: 'conductor', id: c.id },
         data: { ampacityA: f.ampacityA, calculatedA: f.calculatedLoadA },
         message: `${describeConductor(c, f.parallelSets)}: ampacity ${formatNumber(f.ampacityA)} A is below the calculated load of ${formatNumber(f.calculatedLoadA)} A (continuous × 1.25 plus noncontinuous, ${section}).`,
       });

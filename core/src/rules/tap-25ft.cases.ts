@@ -30,6 +30,11 @@ export const cases: RuleCases = {
       facts: runFacts({ damageProtection: 'other-approved-means' }),
       source: S,
     },
+    {
+      name: 'NFPA 70-2020: the same limits, one third of 800 A is 266.67 A, so 300 kcmil Cu at 75 °C (285 A) into a 250 A breaker qualifies',
+      facts: runFacts({ edition: 2020, size: '300', ampacityA: 285, supplyOcpdA: 800, loadA: 220, termination: terminationAt('ocpd', { ratingA: 250 }) }),
+      source: 'NFPA 70-2020 240.21(B)(2); NFPA 70-2020 Table 310.16',
+    },
   ],
   fails: [
     {
