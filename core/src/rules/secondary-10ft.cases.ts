@@ -36,6 +36,19 @@ export const cases: RuleCases = {
       facts: secondary({ lengthFt: 4, size: '8', ampacityA: 40, loadA: 30, calculatedLoadA: 30, termination: terminationAt('ocpd', { ratingA: 40 }) }),
       source: `${S}; ${T}`,
     },
+    {
+      name: 'field installation at the limit: 480 V to 240 V with a 200 A primary, 200 × 480 / 240 = 400 A = 10 × 40 A, so 8 AWG Cu at 60 °C (40 A) just qualifies',
+      facts: secondary({
+        size: '8',
+        ampacityA: 40,
+        leavesEnclosure: true,
+        loadA: 30,
+        calculatedLoadA: 30,
+        transformer: transformerFacts({ kva: 112.5, secondaryVoltsLL: 240, connection: 'delta-delta-4w' }),
+        termination: terminationAt('ocpd', { ratingA: 40 }),
+      }),
+      source: `${S}; ${T}`,
+    },
   ],
   fails: [
     {

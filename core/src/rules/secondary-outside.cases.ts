@@ -39,6 +39,11 @@ export const cases: RuleCases = {
       facts: secondary({ lengthFt: 500, size: '250', parallelSets: 2, ampacityA: 510, termination: terminationAt('ocpd', { ...MAIN, ratingA: 500 }) }),
       source: `${S}; ${T}`,
     },
+    {
+      name: 'at the limit: 600 kcmil Cu at 75 °C (420 A) into an adjustable-trip breaker whose long-time setting, behind restricted access, is 420 A: 420 A ≤ 420 A',
+      facts: secondary({ termination: terminationAt('ocpd', { ...MAIN, ratingA: 420 }) }),
+      source: `${S}; NFPA 70-2023 240.6(C); ${T}`,
+    },
   ],
   fails: [
     {

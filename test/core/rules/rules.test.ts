@@ -139,6 +139,14 @@ describe.each(ALL_RULES.map((rule) => [rule.id, rule] as const))('%s', (_id, rul
     expect(c.expect ? got : got.outcome).toEqual(c.expect ? { outcome: 'unknown', unknown: sorted(c.expect) } : 'unknown');
   });
 
+  it('a pass on "other approved means" of damage protection is marked as needing AHJ acceptance', () => {
+    for (const c of cases.meets) {
+      if (!runsOf(c.facts).some((f) => f.damageProtection === 'other-approved-means')) continue;
+      const damage = rule.check(c.facts).find((k) => k.id === 'damage');
+      if (damage) expect({ status: damage.status, needsAhj: damage.needsAhj }, c.name).toEqual({ status: 'pass', needsAhj: true });
+    }
+  });
+
   it('every message id is expected in a failing or unknown case, or passes in a meeting one (no untested message)', () => {
     const covered = new Set<string>();
     for (const c of [...cases.fails, ...(cases.unknown ?? [])]) for (const e of c.expect ?? []) covered.add(e);
