@@ -46,14 +46,14 @@ function artifactUri(file: string): string {
   return pathToFileURL(abs).href;
 }
 
-async function render(cmd: CheckCommand, report: AnalysisReport): Promise<string> {
+async function render(cmd: CheckCommand, report: AnalysisReport, sourceText: string): Promise<string> {
   switch (cmd.format) {
     case 'text':
       return (await import('../report/text')).renderText(report, { color: cmd.color });
     case 'json':
       return `${JSON.stringify((await import('../report/json')).toJsonReport(report), null, 2)}\n`;
     case 'sarif':
-      return `${JSON.stringify((await import('../report/sarif')).toSarif(report, { artifactUri: artifactUri(cmd.file) }), null, 2)}\n`;
+      return `${JSON.stringify((await import('../report/sarif')).toSarif(report, { artifactUri: artifactUri(cmd.file), sourceText }), null, 2)}\n`;
     case 'csv':
       return (await import('../report/csv')).toConductorScheduleCsv(report);
   }
@@ -81,7 +81,7 @@ async function check(cmd: CheckCommand): Promise<number> {
   const project: Project =
     cmd.edition === null ? loaded.project : { ...loaded.project, project: { ...loaded.project.project, codeEdition: cmd.edition } };
   const report = analyze(project);
-  const output = await render(cmd, report);
+  const output = await render(cmd, report, text);
 
   const written: string[] = [];
   try {

@@ -8,6 +8,31 @@ export const SARIF_SCHEMA = 'https://json.schemastore.org/sarif-2.1.0.json';
 export interface SarifOptions {
   /** URI reference of the project file the results are about (e.g. 'samples/demo-clinic.json'). */
   artifactUri: string;
+  /** The file's text: when given, each result also points at the line where its element's id is written. */
+  sourceText?: string;
+}
+
+/**
+ * Line (1-based) of the first `"id": "<id>"` of each element in a project file's text, so CI
+ * annotations land on the element. A scan, not a parse: the file has already been validated.
+ */
+export function idLines(text: string): Map<string, number> {
+  const lines = new Map<string, number>();
+  const re = /"id"\s*:\s*"((?:[^"\\]|\\.)*)"/g;
+  let line = 1;
+  let last = 0;
+  for (let m = re.exec(text); m; m = re.exec(text)) {
+    for (let i = last; i < m.index; i++) if (text.charCodeAt(i) === 10) line++;
+    last = m.index;
+    let id: string;
+    try {
+      id = JSON.parse(`"${m[1]}"`) as string;
+    } catch {
+      continue;
+    }
+    if (!lines.has(id)) lines.set(id, line);
+  }
+  return lines;
 }
 
 type SarifLevel = 'error' | 'warning' | 'note';
@@ -41,7 +66,7 @@ export interface SarifLogicalLocation {
 }
 
 export interface SarifLocation {
-  physicalLocation: { artifactLocation: { uri: string; index: number } };
+  physicalLocation: { artifactLocation: { uri: string; index: number }; region?: { startLine: number } };
   logicalLocations: SarifLogicalLocation[];
 }
 
@@ -108,10 +133,14 @@ export function toSarif(report: AnalysisReport, options: SarifOptions): SarifLog
       },
     });
   }
-  const location = (ref: ElementRef): SarifLocation => ({
-    physicalLocation: { artifactLocation: { uri, index: 0 } },
-    logicalLocations: [logical(ref, report.projectName)],
-  });
+  const lines = options.sourceText === undefined ? null : idLines(options.sourceText);
+  const location = (ref: ElementRef): SarifLocation => {
+    const line = lines && ref.kind !== 'project' ? lines.get(ref.id) : undefined;
+    return {
+      physicalLocation: { artifactLocation: { uri, index: 0 }, ...(line === undefined ? {} : { region: { startLine: line } }) },
+      logicalLocations: [logical(ref, report.projectName)],
+    };
+  };
   const results = report.findings.map((f: Finding): SarifResult => {
     const result: SarifResult = {
       ruleId: f.ruleId,

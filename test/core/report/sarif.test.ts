@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { CAUTION } from '@linewright/core';
-import { SARIF_SCHEMA, toSarif, toUriReference } from '../../../core/src/report/sarif';
-import { cleanReport, fixtureReport } from './fixture';
+import { SARIF_SCHEMA, idLines, toSarif, toUriReference } from '../../../core/src/report/sarif';
+import { cleanReport, fixtureInput, fixtureReport } from './fixture';
 
 /**
  * Structural checks of the required properties and allowed values of a SARIF log, written from the
@@ -51,6 +51,8 @@ function checkLocation(l: unknown, path: string, artifacts: number, problems: st
     keysAllowed(p, 'physicalLocation', `${path}.physicalLocation`, problems);
     if (p.artifactLocation === undefined && p.address === undefined) problems.push(`${path}.physicalLocation: needs artifactLocation or address`);
     const a = p.artifactLocation as Obj | undefined;
+    const region = p.region as Obj | undefined;
+    if (region !== undefined && (!Number.isInteger(region.startLine) || (region.startLine as number) < 1)) problems.push(`${path}.region.startLine: integer from 1`);
     if (a) {
       keysAllowed(a, 'artifactLocation', `${path}.artifactLocation`, problems);
       if (typeof a.uri !== 'string' || !URI_REFERENCE.test(a.uri)) problems.push(`${path}.artifactLocation.uri: a URI reference`);
@@ -168,6 +170,15 @@ describe('toSarif', () => {
     expect(loc.physicalLocation.artifactLocation.uri).toBe('samples/harbor%20lane.json');
     expect(run.results[0]!.relatedLocations![0]!.logicalLocations[0]).toMatchObject({ name: 'CB-F1', kind: 'node' });
     expect(run.artifacts).toEqual([{ location: { uri: 'samples/harbor%20lane.json' } }]);
+  });
+
+  it('points each result at the line of its element in the file when the text is given (§3.30 region, from memory)', () => {
+    const text = JSON.stringify(fixtureInput, null, 2);
+    const withLines = toSarif(fixtureReport, { artifactUri: 'a.json', sourceText: text });
+    expect(sarifProblems(withLines)).toEqual([]);
+    const line = withLines.runs[0]!.results[0]!.locations[0]!.physicalLocation.region!.startLine;
+    expect(text.split('\n')[line - 1]).toContain('"id": "C4"');
+    expect(idLines('{\n"id": "a\\"b",\n  "id":"c"}')).toEqual(new Map([['a"b', 2], ['c', 3]]));
   });
 
   it('carries the caution in run.properties', () => {

@@ -1,0 +1,27 @@
+/** Renderers of a finished AnalysisReport; none re-analyzes, none touches I/O. */
+export { renderText, wrap, type TextOptions } from './text';
+export { toJsonReport, type JsonReport, type JsonConductor, type JsonFinding, type JsonTrial } from './json';
+export { toSarif, toUriReference, idLines, SARIF_SCHEMA, type SarifLog, type SarifOptions } from './sarif';
+export { toConductorScheduleCsv, csvField, SCHEDULE_COLUMNS } from './csv';
+export { renderPermitPdf, pdfSafe, type PdfOptions } from './pdf';
+export { layoutNodes, DEFAULT_COLUMN_GAP, DEFAULT_LAYER_GAP, type Point, type LayoutNode, type LayoutEdge, type LayoutOptions } from './layout';
+export { projectJsonSchema, projectJsonSchemaText } from './jsonSchema';
+export { TOOL_NAME, TOOL_VERSION } from './version';
+export {
+  VERDICT_WORDS,
+  SEVERITY_WORDS,
+  ROLE_WORDS,
+  MATERIAL_WORDS,
+  verdictClass,
+  verdictText,
+  conductorText,
+  sizeText,
+  citationText,
+  deviceText,
+  fixText,
+  refText,
+  numberFindings,
+  hasViolations,
+  type VerdictClass,
+  type NumberedFinding,
+} from './format';
