@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { checked, dragPort, nodeIdsOfKind, openApp, setField, shot, verdictOf } from './helpers';
+import { checked, clickNode, dragPort, nodeIdsOfKind, openApp, setField, shot, verdictOf } from './helpers';
 
 /** Drops an equipment kind from the palette at (x, y) of the drawing area (the wire lands on x). */
 async function place(page: Page, kind: string, x: number, y: number): Promise<string> {
@@ -12,7 +12,7 @@ async function place(page: Page, kind: string, x: number, y: number): Promise<st
 }
 
 async function selectNode(page: Page, id: string): Promise<void> {
-  await page.getByTestId(`node-${id}`).click({ position: { x: 120, y: 12 } });
+  await clickNode(page, id);
   await expect(page.getByTestId('details')).toBeVisible();
 }
 

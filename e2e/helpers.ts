@@ -53,3 +53,11 @@ export async function setField(page: Page, key: string, value: string): Promise<
 export function verdictOf(page: Page, conductorId: string) {
   return page.getByTestId(`conductor-label-${conductorId}`);
 }
+
+/** Clicks a node on its name, right of the symbol, whatever the zoom. */
+export async function clickNode(page: Page, id: string, modifiers?: ('Control' | 'Shift')[]): Promise<void> {
+  const n = page.getByTestId(`node-${id}`);
+  const box = await n.boundingBox();
+  if (!box) throw new Error(`node ${id} not on screen`);
+  await n.click({ position: { x: box.width * 0.6, y: box.height * 0.3 }, modifiers });
+}

@@ -15,6 +15,7 @@ export default defineConfig({
     browserName: 'chromium',
     viewport: { width: 1440, height: 900 },
     acceptDownloads: true,
+    actionTimeout: 10_000,
     launchOptions: {
       executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
       args: ['--disable-gpu', '--disable-quic'],
