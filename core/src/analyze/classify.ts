@@ -168,7 +168,7 @@ export function classifyRuns(
       const t = protectionTrial(r, facts);
       tried.push(t);
       if (t.outcome === 'holds') {
-        verdict = r.verdict;
+        verdict = r.verdict!;
         rule = r;
       } else if (t.outcome === 'unknown' && i === 0) {
         // Without the ampacity or the rating nothing further can be decided.
@@ -257,7 +257,7 @@ function firstHolding(rules: readonly Rule[], facts: RunFacts, tried: RuleTrial[
     if (t.outcome === 'holds' && winner === null) winner = rule;
     if (t.outcome === 'unknown') unknown = true;
   }
-  if (winner) return { verdict: winner.verdict, rule: winner };
+  if (winner) return { verdict: winner.verdict!, rule: winner };
   return { verdict: unknown ? 'incomplete' : 'unprotected', rule: null };
 }
 

@@ -1,5 +1,6 @@
 import type { ConductorId, NodeId, Project } from '../model/schema';
-import { formatNumber } from '../rules/define';
+import { formatNumber, runRule } from '../rules/define';
+import { transformerProtection } from '../rules/transformer-protection';
 import { materialLabel, sizeLabel } from '../tables/sizes';
 import type { Graph } from '../topology/graph';
 import type { Runs } from '../topology/runs';
@@ -121,6 +122,22 @@ export function collectFindings(
         message: `${describeConductor(c, f.parallelSets)}: ampacity ${formatNumber(f.ampacityA)} A is below the calculated load of ${formatNumber(f.calculatedLoadA)} A (continuous × 1.25 plus noncontinuous, ${section}).`,
       });
     }
+  }
+
+  for (const v of verdicts) {
+    const f = v.facts;
+    if (f.termination.kind !== 'transformer' || !f.transformer || f.transformer.primaryOcpdA === null) continue;
+    const t = runRule(transformerProtection, f);
+    if (t.outcome !== 'fails') continue;
+    push({
+      ruleId: transformerProtection.id,
+      messageId: 'overprotected',
+      severity: 'violation',
+      cites: t.cites,
+      subject: { kind: 'node', id: f.termination.nodeId! },
+      related: [...deviceRefs(g, v), ...f.conductorIds.map((id): ElementRef => ({ kind: 'conductor', id }))],
+      message: `Transformer ${f.transformer.label}: ${failedTexts(t).join(' ')} Fails ${t.cites.section}.`,
+    });
   }
 
   const cycleNodes: ElementRef[] = [];

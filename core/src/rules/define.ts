@@ -2,7 +2,7 @@ import { cite } from '../tables/citations';
 import type { ConditionResult, ConditionStatus, RuleTrial, Verdict } from '../analyze/types';
 import type { RunFacts } from './facts';
 
-export type RuleFamily = 'protection' | 'feeder-tap' | 'transformer-secondary' | 'service' | 'generator' | 'tap-from-tap';
+export type RuleFamily = 'protection' | 'feeder-tap' | 'transformer-secondary' | 'transformer-protection' | 'service' | 'generator' | 'tap-from-tap';
 
 export interface Check<K extends string = string> {
   id: K;
@@ -14,8 +14,8 @@ export interface Check<K extends string = string> {
 
 export interface Rule<K extends string = string> {
   id: string;
-  /** The verdict a conductor gets when this rule holds. */
-  verdict: Verdict;
+  /** The verdict a conductor gets when this rule holds; null for a check that only adds findings. */
+  verdict: Verdict | null;
   family: RuleFamily;
   section: string;
   title: string;

@@ -14,6 +14,7 @@ import { tapFromTap } from './tap-from-tap';
 import { tapHighBay } from './tap-high-bay';
 import { tapOutside } from './tap-outside';
 import { tapTransformer } from './tap-transformer';
+import { transformerProtection } from './transformer-protection';
 
 /** 240.4 first; a conductor it protects is not a tap conductor, so no tap rule is tried on it. */
 export const PROTECTION_RULES: readonly Rule[] = [protectedRule, protectedNextSize];
@@ -39,10 +40,11 @@ export const ALL_RULES: readonly Rule[] = [
   tapHighBay,
   tapOutside,
   tapTransformer,
+  transformerProtection,
 ];
 
 export const RULES_BY_ID: ReadonlyMap<string, Rule> = new Map(ALL_RULES.map((r) => [r.id, r]));
 
-export { generatorRule, serviceRule, tapFromTap, tapTransformer };
+export { generatorRule, serviceRule, tapFromTap, tapTransformer, transformerProtection };
 export type { Rule } from './define';
 export type { RunFacts, Termination, TransformerFacts } from './facts';

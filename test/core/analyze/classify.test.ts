@@ -274,6 +274,27 @@ describe('transformer secondaries, 240.21(C) and (B)(3)', () => {
   });
 });
 
+describe('transformer protection, Table 450.3(B)', () => {
+  // 75 kVA, 480 V, three-phase: primary rated current 75 000 / (1.732 × 480) = 90.2 A (formula, common practice).
+  const tx = (primaryA: number, secondaryEnd: 'breaker' | 'panel') => {
+    const b = diagram().utility(480).breaker(primaryA, { id: 'PRI' }).conductor({ id: 'P', size: '3/0', lengthFt: 30 }).transformer({ id: 'TX', kva: 75 });
+    if (secondaryEnd === 'breaker') b.conductor({ id: 'S', size: '250', lengthFt: 10 }).breaker(250).panel(250);
+    else b.conductor({ id: 'S', size: '250', lengthFt: 10 }).panel(250);
+    return run(b.conductor({ size: '12', lengthFt: 20 }).breaker(20).build());
+  };
+  const fails = (r: AnalysisReport) => r.findings.some((f) => f.ruleId === 'transformer-protection' && f.subject.kind === 'node' && f.subject.id === 'TX');
+
+  it('primary only: 125 % of 90.2 A = 112.8 A, next standard size 125 A is allowed; 150 A is not', () => {
+    expect(fails(tx(125, 'panel'))).toBe(false);
+    expect(fails(tx(150, 'panel'))).toBe(true);
+  });
+
+  it('with a secondary device of at most 125 % of 208.2 A, the primary may go to 250 % of 90.2 A = 225.5 A: 225 A passes, 250 A fails', () => {
+    expect(fails(tx(225, 'breaker'))).toBe(false);
+    expect(fails(tx(250, 'breaker'))).toBe(true);
+  });
+});
+
 describe('services, generators and loads', () => {
   it('conductors from the utility to the service disconnect are service conductors, not taps (240.21(D))', () => {
     const report = run(diagram().utility(480).conductor({ id: 'SVC', size: '500', parallelSets: 2, lengthFt: 60 }).breaker(800).build());

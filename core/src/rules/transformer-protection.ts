@@ -1,0 +1,52 @@
+import { maxPrimaryOcpd, maxSecondaryOcpd } from '../tables/transformer';
+import { atLeast, defineRule, when, type Check } from './define';
+
+/**
+ * 450.3(B) (transformers of 1000 V and less): the primary device may not
+ * exceed 125 % of primary rated current when it alone protects the
+ * transformer (next standard size allowed from 9 A up; 167 % from 2 A, 300 %
+ * below), or 250 % when every secondary run also ends in a device of at most
+ * 125 % of secondary rated current. Judged on the primary run; it adds a
+ * finding and never decides a conductor's verdict.
+ */
+export const transformerProtection = defineRule({
+  id: 'transformer-protection',
+  verdict: null,
+  family: 'transformer-protection',
+  section: 'Table 450.3(B)',
+  title: 'Transformer overcurrent protection',
+  messages: {
+    primary:
+      'The primary device ({{primaryA}} A) must not exceed {{allowedA}} A: {{pct}} % of the {{flaA}} A primary rated current ({{scheme}}).',
+    secondary:
+      'The secondary devices ({{secondaryA}} A in all) must not exceed {{allowedA}} A: {{pct}} % of the {{flaA}} A secondary rated current.',
+  },
+  check(f) {
+    const t = f.transformer;
+    if (!t) return [];
+    const device = f.supplyOcpdKind ?? 'breaker';
+    const ends = f.secondaries.map((s) => s.termination);
+    const secondaryProtected = ends.length > 0 && ends.every((e) => e.kind === 'ocpd' && e.ratingA !== null);
+    const scheme = secondaryProtected ? 'primary-and-secondary' : 'primary-only';
+    const p = maxPrimaryOcpd(t.primaryFlaA, scheme, f.edition, device);
+    const out: Check<'primary' | 'secondary'>[] = [
+      when('primary', p.allowedA === null ? null : atLeast(p.allowedA, t.primaryOcpdA), {
+        primaryA: t.primaryOcpdA ?? '?',
+        allowedA: p.allowedA ?? '?',
+        pct: p.maxPct,
+        flaA: round2(t.primaryFlaA),
+        scheme: secondaryProtected ? 'secondary protected as well' : 'primary protection only',
+      }),
+    ];
+    if (secondaryProtected) {
+      const s = maxSecondaryOcpd(t.secondaryFlaA, f.edition, device);
+      const sum = ends.reduce((a, e) => a + (e.ratingA ?? 0), 0);
+      out.push(when('secondary', s.allowedA === null ? null : sum <= s.allowedA, { secondaryA: sum, allowedA: s.allowedA ?? '?', pct: s.maxPct, flaA: round2(t.secondaryFlaA) }));
+    }
+    return out;
+  },
+});
+
+function round2(x: number): number {
+  return Math.round(x * 100) / 100;
+}
