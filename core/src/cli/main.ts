@@ -105,8 +105,22 @@ async function check(cmd: CheckCommand): Promise<number> {
   return hasViolations(report) ? EXIT_VIOLATIONS : EXIT_CLEAN;
 }
 
+let pipeGuard = false;
+
+/** A reader that stops early (`| head`) closes the pipe: that is not an error worth a stack trace. */
+function guardPipes(): void {
+  if (pipeGuard) return;
+  pipeGuard = true;
+  process.stdout.on('error', (e: NodeJS.ErrnoException) => {
+    if (e.code === 'EPIPE') process.exit(typeof process.exitCode === 'number' ? process.exitCode : 0);
+    say(`linewright: cannot write to stdout: ${e.message}`);
+    process.exit(EXIT_INTERNAL);
+  });
+}
+
 /** Runs the command line; returns the exit status instead of exiting, so output is flushed first. */
 export async function main(argv: readonly string[]): Promise<number> {
+  guardPipes();
   const args = parseArgs(argv);
   switch (args.command) {
     case 'help':
