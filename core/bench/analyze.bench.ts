@@ -118,18 +118,16 @@ function measure({ conductors, warmup, runs }: (typeof SIZES)[number]): SizeResu
   const analyzeT: number[] = [];
   const total: number[] = [];
   const floor: number[] = [];
-  let last: ReturnType<typeof once> | undefined;
   for (let i = 0; i < runs; i++) {
     // Alternate so drift in machine load hits both the same way.
     floor.push(floorOnce());
-    last = once();
-    load.push(last.load);
-    analyzeT.push(last.analyze);
-    total.push(last.total);
+    const run = once();
+    load.push(run.load);
+    analyzeT.push(run.analyze);
+    total.push(run.total);
   }
 
   // Heap: collect, then hold every stage's result alive and sample after each.
-  last = undefined;
   gc?.();
   const base = process.memoryUsage().heapUsed;
   const held: unknown[] = [];
