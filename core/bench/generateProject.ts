@@ -44,6 +44,8 @@ const ROW_PX = 100;
 /** Feeder units per distribution board, and distribution boards per band of rows. */
 const UNITS_PER_BOARD = 8;
 const BOARDS_PER_BAND = 12;
+/** Columns one feeder unit spans: two panels of up to six branch circuits, half a column apart. */
+const UNIT_COLUMNS = 6.5;
 /** Rows a band of boards occupies: board, unit breakers, feeders, tap box, taps, panel, branch, loads. */
 const ROWS_PER_BAND = 10;
 
@@ -102,7 +104,7 @@ export function generateProject({ conductors, seed = 1 }: GenerateOptions): Proj
   let board = 0;
   while (budget > 0) {
     const band = Math.floor(board / BOARDS_PER_BAND);
-    const bandCol = (board % BOARDS_PER_BAND) * (UNITS_PER_BOARD * 3.2);
+    const bandCol = (board % BOARDS_PER_BAND) * (UNITS_PER_BOARD * UNIT_COLUMNS);
     const top = 3 + band * ROWS_PER_BAND;
     const dsb = `DSB${board + 1}`;
     const fb = node({ id: `MSB-${board + 1}`, kind: 'breaker', ratingA: 800, position: at(bandCol, top) });
@@ -112,7 +114,7 @@ export function generateProject({ conductors, seed = 1 }: GenerateOptions): Proj
     wire({ id: `${dsb}-F`, from: fb, to: dsb, size: '500', parallelSets: 2, lengthFt: pick(50, 300) });
 
     for (let u = 0; u < UNITS_PER_BOARD && budget > 0; u++) {
-      const col = bandCol + u * 3.2;
+      const col = bandCol + u * UNIT_COLUMNS;
       const row = top + 2;
       const id = `${dsb}U${u + 1}`;
       const kind = rand();
@@ -126,7 +128,7 @@ export function generateProject({ conductors, seed = 1 }: GenerateOptions): Proj
         panelWithMain(`${id}-PA`, tb, 150, '1/0', tooLong ? 12 : pick(4, 10), col, row + 2);
         if (budget > 0) {
           const undersized = rand() < 0.1;
-          panelWithMain(`${id}-PB`, tb, undersized ? 175 : 200, undersized ? '2/0' : '3/0', pick(11, 25), col + 1.6, row + 2);
+          panelWithMain(`${id}-PB`, tb, undersized ? 175 : 200, undersized ? '2/0' : '3/0', pick(11, 25), col + UNIT_COLUMNS / 2, row + 2);
         }
       } else if (kind < 0.75 && budget >= 2) {
         // Transformer: primary protected at 125 A, 18 ft secondary under 240.21(C)(6).
