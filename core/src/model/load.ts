@@ -1,6 +1,9 @@
 import type { z } from 'zod';
 import { CONDUCTOR_SIZES, project, type Project } from './schema';
 import { migrateToCurrent } from './migrations';
+import { compileSchema, FAIL } from './fastParse';
+
+const fastProject = compileSchema(project);
 import type { LoadError } from '../analyze/types';
 
 export type LoadResult =
@@ -32,13 +35,18 @@ export function loadProject(input: unknown): LoadResult {
   const migrated = migrateToCurrent(raw as Record<string, unknown>);
   if (!migrated.ok) return fail(migrated.errors);
 
-  const parsed = project.safeParse(migrated.value);
-  if (!parsed.success) return fail(parsed.error.issues.slice(0, MAX_ERRORS).map(issueToError));
+  // The compiled validator answers for valid files; zod is asked only to explain a failure.
+  let data = fastProject(migrated.value) as Project | typeof FAIL;
+  if (data === FAIL) {
+    const parsed = project.safeParse(migrated.value);
+    if (!parsed.success) return fail(parsed.error.issues.slice(0, MAX_ERRORS).map(issueToError));
+    data = parsed.data;
+  }
 
-  const errors = checkConsistency(parsed.data);
+  const errors = checkConsistency(data);
   if (errors.length > 0) return fail(errors.slice(0, MAX_ERRORS));
   const notices = migrated.migratedFrom === null ? [] : [`Upgraded from file version ${migrated.migratedFrom}.`];
-  return { ok: true, project: parsed.data, notices };
+  return { ok: true, project: data, notices };
 }
 
 function fail(errors: LoadError[]): LoadResult {
