@@ -586,9 +586,10 @@ function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport, box: D
       const y = seg.a.y + (seg.b.y - seg.a.y) * t - label.h / 2;
       cands.push({ x: x + gap, y, w: label.w, h: label.h }, { x: x - gap - label.w, y, w: label.w, h: label.h });
     }
-    drawLabel(sh, label, placer.place(cands, box));
+    return { label, at: placer.place(cands, box) };
   };
-  for (const cl of conductorLabels) if (cl.urgent) placeConductor(cl);
+  // Flagged labels choose their spots first but are painted last, so nothing covers them.
+  const urgentDrawn = conductorLabels.filter((cl) => cl.urgent).map(placeConductor);
   for (const [id, pl] of placed) {
     const [name, detail] = nodeLines(pl.node);
     const callouts = marksBySubject.get(`node:${id}`) ?? [];
@@ -622,7 +623,11 @@ function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport, box: D
     }
     drawLabel(sh, label, placer.place(cands, box));
   }
-  for (const cl of conductorLabels) if (!cl.urgent) placeConductor(cl);
+  for (const cl of conductorLabels) if (!cl.urgent) {
+    const { label, at } = placeConductor(cl);
+    drawLabel(sh, label, at);
+  }
+  for (const { label, at } of urgentDrawn) drawLabel(sh, label, at);
   }
 }
 
