@@ -19,7 +19,7 @@ for (const [feeders, branches] of sizes) {
   const elements = project.nodes.length + project.conductors.length;
   renderPermitPdf(project, report, { generatedAt: '2026-01-01T00:00:00Z' }); // warm-up
   const times: number[] = [];
-  let bytes = new Uint8Array();
+  let bytes: Uint8Array = new Uint8Array();
   for (let i = 0; i < 5; i++) {
     const t = performance.now();
     bytes = renderPermitPdf(project, report, { generatedAt: '2026-01-01T00:00:00Z' });
