@@ -868,7 +868,8 @@ function findingsPages(sh: Sheet, report: AnalysisReport): void {
   );
 }
 
-function schedulePages(sh: Sheet, report: AnalysisReport): void {
+function schedulePages(sh: Sheet, project: Project, report: AnalysisReport): void {
+  const facts = new Map(project.conductors.map((c) => [c.id as string, c]));
   sh.newPage();
   sh.heading('Conductor schedule');
   if (report.conductors.length === 0) {
@@ -879,16 +880,24 @@ function schedulePages(sh: Sheet, report: AnalysisReport): void {
   }
   const cols: TableColumn<ConductorReport>[] = [
     { head: 'Conductor', width: 70, cell: (c) => c.id, bold: () => true },
-    { head: 'Label', width: 120, cell: (c) => c.label },
-    { head: 'From - to', width: 110, cell: (c) => `${c.from} - ${c.to}` },
+    { head: 'Label', width: 110, cell: (c) => c.label },
+    { head: 'From - to', width: 100, cell: (c) => `${c.from} - ${c.to}` },
     { head: 'Role', width: 70, cell: (c) => ROLE_WORDS[c.role] },
     { head: 'Size', width: 95, cell: (c) => conductorText(c) },
+    {
+      head: 'Insulation, terminals',
+      width: 80,
+      cell: (c) => {
+        const f = facts.get(c.id);
+        return f ? `${f.insulation}, ${f.terminalTempC} °C terminals${f.ambientC !== 30 ? `, ${f.ambientC} °C ambient` : ''}` : '?';
+      },
+    },
     { head: 'Length', width: 45, cell: (c) => lengthText(c.lengthFt) },
     { head: 'Ampacity', width: 95, cell: (c) => (c.ampacity ? `${ampsText(c.ampacity.ampacityA)} (${c.ampacity.governedBy.replace(/-/g, ' ')})` : '?') },
     { head: 'Upstream OCPD', width: 110, cell: (c) => deviceText(c.upstreamDevice) },
     { head: 'Tap length', width: 50, cell: (c) => (c.tapLengthFt === null ? '-' : lengthText(c.tapLengthFt)) },
     { head: 'Calc. load', width: 50, cell: (c) => (c.load ? ampsText(c.load.calculatedA) : '?') },
-    { head: 'Verdict', width: 150, cell: (c) => verdictText(c), bold: (c) => verdictClass(c.verdict) === 'failing' },
+    { head: 'Verdict', width: 130, cell: (c) => verdictText(c), bold: (c) => verdictClass(c.verdict) === 'failing' },
   ];
   const used = cols.reduce((a, c) => a + c.width, 0);
   cols.push({ head: 'Why', width: PAGE_W - 2 * M - used, cell: (c) => c.summary });
@@ -979,7 +988,7 @@ export function renderPermitPdf(project: Project, report: AnalysisReport, option
     subject: pdfSafe(`NEC ${report.edition} 240.4 and 240.21 review. ${report.caution || CAUTION}`),
     creator: `${TOOL_NAME} ${TOOL_VERSION}`,
   });
-  if (options.generatedAt) sh.doc.setCreationDate(new Date(options.generatedAt));
+  if (options.generatedAt && !Number.isNaN(Date.parse(options.generatedAt))) sh.doc.setCreationDate(new Date(options.generatedAt));
 
   const numbered = numberFindings(report.findings);
   const numbers = new Map(numbered.map((x) => [x.finding.id, x.n]));
@@ -1028,7 +1037,7 @@ export function renderPermitPdf(project: Project, report: AnalysisReport, option
   });
 
   findingsPages(sh, report);
-  schedulePages(sh, report);
+  schedulePages(sh, project, report);
   workingPages(sh, report);
   assumptionsPage(sh, report);
   footers(sh, report, generated);

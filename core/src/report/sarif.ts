@@ -1,6 +1,6 @@
 import type { AnalysisReport, Citation, ElementRef, Finding, Severity } from '../analyze/types';
 import { CAUTION } from '../caution';
-import { SEVERITY_WORDS, citationText, fixText } from './format';
+import { citationText, fixText } from './format';
 import { TOOL_NAME, TOOL_VERSION } from './version';
 
 export const SARIF_SCHEMA = 'https://json.schemastore.org/sarif-2.1.0.json';
@@ -151,7 +151,7 @@ export function toSarif(report: AnalysisReport, options: SarifOptions): SarifLog
       partialFingerprints: { 'linewrightFindingId/v1': f.id },
       properties: {
         severity: f.severity,
-        tags: f.severity === 'needs-ahj' ? ['needs-ahj', SEVERITY_WORDS['needs-ahj']] : [f.severity],
+        tags: [f.severity],
         citation: f.cites ? citationText(f.cites) : null,
         fixes: f.fixes.map(fixText),
       },
