@@ -30,7 +30,8 @@ export function rollUpLoads(g: Graph, order: Int32Array, count: number): SystemL
       phases[v] = node.phases;
     } else {
       const ins = g.inEdges[v]!;
-      // Several supplies are reported by the topology check; take the first known one.
+      // With several supplies the voltage is not defined (the topology check reports it), whatever the file order.
+      if (ins.length !== 1) continue;
       for (const e of ins) {
         const u = edgeFrom(g, e);
         if (u >= 0 && !Number.isNaN(voltsLL[u]!)) {

@@ -47,6 +47,12 @@ export const cases: RuleCases = {
   ],
   fails: [
     {
+      name: '600 kcmil Cu at 75 °C (420 A) serving a 430 A load does not carry it',
+      facts: secondary({ loadA: 430, calculatedLoadA: 430 }),
+      expect: ['load'],
+      source: 'NFPA 70-2023 240.21(C)(4); NFPA 70-2023 Table 310.16; DOMAIN.md §5 (the conductor carries its load)',
+    },
+    {
       name: 'runs inside the building before it reaches its termination',
       facts: secondary({ outdoors: false }),
       expect: ['outdoors'],

@@ -26,6 +26,11 @@ const secondary = (o: RunFactsOverrides = {}, t: Partial<TransformerFacts> = {})
 export const cases: RuleCases = {
   meets: [
     {
+      name: 'small transformer: 2.4 kVA single-phase 480 V is 5 A; 167 % is 8.35 A, so a 6 A fuse on the primary complies and 6 AWG Cu (65 A) × 240 / 480 = 32.5 A ≥ 6 A',
+      facts: secondary({ size: '6', ampacityA: 65, loadA: 8, calculatedLoadA: 8, termination: terminationAt('ocpd', { ratingA: 10 }) }, { kva: 2.4, phases: 1, connection: 'single-phase-2w', primaryOcpdA: 6 }),
+      source: `${X} (167 % from 2 A to under 9 A); ${S}; ${T}`,
+    },
+    {
       name: '75 kVA 480 V to 240 V delta-delta 3-wire, 125 A primary: 125 % of 90.21 A = 112.76 A, next standard 125 A; 250 kcmil Cu (255 A) × 240 / 480 = 127.5 A ≥ 125 A',
       facts: secondary(),
       source: `${S}; ${X}; ${T}`,
@@ -45,6 +50,12 @@ export const cases: RuleCases = {
     },
   ],
   fails: [
+    {
+      name: 'small transformer: 2.4 kVA single-phase 480 V is 5 A; 167 % is 8.35 A, so a 15 A primary breaker exceeds it (no round-up under 9 A)',
+      facts: secondary({ size: '6', ampacityA: 65, loadA: 8, calculatedLoadA: 8, termination: terminationAt('ocpd', { ratingA: 10 }) }, { kva: 2.4, phases: 1, connection: 'single-phase-2w', primaryOcpdA: 15 }),
+      expect: ['primary450'],
+      source: `${X} (167 % from 2 A to under 9 A); ${S}`,
+    },
     {
       name: 'delta-wye (4-wire) secondary: the primary device cannot protect it',
       facts: secondary({}, { connection: 'delta-wye' }),

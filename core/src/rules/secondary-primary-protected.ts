@@ -1,4 +1,4 @@
-import { maxPrimaryOcpd } from '../tables/transformer';
+import { maxPrimaryOcpd, ocpdLimitA } from '../tables/transformer';
 import { atLeast, defineRule, when } from './define';
 
 /**
@@ -24,9 +24,9 @@ export const secondaryPrimaryProtected = defineRule({
     const maxA = t && f.ampacityA !== null ? (f.ampacityA * t.secondaryVoltsLL) / t.primaryVoltsLL : null;
     return [
       when('connection', t ? t.connection === 'single-phase-2w' || t.connection === 'delta-delta-3w' : false, { connection: t?.connection ?? '?' }),
-      when('primary450', limit?.allowedA == null ? null : atLeast(limit.allowedA, P), {
+      when('primary450', limit ? atLeast(ocpdLimitA(limit), P) : null, {
         primaryA: P ?? '?',
-        allowedA: limit?.allowedA ?? '?',
+        allowedA: limit ? ocpdLimitA(limit) : '?',
         pct: limit?.maxPct ?? '?',
         flaA: t ? Math.round(t.primaryFlaA * 100) / 100 : '?',
       }),

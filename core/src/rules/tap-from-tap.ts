@@ -16,6 +16,7 @@ export const tapFromTap = defineRule({
   },
   check(f) {
     const s = f.suppliedFrom;
-    return [when('supply', s === null, { upstream: s ? s.conductorIds.join(' → ') : 'none', upstreamVerdict: s?.verdict ?? '' })];
+    const onProtected = s === null || s.verdict === 'protected' || s.verdict === 'protected-next-size';
+    return [when('supply', onProtected, { upstream: s ? s.conductorIds.join(' → ') : 'none', upstreamVerdict: s?.verdict ?? '' })];
   },
 });

@@ -40,6 +40,12 @@ export const cases: RuleCases = {
   ],
   fails: [
     {
+      name: '3/0 Cu at 75 °C (200 A) serving a 210 A load does not carry it, though 200 A ≥ 600/3',
+      facts: tap({ loadA: 210, calculatedLoadA: 210 }),
+      expect: ['load'],
+      source: 'NFPA 70-2023 240.21(B)(4); NFPA 70-2023 Table 310.16; DOMAIN.md §5 (every tap carries its load)',
+    },
+    {
       name: 'walls exactly 35 ft high: the building must be over 35 ft',
       facts: tap({ site: { manufacturingWallHeightFt: 35 } }),
       expect: ['building'],

@@ -34,6 +34,12 @@ export const cases: RuleCases = {
   ],
   fails: [
     {
+      name: '3/0 Cu at 75 °C (200 A) serving a 210 A load does not carry it',
+      facts: tap({ loadA: 210, calculatedLoadA: 210 }),
+      expect: ['load'],
+      source: `${S}; ${T}; DOMAIN.md §5 (every tap carries its load)`,
+    },
+    {
       name: 'runs inside the building before it reaches its termination',
       facts: tap({ outdoors: false }),
       expect: ['outdoors'],
@@ -92,7 +98,7 @@ export const cases: RuleCases = {
     {
       name: 'ampacity not known',
       facts: tap({ ampacityA: null }),
-      expect: ['device'],
+      expect: ['load', 'device'],
       source: S,
     },
   ],

@@ -1,8 +1,8 @@
 import type { Check } from './define';
-import { damageCheck, defineRule, deviceLimitCheck, singleDeviceCheck, when } from './define';
+import { atLeast, damageCheck, defineRule, deviceLimitCheck, singleDeviceCheck, when } from './define';
 import type { RunFacts } from './facts';
 
-type Id = 'outdoors' | 'damage' | 'single' | 'device' | 'atDisconnect' | 'accessible';
+type Id = 'outdoors' | 'load' | 'damage' | 'single' | 'device' | 'atDisconnect' | 'accessible';
 
 /** The checks 240.21(B)(5) and 240.21(C)(4) share: outside conductors of any length. */
 export function outsideChecks(f: RunFacts): Check<Id>[] {
@@ -10,6 +10,7 @@ export function outsideChecks(f: RunFacts): Check<Id>[] {
   const location = t.kind === 'ocpd' ? t.disconnectLocation : null;
   return [
     when('outdoors', f.outdoors),
+    when('load', atLeast(f.ampacityA, f.loadA), { ampacityA: f.ampacityA ?? '?', loadA: f.loadA ?? '?' }),
     damageCheck(f),
     singleDeviceCheck(f),
     deviceLimitCheck(f),
@@ -22,6 +23,7 @@ export function outsideChecks(f: RunFacts): Check<Id>[] {
 
 export const OUTSIDE_MESSAGES = {
   outdoors: 'Must be outdoors of a building except at the point of termination.',
+  load: 'Ampacity ({{ampacityA}} A) must be at least the load it serves ({{loadA}} A).',
   damage: 'Must be protected from physical damage (here: {{protection}}).',
   single: 'Must end in a single circuit breaker or a single set of fuses (ends in: {{termination}}).',
   device: 'The device at the end ({{deviceA}} A) must not exceed the ampacity ({{ampacityA}} A).',

@@ -82,6 +82,12 @@ export const cases: RuleCases = {
       source: `${S}; ${T}`,
     },
     {
+      name: 'a 750 kcmil Cu secondary at 75 °C (475 A) meets one third of 600 A × 480/208 (461.54 A) but does not carry a 480 A load',
+      facts: primary({}, { size: '750', ampacityA: 475, loadA: 480, calculatedLoadA: 480, termination: terminationAt('ocpd', { ratingA: 450 }) }),
+      expect: ['load'],
+      source: `${S}; ${T}; DOMAIN.md §5 (every tap carries its load)`,
+    },
+    {
       name: 'primary 10 ft + secondary 15.1 ft = 25.1 ft: over 25 ft',
       facts: primary({}, { lengthFt: 15.1 }),
       expect: ['length'],
@@ -90,13 +96,13 @@ export const cases: RuleCases = {
     {
       name: 'the tap ends in a breaker, not a transformer: there is no secondary to judge',
       facts: runFacts(),
-      expect: ['transformer', 'oneSecondary', 'secondaryThird', 'length', 'single', 'device'],
+      expect: ['transformer', 'oneSecondary', 'secondaryThird', 'load', 'length', 'single', 'device'],
       source: S,
     },
     {
       name: 'the transformer feeds two secondary runs: the rule judges one primary plus one secondary',
       facts: primary({ secondaries: [secondary(), secondary({ conductorIds: ['C-SEC-2' as ConductorId] })] }),
-      expect: ['oneSecondary', 'secondaryThird', 'length', 'single', 'device'],
+      expect: ['oneSecondary', 'secondaryThird', 'load', 'length', 'single', 'device'],
       source: `${S} (one primary plus one secondary conductor)`,
     },
     {

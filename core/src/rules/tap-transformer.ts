@@ -18,6 +18,7 @@ export const tapTransformer = defineRule({
     primaryThird: 'Primary ampacity ({{ampacityA}} A) must be at least one third of the {{feederA}} A feeder device ({{minA}} A).',
     secondaryThird:
       'Secondary ampacity ({{secondaryA}} A) must be at least one third of {{feederA}} A × {{vp}} V / {{vs}} V ({{minA}} A).',
+    load: 'Secondary ampacity ({{secondaryA}} A) must be at least the load it serves ({{loadA}} A).',
     length: 'Primary {{primaryFt}} ft plus secondary {{secondaryFt}} ft = {{totalFt}} ft; must be at most 25 ft.',
     damage: 'Primary and secondary must be protected from physical damage (weakest: {{protection}}).',
     single: 'The secondary must end in a single circuit breaker or set of fuses (ends in: {{termination}}).',
@@ -47,6 +48,7 @@ export const tapTransformer = defineRule({
         vs: t?.secondaryVoltsLL ?? '?',
         minA: minS ?? '?',
       }),
+      when('load', s ? atLeast(s.ampacityA, s.loadA) : false, { secondaryA: s?.ampacityA ?? '?', loadA: s?.loadA ?? '?' }),
       when('length', s ? atMost(total, 25) : false, { primaryFt: f.lengthFt ?? '?', secondaryFt: s?.lengthFt ?? '?', totalFt: total ?? '?' }),
       {
         id: 'damage',

@@ -74,6 +74,12 @@ export const cases: RuleCases = {
   ],
   fails: [
     {
+      name: 'small transformer, primary only: 2.4 kVA single-phase 480 V is 5 A; 167 % is 8.35 A and a 15 A breaker exceeds it (no round-up under 9 A)',
+      facts: primary(15, [terminationAt('bus')], {}, { kva: 2.4, phases: 1, secondaryVoltsLL: 240 }),
+      expect: ['primary'],
+      source: 'NFPA 70-2023 Table 450.3(B)',
+    },
+    {
       name: 'primary protection only: a 150 A primary breaker exceeds the 125 A that 125 % of 90.21 A (112.76 A) rounds up to',
       facts: primary(150, [terminationAt('bus', { ratingA: 225 })]),
       expect: ['primary'],

@@ -1,4 +1,4 @@
-import { maxPrimaryOcpd, maxSecondaryOcpd } from '../tables/transformer';
+import { maxPrimaryOcpd, maxSecondaryOcpd, ocpdLimitA } from '../tables/transformer';
 import { atLeast, defineRule, when, type Check } from './define';
 
 /**
@@ -26,13 +26,14 @@ export const transformerProtection = defineRule({
     if (!t) return [];
     const device = f.supplyOcpdKind ?? 'breaker';
     const ends = f.secondaries.map((s) => s.termination);
-    const secondaryProtected = ends.length > 0 && ends.every((e) => e.kind === 'ocpd' && e.ratingA !== null);
+    // Every secondary run ends in a device: primary-and-secondary protection, even while a rating is still missing.
+    const secondaryProtected = ends.length > 0 && ends.every((e) => e.kind === 'ocpd');
     const scheme = secondaryProtected ? 'primary-and-secondary' : 'primary-only';
     const p = maxPrimaryOcpd(t.primaryFlaA, scheme, f.edition, device);
     const out: Check<'primary' | 'secondary'>[] = [
-      when('primary', p.allowedA === null ? null : atLeast(p.allowedA, t.primaryOcpdA), {
+      when('primary', atLeast(ocpdLimitA(p), t.primaryOcpdA), {
         primaryA: t.primaryOcpdA ?? '?',
-        allowedA: p.allowedA ?? '?',
+        allowedA: ocpdLimitA(p),
         pct: p.maxPct,
         flaA: round2(t.primaryFlaA),
         scheme: secondaryProtected ? 'secondary protected as well' : 'primary protection only',
@@ -40,8 +41,10 @@ export const transformerProtection = defineRule({
     ];
     if (secondaryProtected) {
       const s = maxSecondaryOcpd(t.secondaryFlaA, f.edition, device);
+      const known = ends.every((e) => e.ratingA !== null);
       const sum = ends.reduce((a, e) => a + (e.ratingA ?? 0), 0);
-      out.push(when('secondary', s.allowedA === null ? null : sum <= s.allowedA, { secondaryA: sum, allowedA: s.allowedA ?? '?', pct: s.maxPct, flaA: round2(t.secondaryFlaA) }));
+      const limitA = ocpdLimitA(s);
+      out.push(when('secondary', known ? sum <= limitA : null, { secondaryA: known ? sum : '?', allowedA: limitA, pct: s.maxPct, flaA: round2(t.secondaryFlaA) }));
     }
     return out;
   },

@@ -78,3 +78,13 @@ export function maxSecondaryOcpd(secondaryFlaA: number, edition: CodeEdition, de
   if (secondaryFlaA >= 9) return limit(secondaryFlaA, 125, true, edition, device);
   return limit(secondaryFlaA, 167, false, edition, device);
 }
+
+/**
+ * The largest device rating a limit allows: the next standard rating when
+ * Note 1 allows round-up, otherwise the percentage value itself (a device
+ * at or under it complies even where no standard rating lies below it, as
+ * for small transformers).
+ */
+export function ocpdLimitA(limit: TransformerOcpdLimit): number {
+  return limit.nextStandardAllowed && limit.allowedA !== null ? limit.allowedA : limit.maxA;
+}
