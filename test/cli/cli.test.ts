@@ -151,6 +151,16 @@ describe.concurrent('linewright CLI', { timeout: 60_000 }, () => {
     expect(readdirSync(sub).sort()).toEqual(['c.json', 'permit.pdf', 'schedule.csv']);
   });
 
+  it('refuses to write a report or PDF over the project file (exit 2), leaving it intact', async () => {
+    const file = temp('keep.json', JSON.stringify(clean));
+    for (const flag of ['--pdf', '--out']) {
+      const r = await cli(['check', file, flag, file]);
+      expect(r.code).toBe(2);
+      expect(r.stderr).toContain('is the project file itself');
+      expect(JSON.parse(readFileSync(file, 'utf8'))).toEqual(clean);
+    }
+  });
+
   it('--edition overrides the project edition', async () => {
     const r = await cli(['check', temp('e.json', JSON.stringify(clean)), '--format', 'json', '--edition', '2020']);
     expect(JSON.parse(r.stdout).edition).toBe(2020);

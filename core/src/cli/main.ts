@@ -61,6 +61,17 @@ async function render(cmd: CheckCommand, report: AnalysisReport, sourceText: str
 
 // The analyzer, the renderers and jspdf load only for `check`, so --help and --version stay instant.
 async function check(cmd: CheckCommand): Promise<number> {
+  // Never write over the drawing itself (a slip like `--pdf plan.json`).
+  for (const [flag, target] of [['--out', cmd.out], ['--pdf', cmd.pdf]] as const) {
+    if (target !== null && cmd.file !== '-' && resolve(target) === resolve(cmd.file)) {
+      say(`linewright: ${flag} ${target} is the project file itself; choose another name so the drawing is not overwritten`);
+      return EXIT_BAD_INPUT;
+    }
+  }
+  if (cmd.out !== null && cmd.pdf !== null && resolve(cmd.out) === resolve(cmd.pdf)) {
+    say(`linewright: --out and --pdf both name ${cmd.out}; give each its own file`);
+    return EXIT_BAD_INPUT;
+  }
   const { loadProject } = await import('../model/load');
   const { analyze } = await import('../analyze/analyze');
   const { hasViolations } = await import('../report/format');
