@@ -53,7 +53,7 @@ describe('renderPermitPdf', () => {
     expect(latin1).toMatch(/\/MediaBox \[0 0 1224\.?0* 792\.?0*\]/);
   });
 
-  it.skipIf(!HAS_PDFTOTEXT)('page 1 carries the title block, the verdict words, the callout numbers and the caution', () => {
+  it.skipIf(!HAS_PDFTOTEXT)('page 1 carries the title block, the verdict words, the callout numbers and the caution (needs pdftotext)', () => {
     const t = pageText(file, 1).replace(/\s+/g, ' ');
     for (const s of ['One-line diagram: Harbor Lane Test Shop', 'FOR REVIEW - NOT A VERDICT OF ACCEPTANCE', 'NFPA 70 (NEC) 2023', '2026-12-01 22:00:00Z', 'tap: 25 ft (240.21(B)(2))', 'unprotected', 'C4: 4 AWG Cu, 30 ft', 'Legend', 'R. Example, PE']) {
       expect(t).toContain(s);
@@ -62,7 +62,7 @@ describe('renderPermitPdf', () => {
     expect(t).not.toMatch(/approved/i);
   });
 
-  it.skipIf(!HAS_PDFTOTEXT)('every page has the caution and "Page n of N" in its footer', () => {
+  it.skipIf(!HAS_PDFTOTEXT)('every page has the caution and "Page n of N" in its footer (needs pdftotext)', () => {
     for (let p = 1; p <= 4; p++) {
       const t = pageText(file, p).replace(/\s+/g, ' ');
       expect(t).toContain(`Page ${p} of 4`);
@@ -70,7 +70,7 @@ describe('renderPermitPdf', () => {
     }
   });
 
-  it.skipIf(!HAS_PDFTOTEXT)('lists findings with citations and fixes, then the schedule and the assumptions', () => {
+  it.skipIf(!HAS_PDFTOTEXT)('lists findings with citations and fixes, then the schedule and the assumptions (needs pdftotext)', () => {
     const findings = pageText(file, 2).replace(/\s+/g, ' ');
     expect(findings).toContain('NEC 2023 240.21(B)(2)');
     expect(findings).toContain('Fix: add an OCPD of at most 85 A at the tap point');
@@ -80,7 +80,7 @@ describe('renderPermitPdf', () => {
     expect(pageText(file, 4)).toContain('Terminations are rated 75 °C');
   });
 
-  it.skipIf(!HAS_PDFTOPPM)('page 1 renders with pdftoppm and has ink in the drawing area', () => {
+  it.skipIf(!HAS_PDFTOPPM)('page 1 renders with pdftoppm and has ink in the drawing area (skipped when poppler-utils is missing)', () => {
     execFileSync('pdftoppm', ['-gray', '-r', '30', '-f', '1', '-l', '1', '-singlefile', file, join(dir, 'p1')]);
     const pgm = readFileSync(join(dir, 'p1.pgm'));
     // Binary PGM (netpbm): "P5\n<w> <h>\n<max>\n" then one byte per pixel.
