@@ -1,6 +1,6 @@
 import { useCallback, useEffect, useMemo, useRef } from 'react';
 import {
-  Background, BackgroundVariant, ConnectionLineType, Controls, MiniMap, ReactFlow, useReactFlow,
+  Background, BackgroundVariant, ConnectionLineType, Controls, MiniMap, ReactFlow, useReactFlow, useStore,
   type Connection, type EdgeChange, type IsValidConnection, type NodeChange,
 } from '@xyflow/react';
 import type { EquipmentKind } from '@linewright/core';
@@ -12,6 +12,10 @@ import { edgeTypes } from '../edges';
 import { nodeTypes } from '../nodes';
 import { KIND_DRAG_TYPE } from '../panels/Palette';
 import { FlowDeriver, selectionAfter, type FlowEdge, type FlowNode } from './flowElements';
+
+/** Below this zoom text is too small to read (11 px × 0.45 ≈ 5 px): draw lines, badges and symbols only. */
+const FAR_ZOOM = 0.45;
+const isFar = (s: { transform: [number, number, number] }) => s.transform[2] < FAR_ZOOM;
 
 /** Above this many elements only what is on screen is rendered. */
 const CULL_FROM = 300;
@@ -27,6 +31,7 @@ export function Canvas() {
   const frameRequest = useEditorState((s) => s.view.frameRequest);
   const rf = useReactFlow<FlowNode, FlowEdge>();
   const wrapper = useRef<HTMLDivElement>(null);
+  const far = useStore(isFar);
 
   // Give commands a way to read and move the view without knowing React Flow.
   useEffect(() => {
@@ -123,7 +128,7 @@ export function Canvas() {
 
   const big = nodes.length + edges.length > CULL_FROM;
   return (
-    <div className="lw-canvas" ref={wrapper} onDragOver={onDragOver} onDrop={onDrop} data-testid="canvas">
+    <div className={far ? 'lw-canvas lw-far' : 'lw-canvas'} ref={wrapper} onDragOver={onDragOver} onDrop={onDrop} data-testid="canvas">
       <ReactFlow<FlowNode, FlowEdge>
         nodes={nodes}
         edges={edges}

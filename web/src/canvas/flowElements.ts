@@ -79,8 +79,9 @@ export class FlowDeriver {
     }
     this.nodeCache = next;
     this.lastNodesKey = key;
-    this.lastNodes = out;
-    return out;
+    // Same elements in the same order: hand back the old array so React Flow skips its O(n) update.
+    if (!sameKey(out, this.lastNodes)) this.lastNodes = out;
+    return this.lastNodes;
   }
 
   edges(s: EditorState): FlowEdge[] {
@@ -108,8 +109,8 @@ export class FlowDeriver {
     }
     this.edgeCache = next;
     this.lastEdgesKey = key;
-    this.lastEdges = out;
-    return out;
+    if (!sameKey(out, this.lastEdges)) this.lastEdges = out;
+    return this.lastEdges;
   }
 
   private kinds(nodes: Project['nodes']): Map<string, EquipmentNode['kind']> {

@@ -1,0 +1,182 @@
+/**
+ * Editor benchmark (not a test): serves the built app with `vite preview`,
+ * drives Debian's Chromium over generated drawings and prints
+ *   - time to first render (open a project file → equipment painted) and to
+ *     first verdicts (→ the check of that drawing painted),
+ *   - edit-to-verdict latency over ≥ 20 edits (a conductor length typed in →
+ *     the new verdicts painted), median and p95,
+ *   - frame time during a scripted pan and a scripted zoom, from
+ *     requestAnimationFrame deltas, median and p95.
+ * The last line is one JSON object with every figure.
+ *
+ * Run: npm run bench:web   (builds first)   Env: CHROMIUM_PATH, BENCH_SIZES=200,2000,5000, BENCH_PORT
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+import { chromium, type Page } from 'playwright-core';
+import { generateProject } from '../../core/bench/generateProject';
+
+const PORT = Number(process.env.BENCH_PORT ?? 4191);
+const BASE = `http://127.0.0.1:${PORT}`;
+const SIZES = (process.env.BENCH_SIZES ?? '200,2000,5000').split(',').map(Number);
+const EDITS = 25;
+const webDir = fileURLToPath(new URL('../../web/', import.meta.url));
+
+function quantile(xs: number[], q: number): number {
+  const s = [...xs].sort((a, b) => a - b);
+  if (s.length === 0) return NaN;
+  const i = Math.min(s.length - 1, Math.max(0, Math.ceil(q * s.length) - 1));
+  return s[i]!;
+}
+const r1 = (x: number) => Math.round(x * 10) / 10;
+
+async function startPreview(): Promise<ChildProcess> {
+  const vite = fileURLToPath(new URL('../../node_modules/.bin/vite', import.meta.url));
+  const child = spawn(vite, ['preview', '--host', '127.0.0.1', '--port', String(PORT), '--strictPort'], { cwd: webDir, stdio: ['ignore', 'pipe', 'pipe'] });
+  const deadline = Date.now() + 30_000;
+  while (Date.now() < deadline) {
+    try {
+      const r = await fetch(BASE);
+      if (r.ok) return child;
+    } catch {
+      // not up yet
+    }
+    if (child.exitCode !== null) throw new Error(`vite preview exited with ${child.exitCode}`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  child.kill();
+  throw new Error('vite preview did not start within 30 s');
+}
+
+/** Element count = equipment + conductors + bus links; the generator makes about 2 nodes and 1 bus link per conductor. */
+function projectOfElements(elements: number) {
+  const conductors = Math.max(1, Math.round(elements / 4));
+  const p = generateProject({ conductors, seed: 7 });
+  return { text: JSON.stringify(p), nodes: p.nodes.length, conductors: p.conductors.length, busLinks: (p.busLinks ?? []).length };
+}
+
+async function framesDuring(page: Page, act: () => Promise<void>): Promise<number[]> {
+  await page.evaluate(() => {
+    const w = window as unknown as { __frames: number[]; __stop: boolean };
+    w.__frames = [];
+    w.__stop = false;
+    let last = performance.now();
+    const tick = (t: number) => {
+      w.__frames.push(t - last);
+      last = t;
+      if (!w.__stop) requestAnimationFrame(tick);
+    };
+    requestAnimationFrame((t) => {
+      last = t;
+      requestAnimationFrame(tick);
+    });
+  });
+  await act();
+  return page.evaluate(() => {
+    const w = window as unknown as { __frames: number[]; __stop: boolean };
+    w.__stop = true;
+    return w.__frames;
+  });
+}
+
+async function measure(page: Page, elements: number) {
+  const p = projectOfElements(elements);
+  await page.goto(BASE);
+  await page.waitForFunction(() => !!window.__linewright && window.__linewright.reportVersion() === window.__linewright.docVersion());
+
+  const open = await page.evaluate(async (text) => {
+    const h = window.__linewright!;
+    const t0 = performance.now();
+    await h.open(text, 'bench.json');
+    const v = h.docVersion();
+    await new Promise<void>((r) => requestAnimationFrame(() => requestAnimationFrame(() => r())));
+    const painted = performance.now() - t0;
+    await h.whenChecked(v);
+    return { firstRenderMs: painted, firstVerdictMs: performance.now() - t0, analysisMs: h.stats().lastAnalysisMs };
+  }, p.text);
+  const rendered = await page.locator('.react-flow__node').count();
+
+  const ids = await page.evaluate(() => window.__linewright!.doc().conductors.map((c) => c.id));
+  const edits: number[] = [];
+  for (let i = 0; i < EDITS; i++) {
+    const id = ids[(i * 7919) % ids.length]!;
+    const len = 5 + ((i * 13) % 40);
+    edits.push(
+      await page.evaluate(
+        async ([cid, ft]) => {
+          const h = window.__linewright!;
+          const t0 = performance.now();
+          const v = h.setConductorLength(cid as string, ft as number);
+          await h.whenChecked(v);
+          return performance.now() - t0;
+        },
+        [id, len] as const,
+      ),
+    );
+  }
+
+  // Scripted pan: hold Space (React Flow's pan key) and drag across the drawing at the fitted zoom.
+  const box = (await page.getByTestId('canvas').boundingBox())!;
+  const cx = box.x + box.width / 2;
+  const cy = box.y + box.height / 2;
+  const pan = await framesDuring(page, async () => {
+    await page.keyboard.down('Space');
+    await page.mouse.move(cx, cy);
+    await page.mouse.down();
+    for (let i = 0; i < 60; i++) {
+      await page.mouse.move(cx + Math.sin(i / 9) * 200, cy + Math.cos(i / 9) * 120);
+      await page.waitForTimeout(16);
+    }
+    await page.mouse.up();
+    await page.keyboard.up('Space');
+  });
+  const zoom = await framesDuring(page, async () => {
+    await page.mouse.move(cx, cy);
+    for (let i = 0; i < 30; i++) {
+      await page.mouse.wheel(0, i < 15 ? -120 : 120);
+      await page.waitForTimeout(16);
+    }
+  });
+  return {
+    elements: p.nodes + p.conductors + p.busLinks,
+    nodes: p.nodes,
+    conductors: p.conductors,
+    busLinks: p.busLinks,
+    nodesRendered: rendered,
+    firstRenderMs: r1(open.firstRenderMs),
+    firstVerdictMs: r1(open.firstVerdictMs),
+    analysisMs: r1(open.analysisMs),
+    editToVerdictMs: { median: r1(quantile(edits, 0.5)), p95: r1(quantile(edits, 0.95)), n: edits.length },
+    panFrameMs: { median: r1(quantile(pan, 0.5)), p95: r1(quantile(pan, 0.95)), n: pan.length },
+    zoomFrameMs: { median: r1(quantile(zoom, 0.5)), p95: r1(quantile(zoom, 0.95)), n: zoom.length },
+  };
+}
+
+async function main() {
+  const server = await startPreview();
+  const browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: ['--disable-gpu', '--disable-quic'] });
+  const results = [];
+  try {
+    for (const n of SIZES) {
+      const ctx = await browser.newContext({ viewport: { width: 1440, height: 900 } });
+      // tsx keeps function names with a `__name` helper that page functions then call; give the page one.
+      await ctx.addInitScript({ content: "window.__name = (f) => f; localStorage.setItem('linewright.caution-seen', '1');" });
+      const page = await ctx.newPage();
+      const r = await measure(page, n);
+      results.push(r);
+      console.log(
+        `${r.elements} elements (${r.nodes} equipment, ${r.conductors} conductors, ${r.busLinks} bus links; ${r.nodesRendered} nodes rendered): ` +
+          `first render ${r.firstRenderMs} ms, first verdicts ${r.firstVerdictMs} ms (analysis ${r.analysisMs} ms); ` +
+          `edit→verdict median ${r.editToVerdictMs.median} ms, p95 ${r.editToVerdictMs.p95} ms; ` +
+          `pan frame median ${r.panFrameMs.median} ms, p95 ${r.panFrameMs.p95} ms; zoom frame median ${r.zoomFrameMs.median} ms, p95 ${r.zoomFrameMs.p95} ms`,
+      );
+      await ctx.close();
+    }
+  } finally {
+    await browser.close();
+    server.kill();
+  }
+  console.log(JSON.stringify({ bench: 'editor', chromium: 'headless, --disable-gpu', sizes: results }));
+}
+
+await main();
