@@ -59,19 +59,18 @@ const STYLE: Record<VerdictClass, { color: Rgb; width: number; dash: number[]; l
 const VIOLATION: Rgb = [213, 94, 0];
 const AHJ: Rgb = [230, 159, 0];
 
-/** jsPDF's standard fonts are WinAnsi only: spell out what they cannot print. */
+/** Characters of WinAnsiEncoding beyond Latin-1 (0x80–0x9F), which jsPDF's standard fonts print. */
+const WIN_ANSI_EXTRA = '€‚ƒ„…†‡ˆ‰Š‹ŒŽ‘’“”•–—˜™š›œžŸ';
+
+/** jsPDF's standard fonts are WinAnsi only: spell out what they cannot print (≥, √, Ω...). */
 export function pdfSafe(text: string): string {
   return text
-    .replace(/≥/g, 'at least ')
-    .replace(/≤/g, 'at most ')
-    .replace(/√/g, 'sqrt')
-    .replace(/Ω/g, ' ohm')
-    .replace(/[–—]/g, '-')
-    .replace(/…/g, '...')
-    .replace(/[‘’]/g, "'")
-    .replace(/[“”]/g, '"')
-    .replace(/→/g, '->')
-    .replace(/[^\n\x20-\x7e\u00a0-\u00ff]/g, '?');
+    .replace(/ ?≥ ?/g, ' at least ')
+    .replace(/ ?≤ ?/g, ' at most ')
+    .replace(/√/g, 'sqrt ')
+    .replace(/ ?Ω/g, ' ohm')
+    .replace(/ ?→ ?/g, ' -> ')
+    .replace(/[^\n\x20-\x7e\u00a0-\u00ff]/g, (ch) => (WIN_ANSI_EXTRA.includes(ch) ? ch : '?'));
 }
 
 function nodeName(n: EquipmentNode): string {
@@ -761,7 +760,7 @@ function drawTitleBlock(sh: Sheet, report: AnalysisReport, project: Project, gen
   sh.fill(LIGHT);
   d.rect(box.x, y, box.w, 16, 'F');
   sh.font(8.5, 'bold');
-  sh.text('FOR REVIEW - NOT A VERDICT OF ACCEPTANCE', box.x + box.w / 2, y + 11, { align: 'center' });
+  sh.text('FOR REVIEW — NOT A VERDICT OF ACCEPTANCE', box.x + box.w / 2, y + 11, { align: 'center' });
   y += 20;
   sh.font(6.8, 'normal');
   const caution = sh.split(report.caution || CAUTION, w);
@@ -973,7 +972,7 @@ function footers(sh: Sheet, report: AnalysisReport, generated: string): void {
     while (size > 4 && sh.doc.getTextWidth(pdfSafe(report.caution || CAUTION)) > PAGE_W - 2 * M) sh.font((size -= 0.5), 'normal');
     sh.text(sh.split(report.caution || CAUTION, PAGE_W - 2 * M), M, y + 9);
     sh.font(7, 'normal', GREY);
-    sh.text(`${report.projectName} · NEC ${report.edition} · generated ${generated} · for review - not a verdict of acceptance`, M, y + 20);
+    sh.text(`${report.projectName} · NEC ${report.edition} · generated ${generated} · for review — not a verdict of acceptance`, M, y + 20);
     sh.font(8, 'bold');
     sh.text(`Page ${p} of ${total}`, PAGE_W - M, y + 20, { align: 'right' });
   }
