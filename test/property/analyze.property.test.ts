@@ -152,6 +152,49 @@ describe('analyze on random radial networks', () => {
       settings(120),
     );
   }, LIMIT_MS);
+  it('keeps a protected conductor protected when its device drops to a lower standard rating', () => {
+    // 240.4: protected means the device rating is at most the ampacity; a smaller device keeps it so.
+    const STANDARD = [15, 20, 25, 30, 35, 40, 45, 50, 60, 70, 80, 90, 100, 110, 125, 150, 175, 200, 225, 250, 300, 350, 400, 450, 500, 600, 700, 800, 1000, 1200];
+    fc.assert(
+      fc.property(treeNetwork(), fc.nat(), fc.nat(), (input, pick, lower) => {
+        const before = analyze(load(input));
+        const candidates = before.conductors.filter((c) => c.verdict === 'protected' && c.upstreamDevice?.ratingA);
+        fc.pre(candidates.length > 0);
+        const target = candidates[pick % candidates.length]!;
+        const device = target.upstreamDevice!;
+        const smaller = STANDARD.filter((r) => r < device.ratingA!);
+        fc.pre(smaller.length > 0);
+        const ratingA = smaller[lower % smaller.length]!;
+        const changed: ProjectInput = {
+          ...input,
+          nodes: input.nodes.map((n) => (n.id === device.id && (n.kind === 'breaker' || n.kind === 'fuse') ? { ...n, ratingA, adjustableTrip: undefined } : n)),
+        };
+        const after = analyze(load(changed)).conductors.find((c) => c.id === target.id)!;
+        expect(after.verdict, `${target.id}: ${device.id} ${device.ratingA} A -> ${ratingA} A; ${after.summary}`).toBe('protected');
+      }),
+      settings(100),
+    );
+  }, LIMIT_MS);
+
+  it('keeps a legal feeder tap legal (under some tap rule) when it gets shorter', () => {
+    // Every 240.21(B) rule sets a maximum length or none; no rule needs a tap to be longer.
+    fc.assert(
+      fc.property(treeNetwork(), fc.nat(), fc.double({ min: 0.05, max: 0.95, noNaN: true }), (input, pick, factor) => {
+        const before = analyze(load(input));
+        const taps = before.conductors.filter((c) => c.verdict.startsWith('tap-') && c.verdict !== 'tap-from-tap' && c.chain.length === 1 && c.lengthFt);
+        fc.pre(taps.length > 0);
+        const target = taps[pick % taps.length]!;
+        const lengthFt = Math.max(0.5, Math.round(target.lengthFt! * factor * 10) / 10);
+        const changed: ProjectInput = { ...input, conductors: input.conductors.map((c) => (c.id === target.id ? { ...c, lengthFt } : c)) };
+        const after = analyze(load(changed)).conductors.find((c) => c.id === target.id)!;
+        expect(
+          after.verdict.startsWith('tap-') && after.verdict !== 'tap-from-tap',
+          `${target.id}: ${target.verdict} at ${target.lengthFt} ft became ${after.verdict} at ${lengthFt} ft; ${after.summary}`,
+        ).toBe(true);
+      }),
+      settings(100),
+    );
+  }, LIMIT_MS);
 });
 
 describe('analyze on odd networks (loops, double feeds, islands, several or no sources)', () => {
