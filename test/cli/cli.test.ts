@@ -132,6 +132,10 @@ describe.concurrent('linewright CLI', { timeout: 60_000 }, () => {
     const sarif = JSON.parse((await cli(['check', file, '--format=sarif'])).stdout);
     expect(sarif.version).toBe('2.1.0');
     expect(sarif.runs[0].results.some((r: { level: string }) => r.level === 'error')).toBe(true);
+    // Outside the working directory the artifact is a file: URI; inside it, a relative reference.
+    expect(sarif.runs[0].artifacts[0].location.uri).toMatch(/^file:\/\/\/.*v\.json$/);
+    const inRepo = JSON.parse((await cli(['check', 'samples/demo-clinic.json', '--format', 'sarif'])).stdout);
+    expect(inRepo.runs[0].artifacts[0].location.uri).toBe('samples/demo-clinic.json');
     const csv = await cli(['check', file, '--format', 'csv']);
     expect(csv.stdout.split('\r\n')[0]).toMatch(/^id,label,from,to,/);
     expect(csv.stderr).toContain(CAUTION);
