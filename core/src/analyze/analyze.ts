@@ -1,5 +1,6 @@
 import { CAUTION } from '../caution';
-import type { Project } from '../model/schema';
+import type { CodeEdition, Project } from '../model/schema';
+import { cite } from '../tables/citations';
 import { buildGraph, topologicalOrder } from '../topology/graph';
 import { buildRuns } from '../topology/runs';
 import { classifyRuns, type RunVerdict } from './classify';
@@ -10,6 +11,7 @@ import {
   SEVERITIES,
   VERDICTS,
   type AnalysisReport,
+  type Citation,
   type ConductorReport,
   type DeviceRef,
   type Fix,
@@ -73,7 +75,7 @@ export function analyze(project: Project): AnalysisReport {
       to: c.to,
       verdict: v.verdict,
       rule: v.rule?.id ?? null,
-      cites: v.rule ? { code: 'NEC', edition, section: v.rule.section } : null,
+      cites: v.rule ? citeRule(v.rule.section, edition) : null,
       role: v.role,
       summary: (summaries[r] ??= describeRun(v)),
       size: c.size,
@@ -117,6 +119,14 @@ export function analyze(project: Project): AnalysisReport {
 function transformerTapLength(v: RunVerdict): number | null {
   const total = v.tried.find((t) => t.ruleId === 'tap-transformer')?.conditions.find((c) => c.id === 'length')?.data.totalFt;
   return typeof total === 'number' ? total : null;
+}
+
+const ruleCitations = new Map<string, Citation>();
+function citeRule(section: string, edition: CodeEdition): Citation {
+  const key = `${edition}|${section}`;
+  let c = ruleCitations.get(key);
+  if (!c) ruleCitations.set(key, (c = Object.freeze(cite(section, edition))));
+  return c;
 }
 
 /** Shared empty lists: most conductors have no findings and no fixes. Reports are read-only. */
