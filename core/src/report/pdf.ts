@@ -745,6 +745,7 @@ function drawTitleBlock(sh: Sheet, report: AnalysisReport, project: Project, gen
     ['CODE EDITION', `NFPA 70 (NEC) ${report.edition}`],
     ['PREPARED BY', project.project.preparedBy ?? 'not stated'],
     ['GENERATED', generated],
+    ['SCALE', 'not to scale (one-line diagram)'],
     ['PRODUCED WITH', `${TOOL_NAME} ${TOOL_VERSION}`],
   ];
   for (const [k, v] of rows) {
@@ -1021,7 +1022,7 @@ export function renderPermitPdf(project: Project, report: AnalysisReport, option
   }
   let y = drawLegend(sh, sideX, M, SIDE_W);
   y = drawSummary(sh, report, sideX, y + 6);
-  const tbH = 160;
+  const tbH = 172;
   drawTitleBlock(sh, report, project, generated, { x: sideX, y: Math.max(y + 6, BODY_BOTTOM - tbH), w: SIDE_W, h: tbH });
 
   details.forEach((d, k) => {
