@@ -36,11 +36,11 @@ test('draw a feeder, a splice and a tap to a panelboard; lengthen the tap; fix, 
   });
 
   const ids = await test.step('place equipment from the palette', async () => {
-    const utility = await place(page, 'utility', 300, 50);
-    const feeder = await place(page, 'breaker', 300, 170);
-    const splice = await place(page, 'splice', 300, 290);
-    const main = await place(page, 'breaker', 300, 420);
-    const panel = await place(page, 'bus', 300, 550);
+    const utility = await place(page, 'utility', 300, 90);
+    const feeder = await place(page, 'breaker', 300, 210);
+    const splice = await place(page, 'splice', 300, 330);
+    const main = await place(page, 'breaker', 300, 460);
+    const panel = await place(page, 'bus', 300, 590);
     await expect(page.locator('.react-flow__node')).toHaveCount(5);
     await shot(page, info, 'placed');
     return { utility, feeder, splice, main, panel };

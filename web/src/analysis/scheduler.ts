@@ -1,35 +1,50 @@
+import type { AnalysisReport, Project } from '@linewright/core';
 import type { EditorStore, EditorState } from '../editor/store';
 import { coreAnalyze } from './coreApi';
 
+/** A check faster than this runs inside the commit (one render for edit and verdicts). */
+const INLINE_BUDGET_MS = 40;
+
 /**
- * Re-runs the analysis on every committed document, a few milliseconds after
- * the commit so a burst of edits costs one run. Drags never commit until
- * release, so the check stays off the drag path.
+ * Re-runs the analysis on every committed document. Drags never commit until
+ * release, so the check stays off the drag path. While the last check took
+ * less than INLINE_BUDGET_MS it runs inside the commit; a slower one runs a
+ * few milliseconds after it, so a burst of edits costs one run and the screen
+ * shows the edit first.
  */
 export function startAnalysis(store: EditorStore, debounceMs = 8): () => void {
   let timer: ReturnType<typeof setTimeout> | null = null;
-  const run = () => {
-    timer = null;
-    const { doc, docVersion } = store.getState();
+  const check = (doc: Project): { report: AnalysisReport | null; error: string | null } => {
     const t0 = performance.now();
     try {
       const report = coreAnalyze(doc);
       stats.lastMs = performance.now() - t0;
       stats.runs++;
-      store.setReport(report, docVersion);
+      return { report, error: null };
     } catch (e) {
       // A crash in the analyzer must not cost the user the drawing: keep editing, say why.
-      store.setReport(null, docVersion, `The check failed: ${(e as Error).message}`);
+      stats.lastMs = performance.now() - t0;
+      return { report: null, error: `The check failed: ${(e as Error).message}` };
     }
   };
-  const schedule = (_s: EditorState) => {
+  const runLater = () => {
+    timer = null;
+    const { doc, docVersion, reportVersion } = store.getState();
+    if (reportVersion === docVersion) return;
+    const r = check(doc);
+    store.setReport(r.report, docVersion, r.error);
+  };
+  store.inlineAnalysis = (doc) => (stats.runs > 0 && stats.lastMs < INLINE_BUDGET_MS ? check(doc) : null);
+  const schedule = (s: EditorState) => {
+    if (s.reportVersion === s.docVersion) return;
     if (timer !== null) clearTimeout(timer);
-    timer = setTimeout(run, debounceMs);
+    timer = setTimeout(runLater, debounceMs);
   };
   const off = store.onDocumentCommitted(schedule);
   schedule(store.getState());
   return () => {
     off();
+    store.inlineAnalysis = null;
     if (timer !== null) clearTimeout(timer);
   };
 }

@@ -1,6 +1,6 @@
 import { useCallback, useEffect, useMemo, useRef } from 'react';
 import {
-  Background, BackgroundVariant, ConnectionLineType, Controls, MiniMap, ReactFlow, useReactFlow, useStore,
+  Background, BackgroundVariant, ConnectionLineType, Controls, MiniMap, Panel, ReactFlow, useReactFlow, useStore,
   type Connection, type EdgeChange, type IsValidConnection, type NodeChange,
 } from '@xyflow/react';
 import type { EquipmentKind } from '@linewright/core';
@@ -11,6 +11,7 @@ import { useCommandContext, useEditorState } from '../editor/useEditor';
 import { edgeTypes } from '../edges';
 import { nodeTypes } from '../nodes';
 import { KIND_DRAG_TYPE } from '../panels/Palette';
+import { DrawingTools } from '../panels/Toolbar';
 import { FlowDeriver, selectionAfter, type FlowEdge, type FlowNode } from './flowElements';
 
 /** Below this zoom text is too small to read (11 px × 0.45 ≈ 5 px): draw lines, badges and symbols only. */
@@ -152,8 +153,16 @@ export function Canvas() {
         elevateEdgesOnSelect
       >
         <Background variant={BackgroundVariant.Dots} gap={GRID} size={1} color="#c9ccd1" />
+        <Panel position="top-left">
+          <DrawingTools />
+        </Panel>
+        {nodes.length === 0 && (
+          <Panel position="top-center" className="lw-empty-hint">
+            Empty drawing. Click or drag equipment from the left onto the sheet, then drag from a bottom port (load side) to a top port (line side) to connect.
+          </Panel>
+        )}
         <Controls showInteractive={false} position="bottom-left" />
-        {!big && <MiniMap pannable zoomable position="bottom-right" nodeStrokeWidth={2} ariaLabel="Overview of the drawing" />}
+        {!big && nodes.length > 0 && <MiniMap pannable zoomable position="bottom-right" nodeStrokeWidth={2} ariaLabel="Overview of the drawing" style={{ width: 150, height: 100 }} />}
       </ReactFlow>
     </div>
   );

@@ -60,6 +60,12 @@ export class EditorStore {
   private readonly history = new History();
   private readonly listeners = new Set<Listener>();
   private readonly docListeners = new Set<(s: EditorState) => void>();
+  /**
+   * Set by the analysis scheduler: when the check is fast it runs inside the
+   * commit, so the edit and its verdicts reach the screen in one render.
+   * Returns null to leave this commit to the asynchronous path.
+   */
+  inlineAnalysis: ((doc: Project) => { report: AnalysisReport | null; error: string | null } | null) | null = null;
   private noticeSeq = 0;
   private frameSeq = 0;
 
@@ -126,8 +132,11 @@ export class EditorStore {
 
   private commitDoc(doc: Project, extra?: Partial<EditorState>): void {
     const s = this.state;
+    const docVersion = s.docVersion + 1;
     const view = { ...s.view, selection: pruneSelection(s.view.selection, doc), dragPositions: null };
-    this.set({ ...s, ...extra, doc, docVersion: s.docVersion + 1, view, history: this.historySummary() }, true);
+    const checked = this.inlineAnalysis?.(doc);
+    const report = checked ? { report: checked.report, reportVersion: docVersion, analysisError: checked.error } : {};
+    this.set({ ...s, ...extra, ...report, doc, docVersion, view, history: this.historySummary() }, true);
   }
 
   undo(): boolean {

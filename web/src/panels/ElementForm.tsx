@@ -1,4 +1,4 @@
-import { useEffect, useId, useState, type KeyboardEvent } from 'react';
+import { useEffect, useId, useRef, useState, type KeyboardEvent } from 'react';
 import { parseElement, replaceElement } from '../editor/commands';
 import type { ElementTarget } from '../editor/commands/replaceElement';
 import { useCommandContext } from '../editor/useEditor';
@@ -44,6 +44,7 @@ function FieldRow({ field, target, element }: { field: Field; target: ElementTar
   const current = getPath(element, field.key);
   const [draft, setDraft] = useState<string | null>(null);
   const [error, setError] = useState<string | null>(null);
+  const cancelled = useRef(false);
 
   // A change from elsewhere (undo, a fix) replaces a stale error.
   useEffect(() => {
@@ -76,6 +77,10 @@ function FieldRow({ field, target, element }: { field: Field; target: ElementTar
   };
 
   const finishText = () => {
+    if (cancelled.current) {
+      cancelled.current = false;
+      return;
+    }
     if (draft === null) return;
     const { candidate, message } = check(draft);
     if (message) {
@@ -92,6 +97,8 @@ function FieldRow({ field, target, element }: { field: Field; target: ElementTar
       e.preventDefault();
       finishText();
     } else if (e.key === 'Escape') {
+      // Escape drops the draft: the field shows the document's value again.
+      cancelled.current = true;
       setDraft(null);
       setError(null);
       e.currentTarget.blur();

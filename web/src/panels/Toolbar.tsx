@@ -30,8 +30,6 @@ export function Toolbar() {
   const fileInput = useRef<HTMLInputElement>(null);
   const name = useEditorState((s) => s.doc.project.name);
   const history = useEditorState((s) => s.history);
-  const snap = useEditorState((s) => s.view.snapToGrid);
-  const connectAs = useEditorState((s) => s.view.connectAs);
   return (
     <header className="lw-top">
       <div className="lw-brand">
@@ -74,23 +72,33 @@ export function Toolbar() {
         <div className="lw-tool-group" role="group" aria-label="View">
           <CmdButton cmd={zoomToFit} testId="cmd-fit" />
           <CmdButton cmd={arrangeDrawing} testId="cmd-arrange">Arrange</CmdButton>
-          <label className="lw-toggle" title="Snap moved equipment to a 20-unit grid">
-            <input type="checkbox" checked={snap} onChange={() => toggleSnap.run(ctx)} data-testid="toggle-snap" /> Snap
-          </label>
-        </div>
-        <div className="lw-tool-group" role="radiogroup" aria-label="A drag between ports adds">
-          <span className="lw-tool-caption">Connect with</span>
-          <label className="lw-toggle">
-            <input type="radio" name="connect-as" checked={connectAs === 'conductor'} onChange={() => ctx.store.setView({ connectAs: 'conductor' })} data-testid="connect-conductor" /> conductor
-          </label>
-          <label className="lw-toggle">
-            <input type="radio" name="connect-as" checked={connectAs === 'busLink'} onChange={() => ctx.store.setView({ connectAs: 'busLink' })} data-testid="connect-buslink" /> bus link
-          </label>
         </div>
       </nav>
       <div className="lw-history-hint" data-testid="history-hint" aria-live="polite">
         {history.undoLabel ? `Undo: ${history.undoLabel}` : 'Nothing to undo'}
       </div>
     </header>
+  );
+}
+
+/** Drawing tools that sit on the canvas: what a port-to-port drag adds, and snapping. */
+export function DrawingTools() {
+  const ctx = useCommandContext();
+  const snap = useEditorState((s) => s.view.snapToGrid);
+  const connectAs = useEditorState((s) => s.view.connectAs);
+  return (
+    <div className="lw-drawing-tools" role="group" aria-label="Drawing tools">
+      <span className="lw-tool-caption">Drag port to port adds a</span>
+      <label className="lw-toggle">
+        <input type="radio" name="connect-as" checked={connectAs === 'conductor'} onChange={() => ctx.store.setView({ connectAs: 'conductor' })} data-testid="connect-conductor" /> conductor
+      </label>
+      <label className="lw-toggle">
+        <input type="radio" name="connect-as" checked={connectAs === 'busLink'} onChange={() => ctx.store.setView({ connectAs: 'busLink' })} data-testid="connect-buslink" /> bus link
+      </label>
+      <span className="lw-sep" aria-hidden="true" />
+      <label className="lw-toggle" title="Snap moved equipment to a 20-unit grid">
+        <input type="checkbox" checked={snap} onChange={() => toggleSnap.run(ctx)} data-testid="toggle-snap" /> snap to grid
+      </label>
+    </div>
   );
 }

@@ -22,7 +22,16 @@ export function parseElement(target: ElementTarget, value: unknown): ParseOutcom
   const schema = target.kind === 'node' ? equipmentNode : target.kind === 'conductor' ? conductor : target.kind === 'busLink' ? busLink : projectSettings;
   const r = schema.safeParse(value);
   if (r.success) return { ok: true, value: r.data };
-  return { ok: false, issues: r.error.issues.map((i) => ({ path: i.path.map(String).join('.'), message: i.message })) };
+  return { ok: false, issues: r.error.issues.map((i) => ({ path: i.path.map(String).join('.'), message: plainMessage(i) })) };
+}
+
+/** zod's default range and type messages in plain words; a schema's own message is kept. */
+function plainMessage(i: { code: string; message: string; minimum?: unknown; maximum?: unknown; inclusive?: boolean; expected?: unknown }): string {
+  const n = (x: unknown) => (typeof x === 'number' ? x.toLocaleString('en-US') : String(x));
+  if (i.code === 'too_small' && i.message.startsWith('Too small')) return i.inclusive ? `Must be at least ${n(i.minimum)}.` : `Must be more than ${n(i.minimum)}.`;
+  if (i.code === 'too_big' && i.message.startsWith('Too big')) return i.inclusive ? `Must be at most ${n(i.maximum)}.` : `Must be less than ${n(i.maximum)}.`;
+  if (i.code === 'invalid_type' && i.message.startsWith('Invalid input')) return i.expected === 'int' ? 'Enter a whole number.' : `Enter a ${String(i.expected)}.`;
+  return i.message;
 }
 
 /**
