@@ -43,6 +43,8 @@ test('the review list is keyboard navigable and frames what it names', async ({ 
   await page.getByTestId('filter-rule').selectOption(rule!);
   for (const r of await items.evaluateAll((els) => els.map((e) => e.getAttribute('data-rule')))) expect(r).toBe(rule);
   await page.getByTestId('finding').first().click();
+  await expect(page.getByTestId('working-verdict')).toBeVisible();
+  await page.waitForTimeout(400); // the frame animates for 250 ms
   await shot(page, info, 'finding-framed');
 });
 

@@ -1,14 +1,12 @@
 /**
  * The one place the web reaches into the core analyzer. Everything else in
  * web/ imports core functions from here, so a renamed core export changes one
- * file. The permit PDF writer is looked up by name so a core build without it
- * still runs (the export button then says so).
+ * file.
+ *
+ * The report renderers (permit PDF, verdict classes) are not yet re-exported
+ * by the core package root, so they come from the core's report index
+ * directly; switch the second import to '@linewright/core' once it is.
  */
-import * as core from '@linewright/core';
-import type { AnalysisReport, Project } from '@linewright/core';
-
-export { analyze as coreAnalyze, applyFix as coreApplyFix, loadProject as coreLoadProject, CAUTION, CAUTION_SHORT } from '@linewright/core';
+export { analyze as coreAnalyze, applyFix as coreApplyFix, loadProject as coreLoadProject, CAUTION, CAUTION_SHORT, VERDICT_LABELS } from '@linewright/core';
 export type { LoadResult } from '@linewright/core';
-
-type RenderPermitPdf = (project: Project, report: AnalysisReport, options?: { generatedAt?: string }) => Uint8Array;
-export const coreRenderPermitPdf: RenderPermitPdf | undefined = (core as unknown as { renderPermitPdf?: RenderPermitPdf }).renderPermitPdf;
+export { renderPermitPdf as coreRenderPermitPdf, SEVERITY_WORDS, verdictClass, type VerdictClass } from '../../../core/src/report/index';

@@ -128,8 +128,10 @@ export function Canvas() {
   );
 
   const big = nodes.length + edges.length > CULL_FROM;
+  // Level of detail only pays on big drawings; a small one keeps its (small) text at any zoom.
+  const lod = big && far;
   return (
-    <div className={far ? 'lw-canvas lw-far' : 'lw-canvas'} ref={wrapper} onDragOver={onDragOver} onDrop={onDrop} data-testid="canvas">
+    <div className={lod ? 'lw-canvas lw-far' : 'lw-canvas'} ref={wrapper} onDragOver={onDragOver} onDrop={onDrop} data-testid="canvas">
       <ReactFlow<FlowNode, FlowEdge>
         nodes={nodes}
         edges={edges}

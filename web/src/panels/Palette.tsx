@@ -53,7 +53,7 @@ export function Palette() {
   );
 }
 
-const FAMILIES: VerdictFamily[] = ['meets', 'by-rule', 'fails', 'incomplete'];
+const FAMILIES: VerdictFamily[] = ['protected', 'tap-rule', 'failing', 'incomplete'];
 
 /** What the line styles and badges on the drawing mean. */
 export function Legend() {

@@ -6,13 +6,9 @@ import { defineCommand } from './types';
 export const exportPdf = defineCommand({
   id: 'export-pdf',
   label: 'Export PDF',
-  canRun: ({ store }) => coreRenderPermitPdf !== undefined && store.getState().report !== null,
+  canRun: ({ store }) => store.getState().report !== null,
   run: (ctx) => {
     const { doc, report, reportVersion, docVersion } = ctx.store.getState();
-    if (!coreRenderPermitPdf) {
-      ctx.store.notify('This build has no PDF writer.', 'error');
-      return;
-    }
     if (!report || reportVersion !== docVersion) {
       ctx.store.notify('The check is still running; export again in a moment.', 'error');
       return;
