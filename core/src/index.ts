@@ -9,3 +9,4 @@ export { ALL_RULES, RULES_BY_ID } from './rules/index';
 export { renderTemplate, formatNumber } from './rules/define';
 export * from './tables/index';
 export { computeAmpacity, smallestSizeWithAmpacity, type AmpacityInput, type AmpacityResult } from './ampacity/index';
+export * from './report/index';

@@ -145,8 +145,10 @@ export function baseRunFacts(
       if (w === null) ampacityA = null;
       else if (ampacityA !== null && w.ampacityA < ampacityA) ampacityA = w.ampacityA;
       if (w?.smallConductorMaxOcpdA != null) small = small === null ? w.smallConductorMaxOcpdA : Math.min(small, w.smallConductorMaxOcpdA);
-      if (!RACEWAYS.has(c.wiring)) inRaceway = false;
-      if (c.damageProtection === 'none') damage = 'none';
+      const conduit = RACEWAYS.has(c.wiring);
+      if (!conduit) inRaceway = false;
+      // "Protected by a raceway" needs the run to be in one: a cable or open run so marked is not protected.
+      if (c.damageProtection === 'none' || (c.damageProtection === 'raceway' && !conduit)) damage = 'none';
       else if (c.damageProtection === 'other-approved-means' && damage === 'raceway') damage = 'other-approved-means';
       if (!c.outdoors) outdoors = false;
       leaves ||= c.leavesEnclosure;

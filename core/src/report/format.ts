@@ -1,29 +1,13 @@
 import type { ConductorSize, Material } from '../model/schema';
 import type { AnalysisReport, Citation, ConductorReport, ConductorRole, DeviceRef, ElementRef, Finding, Fix, Severity, Verdict } from '../analyze/types';
-import { FAILING_VERDICTS } from '../analyze/types';
+import { FAILING_VERDICTS, VERDICT_LABELS } from '../analyze/types';
+import { materialLabel, sizeLabel } from '../tables/sizes';
 
 /**
  * Words shared by every report (text, CSV, PDF, SARIF) and the editor, so a verdict reads the
  * same everywhere. Trade words only; none of them is a verdict of acceptance.
  */
-export const VERDICT_WORDS: Record<Verdict, string> = {
-  protected: 'protected',
-  'protected-next-size': 'protected (next size up)',
-  'tap-10ft': 'tap: 10 ft',
-  'tap-25ft': 'tap: 25 ft',
-  'tap-transformer': 'tap: transformer',
-  'tap-high-bay': 'tap: high bay',
-  'tap-outside': 'tap: outside',
-  'secondary-primary-protected': 'secondary: primary-protected',
-  'secondary-10ft': 'secondary: 10 ft',
-  'secondary-25ft': 'secondary: 25 ft',
-  'secondary-outside': 'secondary: outside',
-  service: 'service',
-  generator: 'generator',
-  'tap-from-tap': 'tap from a tap',
-  unprotected: 'unprotected',
-  incomplete: 'incomplete (missing data)',
-};
+export const VERDICT_WORDS: Readonly<Record<Verdict, string>> = VERDICT_LABELS;
 
 /** How a verdict is drawn: a line style and mark that do not rely on colour. */
 export type VerdictClass = 'protected' | 'tap-rule' | 'failing' | 'incomplete';
@@ -63,15 +47,10 @@ export const ROLE_WORDS: Record<ConductorRole, string> = {
   unknown: 'unknown',
 };
 
-export const MATERIAL_WORDS: Record<Material, string> = { cu: 'Cu', al: 'Al', 'cu-clad-al': 'Cu-clad Al' };
+export const MATERIAL_WORDS: Readonly<Record<Material, string>> = { cu: materialLabel('cu'), al: materialLabel('al'), 'cu-clad-al': materialLabel('cu-clad-al') };
 
-const KCMIL_FROM = 250;
-
-/** '4/0 AWG', '500 kcmil': sizes of 250 and up are in kcmil (Table 310.16). */
-export function sizeText(size: ConductorSize): string {
-  const n = Number(size);
-  return Number.isFinite(n) && n >= KCMIL_FROM ? `${size} kcmil` : `${size} AWG`;
-}
+/** '4/0 AWG', '500 kcmil' (Table 310.16 names sizes of 250 and up in kcmil). */
+export const sizeText: (size: ConductorSize) => string = sizeLabel;
 
 /** '2×500 kcmil Cu' or '3/0 AWG Al' (sets shown only when more than one). */
 export function conductorText(c: Pick<ConductorReport, 'parallelSets' | 'size' | 'material'>): string {

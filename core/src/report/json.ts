@@ -32,10 +32,14 @@ export interface JsonConductor {
   summary: string;
   role: ConductorReport['role'];
   ampacityA: number | null;
+  /** Same as ampacityA: the name the CLI contract uses. */
+  ampacity: number | null;
   ampacityGovernedBy: string | null;
   upstreamDevice: { id: string; kind: string; label: string; ratingA: number | null } | null;
   supply: ConductorReport['supply'];
   tapLengthFt: number | null;
+  /** Same as tapLengthFt: the name the CLI contract uses. */
+  tapLength: number | null;
   lengthFt: number | null;
   size: string;
   material: string;
@@ -120,10 +124,12 @@ function conductor(c: ConductorReport): JsonConductor {
     summary: c.summary,
     role: c.role,
     ampacityA: c.ampacity ? c.ampacity.ampacityA : null,
+    ampacity: c.ampacity ? c.ampacity.ampacityA : null,
     ampacityGovernedBy: c.ampacity ? c.ampacity.governedBy : null,
     upstreamDevice: d ? { id: d.id, kind: d.kind, label: d.label, ratingA: d.ratingA } : null,
     supply: { kind: c.supply.kind, id: c.supply.id },
     tapLengthFt: c.tapLengthFt,
+    tapLength: c.tapLengthFt,
     lengthFt: c.lengthFt,
     size: c.size,
     material: c.material,

@@ -2,9 +2,11 @@ import type { Graph } from './graph';
 
 /**
  * A run is one conductor, or several joined end to end at pass-through
- * joints: a splice (or an unfused disconnect) with exactly one conductor in
- * and one out of the same material, size and number of sets. The rules judge
- * a run as one conductor whose length is the sum of its parts.
+ * joints: a splice with exactly one conductor in and one out of the same
+ * material, size and number of sets. The rules judge a run as one conductor
+ * whose length is the sum of its parts. An unfused disconnect is equipment,
+ * not a splice: a tap that passes through one ends there, and what leaves it
+ * is supplied from the tap (a tap from a tap).
  */
 export interface Runs {
   /** Conductor indices of each run, supply end first. */
@@ -15,8 +17,7 @@ export interface Runs {
 
 export function isPassThroughJoint(g: Graph, node: number): boolean {
   if (node < 0) return false;
-  const kind = g.nodes[node]!.kind;
-  if (kind !== 'splice' && kind !== 'disconnect') return false;
+  if (g.nodes[node]!.kind !== 'splice') return false;
   const ins = g.inEdges[node]!;
   const outs = g.outEdges[node]!;
   if (ins.length !== 1 || outs.length !== 1) return false;

@@ -20,11 +20,11 @@ describe('toJsonReport', () => {
 
   it('gives each conductor the documented keys in a stable order', () => {
     expect(Object.keys(json.conductors[0]!)).toEqual([
-      'id', 'label', 'from', 'to', 'verdict', 'verdictText', 'rule', 'cites', 'summary', 'role', 'ampacityA', 'ampacityGovernedBy',
-      'upstreamDevice', 'supply', 'tapLengthFt', 'lengthFt', 'size', 'material', 'parallelSets', 'load', 'chain', 'findingIds', 'fixes', 'tried',
+      'id', 'label', 'from', 'to', 'verdict', 'verdictText', 'rule', 'cites', 'summary', 'role', 'ampacityA', 'ampacity', 'ampacityGovernedBy',
+      'upstreamDevice', 'supply', 'tapLengthFt', 'tapLength', 'lengthFt', 'size', 'material', 'parallelSets', 'load', 'chain', 'findingIds', 'fixes', 'tried',
     ]);
     const c3 = json.conductors.find((c) => c.id === 'C3')!;
-    expect(c3).toMatchObject({ verdict: 'tap-25ft', verdictText: 'tap: 25 ft', rule: 'tap-25ft', ampacityA: 200, tapLengthFt: 20, lengthFt: 20, size: '3/0', material: 'cu', parallelSets: 1 });
+    expect(c3).toMatchObject({ verdict: 'tap-25ft', verdictText: 'tap: 25 ft', rule: 'tap-25ft', ampacityA: 200, ampacity: 200, tapLengthFt: 20, tapLength: 20, lengthFt: 20, size: '3/0', material: 'cu', parallelSets: 1 });
     expect(c3.cites).toEqual({ code: 'NEC', edition: 2023, section: '240.21(B)(2)' });
     expect(c3.upstreamDevice).toEqual({ id: 'CB-F1', kind: 'breaker', label: 'Feeder 1', ratingA: 600 });
     expect(c3.tried.map((t) => t.outcome)).toEqual(['fails', 'holds']);
