@@ -130,18 +130,20 @@ export class FlowDeriver {
     const verdict = r?.verdict ?? null;
     const family = checked ? verdictFamily(verdict) : 'pending';
     const verdictText = verdict ? VERDICT_TEXT[verdict] : checked ? 'not checked' : 'checking…';
-    const line = (c.label ? `${clip(c.label, 18)} · ` : '') + conductorLine(c);
-    const key = `${verdict}|${family}|${line}|${fk}|${tk}`;
+    // The drawing shows the facts (sets × size, material, length); the conductor's own name is in the
+    // details panel and the tooltip, so labels stay narrow enough to sit between columns of equipment.
+    const line = conductorLine(c);
+    const key = `${verdict}|${family}|${line}|${fk}|${tk}|${c.label ?? ''}`;
     const prev = this.edgeCache.get(id);
     if (prev && prev.src === c && prev.selected === selected && prev.key === key) return prev;
     const data: ConductorEdgeData =
-      prev && prev.key === key && prev.out.type === 'conductor' ? (prev.out.data as ConductorEdgeData) : { conductorId: c.id, line, verdict, verdictText, family };
+      prev && prev.key === key && prev.out.type === 'conductor' ? (prev.out.data as ConductorEdgeData) : { conductorId: c.id, name: c.label ?? null, line, verdict, verdictText, family };
     return {
       src: c, selected, key,
       out: {
         id, type: 'conductor', source: c.from, target: c.to,
         sourceHandle: kindSpec(fk).ports.out, targetHandle: kindSpec(tk).ports.in,
-        selected, data, ariaLabel: `Conductor ${line}, ${verdictText}`,
+        selected, data: data.name === (c.label ?? null) ? data : { ...data, name: c.label ?? null }, ariaLabel: `Conductor ${c.label ? `${c.label}: ` : ''}${line}, ${verdictText}`,
         style: { color: FAMILY_LOOK[family].colour },
       },
     };
@@ -192,9 +194,4 @@ export function selectionAfter(sel: Selection, nodeChanges: { id: string; select
     busLinks = [...bs];
   }
   return { nodes, conductors, busLinks };
-}
-
-/** Long user labels would cover the drawing; the full label is in the details panel. */
-function clip(s: string, n: number): string {
-  return s.length <= n ? s : s.slice(0, n - 1).trimEnd() + '…';
 }

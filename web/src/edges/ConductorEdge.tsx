@@ -6,7 +6,9 @@ import { VerdictBadge } from './VerdictBadge';
 
 export interface ConductorEdgeData extends Record<string, unknown> {
   conductorId: string;
-  /** First label line: user label (if any), sets × size, material, length. */
+  /** The user's name for the conductor, shown as a tooltip. */
+  name: string | null;
+  /** First label line: sets × size, material, length. */
   line: string;
   verdict: Verdict | null;
   verdictText: string;
@@ -31,13 +33,15 @@ export const ConductorEdge = memo(function ConductorEdge(props: EdgeProps<Edge<C
   if (!data) return null;
   const look = FAMILY_LOOK[data.family];
   const w = Math.max(data.line.length, data.verdictText.length + 3) * CHAR_W + 10;
-  const x = lx + 8;
+  // Conductor data sits left of the wire; equipment names sit right of their symbols, so the two rarely meet.
+  const x = lx - 8 - w;
   const y = ly - LINE_H;
   return (
     <>
       {selected && <path d={path} className="lw-edge-halo" />}
       <BaseEdge path={path} interactionWidth={14} style={{ stroke: look.colour, strokeWidth: look.strokeWidth, strokeDasharray: look.dash || undefined }} />
       <g className={`lw-edge-label${selected ? ' is-selected' : ''}`} transform={`translate(${x} ${y})`} data-testid={`conductor-label-${data.conductorId}`} data-verdict={data.verdict ?? 'pending'}>
+        <title>{`${data.name ? `${data.name}\n` : ''}${data.line}\n${data.verdictText}`}</title>
         <rect x={0} y={0} width={w} height={LINE_H * 2 + 6} rx={3} className="lw-edge-label-bg" style={{ stroke: look.colour }} />
         <text x={5} y={LINE_H - 1} className="lw-edge-label-text">{data.line}</text>
         <VerdictBadge family={data.family} x={11} y={LINE_H * 1.5 + 3} size={11} />
