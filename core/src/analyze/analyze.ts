@@ -1,7 +1,7 @@
 import { CAUTION } from '../caution';
 import type { CodeEdition, Project } from '../model/schema';
 import { cite } from '../tables/citations';
-import { buildGraph, topologicalOrder } from '../topology/graph';
+import { buildGraph, topologicalOrder, type Graph } from '../topology/graph';
 import { buildRuns } from '../topology/runs';
 import { classifyRuns, type RunVerdict } from './classify';
 import { collectFindings } from './findings';
@@ -51,51 +51,39 @@ export function analyze(project: Project): AnalysisReport {
     findingIdsBySubject.set(f.subject.id, list);
   }
 
-  const summaries: (string | undefined)[] = new Array(verdicts.length);
-  const devices = new Map<number, DeviceRef>();
-  const deviceRef = (v: number): DeviceRef => {
-    let d = devices.get(v);
-    if (!d) {
-      const n = graph.nodes[v]!;
-      devices.set(v, (d = { id: n.id, kind: n.kind, label: nodeLabel(n), ratingA: effectiveRatingA(n) }));
-    }
-    return d;
-  };
-  const conductors: ConductorReport[] = graph.conductors.map((c, ci) => {
+  // Everything a run's conductors share is built once per run.
+  const shared = verdicts.map((v) => runShared(graph, v, edition));
+  const conductors: ConductorReport[] = new Array(graph.conductors.length);
+  for (let ci = 0; ci < graph.conductors.length; ci++) {
+    const c = graph.conductors[ci]!;
     const r = runs.runOf[ci]!;
     const v = verdicts[r]!;
-    const device = v.deviceNode >= 0 ? deviceRef(v.deviceNode) : null;
-    const supplyNode = 'node' in v.supply ? v.supply.node : -1;
-    const isTap = v.family === 'fed-by-ocpd' && v.verdict !== 'protected' && v.verdict !== 'protected-next-size' && v.verdict !== 'incomplete';
-    const tapLengthFt = v.verdict === 'tap-transformer' ? transformerTapLength(v) : isTap || v.family === 'on-tap' || v.family === 'secondary' ? v.facts.lengthFt : null;
-    return {
+    const s = shared[r]!;
+    conductors[ci] = {
       id: c.id,
       label: c.label ?? c.id,
       from: c.from,
       to: c.to,
       verdict: v.verdict,
       rule: v.rule?.id ?? null,
-      cites: v.rule ? citeRule(v.rule.section, edition) : null,
+      cites: s.cites,
       role: v.role,
-      summary: (summaries[r] ??= describeRun(v)),
+      summary: s.summary,
       size: c.size,
       material: c.material,
       parallelSets: c.parallelSets,
       lengthFt: c.lengthFt ?? null,
       ampacity: ampacities[ci]!.working,
-      upstreamDevice: device,
-      supply: {
-        kind: v.supply.kind === 'ocpd' || v.supply.kind === 'utility' || v.supply.kind === 'generator' || v.supply.kind === 'transformer' ? v.supply.kind : v.deviceNode >= 0 ? 'ocpd' : 'none',
-        id: supplyNode >= 0 && v.supply.kind !== 'none' && v.supply.kind !== 'several' && v.supply.kind !== 'cycle' ? graph.nodes[supplyNode]!.id : device?.id ?? null,
-      },
+      upstreamDevice: s.device,
+      supply: s.supply,
       chain: v.facts.conductorIds,
-      tapLengthFt,
-      load: v.facts.loadA === null || v.facts.calculatedLoadA === null ? null : { flowingA: v.facts.loadA, calculatedA: v.facts.calculatedLoadA },
+      tapLengthFt: s.tapLengthFt,
+      load: s.load,
       tried: v.tried,
       fixes: runFixes[r]!,
       findingIds: findingIdsBySubject.get(c.id) ?? NONE,
     };
-  });
+  }
 
   const byVerdict = Object.fromEntries(VERDICTS.map((v) => [v, 0])) as Record<Verdict, number>;
   for (const c of conductors) byVerdict[c.verdict]++;
@@ -113,6 +101,47 @@ export function analyze(project: Project): AnalysisReport {
     findings,
     counts: { conductors: conductors.length, byVerdict, bySeverity },
   };
+}
+
+interface RunShared {
+  cites: Citation | null;
+  summary: string;
+  device: DeviceRef | null;
+  supply: ConductorReport['supply'];
+  tapLengthFt: number | null;
+  load: ConductorReport['load'];
+}
+
+function runShared(graph: Graph, v: RunVerdict, edition: CodeEdition): RunShared {
+  const device = v.deviceNode >= 0 ? deviceRef(graph, v.deviceNode) : null;
+  const s = v.supply;
+  const supply: ConductorReport['supply'] =
+    s.kind === 'ocpd' || s.kind === 'utility' || s.kind === 'generator' || s.kind === 'transformer'
+      ? { kind: s.kind, id: graph.nodes[s.node]!.id }
+      : { kind: device ? 'ocpd' : 'none', id: device?.id ?? null };
+  const isTap = v.family === 'fed-by-ocpd' && v.verdict !== 'protected' && v.verdict !== 'protected-next-size' && v.verdict !== 'incomplete';
+  const f = v.facts;
+  return {
+    cites: v.rule ? citeRule(v.rule.section, edition) : null,
+    summary: describeRun(v),
+    device,
+    supply,
+    tapLengthFt: v.verdict === 'tap-transformer' ? transformerTapLength(v) : isTap || v.family === 'on-tap' || v.family === 'secondary' ? f.lengthFt : null,
+    load: f.loadA === null || f.calculatedLoadA === null ? null : { flowingA: f.loadA, calculatedA: f.calculatedLoadA },
+  };
+}
+
+/** One DeviceRef per device node, shared by every run it feeds (reports are read-only). */
+const deviceRefs = new WeakMap<Graph, Map<number, DeviceRef>>();
+function deviceRef(graph: Graph, v: number): DeviceRef {
+  let byNode = deviceRefs.get(graph);
+  if (!byNode) deviceRefs.set(graph, (byNode = new Map()));
+  let d = byNode.get(v);
+  if (!d) {
+    const n = graph.nodes[v]!;
+    byNode.set(v, (d = { id: n.id, kind: n.kind, label: nodeLabel(n), ratingA: effectiveRatingA(n) }));
+  }
+  return d;
 }
 
 /** 240.21(B)(3) counts primary plus secondary; the trial that decided it carries the sum for both runs. */

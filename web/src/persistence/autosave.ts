@@ -52,12 +52,15 @@ export async function saveDraft(project: Project): Promise<string> {
 }
 
 /**
- * Saves the document after every committed edit. Writes are serialized and a
- * burst of edits coalesces into one write of the newest document.
+ * Saves the document after every committed edit. The write waits a moment so
+ * it does not compete with painting the edit and its verdicts; writes are
+ * serialized and a burst of edits coalesces into one write of the newest
+ * document.
  */
-export function startAutosave(store: EditorStore, onSaved: (savedAt: string) => void, onError: (e: Error) => void): () => void {
+export function startAutosave(store: EditorStore, onSaved: (savedAt: string) => void, onError: (e: Error) => void, delayMs = 150): () => void {
   let pending: Project | null = null;
   let writing = false;
+  let timer: ReturnType<typeof setTimeout> | null = null;
   const flush = async () => {
     if (writing) return;
     writing = true;
@@ -73,10 +76,27 @@ export function startAutosave(store: EditorStore, onSaved: (savedAt: string) => 
     }
     writing = false;
   };
-  return store.onDocumentCommitted((s) => {
+  const off = store.onDocumentCommitted((s) => {
     pending = s.doc;
-    void flush();
+    if (timer !== null) clearTimeout(timer);
+    timer = setTimeout(() => {
+      timer = null;
+      void flush();
+    }, delayMs);
   });
+  // Leaving the page inside the delay still saves: IndexedDB finishes a write started in pagehide.
+  const onHide = () => {
+    if (timer !== null) {
+      clearTimeout(timer);
+      timer = null;
+      void flush();
+    }
+  };
+  window.addEventListener('pagehide', onHide);
+  return () => {
+    off();
+    window.removeEventListener('pagehide', onHide);
+  };
 }
 
 export const stats = { saves: 0 };
