@@ -152,8 +152,7 @@ test('draw a feeder, a splice and a tap to a panelboard; lengthen the tap; fix, 
 
   await test.step('reload: the drawing comes back from the autosave', async () => {
     const before = await page.evaluate(() => JSON.stringify(window.__linewright!.doc()));
-    await page.waitForFunction(() => window.__linewright!.stats().saves > 0);
-    await page.waitForTimeout(300);
+    await page.waitForFunction(() => window.__linewright!.stats().saves > 0 && window.__linewright!.stats().saveIdle);
     await page.reload();
     await expect(page.getByTestId('notice').filter({ hasText: 'Restored your drawing' })).toBeVisible();
     await checked(page);

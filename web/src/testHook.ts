@@ -17,7 +17,7 @@ export interface TestHook {
   setConductorLength(id: string, lengthFt: number): number;
   /** Resolves after the report for `version` (or a later one) has been rendered and painted. */
   whenChecked(version: number): Promise<void>;
-  stats(): { analysisRuns: number; lastAnalysisMs: number; saves: number };
+  stats(): { analysisRuns: number; lastAnalysisMs: number; saves: number; saveIdle: boolean };
 }
 
 declare global {
@@ -50,6 +50,6 @@ export function installTestHook(ctx: CommandContext): void {
           }
         });
       }),
-    stats: () => ({ analysisRuns: analysisStats.runs, lastAnalysisMs: analysisStats.lastMs, saves: saveStats.saves }),
+    stats: () => ({ analysisRuns: analysisStats.runs, lastAnalysisMs: analysisStats.lastMs, saves: saveStats.saves, saveIdle: saveStats.idle() }),
   };
 }

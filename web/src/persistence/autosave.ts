@@ -76,6 +76,7 @@ export function startAutosave(store: EditorStore, onSaved: (savedAt: string) => 
     }
     writing = false;
   };
+  stats.idle = () => timer === null && !writing && pending === null;
   const off = store.onDocumentCommitted((s) => {
     pending = s.doc;
     if (timer !== null) clearTimeout(timer);
@@ -99,4 +100,4 @@ export function startAutosave(store: EditorStore, onSaved: (savedAt: string) => 
   };
 }
 
-export const stats = { saves: 0 };
+export const stats = { saves: 0, idle: () => true };
