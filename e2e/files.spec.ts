@@ -154,3 +154,37 @@ test('move, copy, paste and delete are each one undo step', async ({ page }) => 
   await page.keyboard.press('Control+z');
   await expect(page.locator('.react-flow__node')).toHaveCount(count);
 });
+
+test('multi-select, arrange top to bottom and drop a file onto the window', async ({ page }, info) => {
+  await openApp(page);
+  await checked(page);
+  const [a, b] = await page.evaluate(() => window.__linewright!.doc().nodes.filter((n) => n.kind === 'load').slice(0, 2).map((n) => n.id));
+  await clickNode(page, a!);
+  await clickNode(page, b!, ['Control']);
+  await expect(page.getByTestId('details')).toContainText('2 elements selected');
+  await expect(page.locator('.react-flow__node.selected')).toHaveCount(2);
+
+  const before = await page.evaluate(() => window.__linewright!.doc().nodes.map((n) => n.position));
+  await page.getByTestId('cmd-arrange').click();
+  await expect(page.getByTestId('history-hint')).toContainText('Arrange top to bottom');
+  const after = await page.evaluate(() => window.__linewright!.doc().nodes);
+  expect(after.map((n) => n.position)).not.toEqual(before);
+  // Top to bottom: every conductor and bus link runs downward (supply above load).
+  const y = new Map(after.map((n) => [n.id, n.position!.y]));
+  const links = await page.evaluate(() => [...window.__linewright!.doc().conductors, ...window.__linewright!.doc().busLinks].map((c) => [c.from, c.to]));
+  for (const [from, to] of links) expect(y.get(to!)!).toBeGreaterThan(y.get(from!)!);
+  await page.waitForTimeout(200);
+  await shot(page, info, 'arranged');
+  await page.keyboard.press('Control+z');
+  expect(await page.evaluate(() => window.__linewright!.doc().nodes.map((n) => n.position))).toEqual(before);
+
+  // Drag and drop of a project file: the same open path as the picker.
+  const text = JSON.stringify({ ...demo, project: { ...(demo as unknown as { project: object }).project, name: 'Dropped copy' } });
+  await page.evaluate((t) => {
+    const dt = new DataTransfer();
+    dt.items.add(new File([t], 'dropped.json', { type: 'application/json' }));
+    window.dispatchEvent(new DragEvent('dragover', { dataTransfer: dt, bubbles: true, cancelable: true }));
+    window.dispatchEvent(new DragEvent('drop', { dataTransfer: dt, bubbles: true, cancelable: true }));
+  }, text);
+  await expect(page.getByTestId('project-name')).toHaveText('Dropped copy');
+});
