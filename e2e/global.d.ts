@@ -1,2 +1,2 @@
 // The app's test hook (window.__linewright) and its types, declared once in the web source.
-/// <reference path="../web/src/testHook.ts" />
+export type { TestHook } from '../web/src/testHook';

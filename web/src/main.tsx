@@ -41,7 +41,7 @@ async function boot() {
     else store.notify(`The demo project did not load: ${r.errors.map((e) => `${e.path} ${e.message}`).join('; ')}`, 'error');
   }
 
-  let seen = false;
+  let seen: boolean;
   try {
     seen = localStorage.getItem(CAUTION_SEEN_KEY) === '1';
   } catch {

@@ -179,7 +179,10 @@ export function selectionAfter(sel: Selection, nodeChanges: { id: string; select
   let busLinks = sel.busLinks;
   if (nodeChanges.length) {
     const s = new Set(nodes);
-    for (const c of nodeChanges) c.selected ? s.add(c.id) : s.delete(c.id);
+    for (const c of nodeChanges) {
+      if (c.selected) s.add(c.id);
+      else s.delete(c.id);
+    }
     nodes = [...s];
   }
   if (edgeChanges.length) {
@@ -188,7 +191,8 @@ export function selectionAfter(sel: Selection, nodeChanges: { id: string; select
     for (const c of edgeChanges) {
       const raw = c.id.slice(2);
       const set = c.id.startsWith('c:') ? cs : bs;
-      c.selected ? set.add(raw) : set.delete(raw);
+      if (c.selected) set.add(raw);
+      else set.delete(raw);
     }
     conductors = [...cs];
     busLinks = [...bs];

@@ -1,6 +1,7 @@
 import type { EquipmentKind } from '@linewright/core';
 import type { ComponentType } from 'react';
-import type { NodeProps } from '@xyflow/react';
+import type { Node, NodeProps } from '@xyflow/react';
+import type { EquipmentNodeData } from './NodeFrame';
 import { BreakerNode } from './BreakerNode';
 import { BusNode } from './BusNode';
 import { DisconnectNode } from './DisconnectNode';
@@ -13,7 +14,6 @@ import { UtilityNode } from './UtilityNode';
 
 // A module constant: React Flow warns (and remounts every node) when nodeTypes is rebuilt per render.
 // `satisfies` makes a kind added to the core schema without a node here a compile error.
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
 export const nodeTypes = {
   utility: UtilityNode,
   generator: GeneratorNode,
@@ -24,7 +24,7 @@ export const nodeTypes = {
   splice: SpliceNode,
   transformer: TransformerNode,
   load: LoadNode,
-} satisfies Record<EquipmentKind, ComponentType<NodeProps<any>>>;
+} satisfies { [K in EquipmentKind]: ComponentType<NodeProps<Node<EquipmentNodeData, K>>> };
 
 export { BreakerSymbol } from './BreakerNode';
 export { BusSymbol } from './BusNode';

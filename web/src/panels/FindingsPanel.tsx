@@ -46,7 +46,7 @@ export function FindingsPanel() {
   const [active, setActive] = useState(0);
   const listRef = useRef<HTMLUListElement>(null);
 
-  const findings = report?.findings ?? [];
+  const findings = useMemo(() => report?.findings ?? [], [report]);
   const rules = useMemo(() => [...new Set(findings.map((f) => f.ruleId))].sort(), [findings]);
   const shown = useMemo(
     () =>
@@ -64,7 +64,7 @@ export function FindingsPanel() {
   };
 
   const onKey = (e: KeyboardEvent<HTMLUListElement>) => {
-    let next = activeIdx;
+    let next: number;
     if (e.key === 'ArrowDown') next = Math.min(shown.length - 1, activeIdx + 1);
     else if (e.key === 'ArrowUp') next = Math.max(0, activeIdx - 1);
     else if (e.key === 'Home') next = 0;

@@ -1,4 +1,4 @@
-import type { BusLinkId, ConductorId, NodeId } from '@linewright/core';
+import type { BusLinkId, ConductorId, EquipmentKind, NodeId } from '@linewright/core';
 import { kindSpec, newConductorFields, freshId } from '../equipment';
 import type { ConnectAs } from '../store';
 import { defineCommand } from './types';
@@ -12,7 +12,7 @@ export interface ConnectArg {
 }
 
 /** Why two nodes cannot be connected this way, or null when they can. */
-export function connectProblem(doc: { nodes: readonly { id: string; kind: import('@linewright/core').EquipmentKind }[] }, a: ConnectArg): string | null {
+export function connectProblem(doc: { nodes: readonly { id: string; kind: EquipmentKind }[] }, a: ConnectArg): string | null {
   if (a.from === a.to) return 'A connection needs two different pieces of equipment.';
   const from = doc.nodes.find((n) => n.id === a.from);
   const to = doc.nodes.find((n) => n.id === a.to);
