@@ -188,3 +188,28 @@ test('multi-select, arrange top to bottom and drop a file onto the window', asyn
   }, text);
   await expect(page.getByTestId('project-name')).toHaveText('Dropped copy');
 });
+
+test('Escape during a drag puts the equipment back; two selected pieces connect from the panel', async ({ page }) => {
+  await openApp(page);
+  await page.getByTestId('cmd-new').click();
+  for (const kind of ['breaker', 'load']) await page.getByTestId(`palette-${kind}`).click();
+  const [b, l] = await page.evaluate(() => window.__linewright!.doc().nodes.map((n) => n.id));
+  const start = await page.evaluate(() => window.__linewright!.doc().nodes.map((n) => n.position));
+  const version = await page.evaluate(() => window.__linewright!.docVersion());
+  const box = (await page.getByTestId(`node-${l}`).boundingBox())!;
+  await page.mouse.move(box.x + box.width * 0.6, box.y + box.height * 0.3);
+  await page.mouse.down();
+  for (let i = 1; i <= 8; i++) await page.mouse.move(box.x + box.width * 0.6 + i * 10, box.y + box.height * 0.3 + 120 + i * 5);
+  await page.keyboard.press('Escape');
+  await page.mouse.up();
+  expect(await page.evaluate(() => window.__linewright!.docVersion())).toBe(version);
+  expect(await page.evaluate(() => window.__linewright!.doc().nodes.map((n) => n.position))).toEqual(start);
+
+  // The load was placed below-right of the breaker, so the breaker is the supply side.
+  await clickNode(page, b!);
+  await clickNode(page, l!, ['Control']);
+  await page.getByTestId('connect-pair-conductor').click();
+  const c = await page.evaluate(() => window.__linewright!.doc().conductors[0]);
+  expect(c).toMatchObject({ from: b, to: l });
+  await expect(page.getByTestId('working-verdict')).toBeVisible();
+});

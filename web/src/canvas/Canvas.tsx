@@ -60,6 +60,19 @@ export function Canvas() {
     requestAnimationFrame(() => void rf.fitView({ nodes: frameRequest.nodeIds.map((id) => ({ id })), padding: 0.6, maxZoom: 1.1, duration: 250 }));
   }, [frameRequest, rf]);
 
+  // Escape during a drag puts the equipment back where it was (the drag was never committed).
+  const dragCancelled = useRef(false);
+  useEffect(() => {
+    const onKey = (e: KeyboardEvent) => {
+      if (e.key === 'Escape' && store.getState().view.dragPositions) {
+        dragCancelled.current = true;
+        store.setView({ dragPositions: null });
+      }
+    };
+    window.addEventListener('keydown', onKey, true);
+    return () => window.removeEventListener('keydown', onKey, true);
+  }, [store]);
+
   const onNodesChange = useCallback(
     (changes: NodeChange<FlowNode>[]) => {
       const sel: { id: string; selected: boolean }[] = [];
@@ -74,6 +87,10 @@ export function Canvas() {
       }
       const s = store.getState();
       if (sel.length) store.setSelection(selectionAfter(s.view.selection, sel, []));
+      if (dragCancelled.current) {
+        if (finished) dragCancelled.current = false;
+        return;
+      }
       if (dragging) {
         // In flight: view state only. No history, no autosave, no analysis until release.
         const merged = new Map(s.view.dragPositions ?? []);

@@ -1,5 +1,5 @@
 import { indexReport } from '../analysis/reportIndex';
-import { deleteSelection } from '../editor/commands';
+import { connect, deleteSelection } from '../editor/commands';
 import { kindSpec } from '../editor/equipment';
 import { useCommandContext, useEditorState } from '../editor/useEditor';
 import { ElementForm } from './ElementForm';
@@ -33,13 +33,32 @@ export function DetailsPanel() {
     );
   }
   if (count > 1) {
+    // Two pieces of equipment: offer to connect them, supply side being the one drawn higher.
+    const pair = sel.nodes.length === 2 && count === 2 ? sel.nodes.map((id) => doc.nodes.find((n) => n.id === id)!).filter(Boolean) : [];
+    const [upper, lower] = pair.length === 2 ? [...pair].sort((a, b) => (a.position?.y ?? 0) - (b.position?.y ?? 0)) : [];
+    const arg = upper && lower ? { from: upper.id, to: lower.id } : null;
     return (
       <div className="lw-details" data-testid="details">
         <h2>{count} elements selected</h2>
         <p className="lw-muted">
           {sel.nodes.length} equipment, {sel.conductors.length} conductors, {sel.busLinks.length} bus links. Drag to move them together; Ctrl+C copies them.
         </p>
-        <button type="button" onClick={() => deleteSelection.run(ctx)}>Delete selected</button>
+        {arg && upper && lower && (
+          <div className="lw-connect-pair">
+            <p>
+              Connect {upper.label || upper.id} (supply side) to {lower.label || lower.id}:
+            </p>
+            <button type="button" data-testid="connect-pair-conductor" disabled={!connect.canRun(ctx, { ...arg, as: 'conductor' })} onClick={() => connect.run(ctx, { ...arg, as: 'conductor' })}>
+              with a conductor
+            </button>{' '}
+            <button type="button" data-testid="connect-pair-buslink" disabled={!connect.canRun(ctx, { ...arg, as: 'busLink' })} onClick={() => connect.run(ctx, { ...arg, as: 'busLink' })}>
+              with a bus link
+            </button>
+          </div>
+        )}
+        <p>
+          <button type="button" onClick={() => deleteSelection.run(ctx)}>Delete selected</button>
+        </p>
       </div>
     );
   }
