@@ -5,7 +5,7 @@ import {
 } from '../editor/commands';
 import { useCommandContext, useEditorState } from '../editor/useEditor';
 
-function CmdButton({ cmd, testId, children }: { cmd: Command; testId: string; children?: React.ReactNode }) {
+function CmdButton({ cmd, testId, children, what }: { cmd: Command; testId: string; children?: React.ReactNode; what?: string | null }) {
   const ctx = useCommandContext();
   // Re-render when anything a canRun reads may have changed.
   useEditorState((s) => s.history);
@@ -13,7 +13,7 @@ function CmdButton({ cmd, testId, children }: { cmd: Command; testId: string; ch
   useEditorState((s) => s.report);
   const enabled = cmd.canRun(ctx, undefined);
   return (
-    <button type="button" data-testid={testId} disabled={!enabled} onClick={() => void cmd.run(ctx, undefined)} title={cmd.shortcut ? `${cmd.label} (${cmd.shortcut})` : cmd.label}>
+    <button type="button" data-testid={testId} disabled={!enabled} onClick={() => void cmd.run(ctx, undefined)} title={`${cmd.label}${what ? `: ${what}` : ''}${cmd.shortcut ? ` (${cmd.shortcut})` : ''}`}>
       {children ?? cmd.label}
     </button>
   );
@@ -63,8 +63,8 @@ export function Toolbar() {
           <CmdButton cmd={exportPdf} testId="cmd-pdf">Export PDF</CmdButton>
         </div>
         <div className="lw-tool-group" role="group" aria-label="Edit">
-          <CmdButton cmd={undo} testId="cmd-undo">Undo</CmdButton>
-          <CmdButton cmd={redo} testId="cmd-redo">Redo</CmdButton>
+          <CmdButton cmd={undo} testId="cmd-undo" what={history.undoLabel}>Undo</CmdButton>
+          <CmdButton cmd={redo} testId="cmd-redo" what={history.redoLabel}>Redo</CmdButton>
           <CmdButton cmd={copySelection} testId="cmd-copy" />
           <CmdButton cmd={paste} testId="cmd-paste" />
           <CmdButton cmd={deleteSelection} testId="cmd-delete" />
