@@ -52,13 +52,18 @@ async function boot() {
   startAnalysis(store);
   let savedAt: string | null = draft && restored ? clock(draft.savedAt) : null;
   const savedListeners = new Set<() => void>();
+  let autosaveFailed = false;
   startAutosave(
     store,
     (iso) => {
       savedAt = clock(iso);
       for (const l of savedListeners) l();
     },
-    (e) => store.notify(`Autosave failed: ${e.message}. Save the project file to keep your work.`, 'error'),
+    (e) => {
+      // Say it once; repeating it on every edit would bury the drawing in notices.
+      if (!autosaveFailed) store.notify(`Autosave in this browser failed (${e.message}). Use Save file to keep your work.`, 'error');
+      autosaveFailed = true;
+    },
   );
   installTestHook(ctx);
 

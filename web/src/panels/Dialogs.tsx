@@ -80,6 +80,11 @@ export function LoadErrorsDialog() {
 export function Notices() {
   const { store } = useCommandContext();
   const notices = useEditorState((s) => s.view.notices);
+  // Information fades after a while; errors stay until dismissed.
+  useEffect(() => {
+    const timers = notices.filter((n) => n.tone === 'info').map((n) => setTimeout(() => store.dismissNotice(n.id), 10_000));
+    return () => timers.forEach(clearTimeout);
+  }, [notices, store]);
   return (
     <div className="lw-notices" aria-live="polite" data-testid="notices">
       {notices.map((n) => (
