@@ -4,9 +4,7 @@ import { indexReport, type ReportIndex } from '../analysis/reportIndex';
 import { FAMILY_LOOK, VERDICT_TEXT, verdictFamily } from '../analysis/verdicts';
 import { conductorLine, kindSpec } from '../editor/equipment';
 import type { EditorState, Selection } from '../editor/store';
-import type { ConductorEdgeData } from '../edges/ConductorEdge';
-import type { BusLinkEdgeData } from '../edges/BusLinkEdge';
-import type { EquipmentNodeData } from '../nodes/NodeFrame';
+import type { BusLinkEdgeData, ConductorEdgeData, EquipmentNodeData } from './flowTypes';
 
 export type FlowNode = Node<EquipmentNodeData>;
 export type FlowEdge = Edge<ConductorEdgeData> | Edge<BusLinkEdgeData>;

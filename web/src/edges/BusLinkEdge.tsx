@@ -1,9 +1,8 @@
 import { memo } from 'react';
 import { getSmoothStepPath, type Edge, type EdgeProps } from '@xyflow/react';
+import type { BusLinkEdgeData } from '../canvas/flowTypes';
 
-export interface BusLinkEdgeData extends Record<string, unknown> {
-  busLinkId: string;
-}
+export type { BusLinkEdgeData } from '../canvas/flowTypes';
 
 /**
  * A bus link inside equipment (e.g. a main breaker to its panelboard bus):

@@ -1,19 +1,10 @@
 import { memo } from 'react';
 import { BaseEdge, getSmoothStepPath, type Edge, type EdgeProps } from '@xyflow/react';
-import type { Verdict } from '@linewright/core';
-import { FAMILY_LOOK, type VerdictFamily } from '../analysis/verdicts';
+import { FAMILY_LOOK } from '../analysis/verdicts';
+import type { ConductorEdgeData } from '../canvas/flowTypes';
 import { VerdictBadge } from './VerdictBadge';
 
-export interface ConductorEdgeData extends Record<string, unknown> {
-  conductorId: string;
-  /** The user's name for the conductor, shown as a tooltip. */
-  name: string | null;
-  /** First label line: sets × size, material, length. */
-  line: string;
-  verdict: Verdict | null;
-  verdictText: string;
-  family: VerdictFamily;
-}
+export type { ConductorEdgeData } from '../canvas/flowTypes';
 
 /** Label text is monospace, so its width is known without measuring (0.6 em per character). */
 const CHAR_W = 6.6;

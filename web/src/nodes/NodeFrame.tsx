@@ -1,15 +1,10 @@
 import { Handle, Position } from '@xyflow/react';
-import type { EquipmentNode, Severity } from '@linewright/core';
+import type { EquipmentNodeData } from '../canvas/flowTypes';
 import type { ReactNode } from 'react';
 import { SEVERITY_LOOK, SEVERITY_TEXT } from '../analysis/verdicts';
 import { kindSpec, nodeFacts, nodeTitle } from '../editor/equipment';
 
-export interface EquipmentNodeData extends Record<string, unknown> {
-  node: EquipmentNode;
-  /** Most serious finding about this equipment, or null. */
-  worst: Severity | null;
-  findingCount: number;
-}
+export type { EquipmentNodeData } from '../canvas/flowTypes';
 
 /**
  * Box shared by every equipment symbol: the wire runs vertically through the

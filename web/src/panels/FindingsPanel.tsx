@@ -44,6 +44,8 @@ export function FindingsPanel() {
   const [hidden, setHidden] = useState<ReadonlySet<Severity>>(new Set(['info']));
   const [rule, setRule] = useState('');
   const [active, setActive] = useState(0);
+  // A big drawing can have thousands of findings; render a page of them and grow on request.
+  const [limit, setLimit] = useState(200);
   const listRef = useRef<HTMLUListElement>(null);
 
   const findings = useMemo(() => report?.findings ?? [], [report]);
@@ -119,7 +121,7 @@ export function FindingsPanel() {
           onKeyDown={onKey}
           data-testid="review-list"
         >
-          {shown.map((f, i) => (
+          {shown.slice(0, Math.max(limit, activeIdx + 1)).map((f, i) => (
             <li
               key={f.id}
               id={`finding-${i}`}
@@ -141,6 +143,11 @@ export function FindingsPanel() {
             </li>
           ))}
         </ul>
+      )}
+      {shown.length > limit && (
+        <button type="button" className="lw-more" onClick={() => setLimit(limit + 200)} data-testid="review-more">
+          Show more ({shown.length - limit} not listed)
+        </button>
       )}
     </section>
   );
