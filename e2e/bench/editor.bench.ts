@@ -94,7 +94,6 @@ async function measure(page: Page, elements: number) {
     await h.whenChecked(v);
     return { firstRenderMs: painted, firstVerdictMs: performance.now() - t0, analysisMs: h.stats().lastAnalysisMs };
   }, p.text);
-  const rendered = await page.locator('.react-flow__node').count();
 
   const ids = await page.evaluate(() => window.__linewright!.doc().conductors.map((c) => c.id));
   const edits: number[] = [];
@@ -114,6 +113,13 @@ async function measure(page: Page, elements: number) {
       ),
     );
   }
+
+  // Nodes in the DOM at the fitted view, after everything settled (culling renders only what is on screen).
+  const rendered = await page.locator('.react-flow__node').count();
+  const zoomLevel = await page.evaluate(() => {
+    const t = document.querySelector<HTMLElement>('.react-flow__viewport')?.style.transform ?? '';
+    return Number(/scale\(([\d.]+)\)/.exec(t)?.[1] ?? NaN);
+  });
 
   // Scripted pan: hold Space (React Flow's pan key) and drag across the drawing at the fitted zoom.
   const box = (await page.getByTestId('canvas').boundingBox())!;
@@ -143,6 +149,7 @@ async function measure(page: Page, elements: number) {
     conductors: p.conductors,
     busLinks: p.busLinks,
     nodesRendered: rendered,
+    fittedZoom: Math.round(zoomLevel * 1000) / 1000,
     firstRenderMs: r1(open.firstRenderMs),
     firstVerdictMs: r1(open.firstVerdictMs),
     analysisMs: r1(open.analysisMs),
@@ -165,7 +172,7 @@ async function main() {
       const r = await measure(page, n);
       results.push(r);
       console.log(
-        `${r.elements} elements (${r.nodes} equipment, ${r.conductors} conductors, ${r.busLinks} bus links; ${r.nodesRendered} nodes rendered): ` +
+        `${r.elements} elements (${r.nodes} equipment, ${r.conductors} conductors, ${r.busLinks} bus links; ${r.nodesRendered} nodes rendered at zoom ${r.fittedZoom}): ` +
           `first render ${r.firstRenderMs} ms, first verdicts ${r.firstVerdictMs} ms (analysis ${r.analysisMs} ms); ` +
           `edit→verdict median ${r.editToVerdictMs.median} ms, p95 ${r.editToVerdictMs.p95} ms; ` +
           `pan frame median ${r.panFrameMs.median} ms, p95 ${r.panFrameMs.p95} ms; zoom frame median ${r.zoomFrameMs.median} ms, p95 ${r.zoomFrameMs.p95} ms`,
