@@ -88,7 +88,10 @@ export function DetailsPanel() {
     return (
       <div className="lw-details" data-testid="details">
         <h2>Conductor</h2>
-        <p className="lw-muted">From {from?.label || c.from} (load side) to {to?.label || c.to} (line side)</p>
+        <p className="lw-muted">
+          Runs from the {from ? kindSpec(from.kind).ports.out : 'load'} side of {from?.label || c.from} to the {to ? kindSpec(to.kind).ports.in : 'line'} side of{' '}
+          {to?.label || c.to}.
+        </p>
         <VerdictSummary conductorId={c.id} />
         <ElementForm key={`c:${c.id}`} target={{ kind: 'conductor', id: c.id }} value={c} fields={CONDUCTOR_FIELDS} />
         <WorkingPanel conductorId={c.id} />
