@@ -2,7 +2,7 @@ import type { Edge, Node } from '@xyflow/react';
 import type { BusLink, Conductor, EquipmentNode, Project } from '@linewright/core';
 import { indexReport, type ReportIndex } from '../analysis/reportIndex';
 import { FAMILY_LOOK, VERDICT_TEXT, verdictFamily } from '../analysis/verdicts';
-import { conductorLine, kindSpec } from '../editor/equipment';
+import { conductorLine, kindSpec, nodeFacts } from '../editor/equipment';
 import type { EditorState, Selection } from '../editor/store';
 import type { BusLinkEdgeData, ConductorEdgeData, EquipmentNodeData } from './flowTypes';
 
@@ -69,7 +69,10 @@ export class FlowDeriver {
           prev && prev.src === n && prev.worst === worst && prev.count === count ? prev.out.data : { node: n, worst, findingCount: count };
         e = {
           src: n, selected, x: p.x, y: p.y, worst, count,
-          out: { id: n.id, type: n.kind, position: { x: p.x, y: p.y }, data, selected, width: spec.width, height: spec.height },
+          out: {
+            id: n.id, type: n.kind, position: { x: p.x, y: p.y }, data, selected, width: spec.width, height: spec.height,
+            ariaLabel: `${spec.title} ${n.label || n.id}, ${nodeFacts(n)}${count ? `, ${count} finding${count === 1 ? '' : 's'}` : ''}`,
+          },
         };
       }
       next.set(n.id, e);
