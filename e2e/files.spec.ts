@@ -10,7 +10,15 @@ const expected = JSON.parse(readFileSync(new URL('../samples/demo-clinic.expecte
 };
 
 test('the demo opens with a verdict on every conductor', async ({ page }, info) => {
-  await openApp(page);
+  await page.goto('/');
+  await expect(page.getByTestId('caution-dialog')).toBeVisible();
+  await shot(page, info, 'first-start-caution');
+  await page.getByTestId('caution-ok').click();
+  await expect(page.getByTestId('caution-dialog')).toBeHidden();
+  // The caution stays reachable from the footer.
+  await page.getByTestId('caution-open').click();
+  await expect(page.getByTestId('caution-dialog')).toContainText('qualified person');
+  await page.getByTestId('caution-ok').click();
   await checked(page);
   const labels = page.locator('[data-testid^="conductor-label-"]');
   await expect(labels).toHaveCount(demo.conductors.length);
