@@ -1,21 +1,15 @@
 import type { Conductor, CodeEdition, ConductorSize } from '../model/schema';
 import { CONDUCTOR_SIZES } from '../model/schema';
 import { outcomeOf, type Rule } from '../rules/define';
+import { RULES_BY_ID } from '../rules/index';
+
+const PROTECTION_IDS: ReadonlySet<string> = new Set(['protected', 'protected-next-size']);
 import type { RunFacts } from '../rules/facts';
 import { sizeIndexOf, sizeLabel, materialLabel } from '../tables/sizes';
 import { isStandardRating, largestStandardRatingAtMost, nextStandardRatingAbove } from '../tables/standardRatings';
 import { conductorAmpacity } from './facts';
 import type { Fix, RuleTrial } from './types';
 
-/** Longest run each length-limited rule allows. */
-const LENGTH_LIMITS: Readonly<Record<string, { ft: number; conditions: readonly string[] }>> = {
-  'tap-10ft': { ft: 10, conditions: ['length'] },
-  'tap-25ft': { ft: 25, conditions: ['length'] },
-  'tap-high-bay': { ft: 100, conditions: ['total'] },
-  'secondary-10ft': { ft: 10, conditions: ['length'] },
-  'secondary-industrial-25ft': { ft: 25, conditions: ['length'] },
-  'secondary-25ft': { ft: 25, conditions: ['length'] },
-};
 
 /**
  * The cheapest changes that make an unacceptable run acceptable: the smallest
@@ -70,30 +64,37 @@ export function suggestFixes(
       label: `Upsize to ${sets}${sizeLabel(size)} ${materialLabel(facts.material)}: meets ${rule.section} (${rule.title.toLowerCase()}).`,
     });
   }
+  const shorten: Fix[] = [];
   for (const t of trials) {
-    const limit = LENGTH_LIMITS[t.ruleId];
-    if (!limit || t.outcome !== 'fails') continue;
+    const limit = RULES_BY_ID.get(t.ruleId)?.lengthLimit;
+    // A transformer tap's limit counts the secondary as well; shortening one run is not a plain fix there.
+    if (!limit || t.outcome !== 'fails' || t.ruleId === 'tap-transformer') continue;
     const failing = t.conditions.filter((c) => c.status !== 'pass');
-    if (failing.length > 0 && failing.every((c) => limit.conditions.includes(c.id))) {
-      fixes.push({
+    if (failing.length > 0 && failing.every((c) => c.id === limit.conditionId)) {
+      shorten.push({
         kind: 'shorten',
         conductorIds: ids,
-        maxLengthFt: limit.ft,
+        maxLengthFt: limit.maxFt,
         forRule: t.ruleId,
-        label: `Shorten the run to ${limit.ft} ft or less: then it meets ${t.cites.section} at its present size.`,
+        label: `Shorten the run to ${limit.maxFt} ft or less: then it meets ${t.cites.section} at its present size.`,
       });
     }
   }
+  const protectionResizes = fixes.filter((f) => f.kind === 'resize' && PROTECTION_IDS.has(f.forRule));
+  const tapResizes = fixes.filter((f) => !(f.kind === 'resize' && PROTECTION_IDS.has(f.forRule)));
+  const addOcpd: Fix[] = [];
   const ocpd = largestProtectingRatingA(facts, edition);
   if (ocpd !== null && ids[0] !== undefined) {
-    fixes.push({
+    addOcpd.push({
       kind: 'add-ocpd',
       conductorId: ids[0],
       ratingA: ocpd,
       label: `Add a ${ocpd} A breaker at the supply end of ${ids[0]}: the run is then protected at its ampacity (240.4).`,
     });
   }
-  return fixes;
+  // Cheapest first, as a designer weighs them: a size or two up under a tap rule, a shorter run,
+  // a breaker at the tap, and last the (often much larger) size the device ahead would protect.
+  return [...tapResizes, ...shorten, ...addOcpd, ...protectionResizes];
 }
 
 /** The largest rating that protects a run of this ampacity under 240.4, including (B) and (D). */

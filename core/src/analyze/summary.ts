@@ -1,11 +1,11 @@
 import { formatNumber } from '../rules/define';
 import type { RunVerdict } from './classify';
+import { RULES_BY_ID } from '../rules/index';
 import { VERDICT_LABELS, type RuleTrial } from './types';
 
-const LENGTH_CONDITIONS: ReadonlySet<string> = new Set(['length', 'total', 'horizontal']);
 const PROTECTION_RULE_IDS: ReadonlySet<string> = new Set(['protected', 'protected-next-size']);
 
-/** The trial closest to holding: fewest failed conditions (a failed length weighs 1.5), earliest in code order on a tie. */
+/** The trial closest to holding: fewest failed conditions (a failed length weighs 1 to 2 by how far over), earliest in code order on a tie. */
 export function nearestTrial(tried: readonly RuleTrial[]): RuleTrial | null {
   let best: RuleTrial | null = null;
   let bestFails = Number.POSITIVE_INFINITY;
@@ -14,9 +14,15 @@ export function nearestTrial(tried: readonly RuleTrial[]): RuleTrial | null {
   const taps = tried.filter((t) => !PROTECTION_RULE_IDS.has(t.ruleId));
   for (const t of taps.length > 0 ? taps : tried) {
     if (t.outcome === 'holds') return t;
-    // A run's length is set by the building, its size is not: a failed length counts a little more.
+    // A run's length is set by the building, its size is not: a failed length counts more, the further
+    // over the limit the more (up to 2), so a 30 ft tap is nearer the 25 ft rule than the 10 ft one.
+    const limit = RULES_BY_ID.get(t.ruleId)?.lengthLimit;
     let fails = 0;
-    for (const c of t.conditions) if (c.status === 'fail') fails += LENGTH_CONDITIONS.has(c.id) ? 1.5 : 1;
+    for (const c of t.conditions) {
+      if (c.status !== 'fail') continue;
+      const lengthFt = c.data.lengthFt ?? c.data.totalFt;
+      fails += limit && c.id === limit.conditionId && typeof lengthFt === 'number' ? 1 + Math.min(1, (lengthFt - limit.maxFt) / limit.maxFt) : 1;
+    }
     if (fails < bestFails) {
       best = t;
       bestFails = fails;

@@ -12,6 +12,20 @@ export const VERDICT_WORDS: Readonly<Record<Verdict, string>> = VERDICT_LABELS;
 /** How a verdict is drawn: a line style and mark that do not rely on colour. */
 export type VerdictClass = 'protected' | 'tap-rule' | 'failing' | 'incomplete';
 
+/** Okabe–Ito colours of the four verdict classes, the same on screen and on paper; always paired with a line style and words. */
+export const VERDICT_COLOURS: Readonly<Record<VerdictClass, string>> = {
+  protected: '#0072B2',
+  'tap-rule': '#009E73',
+  failing: '#D55E00',
+  incomplete: '#CC79A7',
+};
+
+/** '#D55E00' → [213, 94, 0]. */
+export function hexToRgb(hex: string): [number, number, number] {
+  const n = Number.parseInt(hex.slice(1), 16);
+  return [(n >> 16) & 255, (n >> 8) & 255, n & 255];
+}
+
 /** Groups verdicts into the four marks of the drawing legend. */
 export function verdictClass(verdict: Verdict): VerdictClass {
   switch (verdict) {

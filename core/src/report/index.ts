@@ -9,6 +9,8 @@ export { projectJsonSchema, projectJsonSchemaText } from './jsonSchema';
 export { TOOL_NAME, TOOL_VERSION } from './version';
 export {
   VERDICT_WORDS,
+  VERDICT_COLOURS,
+  hexToRgb,
   SEVERITY_WORDS,
   ROLE_WORDS,
   MATERIAL_WORDS,

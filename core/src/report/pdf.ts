@@ -19,6 +19,8 @@ import {
   refText,
   verdictClass,
   verdictText,
+  VERDICT_COLOURS,
+  hexToRgb,
 } from './format';
 import { layoutNodes, type Point } from './layout';
 import { TOOL_NAME, TOOL_VERSION } from './version';
@@ -51,10 +53,10 @@ const BLACK: Rgb = [0, 0, 0];
 const GREY: Rgb = [110, 110, 110];
 const LIGHT: Rgb = [235, 235, 235];
 const STYLE: Record<VerdictClass, { color: Rgb; width: number; dash: number[]; legend: string }> = {
-  protected: { color: [0, 114, 178], width: 1, dash: [], legend: 'solid: protected at its ampacity (240.4), service, generator' },
-  'tap-rule': { color: [0, 158, 115], width: 1.2, dash: [7, 3], legend: 'dashed: meets a tap or secondary rule (240.21(B)/(C))' },
-  failing: { color: [213, 94, 0], width: 2.4, dash: [9, 2.5, 2, 2.5], legend: 'heavy dash-dot: no rule makes it acceptable' },
-  incomplete: { color: [204, 121, 167], width: 1, dash: [1.5, 2.5], legend: 'dotted: incomplete, data missing' },
+  protected: { color: hexToRgb(VERDICT_COLOURS.protected), width: 1, dash: [], legend: 'solid: protected at its ampacity (240.4), service, generator' },
+  'tap-rule': { color: hexToRgb(VERDICT_COLOURS['tap-rule']), width: 1.2, dash: [7, 3], legend: 'dashed: meets a tap or secondary rule (240.21(B)/(C))' },
+  failing: { color: hexToRgb(VERDICT_COLOURS.failing), width: 2.4, dash: [9, 2.5, 2, 2.5], legend: 'heavy dash-dot: no rule makes it acceptable' },
+  incomplete: { color: hexToRgb(VERDICT_COLOURS.incomplete), width: 1, dash: [1.5, 2.5], legend: 'dotted: incomplete, data missing' },
 };
 const VIOLATION: Rgb = [213, 94, 0];
 const AHJ: Rgb = [230, 159, 0];

@@ -19,6 +19,8 @@ export interface Rule<K extends string = string> {
   family: RuleFamily;
   section: string;
   title: string;
+  /** For a rule with a length limit: the limit and the condition that checks it. */
+  lengthLimit?: { maxFt: number; conditionId: NoInfer<K> };
   /** Condition templates, phrased as the requirement with the values filled in. */
   messages: Readonly<Record<K, string>>;
   /** Pure: facts in, every condition out. No lookups beyond `facts`, no I/O, no clock. */

@@ -8,6 +8,7 @@ export const secondary10ft = defineRule({
   family: 'transformer-secondary',
   section: '240.21(C)(2)',
   title: 'Transformer secondary not over 10 ft',
+  lengthLimit: { maxFt: 10, conditionId: 'length' },
   messages: {
     ...TEN_FOOT_MESSAGES,
     fieldTenth:

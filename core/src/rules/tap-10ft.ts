@@ -43,6 +43,7 @@ export const tap10ft = defineRule<Id>({
   family: 'feeder-tap',
   section: '240.21(B)(1)',
   title: 'Feeder tap not over 10 ft',
+  lengthLimit: { maxFt: 10, conditionId: 'length' },
   messages: {
     ...TEN_FOOT_MESSAGES,
     fieldTenth: 'Field installation leaving the enclosure: ampacity ({{ampacityA}} A) must be at least one tenth of the {{feederA}} A feeder device ({{minA}} A).',

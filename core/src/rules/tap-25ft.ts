@@ -7,6 +7,7 @@ export const tap25ft = defineRule({
   family: 'feeder-tap',
   section: '240.21(B)(2)',
   title: 'Feeder tap not over 25 ft',
+  lengthLimit: { maxFt: 25, conditionId: 'length' },
   messages: {
     length: 'Length {{lengthFt}} ft; must be at most 25 ft.',
     third: 'Ampacity ({{ampacityA}} A) must be at least one third of the {{feederA}} A feeder device ({{minA}} A).',

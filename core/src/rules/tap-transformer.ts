@@ -12,6 +12,7 @@ export const tapTransformer = defineRule({
   family: 'feeder-tap',
   section: '240.21(B)(3)',
   title: 'Feeder tap to a transformer, primary plus secondary not over 25 ft',
+  lengthLimit: { maxFt: 25, conditionId: 'length' },
   messages: {
     transformer: 'The tap must supply a transformer (here: {{transformer}}).',
     oneSecondary: 'The transformer must have one secondary run (it has {{count}}).',

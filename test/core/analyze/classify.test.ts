@@ -84,6 +84,14 @@ describe('feeder taps, 240.21(B)', () => {
     expect(over.fixes).toContainEqual(expect.objectContaining({ kind: 'shorten', maxLengthFt: 25 }));
   });
 
+  it('a 30 ft 3/0 tap is nearest the 25 ft rule (5 ft over), not the 10 ft rule (20 ft over); fixes cheapest first', () => {
+    const report = run(feederTap({ lengthFt: 30 }));
+    const f = report.findings.find((x) => x.subject.kind === 'conductor' && x.subject.id === 'TAP' && x.severity === 'violation');
+    expect(f?.ruleId).toBe('tap-25ft');
+    const kinds = verdictOf(report, 'TAP').fixes.map((x) => x.kind);
+    expect(kinds.indexOf('add-ocpd')).toBeLessThan(kinds.lastIndexOf('resize'));
+  });
+
   it('10 ft tap: 1/0 Cu (150 A) ending in a 150 A breaker meets 240.21(B)(1) at 10 ft, not at 10.1 ft', () => {
     const at10 = verdictOf(run(feederTap({ size: '1/0', lengthFt: 10 }, { endA: 150 })), 'TAP');
     expect(at10.verdict).toBe('tap-10ft');

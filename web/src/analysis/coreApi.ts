@@ -12,6 +12,7 @@ export {
   CAUTION_SHORT,
   SEVERITY_WORDS,
   VERDICT_LABELS,
+  VERDICT_COLOURS,
   verdictClass,
   type VerdictClass,
   type LoadResult,

@@ -1,5 +1,5 @@
 import type { Severity, Verdict } from '@linewright/core';
-import { SEVERITY_WORDS, VERDICT_LABELS, verdictClass, type VerdictClass } from './coreApi';
+import { SEVERITY_WORDS, VERDICT_COLOURS, VERDICT_LABELS, verdictClass, type VerdictClass } from './coreApi';
 
 /**
  * How a verdict looks. Each class differs in text, line dash, badge shape and
@@ -20,10 +20,10 @@ export interface FamilyLook {
 }
 
 export const FAMILY_LOOK: Record<VerdictFamily, FamilyLook> = {
-  protected: { colour: '#0072B2', dash: '', strokeWidth: 2.5, badge: 'circle', legend: 'protected at its ampacity, service, generator (solid line, round badge)' },
-  'tap-rule': { colour: '#009E73', dash: '10 4', strokeWidth: 2.5, badge: 'diamond', legend: 'meets a tap or secondary rule (dashed line, diamond badge)' },
-  failing: { colour: '#D55E00', dash: '12 3 3 3', strokeWidth: 4, badge: 'triangle', legend: 'no rule makes it acceptable (heavy dash-dot line, triangle badge)' },
-  incomplete: { colour: '#CC79A7', dash: '2 4', strokeWidth: 2.5, badge: 'square', legend: 'incomplete: data missing (dotted line, square badge)' },
+  protected: { colour: VERDICT_COLOURS['protected'], dash: '', strokeWidth: 2.5, badge: 'circle', legend: 'protected at its ampacity, service, generator (solid line, round badge)' },
+  'tap-rule': { colour: VERDICT_COLOURS['tap-rule'], dash: '10 4', strokeWidth: 2.5, badge: 'diamond', legend: 'meets a tap or secondary rule (dashed line, diamond badge)' },
+  failing: { colour: VERDICT_COLOURS['failing'], dash: '12 3 3 3', strokeWidth: 4, badge: 'triangle', legend: 'no rule makes it acceptable (heavy dash-dot line, triangle badge)' },
+  incomplete: { colour: VERDICT_COLOURS['incomplete'], dash: '2 4', strokeWidth: 2.5, badge: 'square', legend: 'incomplete: data missing (dotted line, square badge)' },
   pending: { colour: '#8c8c8c', dash: '', strokeWidth: 2, badge: 'none', legend: 'not checked yet' },
 };
 
