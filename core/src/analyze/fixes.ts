@@ -94,7 +94,9 @@ export function suggestFixes(
   }
   // Cheapest first, as a designer weighs them: a size or two up under a tap rule, a shorter run,
   // a breaker at the tap, and last the (often much larger) size the device ahead would protect.
-  return [...tapResizes, ...shorten, ...addOcpd, ...protectionResizes];
+  // Only the longest length the present size allows: a shorter limit says nothing more.
+  const longest = shorten.reduce<Fix[]>((best, f) => (f.kind === 'shorten' && (best.length === 0 || f.maxLengthFt > (best[0] as { maxLengthFt: number }).maxLengthFt) ? [f] : best), []);
+  return [...tapResizes, ...longest, ...addOcpd, ...protectionResizes];
 }
 
 /** The largest rating that protects a run of this ampacity under 240.4, including (B) and (D). */
