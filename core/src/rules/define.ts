@@ -134,3 +134,16 @@ export function atMost(value: number | null, limit: number): boolean | null {
 export function atLeast(a: number | null, b: number | null): boolean | null {
   return a === null || b === null ? null : a + 1e-6 >= b;
 }
+
+/** Shared condition: the run carries the load it serves (unfactored sum, DOMAIN.md §7). */
+export function loadCheck(f: RunFacts): Check<'load'> {
+  return when('load', atLeast(f.ampacityA, f.loadA), { ampacityA: f.ampacityA ?? '?', loadA: f.loadA ?? '?' });
+}
+export const LOAD_MESSAGE = 'Ampacity ({{ampacityA}} A) must be at least the load it serves ({{loadA}} A).';
+
+/** Shared condition: at least one third of the feeder device ahead (240.21(B)(2)–(4)); no round-up. */
+export function oneThirdCheck(f: RunFacts): Check<'third'> {
+  const minA = f.supplyOcpdA === null ? null : f.supplyOcpdA / 3;
+  return when('third', atLeast(f.ampacityA, minA), { ampacityA: f.ampacityA ?? '?', feederA: f.supplyOcpdA ?? '?', minA: minA ?? '?' });
+}
+export const ONE_THIRD_MESSAGE = 'Ampacity ({{ampacityA}} A) must be at least one third of the {{feederA}} A feeder device ({{minA}} A).';

@@ -1,4 +1,4 @@
-import { atLeast, atMost, defineRule, when } from './define';
+import { atLeast, atMost, defineRule, when, loadCheck, LOAD_MESSAGE } from './define';
 import type { Check } from './define';
 import type { RunFacts } from './facts';
 
@@ -14,7 +14,7 @@ export function tenFootChecks(f: RunFacts): Check<Id>[] {
   const terminationOk = t.kind === 'ocpd' || t.kind === 'bus' ? atLeast(f.ampacityA, t.ratingA) : false;
   return [
     when('length', atMost(f.lengthFt, 10), { lengthFt: f.lengthFt ?? '?' }),
-    when('load', atLeast(f.ampacityA, f.loadA), { ampacityA: f.ampacityA ?? '?', loadA: f.loadA ?? '?' }),
+    loadCheck(f),
     when('termination', terminationOk, {
       ampacityA: f.ampacityA ?? '?',
       termination: t.label || t.kind,
@@ -30,7 +30,7 @@ export function tenFootChecks(f: RunFacts): Check<Id>[] {
 
 export const TEN_FOOT_MESSAGES = {
   length: 'Length {{lengthFt}} ft; must be at most 10 ft.',
-  load: 'Ampacity ({{ampacityA}} A) must be at least the load it serves ({{loadA}} A).',
+  load: LOAD_MESSAGE,
   termination: 'Ampacity ({{ampacityA}} A) must be at least the rating of the device or equipment it ends in: {{termination}}, {{rating}}.',
   beyond: 'Must not extend beyond the equipment it supplies.',
   raceway: 'Must be enclosed in a raceway from the tap to the enclosure it ends in.',

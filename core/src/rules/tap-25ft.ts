@@ -1,4 +1,4 @@
-import { atLeast, atMost, damageCheck, defineRule, deviceLimitCheck, singleDeviceCheck, when } from './define';
+import { atMost, damageCheck, defineRule, deviceLimitCheck, singleDeviceCheck, when, loadCheck, LOAD_MESSAGE, oneThirdCheck, ONE_THIRD_MESSAGE } from './define';
 
 /** 240.21(B)(2): feeder tap not over 25 ft. Round-up (240.4(B)) never applies, so raw values are compared. */
 export const tap25ft = defineRule({
@@ -10,18 +10,17 @@ export const tap25ft = defineRule({
   lengthLimit: { maxFt: 25, conditionId: 'length' },
   messages: {
     length: 'Length {{lengthFt}} ft; must be at most 25 ft.',
-    third: 'Ampacity ({{ampacityA}} A) must be at least one third of the {{feederA}} A feeder device ({{minA}} A).',
-    load: 'Ampacity ({{ampacityA}} A) must be at least the load it serves ({{loadA}} A).',
+    third: ONE_THIRD_MESSAGE,
+    load: LOAD_MESSAGE,
     single: 'Must end in a single circuit breaker or a single set of fuses (ends in: {{termination}}).',
     device: 'The device at the end ({{deviceA}} A) must not exceed the ampacity ({{ampacityA}} A).',
     damage: 'Must be protected from physical damage (here: {{protection}}).',
   },
   check(f) {
-    const minA = f.supplyOcpdA === null ? null : f.supplyOcpdA / 3;
     return [
       when('length', atMost(f.lengthFt, 25), { lengthFt: f.lengthFt ?? '?' }),
-      when('third', atLeast(f.ampacityA, minA), { ampacityA: f.ampacityA ?? '?', feederA: f.supplyOcpdA ?? '?', minA: minA ?? '?' }),
-      when('load', atLeast(f.ampacityA, f.loadA), { ampacityA: f.ampacityA ?? '?', loadA: f.loadA ?? '?' }),
+      oneThirdCheck(f),
+      loadCheck(f),
       singleDeviceCheck(f),
       deviceLimitCheck(f),
       damageCheck(f),

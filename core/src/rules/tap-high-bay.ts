@@ -1,5 +1,5 @@
 import { sizeIndexOf } from '../tables/sizes';
-import { atLeast, atMost, damageCheck, defineRule, deviceLimitCheck, singleDeviceCheck, when } from './define';
+import { atMost, damageCheck, defineRule, deviceLimitCheck, singleDeviceCheck, when, loadCheck, LOAD_MESSAGE, oneThirdCheck, ONE_THIRD_MESSAGE } from './define';
 
 /** 240.21(B)(4): feeder tap over 25 ft in a high-bay manufacturing building. */
 export const tapHighBay = defineRule({
@@ -14,8 +14,8 @@ export const tapHighBay = defineRule({
     qualified: 'Maintenance and supervision must ensure that only qualified persons service the system (project setting).',
     horizontal: 'Horizontal run {{horizontalFt}} ft; must be at most 25 ft.',
     total: 'Length {{lengthFt}} ft; must be at most 100 ft in all.',
-    third: 'Ampacity ({{ampacityA}} A) must be at least one third of the {{feederA}} A feeder device ({{minA}} A).',
-    load: 'Ampacity ({{ampacityA}} A) must be at least the load it serves ({{loadA}} A).',
+    third: ONE_THIRD_MESSAGE,
+    load: LOAD_MESSAGE,
     single: 'Must end in a single circuit breaker or a single set of fuses (ends in: {{termination}}).',
     device: 'The device at the end ({{deviceA}} A) must not exceed the ampacity ({{ampacityA}} A).',
     damage: 'Must be protected from physical damage (here: {{protection}}).',
@@ -25,7 +25,6 @@ export const tapHighBay = defineRule({
     height: 'Tap made {{heightFt}} ft above the floor; must be at least 30 ft.',
   },
   check(f) {
-    const minA = f.supplyOcpdA === null ? null : f.supplyOcpdA / 3;
     const hb = f.highBay;
     const minSize = sizeIndexOf(f.material === 'cu' ? '6' : '4');
     return [
@@ -33,8 +32,8 @@ export const tapHighBay = defineRule({
       when('qualified', f.site.qualifiedMaintenance),
       when('horizontal', hb ? hb.horizontalFt <= 25 : null, { horizontalFt: hb?.horizontalFt ?? '?' }),
       when('total', atMost(f.lengthFt, 100), { lengthFt: f.lengthFt ?? '?' }),
-      when('third', atLeast(f.ampacityA, minA), { ampacityA: f.ampacityA ?? '?', feederA: f.supplyOcpdA ?? '?', minA: minA ?? '?' }),
-      when('load', atLeast(f.ampacityA, f.loadA), { ampacityA: f.ampacityA ?? '?', loadA: f.loadA ?? '?' }),
+      oneThirdCheck(f),
+      loadCheck(f),
       singleDeviceCheck(f),
       deviceLimitCheck(f),
       damageCheck(f),

@@ -1,5 +1,5 @@
 import type { Check } from './define';
-import { atLeast, damageCheck, defineRule, deviceLimitCheck, singleDeviceCheck, when } from './define';
+import { damageCheck, defineRule, deviceLimitCheck, singleDeviceCheck, when, loadCheck, LOAD_MESSAGE } from './define';
 import type { RunFacts } from './facts';
 
 type Id = 'outdoors' | 'load' | 'damage' | 'single' | 'device' | 'atDisconnect' | 'accessible';
@@ -10,7 +10,7 @@ export function outsideChecks(f: RunFacts): Check<Id>[] {
   const location = t.kind === 'ocpd' ? t.disconnectLocation : null;
   return [
     when('outdoors', f.outdoors),
-    when('load', atLeast(f.ampacityA, f.loadA), { ampacityA: f.ampacityA ?? '?', loadA: f.loadA ?? '?' }),
+    loadCheck(f),
     damageCheck(f),
     singleDeviceCheck(f),
     deviceLimitCheck(f),
@@ -23,7 +23,7 @@ export function outsideChecks(f: RunFacts): Check<Id>[] {
 
 export const OUTSIDE_MESSAGES = {
   outdoors: 'Must be outdoors of a building except at the point of termination.',
-  load: 'Ampacity ({{ampacityA}} A) must be at least the load it serves ({{loadA}} A).',
+  load: LOAD_MESSAGE,
   damage: 'Must be protected from physical damage (here: {{protection}}).',
   single: 'Must end in a single circuit breaker or a single set of fuses (ends in: {{termination}}).',
   device: 'The device at the end ({{deviceA}} A) must not exceed the ampacity ({{ampacityA}} A).',
