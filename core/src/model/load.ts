@@ -118,14 +118,21 @@ function issueToError(issue: z.core.$ZodIssue): LoadError {
 export function checkConsistency(p: Project): LoadError[] {
   const errors: LoadError[] = [];
   const kindById = new Map<string, string>();
-  const seen = new Map<string, string>();
-  const claim = (id: string, path: string) => {
+  // Where each id was first seen, as (list, index); a path string is built only for an error.
+  const seen = new Map<string, number>();
+  const lists = ['nodes', 'conductors', 'busLinks'] as const;
+  const pathOf = (list: number, i: number) => `${lists[list]}[${i}]`;
+  const claim = (id: string, list: number, i: number) => {
     const first = seen.get(id);
-    if (first !== undefined) errors.push({ path: `${path}.id`, message: `Id "${id}" is already used at ${first}; every id must be unique.` });
-    else seen.set(id, path);
+    if (first === undefined) seen.set(id, list * 1e7 + i);
+    else {
+      const at = pathOf(Math.floor(first / 1e7), first % 1e7);
+      errors.push({ path: `${pathOf(list, i)}.id`, message: `Id "${id}" is already used at ${at}; every id must be unique.` });
+    }
   };
-  p.nodes.forEach((n, i) => {
-    claim(n.id, `nodes[${i}]`);
+  for (let i = 0; i < p.nodes.length; i++) {
+    const n = p.nodes[i]!;
+    claim(n.id, 0, i);
     kindById.set(n.id, n.kind);
     if (n.kind === 'load') {
       const given = (n.currentA === undefined ? 0 : 1) + (n.kva === undefined ? 0 : 1);
@@ -139,11 +146,13 @@ export function checkConsistency(p: Project): LoadError[] {
     if (n.kind === 'breaker' && n.adjustableTrip && n.adjustableTrip.longTimeSettingA > n.adjustableTrip.maxSettingA) {
       errors.push({ path: `nodes[${i}].adjustableTrip.longTimeSettingA`, message: 'The long-time setting cannot exceed the maximum setting.' });
     }
-  });
-  const checkEnds = (e: { id: string; from: string; to: string }, path: string) => {
-    claim(e.id, path);
+  }
+  const checkEnds = (e: { id: string; from: string; to: string }, list: number, i: number) => {
+    claim(e.id, list, i);
     const fromKind = kindById.get(e.from);
     const toKind = kindById.get(e.to);
+    if (fromKind !== undefined && toKind !== undefined && e.from !== e.to && fromKind !== 'load' && toKind !== 'utility' && toKind !== 'generator') return;
+    const path = pathOf(list, i);
     if (fromKind === undefined) errors.push({ path: `${path}.from`, message: `No equipment has the id "${e.from}"; connect the supply end to existing equipment.` });
     if (toKind === undefined) errors.push({ path: `${path}.to`, message: `No equipment has the id "${e.to}"; connect the load end to existing equipment.` });
     if (e.from === e.to) errors.push({ path: `${path}.to`, message: 'Both ends are the same equipment; a connection must join two different items.' });
@@ -152,7 +161,7 @@ export function checkConsistency(p: Project): LoadError[] {
       errors.push({ path: `${path}.to`, message: `"${e.to}" is a source and has no line side; draw the connection from it, not to it.` });
     }
   };
-  p.conductors.forEach((c, i) => checkEnds(c, `conductors[${i}]`));
-  p.busLinks.forEach((b, i) => checkEnds(b, `busLinks[${i}]`));
+  for (let i = 0; i < p.conductors.length; i++) checkEnds(p.conductors[i]!, 1, i);
+  for (let i = 0; i < p.busLinks.length; i++) checkEnds(p.busLinks[i]!, 2, i);
   return errors;
 }
