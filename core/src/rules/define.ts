@@ -4,12 +4,34 @@ import type { RunFacts } from './facts';
 
 export type RuleFamily = 'protection' | 'feeder-tap' | 'transformer-secondary' | 'transformer-protection' | 'service' | 'generator' | 'tap-from-tap';
 
-export interface Check<K extends string = string> {
-  id: K;
-  status: ConditionStatus;
-  data: Record<string, string | number>;
+/**
+ * One condition of one rule, as the rule's check returns it and as the
+ * report keeps it. Its text is rendered from the rule's template when first
+ * read: most conductors are never displayed one by one, and rendering every
+ * template of a large riser up front costs more than the classification.
+ * `toJSON` keeps the text in serialized reports.
+ */
+export class Check<K extends string = string> implements ConditionResult {
+  readonly id: K;
+  readonly status: ConditionStatus;
+  readonly data: Record<string, string | number>;
   /** The condition passed only on a judgement the AHJ must accept (e.g. "other approved means"). */
-  needsAhj?: boolean;
+  readonly needsAhj?: boolean;
+  /** Set by runRule from the rule's messages. */
+  template = '';
+  #text: string | undefined;
+  constructor(id: K, status: ConditionStatus, data: Record<string, string | number>, needsAhj = false) {
+    this.id = id;
+    this.status = status;
+    this.data = data;
+    if (needsAhj) this.needsAhj = true;
+  }
+  get text(): string {
+    return (this.#text ??= renderTemplate(this.template || this.id, this.data));
+  }
+  toJSON(): ConditionResult {
+    return { id: this.id, status: this.status, text: this.text, data: this.data, ...(this.needsAhj ? { needsAhj: true } : {}) };
+  }
 }
 
 export interface Rule<K extends string = string> {
@@ -32,9 +54,11 @@ export function defineRule<K extends string>(rule: Rule<K>): Rule<K> {
 }
 
 /** A condition that is met when `ok` is true, failed when false, unknown when null. */
-export function when<K extends string>(id: K, ok: boolean | null, data: Record<string, string | number> = {}): Check<K> {
-  return { id, status: ok === null ? 'unknown' : ok ? 'pass' : 'fail', data };
+export function when<K extends string>(id: K, ok: boolean | null, data: Record<string, string | number> = NO_DATA): Check<K> {
+  return new Check(id, ok === null ? 'unknown' : ok ? 'pass' : 'fail', data);
 }
+
+const NO_DATA: Record<string, string | number> = Object.freeze({}) as Record<string, string | number>;
 
 const TEMPLATE = /\{\{(\w+)\}\}/g;
 
@@ -59,55 +83,22 @@ export function outcomeOf(checks: readonly Check[]): RuleTrial['outcome'] {
   return unknown ? 'unknown' : 'holds';
 }
 
-/**
- * A condition whose text is rendered when first read. Most conductors are
- * never displayed one by one, and rendering every template of a 100 000
- * conductor riser up front costs more than the whole classification.
- * `toJSON` keeps the text in serialized reports.
- */
-class Condition implements ConditionResult {
-  readonly id: string;
-  readonly status: ConditionResult['status'];
-  readonly data: Record<string, string | number>;
-  readonly needsAhj?: boolean;
-  readonly #template: string;
-  #text: string | undefined;
-  constructor(template: string, c: Check) {
-    this.id = c.id;
-    this.status = c.status;
-    this.data = c.data;
-    if (c.needsAhj) this.needsAhj = true;
-    this.#template = template;
-  }
-  get text(): string {
-    return (this.#text ??= renderTemplate(this.#template, this.data));
-  }
-  toJSON(): ConditionResult {
-    return { id: this.id, status: this.status, text: this.text, data: this.data, ...(this.needsAhj ? { needsAhj: true } : {}) };
-  }
-}
-
 const citations = new Map<string, ReturnType<typeof cite>>();
 
 export function runRule(rule: Rule, facts: RunFacts): RuleTrial {
-  const checks = rule.check(facts);
-  const conditions: ConditionResult[] = new Array(checks.length);
-  for (let i = 0; i < checks.length; i++) conditions[i] = new Condition(rule.messages[checks[i]!.id] ?? checks[i]!.id, checks[i]!);
+  const conditions = rule.check(facts);
+  for (const c of conditions) c.template = rule.messages[c.id] ?? c.id;
   const key = `${rule.section}|${facts.edition}`;
   let cites = citations.get(key);
   if (!cites) citations.set(key, (cites = Object.freeze(cite(rule.section, facts.edition))));
-  return { ruleId: rule.id, title: rule.title, cites, outcome: outcomeOf(checks), conditions };
+  return { ruleId: rule.id, title: rule.title, cites, outcome: outcomeOf(conditions), conditions };
 }
 
 /** Shared condition: protection from physical damage (240.21(B)(2)–(5), (C)(3)–(6)). */
-export function damageCheck(f: RunFacts): Check<'damage'> {
+export function damageCheck(f: Pick<RunFacts, 'damageProtection'>): Check<'damage'> {
   const p = f.damageProtection;
-  return {
-    id: 'damage',
-    status: p === 'none' ? 'fail' : 'pass',
-    data: { protection: p === 'raceway' ? 'a raceway' : p === 'other-approved-means' ? 'other approved means' : 'nothing' },
-    ...(p === 'other-approved-means' ? { needsAhj: true } : {}),
-  };
+  const protection = p === 'raceway' ? 'a raceway' : p === 'other-approved-means' ? 'other approved means' : 'nothing';
+  return new Check('damage', p === 'none' ? 'fail' : 'pass', { protection }, p === 'other-approved-means');
 }
 
 /** Shared condition: ends in a single breaker or set of fuses. */

@@ -1,4 +1,4 @@
-import { atLeast, atMost, defineRule, when } from './define';
+import { atLeast, atMost, damageCheck, defineRule, when } from './define';
 import type { RunFacts } from './facts';
 
 /**
@@ -51,12 +51,7 @@ export const tapTransformer = defineRule({
       }),
       when('load', s ? atLeast(s.ampacityA, s.loadA) : false, { secondaryA: s?.ampacityA ?? '?', loadA: s?.loadA ?? '?' }),
       when('length', s ? atMost(total, 25) : false, { primaryFt: f.lengthFt ?? '?', secondaryFt: s?.lengthFt ?? '?', totalFt: total ?? '?' }),
-      {
-        id: 'damage',
-        status: weakest === 'none' ? 'fail' : 'pass',
-        data: { protection: weakest === 'raceway' ? 'a raceway' : weakest === 'other-approved-means' ? 'other approved means' : 'nothing' },
-        ...(weakest === 'other-approved-means' ? { needsAhj: true } : {}),
-      },
+      damageCheck({ damageProtection: weakest }),
       when('single', sEnd ? sEnd.kind === 'ocpd' && sEnd.single : false, { termination: sEnd ? sEnd.label || sEnd.kind : 'none' }),
       when('device', sEnd?.kind === 'ocpd' ? atLeast(s?.ampacityA ?? null, sEnd.ratingA) : false, {
         deviceA: sEnd?.ratingA ?? '?',
