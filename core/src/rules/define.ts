@@ -138,3 +138,8 @@ export function oneThirdCheck(f: RunFacts): Check<'third'> {
   return when('third', atLeast(f.ampacityA, minA), { ampacityA: f.ampacityA ?? '?', feederA: f.supplyOcpdA ?? '?', minA: minA ?? '?' });
 }
 export const ONE_THIRD_MESSAGE = 'Ampacity ({{ampacityA}} A) must be at least one third of the {{feederA}} A feeder device ({{minA}} A).';
+
+/** A primary-side current seen from the secondary: amperes × Vp / Vs; null when either is unknown. */
+export function toSecondaryA(primaryA: number | null, t: { primaryVoltsLL: number; secondaryVoltsLL: number } | null): number | null {
+  return primaryA === null || t === null ? null : (primaryA * t.primaryVoltsLL) / t.secondaryVoltsLL;
+}

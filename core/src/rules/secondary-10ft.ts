@@ -1,4 +1,4 @@
-import { atLeast, defineRule, when } from './define';
+import { atLeast, defineRule, toSecondaryA, when } from './define';
 import { TEN_FOOT_MESSAGES, tenFootChecks } from './tap-10ft';
 
 /** 240.21(C)(2): transformer secondary conductors not over 10 ft. */
@@ -19,7 +19,7 @@ export const secondary10ft = defineRule({
     if (f.leavesEnclosure) {
       const t = f.transformer;
       const P = t?.primaryOcpdA ?? null;
-      const reflected = t && P !== null ? (P * t.primaryVoltsLL) / t.secondaryVoltsLL : null;
+      const reflected = toSecondaryA(P, t);
       out.push(
         when('fieldTenth', atLeast(f.ampacityA === null ? null : f.ampacityA * 10, reflected), {
           primaryA: P ?? '?',

@@ -1,4 +1,4 @@
-import { atLeast, atMost, damageCheck, defineRule, deviceLimitCheck, singleDeviceCheck, when } from './define';
+import { atLeast, atMost, damageCheck, defineRule, deviceLimitCheck, singleDeviceCheck, toSecondaryA, when } from './define';
 
 /** 240.21(C)(6): secondary conductors not over 25 ft. Round-up never applies. */
 export const secondary25ft = defineRule({
@@ -18,7 +18,8 @@ export const secondary25ft = defineRule({
   check(f) {
     const t = f.transformer;
     const P = t?.primaryOcpdA ?? null;
-    const minA = t && P !== null ? (P * t.primaryVoltsLL) / t.secondaryVoltsLL / 3 : null;
+    const reflected = toSecondaryA(P, t);
+    const minA = reflected === null ? null : reflected / 3;
     return [
       when('length', atMost(f.lengthFt, 25), { lengthFt: f.lengthFt ?? '?' }),
       when('third', atLeast(f.ampacityA, minA), {

@@ -1,4 +1,4 @@
-import { atLeast, atMost, damageCheck, defineRule, when } from './define';
+import { atLeast, atMost, damageCheck, defineRule, toSecondaryA, when } from './define';
 import type { RunFacts } from './facts';
 
 /**
@@ -30,7 +30,8 @@ export const tapTransformer = defineRule({
     const R = f.supplyOcpdA;
     const s: RunFacts | undefined = f.secondaries.length === 1 ? f.secondaries[0] : undefined;
     const minP = R === null ? null : R / 3;
-    const minS = R === null || t === null ? null : (R * t.primaryVoltsLL) / t.secondaryVoltsLL / 3;
+    const reflected = toSecondaryA(R, t);
+    const minS = reflected === null ? null : reflected / 3;
     const total = s && f.lengthFt !== null && s.lengthFt !== null ? f.lengthFt + s.lengthFt : null;
     const weakest = [f.damageProtection, s?.damageProtection ?? 'raceway'].includes('none')
       ? 'none'
