@@ -226,6 +226,14 @@ function fit(points: Map<string, Point>, box: DrawBox): View {
   return { map: (p) => ({ x: ox + (p.x - minX) * scale, y: oy + (p.y - minY) * scale }), scale };
 }
 
+/** A switching device's leads and two contact circles of radius r, the contacts at ± reach × s. */
+function twoContacts(d: jsPDF, x: number, y: number, s: number, r: number, reach: number): void {
+  d.line(x, y - s, x, y - s * reach);
+  d.circle(x, y - s * reach + r, r, 'S');
+  d.circle(x, y + s * reach - r, r, 'S');
+  d.line(x, y + s * reach, x, y + s);
+}
+
 /** IEEE Std 315 style symbols of our own drawing, centred on (x, y), terminals at y - s and y + s. */
 function drawSymbol(sh: Sheet, n: EquipmentNode, x: number, y: number, s: number, busHalfWidth: number): void {
   const d = sh.doc;
@@ -254,10 +262,7 @@ function drawSymbol(sh: Sheet, n: EquipmentNode, x: number, y: number, s: number
       break;
     case 'breaker': {
       const r = s * 0.16;
-      d.line(x, y - s, x, y - s * 0.55);
-      d.circle(x, y - s * 0.55 + r, r, 'S');
-      d.circle(x, y + s * 0.55 - r, r, 'S');
-      d.line(x, y + s * 0.55, x, y + s);
+      twoContacts(d, x, y, s, r, 0.55);
       // The arc over the contacts, bulging to the left: a half ellipse from contact to contact.
       const rr = s * 0.55 - r;
       const arc: Point[] = [];
@@ -274,10 +279,7 @@ function drawSymbol(sh: Sheet, n: EquipmentNode, x: number, y: number, s: number
       break;
     case 'disconnect': {
       const r = s * 0.14;
-      d.line(x, y - s, x, y - s * 0.6);
-      d.circle(x, y - s * 0.6 + r, r, 'S');
-      d.circle(x, y + s * 0.6 - r, r, 'S');
-      d.line(x, y + s * 0.6, x, y + s);
+      twoContacts(d, x, y, s, r, 0.6);
       // An open blade from the lower contact.
       d.line(x, y + s * 0.6 - 2 * r, x + s * 0.55, y - s * 0.45);
       break;
