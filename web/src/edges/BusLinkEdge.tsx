@@ -1,5 +1,6 @@
 import { memo } from 'react';
-import { getSmoothStepPath, type Edge, type EdgeProps } from '@xyflow/react';
+import { stepPath } from './stepPath';
+import type { Edge, EdgeProps } from '@xyflow/react';
 import type { BusLinkEdgeData } from '../canvas/flowTypes';
 
 export type { BusLinkEdgeData } from '../canvas/flowTypes';
@@ -9,15 +10,7 @@ export type { BusLinkEdgeData } from '../canvas/flowTypes';
  * drawn as a double bar with no length and no label, unlike a conductor.
  */
 export const BusLinkEdge = memo(function BusLinkEdge(props: EdgeProps<Edge<BusLinkEdgeData, 'busLink'>>) {
-  const [path] = getSmoothStepPath({
-    sourceX: props.sourceX,
-    sourceY: props.sourceY,
-    sourcePosition: props.sourcePosition,
-    targetX: props.targetX,
-    targetY: props.targetY,
-    targetPosition: props.targetPosition,
-    borderRadius: 0,
-  });
+  const [path] = stepPath(props, 0);
   return (
     <g data-testid={`buslink-${props.data?.busLinkId ?? props.id}`}>
       {props.selected && <path d={path} className="lw-edge-halo" />}

@@ -1,5 +1,6 @@
 import { memo } from 'react';
-import { BaseEdge, getSmoothStepPath, type Edge, type EdgeProps } from '@xyflow/react';
+import { stepPath } from './stepPath';
+import { BaseEdge, type Edge, type EdgeProps } from '@xyflow/react';
 import { FAMILY_LOOK } from '../analysis/verdicts';
 import type { ConductorEdgeData } from '../canvas/flowTypes';
 import { VerdictBadge } from './VerdictBadge';
@@ -12,15 +13,7 @@ const LINE_H = 14;
 
 export const ConductorEdge = memo(function ConductorEdge(props: EdgeProps<Edge<ConductorEdgeData, 'conductor'>>) {
   const { data, selected } = props;
-  const [path, lx, ly] = getSmoothStepPath({
-    sourceX: props.sourceX,
-    sourceY: props.sourceY,
-    sourcePosition: props.sourcePosition,
-    targetX: props.targetX,
-    targetY: props.targetY,
-    targetPosition: props.targetPosition,
-    borderRadius: 6,
-  });
+  const [path, lx, ly] = stepPath(props, 6);
   if (!data) return null;
   const look = FAMILY_LOOK[data.family];
   const w = Math.max(data.line.length, data.verdictText.length + 3) * CHAR_W + 10;
