@@ -192,6 +192,8 @@ export function classifyRuns(
     const primary = primarySupply(tx);
     const device = primary.device >= 0 ? g.nodes[primary.device]! : null;
     facts.transformer = transformerFacts(g, tx, { ratingA: device ? effectiveRatingA(device) : null, id: device?.id ?? null });
+    // A transformer ahead of the service equipment (fed by service conductors, no OCPD) has service conductors on its secondary.
+    if (primary.service) return fixed(facts, supply, serviceRule, 'service', 'service', -1, -1);
     const base = { family: 'secondary' as Family, role: 'transformer-secondary' as ConductorRole, supply, deviceNode: primary.device, generatorNode: -1, facts };
     if (primary.run) {
       const pv = primary.run.verdict;
@@ -210,21 +212,19 @@ export function classifyRuns(
   }
 
   /** The device protecting a transformer's primary, and the primary run when there is one. */
-  function primarySupply(tx: number): { device: number; run: RunVerdict | null } {
+  function primarySupply(tx: number): { device: number; run: RunVerdict | null; service: boolean } {
     const ins = g.inEdges[tx]!;
-    if (ins.length !== 1) return { device: -1, run: null };
+    if (ins.length !== 1) return { device: -1, run: null, service: false };
     const e = ins[0]!;
-    if (e >= 0) {
-      const run = results[runs.runOf[e]!] ?? null;
-      return { device: run?.deviceNode ?? -1, run };
+    let run: RunVerdict | null = null;
+    if (e >= 0) run = results[runs.runOf[e]!] ?? null;
+    else {
+      const s = supplyAt(edgeFrom(g, e));
+      if (s.kind === 'ocpd') return { device: s.node, run: null, service: false };
+      if (s.kind === 'utility') return { device: -1, run: null, service: true };
+      if (s.kind === 'run') run = results[s.run] ?? null;
     }
-    const s = supplyAt(edgeFrom(g, e));
-    if (s.kind === 'ocpd') return { device: s.node, run: null };
-    if (s.kind === 'run') {
-      const run = results[s.run] ?? null;
-      return { device: run?.deviceNode ?? -1, run };
-    }
-    return { device: -1, run: null };
+    return { device: run?.deviceNode ?? -1, run, service: run?.family === 'service' };
   }
 }
 

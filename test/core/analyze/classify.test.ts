@@ -310,6 +310,19 @@ describe('services, generators and loads', () => {
     expect(verdictOf(report, 'SVC').role).toBe('service');
   });
 
+  it('a utility transformer ahead of the service disconnect has service conductors on both sides (240.21(D), 230.90(A))', () => {
+    const input = diagram()
+      .utility(480, { id: 'U' })
+      .conductor({ id: 'PRI', size: '4/0', lengthFt: 40 })
+      .transformer({ id: 'UTX', kva: 300 })
+      .conductor({ id: 'SEC', size: '600', parallelSets: 3, lengthFt: 30 })
+      .breaker(1000)
+      .build();
+    const report = run(input);
+    expect(verdictOf(report, 'PRI').verdict).toBe('service');
+    expect(verdictOf(report, 'SEC').verdict).toBe('service');
+  });
+
   it('100 kVA at 480 V is 120.3 A; 115 % is 138.3 A, so 1/0 Cu (150 A) serves and 1 AWG (130 A) does not (445.13(A))', () => {
     const gen = (size: string) => run(diagram().generator(100).conductor({ id: 'G', size: size as never, lengthFt: 30 }).breaker(150).build());
     const ok = gen('1/0');
