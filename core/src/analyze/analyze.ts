@@ -1,6 +1,5 @@
 import { CAUTION } from '../caution';
 import type { CodeEdition, Project } from '../model/schema';
-import { cite } from '../tables/citations';
 import { buildGraph, topologicalOrder, type Graph } from '../topology/graph';
 import { buildRuns } from '../topology/runs';
 import { classifyRuns, type RunVerdict } from './classify';
@@ -19,6 +18,7 @@ import {
   type Verdict,
 } from './types';
 import { describeRun } from './summary';
+import { ruleCitation } from '../rules/define';
 import { baseRunFacts, conductorAmpacity, effectiveRatingA, nodeLabel } from './facts';
 
 /**
@@ -122,7 +122,7 @@ function runShared(graph: Graph, v: RunVerdict, edition: CodeEdition): RunShared
   const isTap = v.family === 'fed-by-ocpd' && v.verdict !== 'protected' && v.verdict !== 'protected-next-size' && v.verdict !== 'incomplete';
   const f = v.facts;
   return {
-    cites: v.rule ? citeRule(v.rule.section, edition) : null,
+    cites: v.rule ? ruleCitation(v.rule, edition) : null,
     summary: describeRun(v),
     device,
     supply,
@@ -132,14 +132,14 @@ function runShared(graph: Graph, v: RunVerdict, edition: CodeEdition): RunShared
 }
 
 /** One DeviceRef per device node, shared by every run it feeds (reports are read-only). */
-const deviceRefs = new WeakMap<Graph, Map<number, DeviceRef>>();
+const deviceRefs = new WeakMap<Graph, (DeviceRef | undefined)[]>();
 function deviceRef(graph: Graph, v: number): DeviceRef {
   let byNode = deviceRefs.get(graph);
-  if (!byNode) deviceRefs.set(graph, (byNode = new Map()));
-  let d = byNode.get(v);
+  if (!byNode) deviceRefs.set(graph, (byNode = new Array(graph.nodes.length)));
+  let d = byNode[v];
   if (!d) {
     const n = graph.nodes[v]!;
-    byNode.set(v, (d = { id: n.id, kind: n.kind, label: nodeLabel(n), ratingA: effectiveRatingA(n) }));
+    byNode[v] = d = { id: n.id, kind: n.kind, label: nodeLabel(n), ratingA: effectiveRatingA(n) };
   }
   return d;
 }
@@ -150,13 +150,6 @@ function transformerTapLength(v: RunVerdict): number | null {
   return typeof total === 'number' ? total : null;
 }
 
-const ruleCitations = new Map<string, Citation>();
-function citeRule(section: string, edition: CodeEdition): Citation {
-  const key = `${edition}|${section}`;
-  let c = ruleCitations.get(key);
-  if (!c) ruleCitations.set(key, (c = Object.freeze(cite(section, edition))));
-  return c;
-}
 
 /** Shared empty lists: most conductors have no findings and no fixes. Reports are read-only. */
 const NONE: string[] = Object.freeze([]) as unknown as string[];

@@ -1,5 +1,6 @@
 import { cite } from '../tables/citations';
-import type { ConditionResult, ConditionStatus, RuleTrial, Verdict } from '../analyze/types';
+import type { Citation, ConditionResult, ConditionStatus, RuleTrial, Verdict } from '../analyze/types';
+import type { CodeEdition } from '../model/schema';
 import type { RunFacts } from './facts';
 
 export type RuleFamily = 'protection' | 'feeder-tap' | 'transformer-secondary' | 'transformer-protection' | 'service' | 'generator' | 'tap-from-tap';
@@ -83,15 +84,19 @@ export function outcomeOf(checks: readonly Check[]): RuleTrial['outcome'] {
   return unknown ? 'unknown' : 'holds';
 }
 
-const citations = new Map<string, ReturnType<typeof cite>>();
+const citations = new WeakMap<Rule, Partial<Record<CodeEdition, Citation>>>();
+
+/** The rule's citation in an edition, one frozen object per rule and edition. */
+export function ruleCitation(rule: Rule, edition: CodeEdition): Citation {
+  let byEdition = citations.get(rule);
+  if (!byEdition) citations.set(rule, (byEdition = {}));
+  return (byEdition[edition] ??= Object.freeze(cite(rule.section, edition)));
+}
 
 export function runRule(rule: Rule, facts: RunFacts): RuleTrial {
   const conditions = rule.check(facts);
   for (const c of conditions) c.template = rule.messages[c.id] ?? c.id;
-  const key = `${rule.section}|${facts.edition}`;
-  let cites = citations.get(key);
-  if (!cites) citations.set(key, (cites = Object.freeze(cite(rule.section, facts.edition))));
-  return { ruleId: rule.id, title: rule.title, cites, outcome: outcomeOf(conditions), conditions };
+  return { ruleId: rule.id, title: rule.title, cites: ruleCitation(rule, facts.edition), outcome: outcomeOf(conditions), conditions };
 }
 
 /** Shared condition: protection from physical damage (240.21(B)(2)–(5), (C)(3)–(6)). */
