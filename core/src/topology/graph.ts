@@ -27,8 +27,12 @@ export function buildGraph(project: Project): Graph {
   const { nodes, conductors, busLinks: links } = project;
   const nodeIndex = new Map<string, number>();
   for (let i = 0; i < nodes.length; i++) nodeIndex.set(nodes[i]!.id, i);
-  const inEdges: number[][] = Array.from({ length: nodes.length }, () => []);
-  const outEdges: number[][] = Array.from({ length: nodes.length }, () => []);
+  const inEdges: number[][] = new Array(nodes.length);
+  const outEdges: number[][] = new Array(nodes.length);
+  for (let i = 0; i < nodes.length; i++) {
+    inEdges[i] = [];
+    outEdges[i] = [];
+  }
   const conductorFrom = new Int32Array(conductors.length);
   const conductorTo = new Int32Array(conductors.length);
   for (let i = 0; i < conductors.length; i++) {
