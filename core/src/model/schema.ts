@@ -59,42 +59,42 @@ const common = {
 export const utilityNode = z.strictObject({
   ...common,
   kind: z.literal('utility'),
-  voltsLL: volts,
+  voltsLL: volts.describe('Line-to-line voltage, V (1000 V and less).'),
   phases,
-  availableFaultKA: kiloAmps.optional(),
-  xOverR: z.number().positive().max(100).optional(),
+  availableFaultKA: kiloAmps.optional().describe('Available three-phase fault current at the source, kA.'),
+  xOverR: z.number().positive().max(100).optional().describe('X/R ratio of the source.'),
 });
 
 export const generatorNode = z.strictObject({
   ...common,
   kind: z.literal('generator'),
-  voltsLL: volts,
+  voltsLL: volts.describe('Line-to-line voltage, V (1000 V and less).'),
   phases,
-  kva: z.number().positive().max(50_000),
+  kva: z.number().positive().max(50_000).describe('Rating, kVA.'),
   /** 445.13: the design prevents overload, so 100 % of nameplate instead of 115 %. */
-  overloadPreventedByDesign: z.boolean().default(false),
+  overloadPreventedByDesign: z.boolean().default(false).describe('445.13: the design prevents overload, so 100 % of nameplate instead of 115 %.'),
 });
 
 export const BUS_TYPES = ['switchgear', 'switchboard', 'panelboard', 'tap-box', 'busway'] as const;
 export const busNode = z.strictObject({
   ...common,
   kind: z.literal('bus'),
-  busType: z.enum(BUS_TYPES),
-  busRatingA: amps.optional(),
+  busType: z.enum(BUS_TYPES).describe('Kind of bus: switchgear, switchboard, panelboard, tap box or busway.'),
+  busRatingA: amps.optional().describe('Bus rating, A; counts as the rating of the equipment a 10 ft tap ends in.'),
 });
 
 const ocpdCommon = {
   ...common,
   /** Rating in A; for an adjustable-trip breaker the rating that 240.6(B)/(C) makes count. */
-  ratingA: amps.optional(),
-  interruptingKA: kiloAmps.optional(),
-  clearingTimeS: z.number().positive().max(10).optional(),
+  ratingA: amps.optional().describe('Rating in A; for an adjustable-trip breaker the rating that 240.6(B)/(C) makes count.'),
+  interruptingKA: kiloAmps.optional().describe('Interrupting rating, kA.'),
+  clearingTimeS: z.number().positive().max(10).optional().describe('Clearing time at the available fault current, s.'),
   /** 'single': one breaker or one set of fuses; 'group': several devices counted together. */
-  arrangement: z.enum(['single', 'group']).default('single'),
+  arrangement: z.enum(['single', 'group']).default('single').describe('\'single\': one breaker or one set of fuses; \'group\': several devices counted together.'),
   /** 240.21(B)(5), (C)(4): the device is part of or next to the disconnecting means. */
-  atDisconnectingMeans: z.boolean().default(false),
+  atDisconnectingMeans: z.boolean().default(false).describe('240.21(B)(5), (C)(4): the device is part of or next to the disconnecting means.'),
   /** 240.21(B)(5), (C)(4): where that disconnecting means is. */
-  disconnectLocation: z.enum(['outside', 'inside-nearest-entrance', 'elsewhere']).optional(),
+  disconnectLocation: z.enum(['outside', 'inside-nearest-entrance', 'elsewhere']).optional().describe('240.21(B)(5), (C)(4): where that disconnecting means is.'),
 };
 
 export const breakerNode = z.strictObject({
@@ -113,7 +113,7 @@ export const breakerNode = z.strictObject({
 export const fuseNode = z.strictObject({
   ...ocpdCommon,
   kind: z.literal('fuse'),
-  currentLimiting: z.boolean().default(false),
+  currentLimiting: z.boolean().default(false).describe('A current-limiting fuse.'),
 });
 
 export const disconnectNode = z.strictObject({
@@ -130,25 +130,25 @@ export const TRANSFORMER_CONNECTIONS = [
 export const transformerNode = z.strictObject({
   ...common,
   kind: z.literal('transformer'),
-  kva: z.number().positive().max(50_000),
-  primaryVoltsLL: volts,
-  secondaryVoltsLL: volts,
+  kva: z.number().positive().max(50_000).describe('Rating, kVA.'),
+  primaryVoltsLL: volts.describe('Primary line-to-line voltage, V.'),
+  secondaryVoltsLL: volts.describe('Secondary line-to-line voltage, V.'),
   phases,
-  impedancePct: z.number().positive().max(30).optional(),
-  connection: z.enum(TRANSFORMER_CONNECTIONS),
+  impedancePct: z.number().positive().max(30).optional().describe('Impedance, %Z.'),
+  connection: z.enum(TRANSFORMER_CONNECTIONS).describe('Winding connection; 240.21(C)(1) needs single-phase-2w or delta-delta-3w.'),
 });
 
 export const loadNode = z.strictObject({
   ...common,
   kind: z.literal('load'),
   /** Exactly one of currentA or kva. */
-  currentA: amps.optional(),
-  kva: z.number().positive().max(50_000).optional(),
-  powerFactor: z.number().gt(0).max(1).default(0.9),
+  currentA: amps.optional().describe('Exactly one of currentA or kva.'),
+  kva: z.number().positive().max(50_000).optional().describe('Rating, kVA.'),
+  powerFactor: z.number().gt(0).max(1).default(0.9).describe('Power factor, 0–1.'),
   /** Continuous: maximum current for 3 h or more (Article 100). */
-  continuous: z.boolean().default(false),
+  continuous: z.boolean().default(false).describe('Continuous: maximum current for 3 h or more (Article 100).'),
   /** Phases of the load itself; defaults to the system's. */
-  phases: phases.optional(),
+  phases: phases.optional().describe('Phases of the load itself; defaults to the system\'s.'),
 });
 
 export const equipmentNode = z.discriminatedUnion('kind', [
@@ -160,46 +160,46 @@ export type NodeOfKind<K extends EquipmentKind> = Extract<EquipmentNode, { kind:
 export const EQUIPMENT_KINDS = equipmentNode.options.map((o) => o.shape.kind.value) as EquipmentKind[];
 
 export const highBayFacts = z.strictObject({
-  horizontalFt: z.number().nonnegative().max(20_000),
-  tapHeightAboveFloorFt: z.number().nonnegative().max(1_000),
-  penetratesWallFloorCeiling: z.boolean().default(false),
+  horizontalFt: z.number().nonnegative().max(20_000).describe('240.21(B)(4): horizontal part of the tap, ft.'),
+  tapHeightAboveFloorFt: z.number().nonnegative().max(1_000).describe('240.21(B)(4): height of the tap point above the floor, ft.'),
+  penetratesWallFloorCeiling: z.boolean().default(false).describe('240.21(B)(4): the tap passes through a wall, floor or ceiling.'),
 });
 
 export const conductor = z.strictObject({
   id: conductorId,
-  from: nodeId,
-  to: nodeId,
+  from: nodeId.describe('Id of the equipment on the supply (line) side.'),
+  to: nodeId.describe('Id of the equipment on the load side.'),
   label: label.optional(),
   notes: z.string().max(4000).optional(),
-  material: material.default('cu'),
-  size: conductorSize,
-  parallelSets: z.number().int().min(1).max(20).default(1),
-  insulation: insulation.default('THHN'),
+  material: material.default('cu').describe('cu, al or cu-clad-al.'),
+  size: conductorSize.describe('AWG (18–4/0) or kcmil (250–2000), as a string: "3/0", "500".'),
+  parallelSets: z.number().int().min(1).max(20).default(1).describe('Conductors in parallel per phase (310.10(G): 1/0 and larger).'),
+  insulation: insulation.default('THHN').describe('Insulation type; sets the temperature column (Table 310.4(1)).'),
   /** Conductor length from its supply point to its termination; a raceway length is not a tap length. */
-  lengthFt: z.number().positive().max(20_000, 'a run longer than 20 000 ft is not a building conductor; check the units').optional(),
-  wiring: wiringMethod.default('steel-conduit'),
-  ambientC: z.number().min(-40).max(90).default(30),
+  lengthFt: z.number().positive().max(20_000, 'a run longer than 20 000 ft is not a building conductor; check the units').optional().describe('Conductor length from its supply point to its termination; a raceway length is not a tap length.'),
+  wiring: wiringMethod.default('steel-conduit').describe('Wiring method; the conduit kinds count as a raceway.'),
+  ambientC: z.number().min(-40).max(90).default(30).describe('Ambient temperature, °C (Table 310.15(B)(1)).'),
   /** Current-carrying conductors in the raceway or cable, all sets counted (310.15(C)(1)). */
-  currentCarrying: z.number().int().min(1).max(200).default(3),
+  currentCarrying: z.number().int().min(1).max(200).default(3).describe('Current-carrying conductors in the raceway or cable, all sets counted (310.15(C)(1)).'),
   /** 110.14(C): lowest temperature rating of the terminations at either end. */
-  terminalTempC: z.union([z.literal(60), z.literal(75), z.literal(90)]).default(75),
+  terminalTempC: z.union([z.literal(60), z.literal(75), z.literal(90)]).default(75).describe('110.14(C): lowest temperature rating of the terminations at either end.'),
   /** 240.21(B)(1), (C)(2): a field installation that leaves the enclosure where the tap is made. */
-  leavesEnclosure: z.boolean().default(false),
+  leavesEnclosure: z.boolean().default(false).describe('240.21(B)(1), (C)(2): a field installation that leaves the enclosure where the tap is made.'),
   /** 240.21(B)(1), (C)(2): the conductor runs past the equipment it supplies. */
-  extendsBeyondEquipment: z.boolean().default(false),
+  extendsBeyondEquipment: z.boolean().default(false).describe('240.21(B)(1), (C)(2): the conductor runs past the equipment it supplies.'),
   /** 240.21(B)(5), (C)(4): outdoors except at the point of termination. */
-  outdoors: z.boolean().default(false),
-  damageProtection: z.enum(DAMAGE_PROTECTION).default('raceway'),
+  outdoors: z.boolean().default(false).describe('240.21(B)(5), (C)(4): outdoors except at the point of termination.'),
+  damageProtection: z.enum(DAMAGE_PROTECTION).default('raceway').describe('How the run is protected from physical damage: raceway, other-approved-means (AHJ judgement) or none.'),
   /** 240.4(B)(1): a multioutlet branch circuit supplying receptacles for cord-and-plug loads. */
-  multioutletCordAndPlug: z.boolean().default(false),
-  highBay: highBayFacts.optional(),
+  multioutletCordAndPlug: z.boolean().default(false).describe('240.4(B)(1): a multioutlet branch circuit supplying receptacles for cord-and-plug loads.'),
+  highBay: highBayFacts.optional().describe('240.21(B)(4) facts for a high-bay tap.'),
 });
 export type Conductor = z.infer<typeof conductor>;
 
 export const busLink = z.strictObject({
   id: busLinkId,
-  from: nodeId,
-  to: nodeId,
+  from: nodeId.describe('Id of the equipment on the supply (line) side.'),
+  to: nodeId.describe('Id of the equipment on the load side.'),
   label: label.optional(),
 });
 export type BusLink = z.infer<typeof busLink>;
@@ -210,22 +210,22 @@ export type CodeEdition = z.infer<typeof codeEdition>;
 
 export const projectSettings = z.strictObject({
   name: label.min(1, 'give the project a name'),
-  codeEdition: codeEdition.default(2023),
-  units: z.literal('imperial').default('imperial'),
+  codeEdition: codeEdition.default(2023).describe('NFPA 70 edition the AHJ enforces: 2020 or 2023.'),
+  units: z.literal('imperial').default('imperial').describe('Imperial units (ft, A, V, kVA).'),
   /** 240.21(B)(4): manufacturing building, wall height in ft. */
-  manufacturingWallHeightFt: z.number().positive().max(1000).optional(),
+  manufacturingWallHeightFt: z.number().positive().max(1000).optional().describe('240.21(B)(4): manufacturing building, wall height in ft.'),
   /** 240.21(B)(4), (C)(3): conditions of maintenance and supervision ensure only qualified persons service the system. */
-  qualifiedMaintenance: z.boolean().default(false),
+  qualifiedMaintenance: z.boolean().default(false).describe('240.21(B)(4), (C)(3): conditions of maintenance and supervision ensure only qualified persons service the system.'),
   /** 240.21(C)(3): an industrial installation. */
-  industrialInstallation: z.boolean().default(false),
+  industrialInstallation: z.boolean().default(false).describe('240.21(C)(3): an industrial installation.'),
   preparedBy: label.optional(),
   notes: z.string().max(4000).optional(),
 });
 export type ProjectSettings = z.infer<typeof projectSettings>;
 
 export const project = z.strictObject({
-  format: z.literal(PROJECT_FORMAT),
-  version: z.literal(PROJECT_VERSION),
+  format: z.literal(PROJECT_FORMAT).describe('Always "linewright-project".'),
+  version: z.literal(PROJECT_VERSION).describe('Project file version.'),
   project: projectSettings,
   nodes: z.array(equipmentNode).max(500_000),
   conductors: z.array(conductor).max(500_000),
