@@ -205,14 +205,9 @@ function viewAt(x0: number, y0: number, scale: number, box: DrawBox): View {
 }
 
 function fit(points: Map<string, Point>, box: DrawBox): View {
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-  for (const p of points.values()) {
-    minX = Math.min(minX, p.x);
-    maxX = Math.max(maxX, p.x);
-    minY = Math.min(minY, p.y);
-    maxY = Math.max(maxY, p.y);
-  }
-  if (!Number.isFinite(minX)) return { map: (p) => p, scale: 1 };
+  const b = boundsOf(points);
+  if (!b) return { map: (p) => p, scale: 1 };
+  const { minX, minY, maxX, maxY } = b;
   // Room on the right for labels beside symbols and lines.
   const padR = 120;
   const padB = 10;
