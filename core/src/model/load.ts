@@ -35,17 +35,30 @@ export function loadProject(input: unknown): LoadResult {
   const migrated = migrateToCurrent(raw as Record<string, unknown>);
   if (!migrated.ok) return fail(migrated.errors);
 
+  const notices = migrated.migratedFrom === null ? [] : [`Upgraded from file version ${migrated.migratedFrom}.`];
   // The compiled validator answers for valid files; zod is asked only to explain a failure.
   let data = fastProject(migrated.value) as Project | typeof FAIL;
   if (data === FAIL) {
-    const parsed = project.safeParse(migrated.value);
+    let parsed = project.safeParse(migrated.value);
+    // Fields Linewright does not know (a "$schema" line, another tool's notes) are set aside with a notice
+    // rather than refusing the whole drawing; any real error is still an error.
+    if (!parsed.success && parsed.error.issues.every((i) => i.code === 'unrecognized_keys')) {
+      const cleaned = structuredClone(migrated.value);
+      for (const issue of parsed.error.issues) {
+        if (issue.code !== 'unrecognized_keys') continue;
+        const owner = issue.path.reduce<unknown>((o, k) => (o as Record<PropertyKey, unknown>)[k], cleaned) as Record<string, unknown>;
+        for (const key of issue.keys) delete owner[key];
+        const where = formatPath(issue.path);
+        notices.push(`Ignored unknown field${issue.keys.length > 1 ? 's' : ''} ${issue.keys.map((k) => `"${k}"`).join(', ')}${where ? ` at ${where}` : ''}; check the spelling if it was meant.`);
+      }
+      parsed = project.safeParse(cleaned);
+    }
     if (!parsed.success) return fail(parsed.error.issues.slice(0, MAX_ERRORS).map(issueToError));
     data = parsed.data;
   }
 
   const errors = checkConsistency(data);
   if (errors.length > 0) return fail(errors.slice(0, MAX_ERRORS));
-  const notices = migrated.migratedFrom === null ? [] : [`Upgraded from file version ${migrated.migratedFrom}.`];
   return { ok: true, project: data, notices };
 }
 
