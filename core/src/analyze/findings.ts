@@ -1,7 +1,6 @@
 import type { ConductorId, NodeId, Project } from '../model/schema';
-import { formatNumber, runRule } from '../rules/define';
+import { conductorName, formatNumber, runRule } from '../rules/define';
 import { transformerProtection } from '../rules/transformer-protection';
-import { materialLabel, sizeLabel } from '../tables/sizes';
 import type { Graph } from '../topology/graph';
 import type { Runs } from '../topology/runs';
 import type { RunVerdict } from './classify';
@@ -186,7 +185,7 @@ export function collectFindings(
 }
 
 function describeConductor(c: Graph['conductors'][number], sets: number): string {
-  return `Conductor ${c.label ? `${c.label} (${c.id})` : c.id}, ${sets > 1 ? `${sets} sets of ` : ''}${sizeLabel(c.size)} ${materialLabel(c.material)}`;
+  return `Conductor ${c.label ? `${c.label} (${c.id})` : c.id}, ${conductorName({ size: c.size, material: c.material, parallelSets: sets })}`;
 }
 
 function deviceRefs(g: Graph, v: RunVerdict): ElementRef[] {

@@ -89,7 +89,7 @@ export function suggestFixes(
       kind: 'add-ocpd',
       conductorId: ids[0],
       ratingA: ocpd,
-      label: `Add a ${ocpd} A breaker at the supply end of ${ids[0]}: the run is then protected at its ampacity (240.4).`,
+      label: `Add ${articleFor(ocpd)} ${ocpd} A breaker at the supply end of ${ids[0]}: the run is then protected at its ampacity (240.4).`,
     });
   }
   // Cheapest first, as a designer weighs them: a size or two up under a tap rule, a shorter run,
@@ -112,4 +112,10 @@ export function largestProtectingRatingA(facts: Pick<RunFacts, 'ampacityA' | 'sm
     best = largestStandardRatingAtMost(facts.smallConductorMaxOcpdA, edition, 'breaker');
   }
   return best;
+}
+
+/** 'an' before a rating read with a vowel sound (8, 11, 18, 80, 800…), else 'a'. */
+function articleFor(n: number): 'a' | 'an' {
+  const s = String(n);
+  return s.startsWith('8') || s === '11' || s === '18' || /^1[18]\d{2}$/.test(s) ? 'an' : 'a';
 }

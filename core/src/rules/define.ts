@@ -1,4 +1,5 @@
 import { cite } from '../tables/citations';
+import { materialLabel, sizeLabel } from '../tables/sizes';
 import type { Citation, ConditionResult, ConditionStatus, RuleTrial, Verdict } from '../analyze/types';
 import type { CodeEdition } from '../model/schema';
 import type { RunFacts } from './facts';
@@ -147,4 +148,9 @@ export const ONE_THIRD_MESSAGE = 'Ampacity ({{ampacityA}} A) must be at least on
 /** A primary-side current seen from the secondary: amperes × Vp / Vs; null when either is unknown. */
 export function toSecondaryA(primaryA: number | null, t: { primaryVoltsLL: number; secondaryVoltsLL: number } | null): number | null {
   return primaryA === null || t === null ? null : (primaryA * t.primaryVoltsLL) / t.secondaryVoltsLL;
+}
+
+/** '10 AWG Al', '2 sets of 500 kcmil Cu': how a message names the run's conductors. */
+export function conductorName(f: Pick<RunFacts, 'size' | 'material' | 'parallelSets'>): string {
+  return `${f.parallelSets > 1 ? `${f.parallelSets} sets of ` : ''}${sizeLabel(f.size)} ${materialLabel(f.material)}`;
 }

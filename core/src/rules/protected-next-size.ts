@@ -1,5 +1,5 @@
 import { isStandardRating, nextStandardRatingAbove } from '../tables/standardRatings';
-import { atMost, defineRule, when, type Check } from './define';
+import { atMost, defineRule, when, type Check, conductorName } from './define';
 
 /**
  * 240.4(B): the next standard rating above the ampacity may protect the
@@ -36,7 +36,7 @@ export const protectedNextSize = defineRule({
       when('notCordAndPlug', !f.multioutletCordAndPlug),
     ];
     if (f.smallConductorMaxOcpdA !== null) {
-      out.push(when('small', R === null ? null : R <= f.smallConductorMaxOcpdA, { size: f.size, maxA: f.smallConductorMaxOcpdA, deviceA: R ?? '?' }));
+      out.push(when('small', R === null ? null : R <= f.smallConductorMaxOcpdA, { size: conductorName(f), maxA: f.smallConductorMaxOcpdA, deviceA: R ?? '?' }));
     }
     return out;
   },

@@ -1,4 +1,4 @@
-import { atLeast, defineRule, when, type Check } from './define';
+import { atLeast, defineRule, when, type Check, conductorName } from './define';
 
 /** 240.4: the OCPD rating does not exceed the conductor's ampacity (and 240.4(D) for small sizes). */
 export const protectedRule = defineRule({
@@ -18,7 +18,7 @@ export const protectedRule = defineRule({
     if (f.smallConductorMaxOcpdA !== null) {
       out.push(
         when('small', atLeast(f.smallConductorMaxOcpdA, f.supplyOcpdA), {
-          size: f.size,
+          size: conductorName(f),
           maxA: f.smallConductorMaxOcpdA,
           deviceA: f.supplyOcpdA ?? '?',
         }),
