@@ -185,7 +185,10 @@ export function collectFindings(
 }
 
 function describeConductor(c: Graph['conductors'][number], sets: number): string {
-  return `Conductor ${c.label ? `${c.label} (${c.id})` : c.id}, ${conductorName({ size: c.size, material: c.material, parallelSets: sets })}`;
+  const name = conductorName({ size: c.size, material: c.material, parallelSets: sets });
+  // A label that already says the size ("500 kcmil Cu") is not followed by it again.
+  if (c.label && c.label.includes(name.replace(/ AWG| kcmil/, ''))) return `Conductor ${c.label} (${c.id})`;
+  return `Conductor ${c.label ? `${c.label} (${c.id})` : c.id}, ${name}`;
 }
 
 function deviceRefs(g: Graph, v: RunVerdict): ElementRef[] {

@@ -89,7 +89,7 @@ export function suggestFixes(
       kind: 'add-ocpd',
       conductorId: ids[0],
       ratingA: ocpd,
-      label: `Add ${articleFor(ocpd)} ${ocpd} A breaker at the supply end of ${ids[0]}: the run is then protected at its ampacity (240.4).`,
+      label: `Add ${articleFor(ocpd)} ${ocpd} A breaker at the supply end of ${ids[0]}: the run is then protected by it (${facts.ampacityA !== null && ocpd > facts.ampacityA ? '240.4(B), the next standard rating above its ampacity' : '240.4'}).`,
     });
   }
   // Cheapest first, as a designer weighs them: a size or two up under a tap rule, a shorter run,
