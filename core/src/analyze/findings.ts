@@ -6,7 +6,7 @@ import type { Runs } from '../topology/runs';
 import type { RunVerdict } from './classify';
 import { nodeLabel, type ConductorAmpacity } from './facts';
 import { failedTexts, incompleteReason, nearestTrial } from './summary';
-import type { Citation, ElementRef, Finding, Fix, Severity } from './types';
+import type { Citation, ElementRef, Finding, Fix } from './types';
 
 /** Most elements a single topology finding lists. */
 const MAX_RELATED = 50;
@@ -199,4 +199,3 @@ function edgeRef(g: Graph, e: number): ElementRef {
   return e >= 0 ? { kind: 'conductor', id: g.conductors[e]!.id as ConductorId } : { kind: 'busLink', id: g.links[-e - 1]!.id };
 }
 
-export type { Severity };

@@ -20,9 +20,6 @@ export interface Graph {
   linkTo: Int32Array;
 }
 
-export const isLinkEdge = (e: number): boolean => e < 0;
-export const linkIndexOf = (e: number): number => -e - 1;
-
 export function buildGraph(project: Project): Graph {
   const { nodes, conductors, busLinks: links } = project;
   const nodeIndex = new Map<string, number>();
