@@ -1,6 +1,9 @@
 import { defineConfig } from '@playwright/test';
 
-const baseURL = 'http://127.0.0.1:4173';
+// The tests serve on a port of their own (E2E_PORT, default 4174), so `npm test` can run while
+// `npm start` serves the editor on 4173, and several checkouts can test side by side.
+const port = Number(process.env.E2E_PORT ?? 4174);
+const baseURL = `http://127.0.0.1:${port}`;
 
 export default defineConfig({
   testDir: '.',
@@ -22,7 +25,7 @@ export default defineConfig({
     },
   },
   webServer: {
-    command: 'npm run preview -w @linewright/web',
+    command: `npm run preview -w @linewright/web -- --port ${port}`,
     cwd: '..',
     url: baseURL,
     reuseExistingServer: false,
