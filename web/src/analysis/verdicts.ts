@@ -5,7 +5,7 @@ import { SEVERITY_WORDS, VERDICT_COLOURS, VERDICT_LABELS, verdictClass, type Ver
  * How a verdict looks. Each class differs in text, line dash, badge shape and
  * colour at once, so no reader depends on colour (Okabe–Ito palette). The
  * classes, colours and dashes are those of the permit PDF legend
- * (core/src/report/pdf.ts), so screen and paper read the same.
+ * (core/src/report/pdf/), so screen and paper read the same.
  */
 export type VerdictFamily = VerdictClass | 'pending';
 

@@ -1,0 +1,108 @@
+import { jsPDF } from 'jspdf';
+import { type VerdictClass, VERDICT_COLOURS, hexToRgb } from '../format';
+
+/** The sheet: page geometry, pens and fonts, and text that standard PDF fonts can print. */
+
+export const PAGE_W = 1224;
+export const PAGE_H = 792;
+export const M = 36;
+export const FOOTER_H = 30;
+export const BODY_BOTTOM = PAGE_H - M - FOOTER_H;
+export const SIDE_W = 270;
+export const FONT = 'helvetica';
+
+export type Rgb = [number, number, number];
+// Okabe–Ito colour-blind-safe palette; every colour is paired with a line style and words.
+export const BLACK: Rgb = [0, 0, 0];
+export const GREY: Rgb = [110, 110, 110];
+export const LIGHT: Rgb = [235, 235, 235];
+export const STYLE: Record<VerdictClass, { color: Rgb; width: number; dash: number[]; legend: string }> = {
+  protected: { color: hexToRgb(VERDICT_COLOURS.protected), width: 1, dash: [], legend: 'solid: protected at its ampacity (240.4), service, generator' },
+  'tap-rule': { color: hexToRgb(VERDICT_COLOURS['tap-rule']), width: 1.2, dash: [7, 3], legend: 'dashed: meets a tap or secondary rule (240.21(B)/(C))' },
+  failing: { color: hexToRgb(VERDICT_COLOURS.failing), width: 2.4, dash: [9, 2.5, 2, 2.5], legend: 'heavy dash-dot: no rule makes it acceptable' },
+  incomplete: { color: hexToRgb(VERDICT_COLOURS.incomplete), width: 1, dash: [1.5, 2.5], legend: 'dotted: incomplete, data missing' },
+};
+export const VIOLATION: Rgb = [213, 94, 0];
+export const AHJ: Rgb = [230, 159, 0];
+
+/** Characters of WinAnsiEncoding beyond Latin-1 (0x80–0x9F), which jsPDF's standard fonts print. */
+export const WIN_ANSI_EXTRA = '€‚ƒ„…†‡ˆ‰Š‹ŒŽ‘’“”•–—˜™š›œžŸ';
+
+/** jsPDF's standard fonts are WinAnsi only: spell out what they cannot print (≥, √, Ω...). */
+export function pdfSafe(text: string): string {
+  return text
+    .replace(/ ?≥ ?/g, ' at least ')
+    .replace(/ ?≤ ?/g, ' at most ')
+    .replace(/√/g, 'sqrt ')
+    .replace(/ ?Ω/g, ' ohm')
+    .replace(/ ?→ ?/g, ' -> ')
+    .replace(/[^\n\x20-\x7e\u00a0-\u00ff]/g, (ch) => (WIN_ANSI_EXTRA.includes(ch) ? ch : '?'));
+}
+
+export class Sheet {
+  readonly doc: jsPDF;
+  y = M;
+
+  constructor() {
+    this.doc = new jsPDF({ orientation: 'landscape', unit: 'pt', format: [PAGE_W, PAGE_H], compress: true });
+    this.doc.setFont(FONT, 'normal');
+  }
+
+  stroke(color: Rgb, width: number, dash: number[] = []): void {
+    this.doc.setDrawColor(color[0], color[1], color[2]);
+    this.doc.setLineWidth(width);
+    this.doc.setLineDashPattern(dash, 0);
+  }
+
+  fill(color: Rgb): void {
+    this.doc.setFillColor(color[0], color[1], color[2]);
+  }
+
+  font(size: number, style: 'normal' | 'bold' | 'italic' = 'normal', color: Rgb = BLACK): void {
+    this.doc.setFont(FONT, style);
+    this.doc.setFontSize(size);
+    this.doc.setTextColor(color[0], color[1], color[2]);
+  }
+
+  text(s: string | string[], x: number, y: number, opts: { align?: 'left' | 'center' | 'right'; baseline?: 'top' | 'middle' | 'bottom' | 'alphabetic' } = {}): void {
+    this.doc.text(Array.isArray(s) ? s.map(pdfSafe) : pdfSafe(s), x, y, { baseline: opts.baseline ?? 'alphabetic', align: opts.align ?? 'left' });
+  }
+
+  split(s: string, width: number): string[] {
+    return this.doc.splitTextToSize(pdfSafe(s), width) as string[];
+  }
+
+  newPage(): void {
+    this.doc.addPage([PAGE_W, PAGE_H], 'landscape');
+    this.y = M;
+  }
+
+  /** Starts a new page when `h` more points would run into the footer. */
+  need(h: number, onNewPage?: () => void): void {
+    if (this.y + h > BODY_BOTTOM) {
+      this.newPage();
+      onNewPage?.();
+    }
+  }
+
+  heading(s: string): void {
+    this.need(40);
+    this.font(14, 'bold');
+    this.text(s, M, this.y + 14);
+    this.y += 24;
+  }
+}
+
+export interface DrawBox {
+  x: number;
+  y: number;
+  w: number;
+  h: number;
+}
+
+export interface Rect {
+  x: number;
+  y: number;
+  w: number;
+  h: number;
+}

@@ -1,0 +1,65 @@
+import type { Project } from '../../model/schema';
+import type { AnalysisReport } from '../../analyze/types';
+import { CAUTION } from '../../caution';
+import { TOOL_NAME, TOOL_VERSION } from '../version';
+import { BLACK, GREY, LIGHT, type DrawBox, type Sheet } from './sheet';
+
+export function drawTitleBlock(sh: Sheet, report: AnalysisReport, project: Project, generated: string, box: DrawBox): void {
+  const d = sh.doc;
+  sh.stroke(BLACK, 1.2);
+  d.rect(box.x, box.y, box.w, box.h, 'S');
+  const x = box.x + 8;
+  const w = box.w - 16;
+  let y = box.y + 6;
+  sh.font(6.5, 'normal', GREY);
+  sh.text('PROJECT', x, y + 6);
+  y += 9;
+  sh.font(11, 'bold');
+  const name = sh.split(report.projectName || project.project.name, w);
+  sh.text(name, x, y + 10);
+  y += 13 * name.length + 2;
+  const rows: [string, string][] = [
+    ['CODE EDITION', `NFPA 70 (NEC) ${report.edition}`],
+    ['PREPARED BY', project.project.preparedBy ?? 'not stated'],
+    ['GENERATED', generated],
+    ['SCALE', 'not to scale (one-line diagram)'],
+    ['PRODUCED WITH', `${TOOL_NAME} ${TOOL_VERSION}`],
+  ];
+  for (const [k, v] of rows) {
+    sh.stroke(GREY, 0.4);
+    d.line(box.x, y, box.x + box.w, y);
+    sh.font(6.5, 'normal', GREY);
+    sh.text(k, x, y + 8);
+    sh.font(8, 'normal');
+    sh.text(v, x + 72, y + 8.5);
+    y += 13;
+  }
+  d.line(box.x, y, box.x + box.w, y);
+  sh.fill(LIGHT);
+  d.rect(box.x, y, box.w, 16, 'F');
+  sh.font(8.5, 'bold');
+  sh.text('FOR REVIEW — NOT A VERDICT OF ACCEPTANCE', box.x + box.w / 2, y + 11, { align: 'center' });
+  y += 20;
+  sh.font(6.8, 'normal');
+  const caution = sh.split(report.caution || CAUTION, w);
+  sh.text(caution, x, y + 6);
+}
+
+export function drawSummary(sh: Sheet, report: AnalysisReport, x: number, y: number): number {
+  const sev = report.counts.bySeverity;
+  sh.font(11, 'bold');
+  sh.text('Summary', x, y + 11);
+  y += 22;
+  sh.font(8, 'normal');
+  const lines = [
+    `${report.conductors.length} conductors checked`,
+    `violations: ${sev.violation ?? 0} (numbered circles)`,
+    `needs AHJ review: ${sev['needs-ahj'] ?? 0} (numbered triangles)`,
+    `warnings: ${sev.warning ?? 0}, info: ${sev.info ?? 0} (findings pages)`,
+  ];
+  for (const l of lines) {
+    sh.text(l, x, y);
+    y += 11;
+  }
+  return y;
+}
