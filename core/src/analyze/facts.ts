@@ -157,7 +157,7 @@ export function baseRunFacts(
     let inRaceway = true;
     let damage: RunFacts['damageProtection'] = 'raceway';
     let outdoors = true;
-    let leaves = false;
+    let leaves: boolean | null = false;
     let beyond = false;
     let cord = false;
     for (const ci of members) {
@@ -173,7 +173,9 @@ export function baseRunFacts(
       if (c.damageProtection === 'none' || (c.damageProtection === 'raceway' && !conduit)) damage = 'none';
       else if (c.damageProtection === 'other-approved-means' && damage === 'raceway') damage = 'other-approved-means';
       if (!c.outdoors) outdoors = false;
-      leaves ||= c.leavesEnclosure;
+      // One segment that leaves makes the run leave; otherwise one unstated segment leaves it unstated.
+      if (c.leavesEnclosure === true) leaves = true;
+      else if (c.leavesEnclosure === undefined && leaves === false) leaves = null;
       beyond ||= c.extendsBeyondEquipment;
       cord ||= c.multioutletCordAndPlug;
     }

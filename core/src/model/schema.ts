@@ -183,8 +183,12 @@ export const conductor = z.strictObject({
   currentCarrying: z.number().int().min(1).max(200).default(3).describe('Current-carrying conductors in the raceway or cable, all sets counted (310.15(C)(1)).'),
   /** 110.14(C): lowest temperature rating of the terminations at either end. */
   terminalTempC: z.union([z.literal(60), z.literal(75), z.literal(90)]).default(75).describe('110.14(C): lowest temperature rating of the terminations at either end.'),
-  /** 240.21(B)(1), (C)(2): a field installation that leaves the enclosure where the tap is made. */
-  leavesEnclosure: z.boolean().default(false).describe('240.21(B)(1), (C)(2): a field installation that leaves the enclosure where the tap is made.'),
+  /**
+   * 240.21(B)(1), (C)(2): a field installation that leaves the enclosure where the tap is made.
+   * Absent means not stated: a tap between two pieces of equipment leaves the enclosure, so the
+   * rules take the conservative case (leaving) and say so in the working.
+   */
+  leavesEnclosure: z.boolean().optional().describe('240.21(B)(1), (C)(2): a field installation that leaves the enclosure where the tap is made. Not stated: taken as leaving (the conservative case).'),
   /** 240.21(B)(1), (C)(2): the conductor runs past the equipment it supplies. */
   extendsBeyondEquipment: z.boolean().default(false).describe('240.21(B)(1), (C)(2): the conductor runs past the equipment it supplies.'),
   /** 240.21(B)(5), (C)(4): outdoors except at the point of termination. */

@@ -75,7 +75,8 @@ export interface RunFacts {
   /** Weakest protection from physical damage along the run. */
   damageProtection: 'raceway' | 'other-approved-means' | 'none';
   outdoors: boolean;
-  leavesEnclosure: boolean;
+  /** A field installation leaving the enclosure where tapped; null when no segment says (the rules then take it as leaving). */
+  leavesEnclosure: boolean | null;
   extendsBeyondEquipment: boolean;
   multioutletCordAndPlug: boolean;
   /** The run passes through splices. */

@@ -49,8 +49,19 @@ export const cases: RuleCases = {
       }),
       source: `${S}; ${T}`,
     },
+    {
+      name: 'leaving the enclosure not stated, so taken as leaving: 461.54 A ≤ 10 × 50 A = 500 A, so 8 AWG Cu at 75 °C (50 A) into a 50 A breaker still qualifies',
+      facts: secondary({ size: '8', ampacityA: 50, leavesEnclosure: null, loadA: 30, calculatedLoadA: 30, termination: terminationAt('ocpd', { ratingA: 50 }) }),
+      source: `${S}; ${T}`,
+    },
   ],
   fails: [
+    {
+      name: 'leaving the enclosure not stated, so taken as leaving: 200 A × 480 / 208 = 461.54 A > 10 × 40 A = 400 A for 8 AWG Cu at 60 °C (40 A) into a 40 A breaker',
+      facts: secondary({ size: '8', ampacityA: 40, leavesEnclosure: null, loadA: 30, calculatedLoadA: 30, termination: terminationAt('ocpd', { ratingA: 40 }) }),
+      expect: ['fieldTenth'],
+      source: `${S}; ${T}`,
+    },
     {
       name: '10.1 ft: over the 10 ft limit',
       facts: secondary({ lengthFt: 10.1 }),

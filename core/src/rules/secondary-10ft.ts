@@ -1,5 +1,5 @@
 import { atLeast, defineRule, toSecondaryA, when } from './define';
-import { TEN_FOOT_MESSAGES, tenFootChecks } from './tap-10ft';
+import { fieldInstallation, TEN_FOOT_MESSAGES, tenFootChecks } from './tap-10ft';
 
 /** 240.21(C)(2): transformer secondary conductors not over 10 ft. */
 export const secondary10ft = defineRule({
@@ -12,11 +12,12 @@ export const secondary10ft = defineRule({
   messages: {
     ...TEN_FOOT_MESSAGES,
     fieldTenth:
-      'Field installation leaving the enclosure: the primary device {{primaryA}} A × {{vp}} V / {{vs}} V ({{reflectedA}} A) must not exceed 10 × the ampacity ({{ampacityA}} A).',
+      'Field installation leaving the enclosure{{stated}}: the primary device {{primaryA}} A × {{vp}} V / {{vs}} V ({{reflectedA}} A) must not exceed 10 × the ampacity ({{ampacityA}} A).',
   },
   check(f) {
     const out = tenFootChecks(f);
-    if (f.leavesEnclosure) {
+    const field = fieldInstallation(f);
+    if (field.applies) {
       const t = f.transformer;
       const P = t?.primaryOcpdA ?? null;
       const reflected = toSecondaryA(P, t);
@@ -27,6 +28,7 @@ export const secondary10ft = defineRule({
           vs: t?.secondaryVoltsLL ?? '?',
           reflectedA: reflected ?? '?',
           ampacityA: f.ampacityA ?? '?',
+          stated: field.stated,
         }),
       );
     }

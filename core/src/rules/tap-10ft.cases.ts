@@ -34,6 +34,11 @@ export const cases: RuleCases = {
       source: `${S}; ${T}`,
     },
     {
+      name: 'leaving the enclosure not stated, so taken as leaving: one tenth of 800 A is 80 A, and 4 AWG Cu at 75 °C (85 A) into an 80 A breaker still qualifies',
+      facts: tap({ lengthFt: 8, size: '4', ampacityA: 85, supplyOcpdA: 800, leavesEnclosure: null, loadA: 60, termination: terminationAt('ocpd', { ratingA: 80 }) }),
+      source: `${S}; ${T}`,
+    },
+    {
       name: 'a tap that stays inside the enclosure has no one-tenth limit: 6 AWG Cu at 75 °C (65 A) from an 800 A feeder into a 60 A breaker',
       facts: tap({ lengthFt: 4, size: '6', ampacityA: 65, supplyOcpdA: 800, loadA: 50, termination: terminationAt('ocpd', { ratingA: 60 }) }),
       source: `${S}; ${T}`,
@@ -91,6 +96,18 @@ export const cases: RuleCases = {
     {
       name: 'field installation leaving the enclosure: one tenth of 1000 A is 100 A, and 2 AWG Cu at 60 °C (95 A) falls just short',
       facts: tap({ size: '2', ampacityA: 95, supplyOcpdA: 1000, leavesEnclosure: true, loadA: 80, termination: terminationAt('ocpd', { ratingA: 90 }) }),
+      expect: ['fieldTenth'],
+      source: `${S}; ${T}`,
+    },
+    {
+      name: 'leaving the enclosure not stated, so taken as leaving: 8 ft of 12 AWG Cu at 75 °C (25 A) off an 800 A feeder into a 20 A breaker, one tenth of 800 A is 80 A > 25 A',
+      facts: tap({ lengthFt: 8, size: '12', ampacityA: 25, smallConductorMaxOcpdA: 20, supplyOcpdA: 800, leavesEnclosure: null, loadA: 16, calculatedLoadA: 16, termination: terminationAt('ocpd', { ratingA: 20 }) }),
+      expect: ['fieldTenth'],
+      source: `${S}; ${T}; 240.4(D)(5) (12 AWG Cu at most 20 A)`,
+    },
+    {
+      name: 'leaving the enclosure not stated, at the limit across it: one tenth of 1000 A is 100 A, and 2 AWG Cu at 60 °C (95 A) falls short',
+      facts: tap({ size: '2', ampacityA: 95, supplyOcpdA: 1000, leavesEnclosure: null, loadA: 80, termination: terminationAt('ocpd', { ratingA: 90 }) }),
       expect: ['fieldTenth'],
       source: `${S}; ${T}`,
     },

@@ -28,6 +28,16 @@ export function tenFootChecks(f: RunFacts): Check<Id>[] {
   ];
 }
 
+/**
+ * Whether the one-tenth limit of a field installation applies, and how the
+ * working says so: a tap between two pieces of equipment leaves the enclosure
+ * unless the drawing says it does not, so an unstated fact is taken as leaving.
+ */
+export function fieldInstallation(f: RunFacts): { applies: boolean; stated: string } {
+  if (f.leavesEnclosure === false) return { applies: false, stated: '' };
+  return { applies: true, stated: f.leavesEnclosure === null ? ' (not stated, so taken as leaving: the conservative case)' : '' };
+}
+
 export const TEN_FOOT_MESSAGES = {
   length: 'Length {{lengthFt}} ft; must be at most 10 ft.',
   load: LOAD_MESSAGE,
@@ -46,13 +56,14 @@ export const tap10ft = defineRule<Id>({
   lengthLimit: { maxFt: 10, conditionId: 'length' },
   messages: {
     ...TEN_FOOT_MESSAGES,
-    fieldTenth: 'Field installation leaving the enclosure: ampacity ({{ampacityA}} A) must be at least one tenth of the {{feederA}} A feeder device ({{minA}} A).',
+    fieldTenth: 'Field installation leaving the enclosure{{stated}}: ampacity ({{ampacityA}} A) must be at least one tenth of the {{feederA}} A feeder device ({{minA}} A).',
   },
   check(f) {
     const out = tenFootChecks(f);
-    if (f.leavesEnclosure) {
+    const field = fieldInstallation(f);
+    if (field.applies) {
       const minA = f.supplyOcpdA === null ? null : f.supplyOcpdA / 10;
-      out.push(when('fieldTenth', atLeast(f.ampacityA, minA), { ampacityA: f.ampacityA ?? '?', feederA: f.supplyOcpdA ?? '?', minA: minA ?? '?' }));
+      out.push(when('fieldTenth', atLeast(f.ampacityA, minA), { ampacityA: f.ampacityA ?? '?', feederA: f.supplyOcpdA ?? '?', minA: minA ?? '?', stated: field.stated }));
     }
     return out;
   },

@@ -99,6 +99,16 @@ describe('feeder taps, 240.21(B)', () => {
     expect(over.verdict).toBe('unprotected');
   });
 
+  it('leaving the enclosure not stated is taken as leaving: 8 ft of 12 AWG Cu off an 800 A feeder into a 20 A breaker fails the one-tenth rule, 25 A < 80 A (NFPA 70-2023 240.21(B)(1)(4))', () => {
+    const c = verdictOf(run(feederTap({ size: '12', lengthFt: 8 }, { feederA: 800, endA: 20 })), 'TAP');
+    expect(c.verdict).toBe('unprotected');
+    const tenth = c.tried.find((t) => t.ruleId === 'tap-10ft')!.conditions.find((x) => x.id === 'fieldTenth')!;
+    expect(tenth.status).toBe('fail');
+    expect(tenth.text).toContain('not stated, so taken as leaving');
+    // Stated as staying inside the enclosure, the same tap is a 10 ft tap.
+    expect(verdictOf(run(feederTap({ size: '12', lengthFt: 8, leavesEnclosure: false }, { feederA: 800, endA: 20 })), 'TAP').verdict).toBe('tap-10ft');
+  });
+
   it('one tenth of 800 A is 80 A: a field-installed 10 ft tap leaving the enclosure needs 4 AWG Cu (85 A), 6 AWG (65 A) fails (DOMAIN.md check value, common practice)', () => {
     const ok = verdictOf(run(feederTap({ size: '4', lengthFt: 8, leavesEnclosure: true }, { feederA: 800, endA: 80 })), 'TAP');
     expect(ok.verdict).toBe('tap-10ft');

@@ -74,7 +74,10 @@ export function kindSpec(kind: EquipmentKind): KindSpec {
   return KIND_SPECS[kind] as KindSpec;
 }
 
-/** Defaults for a conductor drawn port to port; length stays empty so the check asks for it. */
+/**
+ * Defaults for a conductor drawn port to port. Length, size and whether it leaves the
+ * enclosure stay unstated so the check asks for them instead of taking a guess.
+ */
 export function newConductorFields(): Omit<Conductor, 'id' | 'from' | 'to'> {
   return {
     material: 'cu',
@@ -85,7 +88,6 @@ export function newConductorFields(): Omit<Conductor, 'id' | 'from' | 'to'> {
     ambientC: 30,
     currentCarrying: 3,
     terminalTempC: 75,
-    leavesEnclosure: false,
     extendsBeyondEquipment: false,
     outdoors: false,
     damageProtection: 'raceway',

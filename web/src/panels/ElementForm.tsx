@@ -166,7 +166,7 @@ function FieldRow({ field, target, element }: { field: Field; target: ElementTar
             else commit(candidate, field.label.toLowerCase());
           }}
         >
-          {(field.optional || current === undefined) && <option value="">— not given —</option>}
+          {(field.optional || current === undefined) && <option value="">{field.emptyLabel ?? '— not given —'}</option>}
           {field.options.map((o) => (
             <option key={String(o)} value={String(o)}>
               {field.optionLabels?.[String(o)] ?? String(o)}

@@ -7,7 +7,9 @@ import {
 export type Field =
   | { type: 'text' | 'textarea'; key: string; label: string; optional?: boolean; help?: string }
   | { type: 'number'; key: string; label: string; unit?: string; optional?: boolean; integer?: boolean; help?: string }
-  | { type: 'select'; key: string; label: string; options: readonly (string | number)[]; optionLabels?: Record<string, string>; optional?: boolean; help?: string }
+  | { type: 'select'; key: string; label: string; options: readonly (string | number | boolean)[]; optionLabels?: Record<string, string>; optional?: boolean; help?: string;
+      /** Text of the empty choice of an optional select (default '— not given —'). */
+      emptyLabel?: string }
   | { type: 'checkbox'; key: string; label: string; help?: string }
   /** Adds or removes an optional sub-object; its fields follow, shown only when present. */
   | { type: 'group'; key: string; label: string; make: () => Record<string, unknown>; fields: Field[]; help?: string };
@@ -92,7 +94,11 @@ export const CONDUCTOR_FIELDS: Field[] = [
   { type: 'number', key: 'currentCarrying', label: 'Current-carrying conductors in raceway', integer: true },
   { type: 'select', key: 'wiring', label: 'Wiring method', options: WIRING_METHODS, optionLabels: WIRING_LABELS },
   { type: 'select', key: 'damageProtection', label: 'Protection from physical damage', options: DAMAGE_PROTECTION, optionLabels: { raceway: 'raceway', 'other-approved-means': 'other means (AHJ to accept)', none: 'none' } },
-  { type: 'checkbox', key: 'leavesEnclosure', label: 'Field installation leaves the enclosure where tapped' },
+  {
+    type: 'select', key: 'leavesEnclosure', label: 'Field installation leaves the enclosure where tapped', options: [true, false], optional: true,
+    optionLabels: { true: 'yes', false: 'no, stays inside it' }, emptyLabel: '— not stated (taken as leaving) —',
+    help: '240.21(B)(1), (C)(2): not stated counts as leaving, the conservative case',
+  },
   { type: 'checkbox', key: 'extendsBeyondEquipment', label: 'Runs past the equipment it supplies' },
   { type: 'checkbox', key: 'outdoors', label: 'Outdoors except at its termination' },
   { type: 'checkbox', key: 'multioutletCordAndPlug', label: 'Multioutlet branch circuit for cord-and-plug loads' },
