@@ -7,9 +7,23 @@ const PROTECTION_IDS: ReadonlySet<string> = new Set(['protected', 'protected-nex
 import type { RunFacts } from '../rules/facts';
 import { sizeIndexOf, sizeLabel, materialLabel } from '../tables/sizes';
 import { isStandardRating, largestStandardRatingAtMost, nextStandardRatingAbove } from '../tables/standardRatings';
-import { conductorAmpacity } from './facts';
+import { conductorAmpacity } from './ampacities';
+import type { VerdictContext } from './context';
 import type { Fix, RuleTrial } from './types';
 
+
+/** Shared empty list: most runs need no fix. Reports are read-only. */
+const NO_FIXES: Fix[] = Object.freeze([]) as unknown as Fix[];
+
+/** Stage: the fixes of every run that no rule makes acceptable, by run. */
+export function runFixes(ctx: VerdictContext): Fix[][] {
+  const { graph, runs, edition } = ctx;
+  return ctx.verdicts.map((v, r) => {
+    if (v.verdict !== 'unprotected' && v.verdict !== 'tap-from-tap') return NO_FIXES;
+    const members = runs.members[r]!.map((ci) => graph.conductors[ci]!);
+    return suggestFixes(v.facts, members, v.verdict === 'tap-from-tap' ? [] : v.candidates, v.tried, edition);
+  });
+}
 
 /**
  * The cheapest changes that make an unacceptable run acceptable: the smallest

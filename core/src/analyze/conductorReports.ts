@@ -1,0 +1,104 @@
+import type { CodeEdition } from '../model/schema';
+import { ruleCitation } from '../rules/define';
+import type { Graph } from '../topology/graph';
+import type { RunVerdict } from './classify';
+import type { FixedContext } from './context';
+import { effectiveRatingA, nodeLabel } from './equipment';
+import { describeRun } from './summary';
+import type { Citation, ConductorReport, DeviceRef, Finding } from './types';
+
+/** Stage: one report line per conductor, in file order; what a run's conductors share is built once per run. */
+export function conductorReports(ctx: FixedContext & { findings: readonly Finding[] }): ConductorReport[] {
+  const { graph, runs, verdicts, ampacities, edition } = ctx;
+  const findingIdsBySubject = new Map<string, string[]>();
+  for (const f of ctx.findings) {
+    if (f.subject.kind !== 'conductor') continue;
+    const list = findingIdsBySubject.get(f.subject.id) ?? [];
+    list.push(f.id);
+    findingIdsBySubject.set(f.subject.id, list);
+  }
+  const shared = verdicts.map((v) => runShared(graph, v, edition));
+  const conductors: ConductorReport[] = new Array(graph.conductors.length);
+  for (let ci = 0; ci < graph.conductors.length; ci++) {
+    const c = graph.conductors[ci]!;
+    const r = runs.runOf[ci]!;
+    const v = verdicts[r]!;
+    const s = shared[r]!;
+    conductors[ci] = {
+      id: c.id,
+      label: c.label ?? c.id,
+      from: c.from,
+      to: c.to,
+      verdict: v.verdict,
+      rule: v.rule?.id ?? null,
+      cites: s.cites,
+      role: v.role,
+      summary: s.summary,
+      size: c.size,
+      material: c.material,
+      parallelSets: c.parallelSets,
+      lengthFt: c.lengthFt ?? null,
+      ampacity: ampacities[ci]!.working,
+      upstreamDevice: s.device,
+      supply: s.supply,
+      chain: v.facts.conductorIds,
+      tapLengthFt: s.tapLengthFt,
+      load: s.load,
+      tried: v.tried,
+      fixes: ctx.fixes[r]!,
+      findingIds: findingIdsBySubject.get(c.id) ?? NONE,
+    };
+  }
+  return conductors;
+}
+
+interface RunShared {
+  cites: Citation | null;
+  summary: string;
+  device: DeviceRef | null;
+  supply: ConductorReport['supply'];
+  tapLengthFt: number | null;
+  load: ConductorReport['load'];
+}
+
+function runShared(graph: Graph, v: RunVerdict, edition: CodeEdition): RunShared {
+  const device = v.deviceNode >= 0 ? deviceRef(graph, v.deviceNode) : null;
+  const s = v.supply;
+  const supply: ConductorReport['supply'] =
+    s.kind === 'ocpd' || s.kind === 'utility' || s.kind === 'generator' || s.kind === 'transformer'
+      ? { kind: s.kind, id: graph.nodes[s.node]!.id }
+      : { kind: device ? 'ocpd' : 'none', id: device?.id ?? null };
+  const isTap = v.family === 'fed-by-ocpd' && v.verdict !== 'protected' && v.verdict !== 'protected-next-size' && v.verdict !== 'incomplete';
+  const f = v.facts;
+  return {
+    cites: v.rule ? ruleCitation(v.rule, edition) : null,
+    summary: describeRun(v),
+    device,
+    supply,
+    tapLengthFt: v.verdict === 'tap-transformer' ? transformerTapLength(v) : isTap || v.family === 'on-tap' || v.family === 'secondary' ? f.lengthFt : null,
+    load: f.loadA === null || f.calculatedLoadA === null ? null : { flowingA: f.loadA, calculatedA: f.calculatedLoadA },
+  };
+}
+
+/** One DeviceRef per device node, shared by every run it feeds (reports are read-only). */
+const deviceRefs = new WeakMap<Graph, (DeviceRef | undefined)[]>();
+function deviceRef(graph: Graph, v: number): DeviceRef {
+  let byNode = deviceRefs.get(graph);
+  if (!byNode) deviceRefs.set(graph, (byNode = new Array(graph.nodes.length)));
+  let d = byNode[v];
+  if (!d) {
+    const n = graph.nodes[v]!;
+    byNode[v] = d = { id: n.id, kind: n.kind, label: nodeLabel(n), ratingA: effectiveRatingA(n) };
+  }
+  return d;
+}
+
+/** 240.21(B)(3) counts primary plus secondary; the trial that decided it carries the sum for both runs. */
+function transformerTapLength(v: RunVerdict): number | null {
+  const total = v.tried.find((t) => t.ruleId === 'tap-transformer')?.conditions.find((c) => c.id === 'length')?.data.totalFt;
+  return typeof total === 'number' ? total : null;
+}
+
+
+/** Shared empty list: most conductors have no findings. Reports are read-only. */
+const NONE: string[] = Object.freeze([]) as unknown as string[];

@@ -1,0 +1,94 @@
+import type { EquipmentNode } from '../model/schema';
+import type { RunFacts, Termination } from '../rules/facts';
+import { transformerFullLoadA } from '../tables/transformer';
+import type { Graph } from '../topology/graph';
+
+/**
+ * Facts of one piece of equipment as the rules read them: the rating that
+ * counts for an OCPD, what a run ends in, a transformer's or generator's
+ * nameplate currents. Plain lookups on the graph; no judgement.
+ */
+
+/** The rating that counts for an OCPD node (240.6): adjustable trips count their maximum setting unless access is restricted. */
+export function effectiveRatingA(node: EquipmentNode): number | null {
+  if (node.kind === 'breaker') {
+    const t = node.adjustableTrip;
+    if (t) return t.restrictedAccess ? t.longTimeSettingA : t.maxSettingA;
+    return node.ratingA ?? null;
+  }
+  if (node.kind === 'fuse') return node.ratingA ?? null;
+  return null;
+}
+
+export const isOcpd = (node: EquipmentNode): boolean => node.kind === 'breaker' || node.kind === 'fuse';
+
+export function nodeLabel(node: EquipmentNode): string {
+  return node.label && node.label.trim() !== '' ? node.label : node.id;
+}
+
+export function terminationOf(g: Graph, v: number): Termination {
+  if (v < 0) return termination('none', null, '', false, null);
+  const node = g.nodes[v]!;
+  const label = nodeLabel(node);
+  switch (node.kind) {
+    case 'breaker':
+    case 'fuse': {
+      const t = termination('ocpd', node.id, label, node.arrangement === 'single', effectiveRatingA(node));
+      t.atDisconnectingMeans = node.atDisconnectingMeans;
+      t.disconnectLocation = node.disconnectLocation ?? null;
+      return t;
+    }
+    case 'bus': {
+      let sum = 0;
+      let devices = 0;
+      for (const e of g.outEdges[v]!) {
+        const w = e < 0 ? g.linkTo[-e - 1]! : -1;
+        if (w < 0 || !isOcpd(g.nodes[w]!)) continue;
+        const r = effectiveRatingA(g.nodes[w]!);
+        devices++;
+        sum = r === null || Number.isNaN(sum) ? Number.NaN : sum + r;
+      }
+      const t = termination('bus', node.id, label, false, node.busRatingA ?? null);
+      t.busType = node.busType;
+      t.groupedOcpdSumA = devices === 0 || Number.isNaN(sum) ? null : sum;
+      return t;
+    }
+    case 'disconnect':
+      return termination('disconnect', node.id, label, false, node.ratingA ?? null);
+    case 'transformer':
+    case 'load':
+    case 'splice':
+      return termination(node.kind, node.id, label, false, null);
+    default:
+      return termination('none', node.id, label, false, null);
+  }
+}
+
+function termination(kind: Termination['kind'], nodeId: Termination['nodeId'], label: string, single: boolean, ratingA: number | null): Termination {
+  return { kind, nodeId, label, single, ratingA, atDisconnectingMeans: false, disconnectLocation: null, busType: null, groupedOcpdSumA: null };
+}
+
+export function transformerFacts(g: Graph, v: number, primaryOcpd: { ratingA: number | null; id: string | null }): NonNullable<RunFacts['transformer']> {
+  const t = g.nodes[v]!;
+  if (t.kind !== 'transformer') throw new Error(`node ${t.id} is not a transformer`);
+  return {
+    id: t.id,
+    label: nodeLabel(t),
+    kva: t.kva,
+    primaryVoltsLL: t.primaryVoltsLL,
+    secondaryVoltsLL: t.secondaryVoltsLL,
+    phases: t.phases,
+    connection: t.connection,
+    primaryFlaA: transformerFullLoadA(t.kva, t.primaryVoltsLL, t.phases),
+    secondaryFlaA: transformerFullLoadA(t.kva, t.secondaryVoltsLL, t.phases),
+    primaryOcpdA: primaryOcpd.ratingA,
+    primaryOcpdId: (primaryOcpd.id as NonNullable<RunFacts['transformer']>['primaryOcpdId']) ?? null,
+  };
+}
+
+/** A generator's nameplate current (445.13): kVA·1000 / (√3·V) three-phase, kVA·1000 / V single-phase. */
+export function generatorFacts(g: Graph, v: number): RunFacts['generator'] {
+  const n = g.nodes[v]!;
+  if (n.kind !== 'generator') return null;
+  return { id: n.id, kva: n.kva, nameplateA: transformerFullLoadA(n.kva, n.voltsLL, n.phases), overloadPreventedByDesign: n.overloadPreventedByDesign };
+}

@@ -1,0 +1,88 @@
+import type { Conductor } from '../model/schema';
+import type { RunFacts } from '../rules/facts';
+import type { AnalysisContext } from './context';
+import { terminationOf } from './equipment';
+import { conductorLoadA } from './loads';
+
+const RACEWAYS: ReadonlySet<Conductor['wiring']> = new Set(['steel-conduit', 'aluminum-conduit', 'pvc-conduit']);
+
+/**
+ * Facts of each run that do not depend on how anything upstream is judged:
+ * ampacity, length, termination, load, installation. Supply facts (R, the
+ * transformer, the upstream run) are filled in by the classifier.
+ */
+export function baseRunFacts(ctx: AnalysisContext): RunFacts[] {
+  const { project, graph: g, runs, loads, ampacities, edition } = ctx;
+  const site = {
+    qualifiedMaintenance: project.project.qualifiedMaintenance,
+    industrialInstallation: project.project.industrialInstallation,
+    manufacturingWallHeightFt: project.project.manufacturingWallHeightFt ?? null,
+  };
+  const out: RunFacts[] = new Array(runs.members.length);
+  for (let r = 0; r < runs.members.length; r++) {
+    const members = runs.members[r]!;
+    const first = g.conductors[members[0]!]!;
+    let lengthFt: number | null = 0;
+    let ampacityA: number | null = Number.POSITIVE_INFINITY;
+    let small: number | null = null;
+    let inRaceway = true;
+    let damage: RunFacts['damageProtection'] = 'raceway';
+    let outdoors = true;
+    let leaves: boolean | null = false;
+    let beyond = false;
+    let cord = false;
+    for (const ci of members) {
+      const c = g.conductors[ci]!;
+      lengthFt = lengthFt === null || c.lengthFt === undefined ? null : lengthFt + c.lengthFt;
+      const w = ampacities[ci]!.working;
+      if (w === null) ampacityA = null;
+      else if (ampacityA !== null && w.ampacityA < ampacityA) ampacityA = w.ampacityA;
+      if (w?.smallConductorMaxOcpdA != null) small = small === null ? w.smallConductorMaxOcpdA : Math.min(small, w.smallConductorMaxOcpdA);
+      const conduit = RACEWAYS.has(c.wiring);
+      if (!conduit) inRaceway = false;
+      // "Protected by a raceway" needs the run to be in one: a cable or open run so marked is not protected.
+      if (c.damageProtection === 'none' || (c.damageProtection === 'raceway' && !conduit)) damage = 'none';
+      else if (c.damageProtection === 'other-approved-means' && damage === 'raceway') damage = 'other-approved-means';
+      if (!c.outdoors) outdoors = false;
+      // One segment that leaves makes the run leave; otherwise one unstated segment leaves it unstated.
+      if (c.leavesEnclosure === true) leaves = true;
+      else if (c.leavesEnclosure === undefined && leaves === false) leaves = null;
+      beyond ||= c.extendsBeyondEquipment;
+      cord ||= c.multioutletCordAndPlug;
+    }
+    const lastIndex = members[members.length - 1]!;
+    const toNode = g.conductorTo[lastIndex]!;
+    const load = conductorLoadA(loads, g.conductorFrom[members[0]!]!, toNode);
+    out[r] = {
+      edition,
+      conductorIds: members.map((ci) => g.conductors[ci]!.id),
+      material: first.material,
+      size: first.size,
+      parallelSets: first.parallelSets,
+      lengthFt: lengthFt === null ? null : Math.round(lengthFt * 100) / 100,
+      ampacityA,
+      smallConductorMaxOcpdA: small,
+      supplyOcpdA: null,
+      supplyOcpdId: null,
+      supplyOcpdKind: null,
+      termination: terminationOf(g, toNode),
+      loadA: load?.flowingA ?? null,
+      calculatedLoadA: load?.calculatedA ?? null,
+      inRaceway,
+      damageProtection: damage,
+      outdoors,
+      leavesEnclosure: leaves,
+      extendsBeyondEquipment: beyond,
+      multioutletCordAndPlug: cord,
+      hasSplices: members.length > 1,
+      highBay: first.highBay ?? null,
+      site,
+      transformer: null,
+      secondaries: [],
+      generator: null,
+      suppliedFrom: null,
+    };
+  }
+  return out;
+}
+

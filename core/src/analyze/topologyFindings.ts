@@ -1,0 +1,64 @@
+import type { ConductorId, NodeId } from '../model/schema';
+import type { Graph } from '../topology/graph';
+import type { AnalysisContext } from './context';
+import { nodeLabel } from './equipment';
+import { finding, type NewFinding } from './finding';
+import type { ElementRef, Finding } from './types';
+
+/** Most elements a single topology finding lists. */
+const MAX_RELATED = 50;
+
+/** Stage: findings about the shape of the network: loose equipment, several supplies, no source, dangling ends, loops. */
+export function topologyFindings(ctx: AnalysisContext): Finding[] {
+  const { graph: g, onCycle } = ctx;
+  const out: Finding[] = [];
+  const push = (f: NewFinding) => out.push(finding(f));
+  const cycleNodes: ElementRef[] = [];
+  for (let v = 0; v < g.nodes.length; v++) {
+    const n = g.nodes[v]!;
+    const subject: ElementRef = { kind: 'node', id: n.id };
+    const ins = g.inEdges[v]!.length;
+    const outs = g.outEdges[v]!.length;
+    const name = `${nodeLabel(n)}${n.label ? ` (${n.id})` : ''}`;
+    if (onCycle[v]) cycleNodes.push(subject);
+    if (ins === 0 && outs === 0) {
+      push({ ruleId: 'topology', messageId: 'isolated', severity: 'info', cites: null, subject, message: `${name} is not connected to anything.` });
+      continue;
+    }
+    if (ins > 1) {
+      push({
+        ruleId: 'topology',
+        messageId: 'several-supplies',
+        severity: 'warning',
+        cites: null,
+        subject,
+        related: g.inEdges[v]!.map((e) => edgeRef(g, e)),
+        message: `${name} is fed from ${ins} supplies at once; Linewright judges radial systems. Show the transfer equipment, or remove all but one supply.`,
+      });
+    }
+    if (ins === 0 && n.kind !== 'utility' && n.kind !== 'generator') {
+      push({ ruleId: 'topology', messageId: 'no-source', severity: 'warning', cites: null, subject, message: `Nothing supplies ${name}; the conductors below it cannot be judged. Connect it to a source.` });
+    }
+    if (outs === 0 && ins > 0 && (n.kind === 'splice' || n.kind === 'bus' || n.kind === 'disconnect' || n.kind === 'breaker' || n.kind === 'fuse')) {
+      push({ ruleId: 'topology', messageId: 'dangling-end', severity: 'info', cites: null, subject, message: `${name} supplies nothing; is a conductor or load missing below it?` });
+    }
+  }
+  if (cycleNodes.length > 0) {
+    const first = cycleNodes[0]!;
+    push({
+      ruleId: 'topology',
+      messageId: 'cycle',
+      severity: 'warning',
+      cites: null,
+      subject: first,
+      related: cycleNodes.slice(1, MAX_RELATED),
+      message: `${cycleNodes.length} items lie on or below a loop (starting at ${(first as { id: NodeId }).id}); a one-line runs from source to load without loops, so the conductors there are not judged.`,
+    });
+  }
+  return out;
+}
+
+function edgeRef(g: Graph, e: number): ElementRef {
+  return e >= 0 ? { kind: 'conductor', id: g.conductors[e]!.id as ConductorId } : { kind: 'busLink', id: g.links[-e - 1]!.id };
+}
+
