@@ -4,6 +4,7 @@ import { pathToFileURL } from 'node:url';
 import type { AnalysisReport } from '../analyze/types';
 import { CAUTION } from '../caution';
 import type { Project } from '../model/schema';
+import { inertText } from '../report/safeText';
 import { TOOL_NAME, TOOL_VERSION } from '../report/version';
 import { USAGE, USAGE_SHORT, parseArgs, type CheckCommand } from './args';
 
@@ -85,10 +86,11 @@ async function check(cmd: CheckCommand): Promise<number> {
   const loaded = loadProject(text);
   if (!loaded.ok) {
     say(`linewright: ${cmd.file} is not a usable Linewright project (${loaded.errors.length} problem${loaded.errors.length === 1 ? '' : 's'}):`);
-    for (const e of loaded.errors) say(`${e.path || '(file)'}: ${e.message}`);
+    // Paths and messages quote the file's own text (ids, unknown keys): shown inert, never acted on by the terminal.
+    for (const e of loaded.errors) say(inertText(`${e.path || '(file)'}: ${e.message}`));
     return EXIT_BAD_INPUT;
   }
-  for (const notice of loaded.notices ?? []) say(`linewright: ${notice}`);
+  for (const notice of loaded.notices ?? []) say(`linewright: ${inertText(notice)}`);
   const project: Project =
     cmd.edition === null ? loaded.project : { ...loaded.project, project: { ...loaded.project.project, codeEdition: cmd.edition } };
   const report = analyze(project);

@@ -1,9 +1,14 @@
 import type { AnalysisReport } from '../analyze/types';
 import { VERDICT_WORDS, citationText, sizeText } from './format';
+import { spreadsheetCell } from './safeText';
 
-/** RFC 4180 field: quoted when it holds a comma, quote, CR or LF; quotes doubled. */
+/**
+ * RFC 4180 field: quoted when it holds a comma, quote, CR or LF; quotes doubled. Text a spreadsheet could
+ * take as a formula is neutralised first (spreadsheetCell); numbers stay numbers.
+ */
 export function csvField(value: string | number | null): string {
-  const s = value === null ? '' : String(value);
+  const cell = spreadsheetCell(value);
+  const s = cell === null ? '' : String(cell);
   return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 }
 

@@ -3,6 +3,7 @@ export { renderText, wrap, type TextOptions } from './text';
 export { toJsonReport, type JsonReport, type JsonConductor, type JsonFinding, type JsonTrial } from './json';
 export { toSarif, toUriReference, idLines, SARIF_SCHEMA, type SarifLog, type SarifOptions } from './sarif';
 export { toConductorScheduleCsv, csvField, SCHEDULE_COLUMNS } from './csv';
+export { spreadsheetCell, looksLikeFormula, inertText, clipText, textLength } from './safeText';
 export { renderPermitPdf, pdfSafe, type PdfOptions } from './pdf';
 export { layoutNodes, DEFAULT_COLUMN_GAP, DEFAULT_LAYER_GAP, type Point, type LayoutNode, type LayoutEdge, type LayoutOptions } from './layout';
 export { projectJsonSchema, projectJsonSchemaText } from './jsonSchema';

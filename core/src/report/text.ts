@@ -16,6 +16,7 @@ import {
   verdictClass,
   verdictText,
 } from './format';
+import { clipText, inertText, textLength } from './safeText';
 
 export interface TextOptions {
   /** ANSI colour on verdicts and severities; off by default (and words carry the meaning either way). */
@@ -51,18 +52,16 @@ const COLUMNS: Column[] = [
 function deviceCell(c: ConductorReport): string {
   const d = c.upstreamDevice;
   if (!d || d.ratingA === null) return deviceText(d);
-  const whole = deviceText(d);
-  if (whole.length <= 30) return whole;
+  const whole = inertText(deviceText(d));
+  if (textLength(whole) <= 30) return whole;
   const rating = ` ${num(d.ratingA)} A`;
-  return clip(d.label || d.id, 30 - rating.length) + rating;
+  return clipText(inertText(d.label || d.id), 30 - rating.length) + rating;
 }
 
-function clip(s: string, max: number): string {
-  return s.length <= max ? s : `${s.slice(0, max - 1)}…`;
-}
-
+/** Pads by code points, so a row holding an emoji or a CJK label still lines up with its clipped width. */
 function pad(s: string, width: number, align?: 'right'): string {
-  return align === 'right' ? s.padStart(width) : s.padEnd(width);
+  const fill = ' '.repeat(Math.max(0, width - textLength(s)));
+  return align === 'right' ? fill + s : s + fill;
 }
 
 /** Greedy word wrap; words longer than the width stay whole. `hang` indents the continuation lines further. */
@@ -95,7 +94,7 @@ export function renderText(report: AnalysisReport, options: TextOptions = {}): s
 
   const out: string[] = [];
   const sev = report.counts.bySeverity;
-  out.push(paint(ANSI.bold, `Linewright check: ${report.projectName}`));
+  out.push(paint(ANSI.bold, `Linewright check: ${inertText(report.projectName)}`));
   out.push(
     `NEC ${report.edition} · ${report.conductors.length} conductor${report.conductors.length === 1 ? '' : 's'} · ` +
       SEVERITY_ORDER.map((s) => `${SEVERITY_PLURAL[s]}: ${sev[s] ?? 0}`).join(', '),
@@ -107,8 +106,9 @@ export function renderText(report: AnalysisReport, options: TextOptions = {}): s
   out.push(paint(ANSI.bold, 'CONDUCTORS'));
   if (report.conductors.length === 0) out.push('  (the drawing has no conductors)');
   else {
-    const cells = report.conductors.map((c) => COLUMNS.map((col) => clip(col.cell(c, numbers), col.max)));
-    const widths = COLUMNS.map((col, i) => Math.max(col.head.length, ...cells.map((row) => row[i]!.length)));
+    // User text is made inert (no terminal escapes, no forged lines) before it is clipped and padded.
+    const cells = report.conductors.map((c) => COLUMNS.map((col) => clipText(inertText(col.cell(c, numbers)), col.max)));
+    const widths = COLUMNS.map((col, i) => cells.reduce((w, row) => Math.max(w, textLength(row[i]!)), col.head.length));
     const line = (row: string[]) => row.map((s, i) => pad(s, widths[i]!, COLUMNS[i]!.align)).join('  ').trimEnd();
     out.push(line(COLUMNS.map((c) => c.head)));
     out.push(widths.map((w) => '-'.repeat(w)).join('  '));
@@ -130,16 +130,16 @@ export function renderText(report: AnalysisReport, options: TextOptions = {}): s
     out.push(paint(severityColour[severity], `${SEVERITY_WORDS[severity]} (${group.length})`));
     for (const { n, finding } of group) {
       const cite = citationText(finding.cites);
-      out.push(`  [${n}] ${refText(finding.subject)} · ${[cite, `rule ${finding.ruleId}`].filter(Boolean).join(' · ')}`);
-      out.push(...wrap(finding.message, width, '      '));
-      for (const fix of finding.fixes) out.push(...wrap(`fix: ${fixText(fix)}`, width, '      ', '     '));
+      out.push(inertText(`  [${n}] ${refText(finding.subject)} · ${[cite, `rule ${finding.ruleId}`].filter(Boolean).join(' · ')}`));
+      out.push(...wrap(inertText(finding.message), width, '      '));
+      for (const fix of finding.fixes) out.push(...wrap(inertText(`fix: ${fixText(fix)}`), width, '      ', '     '));
     }
   }
   out.push('');
 
   out.push(paint(ANSI.bold, 'ASSUMPTIONS'));
   if (report.assumptions.length === 0) out.push('  none stated');
-  for (const a of report.assumptions) out.push(...wrap(`- ${a}`, width, '  ', '  '));
+  for (const a of report.assumptions) out.push(...wrap(inertText(`- ${a}`), width, '  ', '  '));
   out.push('');
 
   out.push(paint(ANSI.bold, 'CAUTION'));

@@ -71,3 +71,32 @@ describe('toConductorScheduleCsv (RFC 4180)', () => {
     expect(parseRfc4180(`${expected}\r\n`)).toEqual([[input]]);
   });
 });
+
+describe('CSV formula injection (OWASP "CSV Injection" guidance, common practice)', () => {
+  it.each([
+    ['=HYPERLINK("http://example.invalid","x")', `"'=HYPERLINK(""http://example.invalid"",""x"")"`],
+    ['+cmd|\' /C calc\'!A0', `'+cmd|' /C calc'!A0`],
+    ['-2+3', `'-2+3`],
+    ['@SUM(A1:A9)', `'@SUM(A1:A9)`],
+    ['\t=1+1', `'\t=1+1`],
+    ['\r=1+1', `"'\r=1+1"`],
+    ['  =1+1', `'  =1+1`],
+    ['\uFF1D1+1', `'\uFF1D1+1`],
+  ])('a label %j is written as inert text %j', (input, expected) => {
+    expect(csvField(input)).toBe(expected);
+    expect(parseRfc4180(`${expected}\r\n`)[0]![0]!.startsWith("'")).toBe(true);
+  });
+
+  it('numbers stay numbers, negative ones included, and text that merely contains = is left alone', () => {
+    expect(csvField(-12.5)).toBe('-12.5');
+    expect(csvField(0)).toBe('0');
+    expect(csvField('LP-1 = lighting')).toBe('LP-1 = lighting');
+    expect(csvField(null)).toBe('');
+  });
+
+  it('a hostile conductor label reaches the schedule neutralised', () => {
+    const hostile = { ...fixtureReport, conductors: fixtureReport.conductors.map((c, i) => (i === 0 ? { ...c, label: '=HYPERLINK("x")' } : c)) };
+    const rows = parseRfc4180(toConductorScheduleCsv(hostile));
+    expect(rows[1]![SCHEDULE_COLUMNS.indexOf('label')]).toBe(`'=HYPERLINK("x")`);
+  });
+});

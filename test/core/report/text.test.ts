@@ -58,3 +58,30 @@ describe('renderText', () => {
     expect(renderText({ ...cleanReport, conductors: [] })).toContain('(the drawing has no conductors)');
   });
 });
+
+describe('renderText with hostile user text', () => {
+  const hostile = {
+    ...fixtureReport,
+    projectName: 'Plant\x1b[2J',
+    conductors: fixtureReport.conductors.map((c, i) =>
+      i === 0 ? { ...c, label: 'ok\x1b[8m hidden\nC9  forged row' } : i === 1 ? { ...c, label: '🔌'.repeat(40) } : c,
+    ),
+  };
+  const out = renderText(hostile);
+
+  it('passes no control character but the line breaks it writes itself (ESC[8m would hide the verdict that follows)', () => {
+    expect(out).not.toMatch(/[\x00-\x09\x0b-\x1f\x7f-\x9f]/);
+    expect(out).toContain('ok\\x1b[8m hidden\\nC9');
+    expect(out).toContain('Plant\\x1b[2J');
+    expect(out.split('\n').some((l) => l.startsWith('C9  forged'))).toBe(false);
+  });
+
+  it('clips a label of emoji without splitting a surrogate pair, and the row still lines up', () => {
+    expect(out).not.toMatch(/[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/);
+    const rows = out.split('\n');
+    const head = rows.find((l) => l.startsWith('Conductor  '))!;
+    const row = rows.find((l) => l.startsWith(`${hostile.conductors[1]!.id} `))!;
+    const verdictAt = Array.from(head).length - Array.from(head.slice(head.indexOf('Verdict'))).length;
+    expect(Array.from(row).slice(verdictAt - 2, verdictAt).join('')).toBe('  ');
+  });
+});
