@@ -30,6 +30,7 @@ export function spreadsheetCell(value: string | number | null): string | number 
 
 // C0 and C1 controls and DEL, plus the Unicode line/paragraph separators, which a terminal or a
 // line-based reader acts on; bidi controls stay (they are handled by isolation where text is laid out).
+// eslint-disable-next-line no-control-regex -- matching control characters is the point
 const CONTROL = /[\u0000-\u001f\u007f-\u009f\u2028\u2029]/g;
 
 /**

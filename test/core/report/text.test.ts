@@ -70,6 +70,7 @@ describe('renderText with hostile user text', () => {
   const out = renderText(hostile);
 
   it('passes no control character but the line breaks it writes itself (ESC[8m would hide the verdict that follows)', () => {
+    // eslint-disable-next-line no-control-regex -- the test looks for control characters
     expect(out).not.toMatch(/[\x00-\x09\x0b-\x1f\x7f-\x9f]/);
     expect(out).toContain('ok\\x1b[8m hidden\\nC9');
     expect(out).toContain('Plant\\x1b[2J');
