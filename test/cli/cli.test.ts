@@ -5,6 +5,7 @@ import { join, resolve } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { CAUTION } from '@linewright/core';
 import { fixtureInput } from '../core/report/fixture';
+import { CLI_ENTRY } from '../../scripts/build-cli.mjs';
 
 /**
  * End to end: the CLI as a user runs it, in a child process, on temporary files. The exit codes
@@ -15,9 +16,10 @@ const dir = mkdtempSync(join(tmpdir(), 'lw-cli-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 /**
- * Runs the CLI from the repository root; async so the cases run side by side. Most cases use
- * `node --import tsx` (one process instead of npx's three); the `npx tsx` and `npx linewright`
- * forms a user types are each run once below.
+ * Runs the CLI from the repository root; async so the cases run side by side. Most cases run the
+ * built command (core/dist/cli/linewright.mjs, rebuilt from the current source by test/globalSetup.ts)
+ * with node directly, one process instead of npx's three; the `npx tsx` and `npx linewright` forms a
+ * user types are each run once below.
  */
 function run(command: string, prefix: string[], args: string[], input?: string): Promise<{ code: number | null; stdout: string; stderr: string }> {
   return new Promise((done, fail) => {
@@ -32,7 +34,7 @@ function run(command: string, prefix: string[], args: string[], input?: string):
   });
 }
 
-const cli = (args: string[], input?: string) => run(process.execPath, ['--import', 'tsx', 'core/src/cli/main.ts'], args, input);
+const cli = (args: string[], input?: string) => run(process.execPath, [CLI_ENTRY], args, input);
 
 function temp(name: string, content: string): string {
   const path = join(dir, name);
@@ -108,7 +110,7 @@ describe.concurrent('linewright CLI', { timeout: 60_000 }, () => {
     expect(r.stderr).toContain('Usage: linewright check FILE');
   });
 
-  it('runs as `npx tsx core/src/cli/main.ts` and as `npx linewright` (the core/bin shim)', async () => {
+  it('runs as `npx tsx core/src/cli/main.ts` and as `npx linewright` (the built file `bin` names)', async () => {
     const viaTsx = await run('npx', ['tsx', 'core/src/cli/main.ts'], ['check', temp('t.json', JSON.stringify(violating))]);
     expect(viaTsx.code).toBe(1);
     const viaBin = await run('npx', ['linewright'], ['check', temp('b.json', JSON.stringify(clean))]);
