@@ -5,6 +5,7 @@ import { conductorReports } from './conductorReports';
 import { prepareContext } from './context';
 import { collectFindings } from './findings';
 import { runFixes } from './fixes';
+import { runStudies } from '../studies/index';
 import { baseRunFacts } from './runFacts';
 import { SEVERITIES, VERDICTS, type AnalysisReport, type Severity, type Verdict } from './types';
 
@@ -19,7 +20,9 @@ export function analyze(project: Project): AnalysisReport {
   const verdicts = classifyRuns({ ...prepared, facts: baseRunFacts(prepared) });
   const judged = { ...prepared, verdicts };
   const fixed = { ...judged, fixes: runFixes(judged) };
-  const findings = collectFindings(fixed);
+  // Fault current and voltage drop: their findings join the rest; withstand is judged on the taps that passed 240.21.
+  const studies = runStudies(judged);
+  const findings = [...collectFindings(fixed), ...studies.findings];
   const conductors = conductorReports({ ...fixed, findings });
 
   const byVerdict = Object.fromEntries(VERDICTS.map((v) => [v, 0])) as Record<Verdict, number>;
@@ -36,6 +39,7 @@ export function analyze(project: Project): AnalysisReport {
     caution: CAUTION,
     conductors,
     findings,
+    studies: studies.report,
     counts: { conductors: conductors.length, byVerdict, bySeverity },
   };
 }

@@ -1,3 +1,4 @@
+import type { StudiesReport } from '../studies/types';
 import type { CodeEdition, ConductorId, ConductorSize, EquipmentKind, Material, NodeId, BusLinkId } from '../model/schema';
 
 /** Machine-readable verdict for one conductor. Exactly one per conductor. */
@@ -206,6 +207,8 @@ export interface AnalysisReport {
   caution: string;
   conductors: ConductorReport[];
   findings: Finding[];
+  /** Available fault current at every node and voltage drop on every conductor (core/src/studies). */
+  studies?: StudiesReport;
   counts: {
     conductors: number;
     byVerdict: Record<Verdict, number>;

@@ -73,6 +73,8 @@ export const generatorNode = z.strictObject({
   kva: z.number().positive().max(50_000).describe('Rating, kVA.'),
   /** 445.13: the design prevents overload, so 100 % of nameplate instead of 115 %. */
   overloadPreventedByDesign: z.boolean().default(false).describe('445.13: the design prevents overload, so 100 % of nameplate instead of 115 %.'),
+  subtransientReactancePu: z.number().positive().max(1).optional().describe('Subtransient reactance X″d, per unit on the generator\'s kVA (data sheet); a typical value is used when absent.'),
+  xOverR: z.number().positive().max(100).optional().describe('X/R of the generator (X″d over armature resistance); a typical value is used when absent.'),
 });
 
 export const BUS_TYPES = ['switchgear', 'switchboard', 'panelboard', 'tap-box', 'busway'] as const;
@@ -81,6 +83,7 @@ export const busNode = z.strictObject({
   kind: z.literal('bus'),
   busType: z.enum(BUS_TYPES).describe('Kind of bus: switchgear, switchboard, panelboard, tap box or busway.'),
   busRatingA: amps.optional().describe('Bus rating, A; counts as the rating of the equipment a 10 ft tap ends in.'),
+  sccrKA: kiloAmps.optional().describe('110.10: short-circuit current rating of the equipment (switchboard, panelboard…), kA symmetrical.'),
 });
 
 const ocpdCommon = {
@@ -135,6 +138,7 @@ export const transformerNode = z.strictObject({
   secondaryVoltsLL: volts.describe('Secondary line-to-line voltage, V.'),
   phases,
   impedancePct: z.number().positive().max(30).optional().describe('Impedance, %Z.'),
+  xOverR: z.number().positive().max(100).optional().describe('X/R ratio of the transformer impedance; a typical value by kVA is used when absent.'),
   connection: z.enum(TRANSFORMER_CONNECTIONS).describe('Winding connection; 240.21(C)(1) needs single-phase-2w or delta-delta-3w.'),
 });
 
@@ -149,6 +153,7 @@ export const loadNode = z.strictObject({
   continuous: z.boolean().default(false).describe('Continuous: maximum current for 3 h or more (Article 100).'),
   /** Phases of the load itself; defaults to the system's. */
   phases: phases.optional().describe('Phases of the load itself; defaults to the system\'s.'),
+  faultContributionXFlc: z.number().positive().max(10).optional().describe('Motor contribution to a fault, as a multiple of this load\'s full-load current (common practice: 4 for induction motors, 5 for synchronous); absent means none.'),
 });
 
 export const equipmentNode = z.discriminatedUnion('kind', [
@@ -222,10 +227,22 @@ export const projectSettings = z.strictObject({
   qualifiedMaintenance: z.boolean().default(false).describe('240.21(B)(4), (C)(3): conditions of maintenance and supervision ensure only qualified persons service the system.'),
   /** 240.21(C)(3): an industrial installation. */
   industrialInstallation: z.boolean().default(false).describe('240.21(C)(3): an industrial installation.'),
+  voltageDropCircuitPct: z.number().positive().max(20).optional().describe('Largest voltage drop of one feeder or branch circuit, % (210.19, 215.2 informational notes: 3 %). Default 3.'),
+  voltageDropTotalPct: z.number().positive().max(20).optional().describe('Largest voltage drop from the source or transformer secondary to a load, % (informational notes: 5 %). Default 5.'),
+  faultStudyDate: z.string().min(1).max(40).optional().describe('110.24(A): date the available fault current was calculated (e.g. 2026-12-02); marked on service equipment.'),
   preparedBy: label.optional(),
   notes: z.string().max(4000).optional(),
 });
 export type ProjectSettings = z.infer<typeof projectSettings>;
+
+/** 240.86: a series-rated combination the user declares from the manufacturer's tested marking; never inferred. */
+export const seriesRating = z.strictObject({
+  lineSideId: nodeId.describe('Id of the line-side (upstream) breaker or fuse of the tested combination.'),
+  loadSideId: nodeId.describe('Id of the load-side (downstream) breaker whose own interrupting rating is lower.'),
+  combinationKA: kiloAmps.describe('Interrupting rating of the combination as marked on the equipment (240.86(B)), kA.'),
+  note: z.string().max(400).optional().describe('Where the marking is, e.g. the panelboard label.'),
+});
+export type SeriesRating = z.infer<typeof seriesRating>;
 
 export const project = z.strictObject({
   format: z.literal(PROJECT_FORMAT).describe('Always "linewright-project".'),
@@ -234,6 +251,7 @@ export const project = z.strictObject({
   nodes: z.array(equipmentNode).max(500_000),
   conductors: z.array(conductor).max(500_000),
   busLinks: z.array(busLink).max(500_000).default([]),
+  seriesRatings: z.array(seriesRating).max(10_000).optional().describe('240.86 series-rated combinations declared by the user.'),
 });
 export type Project = z.infer<typeof project>;
 /** What a file may hold before defaults are filled in. */

@@ -4,7 +4,7 @@ import type { Citation, ConditionResult, ConditionStatus, RuleTrial, Verdict } f
 import type { CodeEdition } from '../model/schema';
 import type { RunFacts } from './facts';
 
-export type RuleFamily = 'protection' | 'feeder-tap' | 'transformer-secondary' | 'transformer-protection' | 'service' | 'generator' | 'tap-from-tap';
+export type RuleFamily = 'protection' | 'equipment' | 'study' | 'feeder-tap' | 'transformer-secondary' | 'transformer-protection' | 'service' | 'generator' | 'tap-from-tap';
 
 /**
  * One condition of one rule, as the rule's check returns it and as the
@@ -36,7 +36,8 @@ export class Check<K extends string = string> implements ConditionResult {
   }
 }
 
-export interface Rule<K extends string = string> {
+/** A rule over facts `F`: a run's facts for the conductor rules, a study's facts for the equipment and study rules. */
+export interface Rule<K extends string = string, F = RunFacts> {
   id: string;
   /** The verdict a conductor gets when this rule holds; null for a check that only adds findings. */
   verdict: Verdict | null;
@@ -48,10 +49,10 @@ export interface Rule<K extends string = string> {
   /** Condition templates, phrased as the requirement with the values filled in. */
   messages: Readonly<Record<K, string>>;
   /** Pure: facts in, every condition out. No lookups beyond `facts`, no I/O, no clock. */
-  check(facts: RunFacts): Check<NoInfer<K>>[];
+  check(facts: F): Check<NoInfer<K>>[];
 }
 
-export function defineRule<K extends string>(rule: Rule<K>): Rule<K> {
+export function defineRule<K extends string, F = RunFacts>(rule: Rule<K, F>): Rule<K, F> {
   return rule;
 }
 
@@ -85,16 +86,16 @@ export function outcomeOf(checks: readonly Check[]): RuleTrial['outcome'] {
   return unknown ? 'unknown' : 'holds';
 }
 
-const citations = new WeakMap<Rule, Partial<Record<CodeEdition, Citation>>>();
+const citations = new WeakMap<object, Partial<Record<CodeEdition, Citation>>>();
 
 /** The rule's citation in an edition, one frozen object per rule and edition. */
-export function ruleCitation(rule: Rule, edition: CodeEdition): Citation {
+export function ruleCitation(rule: Pick<Rule, 'section'>, edition: CodeEdition): Citation {
   let byEdition = citations.get(rule);
   if (!byEdition) citations.set(rule, (byEdition = {}));
   return (byEdition[edition] ??= Object.freeze(cite(rule.section, edition)));
 }
 
-export function runRule(rule: Rule, facts: RunFacts): RuleTrial {
+export function runRule<F extends { edition: CodeEdition }>(rule: Rule<string, F>, facts: F): RuleTrial {
   const conditions = rule.check(facts);
   for (const c of conditions) c.template = rule.messages[c.id] ?? c.id;
   return { ruleId: rule.id, title: rule.title, cites: ruleCitation(rule, facts.edition), outcome: outcomeOf(conditions), conditions };

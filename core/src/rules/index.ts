@@ -1,4 +1,8 @@
 import type { Rule } from './define';
+import { conductorWithstand } from './conductor-withstand';
+import { equipmentSccr } from './equipment-sccr';
+import { interruptingRating } from './interrupting-rating';
+import { voltageDropRule } from './voltage-drop';
 import { generatorRule } from './generator';
 import { protectedNextSize } from './protected-next-size';
 import { protectedRule } from './protected';
@@ -43,8 +47,16 @@ export const ALL_RULES: readonly Rule[] = [
   transformerProtection,
 ];
 
+/**
+ * Equipment and study rules, sorted by id: they judge devices, equipment and
+ * circuits from the short-circuit and voltage-drop studies (core/src/studies),
+ * each over facts of its own, and add findings without deciding a verdict.
+ */
+export const STUDY_RULES = [conductorWithstand, equipmentSccr, interruptingRating, voltageDropRule] as const;
+
 export const RULES_BY_ID: ReadonlyMap<string, Rule> = new Map(ALL_RULES.map((r) => [r.id, r]));
 
+export { conductorWithstand, equipmentSccr, interruptingRating, voltageDropRule };
 export { generatorRule, serviceRule, tapFromTap, tapTransformer, transformerProtection };
 export type { Rule } from './define';
 export type { RunFacts, Termination, TransformerFacts } from './facts';

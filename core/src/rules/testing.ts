@@ -9,10 +9,10 @@ import type { GeneratorFacts, RunFacts, Termination, TransformerFacts } from './
  */
 
 /** One reference case: facts in, the expected result, and where that expectation comes from. */
-export type Case = {
+export type Case<F = RunFacts> = {
   /** Carries the arithmetic: 'one third of 600 A is 200 A, so 3/0 Cu at 75 °C (200 A) meets a 25 ft tap'. */
   name: string;
-  facts: RunFacts;
+  facts: F;
   /** In `fails`: exactly the ids of the failing conditions. In `unknown`: exactly the ids of the unknown ones. */
   expect?: string[];
   /** Where the expected outcome comes from: 'NFPA 70-2023 240.21(B)(2)', 'common practice', 'from memory'. */
@@ -20,7 +20,7 @@ export type Case = {
 };
 
 /** A rule's reference table, ESLint RuleTester style. */
-export type RuleCases = { meets: Case[]; fails: Case[]; unknown?: Case[] };
+export type RuleCases<F = RunFacts> = { meets: Case<F>[]; fails: Case<F>[]; unknown?: Case<F>[] };
 
 const id = <T extends string>(s: string): T => s as T;
 

@@ -8,3 +8,7 @@ export * from './smallConductor';
 export * from './conductorProperties';
 export * from './transformer';
 export * from './citations';
+export * from './chapter9Table9';
+export * from './sourceImpedance';
+export * from './conductorWithstand';
+export * from './clearingTime';

@@ -4,7 +4,7 @@ import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { runRule, type Rule } from '../../../core/src/rules/define';
 import type { RunFacts } from '../../../core/src/rules/facts';
-import { ALL_RULES } from '../../../core/src/rules/index';
+import { ALL_RULES, STUDY_RULES } from '../../../core/src/rules/index';
 import type { Case, RuleCases } from '../../../core/src/rules/testing';
 import { baseAmpacityA } from '../../../core/src/tables/ampacity310_16';
 
@@ -69,7 +69,7 @@ describe('rule registry (core/src/rules/index.ts)', () => {
   });
 
   it('every .cases.ts and .md in the folder belongs to a registered rule', () => {
-    const ids = new Set(ALL_RULES.map((r) => r.id));
+    const ids = new Set([...ALL_RULES, ...STUDY_RULES].map((r) => r.id));
     const orphans = [...FILES].filter((f) => {
       const m = /^(.+?)(\.cases\.ts|\.md)$/.exec(f);
       return m !== null && !ids.has(m[1]!);

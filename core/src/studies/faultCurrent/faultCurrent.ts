@@ -1,0 +1,242 @@
+import type { EquipmentNode } from '../../model/schema';
+import { racewayColumn, table9Impedance } from '../../tables/chapter9Table9';
+import {
+  TYPICAL_GENERATOR_XDPP_PU,
+  TYPICAL_GENERATOR_X_OVER_R,
+  TYPICAL_UTILITY_X_OVER_R,
+  typicalTransformerXOverR,
+} from '../../tables/sourceImpedance';
+import { edgeFrom, type Graph } from '../../topology/graph';
+
+/**
+ * Available short-circuit current at every node: the ohmic method with
+ * complex impedances (IEEE Std 141 / IEEE Std 551), one pass in supply-to-load
+ * order, so linear in the size of the drawing.
+ *
+ * Each node keeps the impedance from its source to itself, R + jX in ohms at
+ * the node's own voltage: on a three-phase system the impedance of one phase
+ * (I = V_LL / (√3·|Z|)), on a single-phase system the loop out and back
+ * (I = V / |Z|). Crossing a transformer refers the primary impedance to the
+ * secondary by (Vs/Vp)²; a single-phase transformer or load on a three-phase
+ * system sees the line-to-line loop, twice the phase impedance.
+ *
+ * - Utility: Z = V_LL / (√3·I_sc) at the given X/R, or an infinite bus (Z = 0)
+ *   when the drawing gives no available fault current, which the working says.
+ * - Transformer: Z = %Z/100 · Vs²/S, split by its X/R (or a typical X/R by kVA).
+ * - Generator: X = X″d · V²/S (or a typical X″d), R = X / (X/R).
+ * - Conductor: Chapter 9 Table 9 R and X per 1000 ft for its material, size and
+ *   raceway, × length / 1000 / parallel sets. Conductors at 75 °C as tabulated.
+ *   A conductor without a length or a Table 9 value counts as zero impedance,
+ *   so everything below it is an upper bound, marked as such.
+ * - Motor contribution: loads with `faultContributionXFlc` add that multiple of
+ *   their full-load current at every node behind the same transformer or
+ *   source, undiminished by the conductors between (conservative, stated).
+ *
+ * The result is the three-phase bolted fault on three-phase systems and the
+ * line-to-line bolted fault on single-phase systems.
+ */
+export interface FaultStudy {
+  /** Symmetrical RMS fault current, kA, including motor contribution; NaN when unknown. */
+  kA: Float64Array;
+  /** X/R at the point; NaN when unknown, Infinity for a purely reactive source path. */
+  xOverR: Float64Array;
+  /** R and X from the source to the node, ohms at the node's voltage (phase or loop, see `loop`). */
+  r: Float64Array;
+  x: Float64Array;
+  /** 1 where R, X are a single-phase loop impedance; 0 for a three-phase phase impedance. */
+  loop: Uint8Array;
+  voltsLL: Float64Array;
+  /** Motor contribution included in kA, kA. */
+  motorKA: Float64Array;
+  /** Line-to-ground (line-to-neutral) bolted fault, kA, where the data allows; NaN elsewhere. */
+  lineToGroundKA: Float64Array;
+  /** 1 when an impedance below the source was missing and taken as zero: kA is an upper bound. */
+  upperBound: Uint8Array;
+  /** Why kA is unknown at a node; '' when known. */
+  unknownWhy: string[];
+  /** The node supplying each node (-1 for a source or an unreachable node) and the edge between. */
+  parent: Int32Array;
+  parentEdge: Int32Array;
+  /** The element added at each node: R and X in ohms at the node's voltage (the working text is built on demand). */
+  stepR: Float64Array;
+  stepX: Float64Array;
+  /** The source or transformer whose zone the node lies in (-1 when none). */
+  zone: Int32Array;
+  /** Statements of method and defaults used, once each. */
+  notes: string[];
+}
+
+const SQRT3 = Math.sqrt(3);
+
+/** The three-phase (or single-phase line-to-line) bolted fault at every node; see FaultStudy. */
+export function studyFaultCurrent(g: Graph, order: Int32Array, count: number): FaultStudy {
+  const n = g.nodes.length;
+  const r = new Float64Array(n).fill(Number.NaN);
+  const x = new Float64Array(n).fill(Number.NaN);
+  const loop = new Uint8Array(n);
+  const voltsLL = new Float64Array(n).fill(Number.NaN);
+  const upperBound = new Uint8Array(n);
+  // 1 while the path runs from an infinite bus without a transformer yet to limit it.
+  const infinite = new Uint8Array(n);
+  // 1 at a transformer and at what bus links alone connect to it (its terminals).
+  const atTerminals = new Uint8Array(n);
+  const unknownWhy: string[] = new Array<string>(n).fill('');
+  const parent = new Int32Array(n).fill(-1);
+  const parentEdge = new Int32Array(n).fill(0);
+  const stepR = new Float64Array(n);
+  const stepX = new Float64Array(n);
+  const zone = new Int32Array(n).fill(-1);
+  const notes = new Set<string>();
+
+  for (let k = 0; k < count; k++) {
+    const v = order[k]!;
+    const node = g.nodes[v]!;
+    if (node.kind === 'utility' || node.kind === 'generator') {
+      const s = sourceImpedance(node);
+      voltsLL[v] = node.voltsLL;
+      loop[v] = node.phases === 1 ? 1 : 0;
+      zone[v] = v;
+      r[v] = stepR[v] = s.r;
+      x[v] = stepX[v] = s.x;
+      if (node.kind === 'utility') {
+        if (node.availableFaultKA === undefined) infinite[v] = 1;
+        else if (node.xOverR === undefined) notes.add(`Utility X/R not given: ${TYPICAL_UTILITY_X_OVER_R} used (common practice).`);
+      } else {
+        if (node.subtransientReactancePu === undefined) notes.add(`Generator X″d not given: ${TYPICAL_GENERATOR_XDPP_PU} per unit used (common practice, low end of the typical 0.10–0.25).`);
+        if (node.xOverR === undefined) notes.add(`Generator X/R not given: ${TYPICAL_GENERATOR_X_OVER_R} used (common practice).`);
+      }
+      continue;
+    }
+    const ins = g.inEdges[v]!;
+    if (ins.length !== 1) {
+      unknownWhy[v] = ins.length === 0 ? `nothing supplies ${node.id}` : `${node.id} is fed from ${ins.length} supplies`;
+      continue;
+    }
+    const e = ins[0]!;
+    const u = edgeFrom(g, e);
+    if (u < 0) continue;
+    parent[v] = u;
+    parentEdge[v] = e;
+    zone[v] = zone[u]!;
+    upperBound[v] = upperBound[u]!;
+    infinite[v] = infinite[u]!;
+    unknownWhy[v] = unknownWhy[u]!;
+    atTerminals[v] = e < 0 ? atTerminals[u]! : 0;
+    let ru = r[u]!;
+    let xu = x[u]!;
+    let isLoop = loop[u]!;
+    // A single-phase transformer or load on a three-phase system sees the line-to-line loop.
+    if ((node.kind === 'transformer' || node.kind === 'load') && node.phases === 1 && !isLoop) {
+      ru *= 2;
+      xu *= 2;
+      isLoop = 1;
+    }
+    loop[v] = isLoop;
+    voltsLL[v] = voltsLL[u]!;
+    let dr = 0;
+    let dx = 0;
+    if (e >= 0) {
+      const c = g.conductors[e]!;
+      const z = table9Impedance(c.material, c.size, racewayColumn(c.wiring));
+      if (!z || c.lengthFt === undefined) {
+        upperBound[v] = 1;
+        notes.add('A conductor without a length or a Chapter 9 Table 9 value counts as zero impedance: the fault current below it is an upper bound ("at most").');
+      } else {
+        const factor = ((isLoop ? 2 : 1) * c.lengthFt) / 1000 / c.parallelSets;
+        dr = z.rOhmPerKft * factor;
+        dx = z.xOhmPerKft * factor;
+      }
+    }
+    if (node.kind === 'transformer') {
+      const ratio = node.secondaryVoltsLL / node.primaryVoltsLL;
+      // The primary conductor is referred with the rest of the primary side.
+      ru = (ru + dr) * ratio * ratio;
+      xu = (xu + dx) * ratio * ratio;
+      voltsLL[v] = node.secondaryVoltsLL;
+      zone[v] = v;
+      atTerminals[v] = 1;
+      const t = transformerImpedance(node);
+      if (!t) {
+        unknownWhy[v] = `transformer ${node.id} has no impedance %Z`;
+        dr = dx = 0;
+      } else {
+        if (node.xOverR === undefined) notes.add('Transformer X/R not given: a typical value by kVA used (common practice, IEEE Std 141 typical values).');
+        if (infinite[v]) notes.add('A utility without an available fault current is taken as an infinite bus: the transformer impedance alone limits the fault (conservative).');
+        infinite[v] = 0;
+        dr = t.r;
+        dx = t.x;
+      }
+    }
+    r[v] = ru + dr;
+    x[v] = xu + dx;
+    stepR[v] = dr;
+    stepX[v] = dx;
+  }
+
+  // Motor contribution by zone: summed once, then added everywhere in the zone.
+  const zoneMotorA = new Float64Array(n);
+  for (let v = 0; v < n; v++) {
+    const node = g.nodes[v]!;
+    if (node.kind !== 'load' || node.faultContributionXFlc === undefined || zone[v]! < 0) continue;
+    const flc = loadFullLoadA(node, voltsLL[v]!, loop[v] ? 1 : 3);
+    if (!Number.isFinite(flc)) continue;
+    zoneMotorA[zone[v]!] = zoneMotorA[zone[v]!]! + node.faultContributionXFlc * flc;
+    notes.add("Motor contribution: the stated multiple of each marked load's full-load current, added at every point behind the same transformer or source without reduction by the conductors between (conservative).");
+  }
+
+  const kA = new Float64Array(n).fill(Number.NaN);
+  const xOverR = new Float64Array(n).fill(Number.NaN);
+  const motorKA = new Float64Array(n);
+  const lineToGroundKA = new Float64Array(n).fill(Number.NaN);
+  for (let v = 0; v < n; v++) {
+    if (!unknownWhy[v] && infinite[v]) unknownWhy[v] = `the source ahead of ${g.nodes[v]!.id} has no available fault current (infinite bus) and no transformer limits it; enter availableFaultKA`;
+    if (!unknownWhy[v] && Number.isNaN(r[v]!)) unknownWhy[v] = `${g.nodes[v]!.id} is not reached from a source`;
+    if (unknownWhy[v]) continue;
+    const z = Math.hypot(r[v]!, x[v]!);
+    const sym = voltsLL[v]! / ((loop[v] ? 1 : SQRT3) * z);
+    const m = zone[v]! >= 0 ? zoneMotorA[zone[v]!]! : 0;
+    motorKA[v] = m / 1000;
+    kA[v] = (sym + m) / 1000;
+    xOverR[v] = r[v]! > 0 ? x[v]! / r[v]! : Number.POSITIVE_INFINITY;
+    if (atTerminals[v] && zone[v]! >= 0) {
+      const t = g.nodes[zone[v]!]!;
+      const lg = t.kind !== 'transformer' ? 0 : t.connection === 'delta-wye' ? 1 : t.connection === 'single-phase-3w' ? 1.5 : 0;
+      if (lg > 0) lineToGroundKA[v] = (lg * sym) / 1000;
+    }
+  }
+  if (lineToGroundKA.some((a) => !Number.isNaN(a)))
+    notes.add('Line-to-ground: computed only at the terminals of a grounded-wye transformer secondary (delta primary: zero-sequence impedance taken equal to positive-sequence, so I_LG = I_3φ) and of a center-tapped single-phase secondary (line to neutral about 1.5 × line to line), common practice; elsewhere the return path is not in the drawing.');
+  return { kA, xOverR, r, x, loop, voltsLL, motorKA, lineToGroundKA, upperBound, unknownWhy, parent, parentEdge, stepR, stepX, zone, notes: [...notes] };
+}
+
+/** Transformer R and X on the secondary, ohms (phase or single-phase loop), or null without %Z. */
+export function transformerImpedance(node: Extract<EquipmentNode, { kind: 'transformer' }>): { r: number; x: number; z: number; xOverR: number } | null {
+  if (node.impedancePct === undefined) return null;
+  const xr = node.xOverR ?? typicalTransformerXOverR(node.kva);
+  const z = ((node.impedancePct / 100) * node.secondaryVoltsLL * node.secondaryVoltsLL) / (node.kva * 1000);
+  const r = z / Math.sqrt(1 + xr * xr);
+  return { r, x: r * xr, z, xOverR: xr };
+}
+
+/** Source R and X, ohms: a utility from its available fault current, a generator from X″d; zero for an infinite bus. */
+export function sourceImpedance(node: Extract<EquipmentNode, { kind: 'utility' | 'generator' }>): { r: number; x: number; xOverR: number } {
+  if (node.kind === 'utility') {
+    if (node.availableFaultKA === undefined) return { r: 0, x: 0, xOverR: Number.NaN };
+    const xr = node.xOverR ?? TYPICAL_UTILITY_X_OVER_R;
+    const z = node.voltsLL / ((node.phases === 3 ? SQRT3 : 1) * node.availableFaultKA * 1000);
+    const rs = z / Math.sqrt(1 + xr * xr);
+    return { r: rs, x: rs * xr, xOverR: xr };
+  }
+  const pu = node.subtransientReactancePu ?? TYPICAL_GENERATOR_XDPP_PU;
+  const xr = node.xOverR ?? TYPICAL_GENERATOR_X_OVER_R;
+  const xs = (pu * node.voltsLL * node.voltsLL) / (node.kva * 1000);
+  return { r: xs / xr, x: xs, xOverR: xr };
+}
+
+/** Full-load current of a load, A, from its current or kVA. */
+export function loadFullLoadA(node: Extract<EquipmentNode, { kind: 'load' }>, systemVoltsLL: number, systemPhases: 1 | 3): number {
+  if (node.currentA !== undefined) return node.currentA;
+  if (node.kva === undefined || !(systemVoltsLL > 0)) return Number.NaN;
+  const ph = node.phases ?? systemPhases;
+  return (node.kva * 1000) / (ph === 3 ? SQRT3 * systemVoltsLL : systemVoltsLL);
+}

@@ -1,0 +1,268 @@
+import type { VerdictContext } from '../analyze/context';
+import type { Finding, Severity } from '../analyze/types';
+import { CONDUCTOR_SIZES, type ConductorSize, type EquipmentNode, type Material, type NodeId, type Project } from '../model/schema';
+import type { Check, Rule } from '../rules/define';
+import { conductorWithstand } from '../rules/conductor-withstand';
+import { equipmentSccr } from '../rules/equipment-sccr';
+import { interruptingRating } from '../rules/interrupting-rating';
+import type { InterruptingFacts, WithstandFacts } from '../rules/studyFacts';
+import { voltageDropRule } from '../rules/voltage-drop';
+import { defaultClearingTime } from '../tables/clearingTime';
+import { conductorAreaCmil } from '../tables/conductorProperties';
+import { finalTempC, withstandAreaCmil, withstandConstant, withstandTimeS } from '../tables/conductorWithstand';
+import { insulationRating } from '../tables/insulation';
+import { SIZE_INDEX_14 } from '../tables/sizes';
+import type { Graph } from '../topology/graph';
+import { studyFaultCurrent, type FaultStudy } from './faultCurrent/faultCurrent';
+import type { ConductorDrop, NodeFault, ServiceMarking, StudiesReport, WithstandResult } from './types';
+import { studyVoltageDrop, type VoltageDropStudy } from './voltageDrop/voltageDrop';
+
+export type * from './types';
+
+/** A tap or transformer secondary run and the device whose clearing it relies on (from the classifier). */
+export interface TapRun {
+  /** Conductor indices, supply end first. */
+  conductors: readonly number[];
+  /** The OCPD ahead (for a secondary: the primary device), or -1. */
+  deviceNode: number;
+}
+
+export interface StudiesResult {
+  report: StudiesReport;
+  findings: Finding[];
+  fault: FaultStudy;
+  drop: VoltageDropStudy;
+}
+
+/** Default voltage-drop limits of the informational notes to 210.19 and 215.2, %. */
+export const DEFAULT_VD_CIRCUIT_PCT = 3;
+export const DEFAULT_VD_TOTAL_PCT = 5;
+const MAX_RELATED = 50;
+
+/**
+ * The whole-network studies, after the classifier: available fault current at
+ * every node, voltage drop on every conductor, and the rules that judge them
+ * (110.9, 110.10, conductor withstand of taps and secondaries, voltage drop).
+ * Linear in the size of the drawing.
+ */
+export function runStudies(ctx: VerdictContext): StudiesResult {
+  const taps: TapRun[] = [];
+  ctx.verdicts.forEach((v, r) => {
+    if ((v.verdict.startsWith('tap-') && v.verdict !== 'tap-from-tap') || v.verdict.startsWith('secondary-')) taps.push({ conductors: ctx.runs.members[r]!, deviceNode: v.deviceNode });
+  });
+  return studyNetwork(ctx.project, ctx.graph, ctx.order, ctx.count, taps);
+}
+
+/** The studies over a network and the tap and secondary runs the classifier accepted. */
+export function studyNetwork(project: Project, g: Graph, order: Int32Array, count: number, taps: readonly TapRun[]): StudiesResult {
+  const edition = project.project.codeEdition;
+  const fault = studyFaultCurrent(g, order, count);
+  const drop = studyVoltageDrop(g, { order, count, voltsLL: fault.voltsLL, singlePhase: fault.loop, parent: fault.parent, parentEdge: fault.parentEdge });
+  const findings: Finding[] = [];
+  const push = (rule: Rule<string, never>, severity: Severity, subject: Finding['subject'], checks: readonly Check[], related: Finding['related'] = [], data: Finding['data'] = {}) => {
+    const failed = checks.filter((c) => c.status === 'fail');
+    if (failed.length === 0) return;
+    for (const c of failed) c.template = rule.messages[c.id as keyof typeof rule.messages] ?? c.id;
+    const subjectId = subject.kind === 'project' ? 'project' : subject.id;
+    findings.push({
+      id: `${rule.id}:${subjectId}:${failed[0]!.id}`,
+      ruleId: rule.id,
+      messageId: failed[0]!.id,
+      severity,
+      cites: { code: 'NEC', edition, section: rule.section },
+      subject,
+      related,
+      message: `${failed.map((c) => c.text.replace(/\.$/, '')).join('; ')} (${rule.section}).`,
+      data: { ...failed[0]!.data, ...data },
+      fixes: [],
+    });
+  };
+  const kAt = (v: number): number | null => (Number.isNaN(fault.kA[v]!) ? null : fault.kA[v]!);
+
+  // 110.9 and 110.10, one pass over the equipment.
+  const series = new Map((project.seriesRatings ?? []).map((s) => [s.loadSideId as string, s]));
+  const noRating: NodeId[] = [];
+  for (let v = 0; v < g.nodes.length; v++) {
+    const node = g.nodes[v]!;
+    const subject = { kind: 'node', id: node.id } as const;
+    if (node.kind === 'breaker' || node.kind === 'fuse') {
+      if (node.interruptingKA === undefined) {
+        if (kAt(v) !== null) noRating.push(node.id);
+        continue;
+      }
+      const s = series.get(node.id);
+      const lineSide = s ? g.nodeIndex.get(s.lineSideId) ?? -1 : -1;
+      const facts: InterruptingFacts = {
+        edition,
+        deviceId: node.id,
+        device: label(node),
+        interruptingKA: node.interruptingKA,
+        faultKA: kAt(v),
+        upperBound: fault.upperBound[v] === 1,
+        series: s ? { lineSideId: s.lineSideId, lineSide: lineSide >= 0 ? label(g.nodes[lineSide]!) : s.lineSideId, combinationKA: s.combinationKA, lineSideIsAhead: isAhead(fault, lineSide, v) } : null,
+      };
+      push(interruptingRating, 'violation', subject, interruptingRating.check(facts), s ? [{ kind: 'node', id: s.lineSideId }] : []);
+    } else if (node.kind === 'bus' && node.sccrKA !== undefined) {
+      push(equipmentSccr, 'violation', subject, equipmentSccr.check({ edition, equipmentId: node.id, equipment: label(node), sccrKA: node.sccrKA, faultKA: kAt(v), upperBound: fault.upperBound[v] === 1 }));
+    }
+  }
+  if (noRating.length > 0) {
+    findings.push({
+      id: `${interruptingRating.id}:project:no-rating`,
+      ruleId: interruptingRating.id,
+      messageId: 'no-rating',
+      severity: 'info',
+      cites: { code: 'NEC', edition, section: '110.9' },
+      subject: { kind: 'project' },
+      related: noRating.slice(0, MAX_RELATED).map((id) => ({ kind: 'node', id })),
+      message: `${noRating.length} breaker${noRating.length === 1 ? '' : 's'} or fuse${noRating.length === 1 ? '' : 's'} with a known available fault current ha${noRating.length === 1 ? 's' : 've'} no interrupting rating, so 110.9 is not checked there: enter interruptingKA.`,
+      data: { count: noRating.length },
+      fixes: [],
+    });
+  }
+
+  // Conductor withstand of taps and secondaries.
+  const withstand: WithstandResult[] = [];
+  for (const t of taps) {
+    const first = t.conductors[0];
+    if (first === undefined || t.deviceNode < 0) continue;
+    const device = g.nodes[t.deviceNode]!;
+    if (device.kind !== 'breaker' && device.kind !== 'fuse') continue;
+    const c = g.conductors[first]!;
+    const supply = g.conductorFrom[first]!;
+    const facts = withstandFacts(edition, g, t, device, supply >= 0 ? kAt(supply) : null, supply >= 0 && fault.upperBound[supply] === 1);
+    const checks = conductorWithstand.check(facts);
+    const k = withstandConstant(c.material, facts.initialC, facts.finalC);
+    const allowed = facts.faultKA === null ? null : withstandTimeS(facts.faultKA * 1000, facts.areaCmil * facts.parallelSets, k);
+    withstand.push({ conductorIds: facts.conductorIds, faultKA: facts.faultKA, clearingTimeS: facts.clearingTimeS, clearingBasis: facts.clearingBasis, allowedS: allowed, withstands: allowed === null ? null : allowed >= facts.clearingTimeS });
+    for (const ci of t.conductors) {
+      push(conductorWithstand, 'violation', { kind: 'conductor', id: g.conductors[ci]!.id }, checks, [{ kind: 'node', id: device.id }], {
+        ...(facts.smallestSize ? { smallestSize: facts.smallestSize } : {}),
+        ...(allowed !== null ? { longestClearingS: Number(allowed.toPrecision(3)) } : {}),
+      });
+    }
+  }
+
+  // Voltage drop: each circuit at its end, each load's total.
+  const circuitLimit = project.project.voltageDropCircuitPct ?? DEFAULT_VD_CIRCUIT_PCT;
+  const totalLimit = project.project.voltageDropTotalPct ?? DEFAULT_VD_TOTAL_PCT;
+  const conductorsDrop: ConductorDrop[] = new Array(g.conductors.length);
+  for (let c = 0; c < g.conductors.length; c++) {
+    const cond = g.conductors[c]!;
+    const to = g.conductorTo[c]!;
+    const pct = num(drop.pct[c]!);
+    const circuitPct = to >= 0 && fault.parentEdge[to] === c ? num(drop.circuitPct[to]!) : null;
+    conductorsDrop[c] = { conductorId: cond.id, currentA: num(drop.currentA[c]!), powerFactor: num(drop.powerFactor[c]!), pct, circuitPct, totalPct: to >= 0 && fault.parentEdge[to] === c ? num(drop.totalPct[to]!) : null };
+    if (circuitPct !== null && to >= 0 && endsCircuit(g, to)) {
+      const checks = voltageDropRule.check({ edition, scope: 'circuit', subject: `Conductor ${cond.label ? `${cond.label} (${cond.id})` : cond.id}`, pct: circuitPct, limitPct: circuitLimit });
+      push(voltageDropRule, 'warning', { kind: 'conductor', id: cond.id }, checks);
+    }
+  }
+  for (let v = 0; v < g.nodes.length; v++) {
+    const node = g.nodes[v]!;
+    if (node.kind !== 'load' || Number.isNaN(drop.totalPct[v]!)) continue;
+    push(voltageDropRule, 'warning', { kind: 'node', id: node.id }, voltageDropRule.check({ edition, scope: 'total', subject: `Load ${label(node)}`, pct: drop.totalPct[v]!, limitPct: totalLimit }));
+  }
+
+  const faults: NodeFault[] = new Array(g.nodes.length);
+  for (let v = 0; v < g.nodes.length; v++) {
+    const p = fault.parent[v]!;
+    const known = !Number.isNaN(fault.r[v]!);
+    faults[v] = {
+      nodeId: g.nodes[v]!.id,
+      kA: kAt(v),
+      xOverR: num(fault.xOverR[v]!),
+      lineToGroundKA: num(fault.lineToGroundKA[v]!),
+      motorKA: fault.motorKA[v]!,
+      upperBound: fault.upperBound[v] === 1,
+      voltsLL: num(fault.voltsLL[v]!),
+      ...(fault.unknownWhy[v] ? { unknownWhy: fault.unknownWhy[v] } : {}),
+      parentId: p >= 0 ? g.nodes[p]!.id : null,
+      stepOhms: { r: fault.stepR[v]!, x: fault.stepX[v]! },
+      totalOhms: known ? { r: fault.r[v]!, x: fault.x[v]! } : null,
+    };
+  }
+
+  return {
+    report: {
+      notes: [...fault.notes, ...drop.notes],
+      faults,
+      voltageDrop: { circuitLimitPct: circuitLimit, totalLimitPct: totalLimit, conductors: conductorsDrop },
+      serviceMarkings: serviceMarkings(project, g, fault),
+      withstand,
+    },
+    findings,
+    fault,
+    drop,
+  };
+}
+
+function label(node: EquipmentNode): string {
+  return node.label && node.label.trim() !== '' ? `${node.label} (${node.id})` : node.id;
+}
+
+function num(x: number): number | null {
+  return Number.isFinite(x) ? x : null;
+}
+
+/** Is `a` on the supply path of `b`? Walks b's supply chain (short: a series rating sits in one or two levels). */
+function isAhead(f: FaultStudy, a: number, b: number): boolean {
+  if (a < 0) return false;
+  for (let w = f.parent[b]!, steps = 0; w >= 0 && steps < 10_000; w = f.parent[w]!, steps++) if (w === a) return true;
+  return false;
+}
+
+/** Where a circuit ends for the 3 % check: a device, equipment or load, not a splice or disconnect it passes through. */
+function endsCircuit(g: Graph, v: number): boolean {
+  const kind = g.nodes[v]!.kind;
+  return !((kind === 'splice' || kind === 'disconnect') && g.outEdges[v]!.length > 0);
+}
+
+function withstandFacts(edition: Project['project']['codeEdition'], g: Graph, t: TapRun, device: Extract<EquipmentNode, { kind: 'breaker' | 'fuse' }>, faultKA: number | null, upperBound: boolean): WithstandFacts {
+  const c = g.conductors[t.conductors[0]!]!;
+  const rating = insulationRating(c.insulation);
+  const initialC = rating.tempC;
+  const finalC = finalTempC(rating.thermalClass);
+  const clearing = device.clearingTimeS !== undefined ? { seconds: device.clearingTimeS, basis: 'entered' } : defaultClearingTime(device.kind === 'fuse' ? { kind: 'fuse', currentLimiting: device.currentLimiting } : { kind: 'breaker', adjustableTrip: device.adjustableTrip });
+  // The smallest conductor along the run governs; all members share material and size by construction of a run.
+  return {
+    edition,
+    conductorIds: t.conductors.map((i) => g.conductors[i]!.id),
+    material: c.material,
+    size: c.size,
+    parallelSets: c.parallelSets,
+    areaCmil: conductorAreaCmil(c.size),
+    initialC,
+    finalC,
+    thermalClass: rating.thermalClass,
+    device: `${device.kind} ${label(device)}`,
+    clearingTimeS: clearing.seconds,
+    clearingBasis: clearing.basis === 'entered' ? 'entered' : `${clearing.basis}, common practice`,
+    faultKA,
+    upperBound,
+    smallestSize: faultKA === null ? null : smallestWithstandSize(c.material, c.parallelSets, faultKA * 1000, clearing.seconds, withstandConstant(c.material, initialC, finalC)),
+  };
+}
+
+/** Smallest size (14 AWG up) whose `sets` conductors together carry `currentA` for `timeS`; null when none does. */
+export function smallestWithstandSize(_material: Material, sets: number, currentA: number, timeS: number, constant: number): ConductorSize | null {
+  const need = withstandAreaCmil(currentA, timeS, constant) / sets;
+  for (let i = SIZE_INDEX_14; i < CONDUCTOR_SIZES.length; i++) if (conductorAreaCmil(CONDUCTOR_SIZES[i]!) >= need) return CONDUCTOR_SIZES[i]!;
+  return null;
+}
+
+/** 110.24(A): the first equipment a utility supplies, through service conductors and splices. */
+function serviceMarkings(project: Project, g: Graph, f: FaultStudy): ServiceMarking[] {
+  const out: ServiceMarking[] = [];
+  const date = project.project.faultStudyDate ?? null;
+  for (let v = 0; v < g.nodes.length; v++) {
+    const node = g.nodes[v]!;
+    if (node.kind === 'utility' || node.kind === 'splice' || node.kind === 'load' || node.kind === 'transformer' || node.kind === 'generator') continue;
+    let u = f.parent[v]!;
+    if (u < 0 || f.parentEdge[v]! < 0) continue;
+    while (u >= 0 && g.nodes[u]!.kind === 'splice') u = f.parent[u]!;
+    if (u < 0 || g.nodes[u]!.kind !== 'utility') continue;
+    out.push({ nodeId: node.id, label: label(node), kA: Number.isNaN(f.kA[v]!) ? null : f.kA[v]!, upperBound: f.upperBound[v] === 1, date });
+  }
+  return out;
+}
