@@ -13,7 +13,7 @@ import { loadProject } from '@linewright/core';
 
 const dir = fileURLToPath(new URL('../fixtures/malformed/', import.meta.url));
 const expected = JSON.parse(readFileSync(join(dir, 'expected.json'), 'utf8')) as {
-  fixtures: Record<string, { paths: string[]; why: string }>;
+  fixtures: Record<string, { paths: string[]; why: string; message?: string }>;
 };
 const files = readdirSync(dir).filter((f) => f !== 'expected.json' && f !== 'README.md').sort();
 
@@ -49,6 +49,10 @@ describe.each(files)('%s', (file) => {
       paths.some((p) => entry.paths.includes(p)),
       `expected an error at ${entry.paths.map((p) => JSON.stringify(p)).join(' or ')}; got ${JSON.stringify(result.errors)}`,
     ).toBe(true);
+    if (entry.message !== undefined) {
+      const named = result.errors.find((e) => entry.paths.includes(e.path))!;
+      expect(named.message, 'the message says what was expected and what was found').toContain(entry.message);
+    }
     for (const e of result.errors) {
       expect(typeof e.message).toBe('string');
       expect(e.message.trim().length, `empty message at ${JSON.stringify(e.path)}`).toBeGreaterThan(0);

@@ -95,6 +95,9 @@ async function check(cmd: CheckCommand): Promise<number> {
     cmd.edition === null ? loaded.project : { ...loaded.project, project: { ...loaded.project.project, codeEdition: cmd.edition } };
   const report = analyze(project);
   const output = await render(cmd, report, text);
+  // Everything is rendered before anything is written: a renderer that fails is our bug (exit 3, below in
+  // main), never reported as a file that cannot be written.
+  const pdf = cmd.pdf === null ? null : (await import('../report/pdf')).renderPermitPdf(project, report);
 
   const written: string[] = [];
   try {
@@ -102,9 +105,8 @@ async function check(cmd: CheckCommand): Promise<number> {
       writeFileSync(cmd.out, output);
       written.push(`report (${cmd.format}) to ${cmd.out}`);
     }
-    if (cmd.pdf !== null) {
-      const { renderPermitPdf } = await import('../report/pdf');
-      writeFileSync(cmd.pdf, renderPermitPdf(project, report));
+    if (cmd.pdf !== null && pdf !== null) {
+      writeFileSync(cmd.pdf, pdf);
       written.push(`permit-set PDF to ${cmd.pdf}`);
     }
   } catch (e) {

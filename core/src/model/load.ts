@@ -2,6 +2,7 @@ import type { z } from 'zod';
 import { CONDUCTOR_SIZES, project, type Project } from './schema';
 import { migrateToCurrent } from './migrations';
 import { compileSchema, FAIL } from './fastParse';
+import { foundText } from './found';
 
 const fastProject = compileSchema(project);
 import type { LoadError } from '../analyze/types';
@@ -12,6 +13,13 @@ export type LoadResult =
 
 /** Most errors worth listing at once; past that the file is wrong wholesale. */
 const MAX_ERRORS = 50;
+
+/**
+ * Deepest nesting of arrays and objects a file may have. A project itself is five levels deep
+ * (root, list, item, sub-object, value); the limit leaves room for notes another tool adds, and stops a
+ * hostile file (thousands of nested arrays) before any recursive step could overflow the stack.
+ */
+export const MAX_DEPTH = 64;
 
 /**
  * Read a project from JSON text or an already-parsed value: parse, migrate,
@@ -32,6 +40,15 @@ export function loadProject(input: unknown): LoadResult {
   if (typeof raw !== 'object' || raw === null || Array.isArray(raw)) {
     return fail([{ path: '', message: `A project file is a JSON object; this one holds ${describe(raw)}.` }]);
   }
+  const tooDeep = findTooDeep(raw, MAX_DEPTH);
+  if (tooDeep !== null) {
+    return fail([
+      {
+        path: tooDeep,
+        message: `Nested more than ${MAX_DEPTH} levels deep here; a Linewright project is only a few levels deep. Remove or flatten this field.`,
+      },
+    ]);
+  }
   const migrated = migrateToCurrent(raw as Record<string, unknown>);
   if (!migrated.ok) return fail(migrated.errors);
 
@@ -39,7 +56,8 @@ export function loadProject(input: unknown): LoadResult {
   // The compiled validator answers for valid files; zod is asked only to explain a failure.
   let data = fastProject(migrated.value) as Project | typeof FAIL;
   if (data === FAIL) {
-    let parsed = project.safeParse(migrated.value);
+    const source = migrated.value;
+    let parsed = project.safeParse(source);
     // Fields Linewright does not know (a "$schema" line, another tool's notes) are set aside with a notice
     // rather than refusing the whole drawing; any real error is still an error.
     if (!parsed.success && parsed.error.issues.every((i) => i.code === 'unrecognized_keys')) {
@@ -53,13 +71,17 @@ export function loadProject(input: unknown): LoadResult {
       }
       parsed = project.safeParse(cleaned);
     }
-    if (!parsed.success) return fail(parsed.error.issues.slice(0, MAX_ERRORS).map(issueToError));
+    if (!parsed.success) return fail(parsed.error.issues.slice(0, MAX_ERRORS).map((issue) => issueToError(issue, source)));
     data = parsed.data;
   }
 
   const errors = checkConsistency(data);
   if (errors.length > 0) return fail(errors.slice(0, MAX_ERRORS));
   return { ok: true, project: data, notices };
+}
+
+function article(expected: string): string {
+  return `${/^[aeiou]/.test(expected) ? 'an' : 'a'} ${expected}`;
 }
 
 function fail(errors: LoadError[]): LoadResult {
@@ -72,6 +94,36 @@ function describe(v: unknown): string {
   return `a ${typeof v}`;
 }
 
+/**
+ * The path to the first value nested deeper than `limit`, or null. Iterative, so the check itself cannot
+ * overflow the stack however deep the input goes; the path is cut short after a few steps to stay readable.
+ */
+export function findTooDeep(root: unknown, limit: number): string | null {
+  const stack: { value: unknown; depth: number; path: readonly PropertyKey[] }[] = [{ value: root, depth: 0, path: [] }];
+  while (stack.length > 0) {
+    const { value, depth, path } = stack.pop()!;
+    if (typeof value !== 'object' || value === null) continue;
+    if (depth >= limit) return formatPath(path.length > 8 ? [...path.slice(0, 6), '…'] : path);
+    // Paths are kept only for the first few levels: that is all a message shows.
+    const child = (k: PropertyKey) => (path.length > 8 ? path : [...path, k]);
+    if (Array.isArray(value)) for (let i = value.length - 1; i >= 0; i--) stack.push({ value: value[i], depth: depth + 1, path: child(i) });
+    else for (const k of Object.keys(value)) stack.push({ value: (value as Record<string, unknown>)[k], depth: depth + 1, path: child(k) });
+  }
+  return null;
+}
+
+/** The value at a zod issue path in the input, and whether its last key is present at all. */
+function lookup(root: unknown, path: readonly PropertyKey[]): { present: boolean; value: unknown } {
+  let owner: unknown = root;
+  for (let i = 0; i < path.length; i++) {
+    if (typeof owner !== 'object' || owner === null) return { present: false, value: undefined };
+    const key = path[i]!;
+    if (i === path.length - 1) return { present: Object.prototype.hasOwnProperty.call(owner, key), value: (owner as Record<PropertyKey, unknown>)[key] };
+    owner = (owner as Record<PropertyKey, unknown>)[key];
+  }
+  return { present: true, value: owner };
+}
+
 /** `['conductors', 3, 'lengthFt']` → `conductors[3].lengthFt`. */
 export function formatPath(path: readonly PropertyKey[]): string {
   let out = '';
@@ -82,21 +134,25 @@ export function formatPath(path: readonly PropertyKey[]): string {
   return out;
 }
 
-function issueToError(issue: z.core.$ZodIssue): LoadError {
+function issueToError(issue: z.core.$ZodIssue, source: unknown): LoadError {
   const path = formatPath(issue.path);
   const field = String(issue.path[issue.path.length - 1] ?? 'value');
+  // zod does not keep the input in its issues; read what the file holds at that path instead.
+  const at = lookup(source, issue.path);
   switch (issue.code) {
-    case 'invalid_type':
-      return {
-        path,
-        message:
-          issue.input === undefined
-            ? `"${field}" is required (${issue.expected}).`
-            : `"${field}" must be a ${issue.expected}; found ${describe(issue.input)}.`,
-      };
+    case 'invalid_type': {
+      if (!at.present || at.value === undefined) return { path, message: `"${field}" is missing; expected ${article(issue.expected)}.` };
+      const hint =
+        issue.expected === 'number' && typeof at.value === 'string' && at.value.trim() !== '' && Number.isFinite(Number(at.value))
+          ? ' Write the number without quotes.'
+          : '';
+      return { path, message: `"${field}": expected ${issue.expected}, found ${foundText(at.value)}.${hint}` };
+    }
     case 'invalid_value': {
       const values = field === 'size' ? CONDUCTOR_SIZES : issue.values;
-      return { path, message: `"${field}" must be one of ${values.map((v) => JSON.stringify(v)).join(', ')}.` };
+      const list = values.map((v) => JSON.stringify(v)).join(', ');
+      if (!at.present || at.value === undefined) return { path, message: `"${field}" is missing; expected one of ${list}.` };
+      return { path, message: `"${field}" must be one of ${list}; found ${foundText(at.value)}.` };
     }
     case 'invalid_union': {
       if ('options' in issue && Array.isArray(issue.options)) {
@@ -104,7 +160,8 @@ function issueToError(issue: z.core.$ZodIssue): LoadError {
       }
       const literals = issue.errors.flat().flatMap((e) => (e.code === 'invalid_value' ? e.values : []));
       if (literals.length > 0) {
-        return { path, message: `"${field}" must be ${literals.map((v) => JSON.stringify(v)).join(' or ')}.` };
+        const found = !at.present || at.value === undefined ? 'it is missing' : `found ${foundText(at.value)}`;
+        return { path, message: `"${field}" must be ${literals.map((v) => JSON.stringify(v)).join(' or ')}; ${found}.` };
       }
       return { path, message: `"${field}" is not valid: ${issue.message}.` };
     }

@@ -1,5 +1,6 @@
 import { PROJECT_FORMAT, PROJECT_VERSION } from './schema';
 import type { LoadError } from '../analyze/types';
+import { foundText } from './found';
 
 /**
  * Schema versions and the steps between them. Step `n` turns a version-`n`
@@ -26,8 +27,11 @@ export function migrateToCurrent(
     return fail('format', `This is not a Linewright project file: ${found}; expected "format": "${PROJECT_FORMAT}".`);
   }
   const version = raw.version;
+  if (version === undefined) {
+    return fail('version', `"version" is missing; add "version": ${currentVersion} (the file format version) next to "format".`);
+  }
   if (typeof version !== 'number' || !Number.isInteger(version) || version < 1) {
-    return fail('version', `"version" must be a whole number from 1 to ${currentVersion}; found ${JSON.stringify(version)}.`);
+    return fail('version', `"version" must be a whole number from 1 to ${currentVersion}; found ${foundText(version)}.`);
   }
   if (version > currentVersion) {
     return fail(

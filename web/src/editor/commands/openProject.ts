@@ -18,7 +18,14 @@ export const openProject = defineCommand<OpenArg>({
   shortcut: 'Ctrl+O',
   canRun: () => true,
   run: async (ctx, { fileName, text }) => {
-    const r = coreLoadProject(text);
+    let r: ReturnType<typeof coreLoadProject>;
+    try {
+      r = coreLoadProject(text);
+    } catch (e) {
+      // A bug of ours must still say so and keep the drawing, never fail silently.
+      const why = e instanceof Error ? e.message : String(e);
+      r = { ok: false, errors: [{ path: '', message: `Linewright could not read this file (internal error: ${why}). Your drawing is unchanged; please report this with the file.` }] };
+    }
     if (!r.ok) {
       ctx.store.setView({ loadErrors: { fileName, errors: r.errors } });
       return;
