@@ -5,7 +5,7 @@ import { USAGE, parseArgs } from '../../core/src/cli/args';
 // The command line is our own design (no outside source): these cases pin its documented behaviour.
 describe('parseArgs', () => {
   it('check FILE defaults to the text format and writes nothing else', () => {
-    expect(parseArgs(['check', 'samples/a.json'])).toEqual({ command: 'check', file: 'samples/a.json', format: 'text', pdf: null, out: null, edition: null, color: false });
+    expect(parseArgs(['check', 'samples/a.json'])).toEqual({ command: 'check', file: 'samples/a.json', format: 'text', pdf: null, out: null, edition: null, color: false, detail: 'summary' });
   });
 
   it.each([
@@ -16,6 +16,8 @@ describe('parseArgs', () => {
     [['check', 'a.json', '--edition', '2020'], { edition: 2020 }],
     [['check', 'a.json', '--edition=2023'], { edition: 2023 }],
     [['check', 'a.json', '--color'], { color: true }],
+    [['check', 'a.json', '--format', 'json', '--detail', 'full'], { format: 'json', detail: 'full' }],
+    [['check', 'a.json', '--detail=summary'], { detail: 'summary' }],
     [['check', '-'], { file: '-' }],
     [['check', '--', '--odd-name.json'], { file: '--odd-name.json' }],
   ])('%j', (argv, expected) => {
@@ -46,6 +48,7 @@ describe('parseArgs', () => {
     [['check', 'a.json', '--format', 'xml'], 'option --format must be one of text, json, sarif, csv (got "xml")'],
     [['check', 'a.json', '--edition', '2017'], 'option --edition must be 2020 or 2023 (got "2017")'],
     [['check', 'a.json', '--out', 'a', '--out', 'b'], 'option --out given twice'],
+    [['check', 'a.json', '--detail', 'all'], 'option --detail must be summary or full (got "all")'],
   ])('%j is refused naming the problem', (argv, message) => {
     const parsed = parseArgs(argv);
     expect(parsed.command).toBe('error');
@@ -53,7 +56,7 @@ describe('parseArgs', () => {
   });
 
   it('the help names every option and exit code and ends with the caution', () => {
-    for (const flag of ['--format', '--out', '--pdf', '--edition', '--color', '--help', '--version']) expect(USAGE).toContain(flag);
+    for (const flag of ['--format', '--out', '--pdf', '--edition', '--detail', '--color', '--help', '--version']) expect(USAGE).toContain(flag);
     for (const code of ['0  ', '1  ', '2  ', '3  ']) expect(USAGE).toContain(`  ${code}`);
     expect(USAGE.replace(/\s+/g, ' ').trim().endsWith(CAUTION)).toBe(true);
   });

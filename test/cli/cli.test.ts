@@ -130,7 +130,13 @@ describe.concurrent('linewright CLI', { timeout: 60_000 }, () => {
     const file = temp('v.json', JSON.stringify(violating));
     const json = await cli(['check', file, '--format', 'json']);
     expect(json.code).toBe(1);
-    expect(JSON.parse(json.stdout)).toMatchObject({ tool: 'Linewright', caution: CAUTION, edition: 2023 });
+    expect(JSON.parse(json.stdout)).toMatchObject({ tool: 'Linewright', caution: CAUTION, edition: 2023, detail: 'summary' });
+    // Compact by default: one line; the rules' full working only with --detail full.
+    expect(json.stdout.trimEnd()).not.toContain('\n');
+    expect(JSON.parse(json.stdout).conductors[0]).not.toHaveProperty('tried');
+    const full = JSON.parse((await cli(['check', file, '--format', 'json', '--detail', 'full'])).stdout);
+    expect(full.detail).toBe('full');
+    expect(full.conductors[0].tried.length).toBeGreaterThan(0);
     const sarif = JSON.parse((await cli(['check', file, '--format=sarif'])).stdout);
     expect(sarif.version).toBe('2.1.0');
     expect(sarif.runs[0].results.some((r: { level: string }) => r.level === 'error')).toBe(true);

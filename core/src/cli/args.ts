@@ -1,5 +1,6 @@
 import { CAUTION } from '../caution';
 import type { CodeEdition } from '../model/schema';
+import { JSON_DETAILS, type JsonDetail } from '../report/json';
 import { wrap } from '../report/text';
 
 /** Pure argument parsing for the `linewright` command: no I/O here, so every case is a unit test. */
@@ -19,6 +20,8 @@ export interface CheckCommand {
   /** Analyze under this edition instead of the project's own setting. */
   edition: CodeEdition | null;
   color: boolean;
+  /** How much working the JSON report carries (default summary). */
+  detail: JsonDetail;
 }
 
 export type ParsedArgs =
@@ -27,7 +30,7 @@ export type ParsedArgs =
   | { command: 'version' }
   | { command: 'error'; message: string };
 
-export const USAGE_SHORT = `Usage: linewright check FILE [--format text|json|sarif|csv] [--out FILE] [--pdf FILE] [--edition 2020|2023] [--color]
+export const USAGE_SHORT = `Usage: linewright check FILE [--format text|json|sarif|csv] [--out FILE] [--pdf FILE] [--edition 2020|2023] [--detail summary|full] [--color]
        linewright --help | --version
 `;
 
@@ -42,6 +45,8 @@ Options for check:
   --out FILE                     write the report to FILE instead of stdout
   --pdf FILE                     also write the annotated permit-set PDF to FILE
   --edition 2020|2023            analyze under this NEC edition instead of the project's
+  --detail summary|full          JSON report: summary (default) or full, which adds
+                                 every rule tried with each condition
   --color                        colour the text report (off by default)
   -h, --help                     show this help
   -V, --version                  show the version
@@ -59,7 +64,7 @@ function error(message: string): ParsedArgs {
   return { command: 'error', message };
 }
 
-const VALUE_FLAGS = new Set(['--format', '--out', '--pdf', '--edition']);
+const VALUE_FLAGS = new Set(['--format', '--out', '--pdf', '--edition', '--detail']);
 
 /** Parses `argv` (without node and the script). Flags may be written `--flag value` or `--flag=value`. */
 export function parseArgs(argv: readonly string[]): ParsedArgs {
@@ -110,6 +115,8 @@ export function parseArgs(argv: readonly string[]): ParsedArgs {
   if (editionText !== undefined && !(EDITIONS as readonly string[]).includes(editionText)) {
     return error(`option --edition must be ${EDITIONS.join(' or ')} (got "${editionText}")`);
   }
+  const detail = values.get('--detail') ?? 'summary';
+  if (!(JSON_DETAILS as readonly string[]).includes(detail)) return error(`option --detail must be ${JSON_DETAILS.join(' or ')} (got "${detail}")`);
   return {
     command: 'check',
     file,
@@ -118,5 +125,6 @@ export function parseArgs(argv: readonly string[]): ParsedArgs {
     out: values.get('--out') ?? null,
     edition: editionText === undefined ? null : (Number(editionText) as CodeEdition),
     color,
+    detail: detail as JsonDetail,
   };
 }

@@ -52,7 +52,8 @@ async function render(cmd: CheckCommand, report: AnalysisReport, sourceText: str
     case 'text':
       return (await import('../report/text')).renderText(report, { color: cmd.color });
     case 'json':
-      return `${JSON.stringify((await import('../report/json')).toJsonReport(report), null, 2)}\n`;
+      // Compact: one line, no indentation (pipe it through a formatter to read it).
+      return `${JSON.stringify((await import('../report/json')).toJsonReport(report, { detail: cmd.detail }))}\n`;
     case 'sarif':
       return `${JSON.stringify((await import('../report/sarif')).toSarif(report, { artifactUri: artifactUri(cmd.file), sourceText }), null, 2)}\n`;
     case 'csv':
