@@ -10,3 +10,4 @@ export { renderTemplate, formatNumber } from './rules/define';
 export * from './tables/index';
 export { computeAmpacity, smallestSizeWithAmpacity, type AmpacityInput, type AmpacityResult } from './ampacity/index';
 export * from './report/index';
+export * from './takeoff/index';

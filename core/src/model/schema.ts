@@ -49,6 +49,14 @@ export type WiringMethod = z.infer<typeof wiringMethod>;
 
 export const DAMAGE_PROTECTION = ['raceway', 'other-approved-means', 'none'] as const;
 
+/** Raceway kinds of Chapter 9 Table 4 the takeoff sizes (HDPE shares the PVC Schedule 40 row). */
+export const RACEWAY_KINDS = ['EMT', 'IMC', 'RMC', 'PVC-40', 'PVC-80'] as const;
+export const racewayKind = z.enum(RACEWAY_KINDS);
+export type RacewayKind = z.infer<typeof racewayKind>;
+
+/** Whether a run carries a neutral: 'auto' decides from the system and the loads it serves. */
+export const NEUTRAL_CHOICES = ['auto', 'yes', 'no'] as const;
+
 const common = {
   id: nodeId,
   label: label.optional(),
@@ -202,6 +210,13 @@ export const conductor = z.strictObject({
   /** 240.4(B)(1): a multioutlet branch circuit supplying receptacles for cord-and-plug loads. */
   multioutletCordAndPlug: z.boolean().default(false).describe('240.4(B)(1): a multioutlet branch circuit supplying receptacles for cord-and-plug loads.'),
   highBay: highBayFacts.optional().describe('240.21(B)(4) facts for a high-bay tap.'),
+  neutral: z.enum(NEUTRAL_CHOICES).optional().describe(
+    "Takeoff: does this run carry a neutral? 'auto' (default) carries one where the supply has a neutral and the run serves distribution equipment, single-phase loads or the service; 'yes' or 'no' states it.",
+  ),
+  neutralSize: conductorSize.optional().describe('Takeoff: size of the neutral when it is not the phase size (a reduced neutral by 220.61); one per parallel set.'),
+  nonlinearLoad: z.boolean().optional().describe('310.15(E)(3): the major portion of the load is nonlinear, so the neutral of a 3-phase 4-wire wye circuit counts as current-carrying.'),
+  raceway: racewayKind.optional().describe('Takeoff: raceway kind for Chapter 9 fill (EMT, IMC, RMC, PVC-40, PVC-80); when absent, steel conduit is taken as EMT, aluminum conduit as RMC, PVC conduit as PVC-40.'),
+  egcSize: conductorSize.optional().describe('Takeoff: size of the wire-type equipment grounding conductor (or supply-side bonding jumper) when the designer chose one; a size below the Table 250.122 minimum is flagged.'),
 });
 export type Conductor = z.infer<typeof conductor>;
 
@@ -232,6 +247,9 @@ export const projectSettings = z.strictObject({
   faultStudyDate: z.string().min(1).max(40).optional().describe('110.24(A): date the available fault current was calculated (e.g. 2026-12-02); marked on service equipment.'),
   preparedBy: label.optional(),
   notes: z.string().max(4000).optional(),
+  makeupFtPerTermination: z.number().nonnegative().max(100).optional().describe(
+    'Takeoff: wire added at each end of every conductor for makeup in the enclosure, ft (default 2 ft, common practice).',
+  ),
 });
 export type ProjectSettings = z.infer<typeof projectSettings>;
 

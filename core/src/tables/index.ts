@@ -12,3 +12,7 @@ export * from './chapter9Table9';
 export * from './sourceImpedance';
 export * from './conductorWithstand';
 export * from './clearingTime';
+export * from './egc250_122';
+export * from './chapter9Table1';
+export * from './chapter9Table4';
+export * from './chapter9Table5';

@@ -1,0 +1,132 @@
+import type { ConductorRole, Verdict } from '../analyze/types';
+import type { ConductorId, ConductorSize, Insulation, Material, NodeId, RacewayKind } from '../model/schema';
+import type { TradeSize } from '../tables/chapter9Table4';
+
+/** The electrical system at a point of the network, as the takeoff needs it. */
+export interface SystemAt {
+  voltsLL: number | null;
+  phases: 1 | 3 | null;
+  /** 'wye-4w' and 'single-3w' have a neutral; 'single-2w' has one grounded conductor and one ungrounded. */
+  arrangement: 'wye-4w' | 'delta-3w' | 'high-leg-4w' | 'single-3w' | 'single-2w' | 'unknown';
+  /** How the arrangement was decided, for the working. */
+  basis: string;
+}
+
+/** What the conductors of one circuit are, decided once and used by fill, EGC, wire and the ampacity count. */
+export interface CircuitMakeup {
+  /** Ungrounded (phase) conductors in one parallel set. */
+  ungroundedPerSet: number;
+  /** A neutral (or grounded conductor) in each set. */
+  hasNeutral: boolean;
+  /** Why the neutral is or is not there. */
+  neutralReason: string;
+  /** The circuit's kind, which decides whether the neutral carries current of its own (310.15(E)). */
+  kind: 'three-phase-4w' | 'three-phase-3w' | 'two-phase-and-neutral-of-wye' | 'single-phase-3w' | 'two-wire' | 'line-to-line-2w';
+}
+
+/** 310.15(E): how many current-carrying conductors one raceway (one parallel set) holds. */
+export interface CurrentCarryingCount {
+  count: number;
+  neutralCounts: boolean;
+  /** The paragraph of 310.15(E) that decided the neutral, or null without a neutral. */
+  section: '310.15(E)(1)' | '310.15(E)(2)' | '310.15(E)(3)' | '2-wire' | null;
+  reason: string;
+}
+
+export interface EgcSizing {
+  /** Size of one EGC; null when the takeoff cannot size it (see `reason`). */
+  size: ConductorSize | null;
+  material: Material;
+  /** One per raceway or cable (250.122(F)): the number of parallel sets. 0 when not sized. */
+  count: number;
+  /** Table 250.122 size from the OCPD ahead, before any increase. */
+  tableSize: ConductorSize | null;
+  /** Smallest phase size the OCPD and load allow, against which 250.122(B) measures an increase. */
+  minimumPhaseSize: ConductorSize | null;
+  /** Circular-mil ratio of the actual to the minimum phase conductors (1 when not increased). */
+  increaseRatio: number;
+  ocpdA: number | null;
+  /** Sections that sized it: 'Table 250.122', '250.122(B)', '250.122(F)', '250.122(G)', '250.122(A)', '250.102(C)'. */
+  cites: string[];
+  reason: string;
+  /** What an estimator must resolve (missing OCPD, stated size below the minimum), or null. */
+  problem: string | null;
+}
+
+export interface RacewayFill {
+  kind: RacewayKind | null;
+  tradeSize: TradeSize | null;
+  /** Raceways: one per parallel set. */
+  count: number;
+  /** Conductors in one raceway (phases, neutral, EGC). */
+  conductorsPerRaceway: number;
+  /** Sum of the Table 5 areas in one raceway, in². */
+  conductorAreaIn2: number | null;
+  /** Table 1 fraction for that number of conductors. */
+  maxFillFraction: number | null;
+  /** Allowed area of the chosen trade size, in². */
+  allowedAreaIn2: number | null;
+  /** Fill of the chosen trade size, % of its whole internal area. */
+  fillPct: number | null;
+  /** Why there is no trade size, or null. */
+  problem: string | null;
+}
+
+/** One drawn conductor run, as an estimator counts it. */
+export interface TakeoffRun {
+  conductorId: ConductorId;
+  label: string;
+  from: NodeId;
+  to: NodeId;
+  role: ConductorRole;
+  verdict: Verdict;
+  system: SystemAt;
+  circuit: CircuitMakeup;
+  currentCarrying: CurrentCarryingCount;
+  lengthFt: number | null;
+  material: Material;
+  insulation: Insulation;
+  size: ConductorSize;
+  parallelSets: number;
+  /** sets × ungrounded per set. */
+  phaseConductors: number;
+  neutralConductors: number;
+  neutralSize: ConductorSize | null;
+  egc: EgcSizing;
+  raceway: RacewayFill;
+  /** Conductor feet with the makeup allowance; null when the length is missing. */
+  phaseFt: number | null;
+  neutralFt: number | null;
+  egcFt: number | null;
+  /** Raceway feet: length × raceways; null without a length or a raceway. */
+  racewayFt: number | null;
+  /** Things an estimator must look at before pricing this run. */
+  flags: string[];
+}
+
+export interface DeviceItem {
+  id: NodeId;
+  kind: 'breaker' | 'fuse';
+  label: string;
+  ratingA: number | null;
+  poles: number | null;
+  interruptingKA: number | null;
+}
+
+export interface Takeoff {
+  projectName: string;
+  edition: 2020 | 2023;
+  makeupFtPerTermination: number;
+  runs: TakeoffRun[];
+  devices: DeviceItem[];
+  /** Node ids of buses, transformers and disconnects, for the equipment totals. */
+  equipment: EquipmentItem[];
+  assumptions: string[];
+  caution: string;
+}
+
+export type EquipmentItem =
+  | { kind: 'bus'; id: NodeId; label: string; busType: string; ratingA: number | null; system: string }
+  | { kind: 'transformer'; id: NodeId; label: string; kva: number; primaryVoltsLL: number; secondaryVoltsLL: number; phases: 1 | 3; connection: string }
+  | { kind: 'disconnect'; id: NodeId; label: string; ratingA: number | null; poles: number | null; fused: boolean };
+
