@@ -24,13 +24,27 @@ export interface CheckCommand {
   detail: JsonDetail;
 }
 
+/** `linewright takeoff FILE`: quantities for an estimator (core/src/cli/takeoff.ts). */
+export const TAKEOFF_FORMATS = ['text', 'csv', 'xlsx', 'json'] as const;
+export type TakeoffFormat = (typeof TAKEOFF_FORMATS)[number];
+
+export interface TakeoffCommand {
+  command: 'takeoff';
+  file: string;
+  format: TakeoffFormat;
+  out: string | null;
+  edition: CodeEdition | null;
+}
+
 export type ParsedArgs =
   | CheckCommand
+  | TakeoffCommand
   | { command: 'help' }
   | { command: 'version' }
   | { command: 'error'; message: string };
 
 export const USAGE_SHORT = `Usage: linewright check FILE [--format text|json|sarif|csv] [--out FILE] [--pdf FILE] [--edition 2020|2023] [--detail summary|full] [--color]
+       linewright takeoff FILE [--format text|csv|xlsx|json] [--out FILE] [--edition 2020|2023]
        linewright --help | --version
 `;
 
@@ -48,6 +62,14 @@ Options for check:
   --detail summary|full          JSON report: summary (default) or full, which adds
                                  every rule tried with each condition
   --color                        colour the text report (off by default)
+
+Options for takeoff (wire, raceway, devices and equipment counted from the
+checked drawing: EGC by Table 250.122, raceway by Chapter 9):
+  --format text|csv|xlsx|json    takeoff format (default: text); xlsx needs --out
+                                 unless stdout is a file or a pipe
+  --out FILE                     write the takeoff to FILE instead of stdout
+  --edition 2020|2023            take off under this NEC edition
+
   -h, --help                     show this help
   -V, --version                  show the version
 
@@ -105,16 +127,15 @@ export function parseArgs(argv: readonly string[]): ParsedArgs {
 
   const [command, file, ...rest] = positional;
   if (command === undefined) return error('no command given; expected "check FILE"');
-  if (command !== 'check') return error(`unknown command "${command}"; expected "check FILE"`);
+  if (command === 'takeoff') return parseTakeoff(file, rest, values, color);
+  if (command !== 'check') return error(`unknown command "${command}"; expected "check FILE" or "takeoff FILE"`);
   if (file === undefined) return error('check needs a project file: linewright check FILE');
   if (rest.length > 0) return error(`unexpected argument "${rest[0]}"; check takes one file`);
 
   const format = values.get('--format') ?? 'text';
   if (!(FORMATS as readonly string[]).includes(format)) return error(`option --format must be one of ${FORMATS.join(', ')} (got "${format}")`);
-  const editionText = values.get('--edition');
-  if (editionText !== undefined && !(EDITIONS as readonly string[]).includes(editionText)) {
-    return error(`option --edition must be ${EDITIONS.join(' or ')} (got "${editionText}")`);
-  }
+  const edition = parseEdition(values.get('--edition'));
+  if (typeof edition === 'object' && edition !== null) return edition;
   const detail = values.get('--detail') ?? 'summary';
   if (!(JSON_DETAILS as readonly string[]).includes(detail)) return error(`option --detail must be ${JSON_DETAILS.join(' or ')} (got "${detail}")`);
   return {
@@ -123,8 +144,27 @@ export function parseArgs(argv: readonly string[]): ParsedArgs {
     format: format as OutputFormat,
     pdf: values.get('--pdf') ?? null,
     out: values.get('--out') ?? null,
-    edition: editionText === undefined ? null : (Number(editionText) as CodeEdition),
+    edition,
     color,
     detail: detail as JsonDetail,
   };
+}
+
+function parseEdition(text: string | undefined): CodeEdition | null | ParsedArgs {
+  if (text === undefined) return null;
+  if (!(EDITIONS as readonly string[]).includes(text)) return error(`option --edition must be ${EDITIONS.join(' or ')} (got "${text}")`);
+  return Number(text) as CodeEdition;
+}
+
+function parseTakeoff(file: string | undefined, rest: readonly string[], values: ReadonlyMap<string, string>, color: boolean): ParsedArgs {
+  if (file === undefined) return error('takeoff needs a project file: linewright takeoff FILE');
+  if (rest.length > 0) return error(`unexpected argument "${rest[0]}"; takeoff takes one file`);
+  if (values.has('--pdf')) return error('option --pdf belongs to check; the takeoff has no PDF of its own (the permit-set PDF carries the schedule)');
+  if (color) return error('option --color belongs to check');
+  if (values.has('--detail')) return error('option --detail belongs to check; the takeoff JSON always carries every run');
+  const format = values.get('--format') ?? 'text';
+  if (!(TAKEOFF_FORMATS as readonly string[]).includes(format)) return error(`option --format for takeoff must be one of ${TAKEOFF_FORMATS.join(', ')} (got "${format}")`);
+  const edition = parseEdition(values.get('--edition'));
+  if (typeof edition === 'object' && edition !== null) return edition;
+  return { command: 'takeoff', file, format: format as TakeoffFormat, out: values.get('--out') ?? null, edition };
 }

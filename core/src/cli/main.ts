@@ -1,42 +1,15 @@
-import { readFileSync, realpathSync, writeFileSync } from 'node:fs';
+import { realpathSync, writeFileSync } from 'node:fs';
 import { isAbsolute, relative, resolve, sep } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type { AnalysisReport } from '../analyze/types';
 import { CAUTION } from '../caution';
-import type { Project } from '../model/schema';
-import { inertText } from '../report/safeText';
 import { TOOL_NAME, TOOL_VERSION } from '../report/version';
 import { USAGE, USAGE_SHORT, parseArgs, type CheckCommand } from './args';
+import { EXIT_BAD_INPUT, EXIT_CLEAN, EXIT_INTERNAL, EXIT_VIOLATIONS, ioMessage, loadForCli, overwritesProject, say } from './io';
 
 /** The only file of core that touches the file system and the process. */
 
-export const EXIT_CLEAN = 0;
-export const EXIT_VIOLATIONS = 1;
-export const EXIT_BAD_INPUT = 2;
-export const EXIT_INTERNAL = 3;
-
-function say(s: string): void {
-  process.stderr.write(s.endsWith('\n') ? s : `${s}\n`);
-}
-
-function readInput(file: string): string {
-  return file === '-' ? readFileSync(0, 'utf8') : readFileSync(file, 'utf8');
-}
-
-function ioMessage(e: unknown): string {
-  const err = e as NodeJS.ErrnoException;
-  switch (err?.code) {
-    case 'ENOENT':
-      return 'no such file';
-    case 'EACCES':
-    case 'EPERM':
-      return 'permission denied';
-    case 'EISDIR':
-      return 'it is a directory, not a file';
-    default:
-      return err instanceof Error ? err.message : String(e);
-  }
-}
+export { EXIT_CLEAN, EXIT_VIOLATIONS, EXIT_BAD_INPUT, EXIT_INTERNAL } from './io';
 
 /** SARIF wants a URI reference: relative to the working directory when the file is inside it. */
 function artifactUri(file: string): string {
@@ -65,7 +38,7 @@ async function render(cmd: CheckCommand, report: AnalysisReport, sourceText: str
 async function check(cmd: CheckCommand): Promise<number> {
   // Never write over the drawing itself (a slip like `--pdf plan.json`).
   for (const [flag, target] of [['--out', cmd.out], ['--pdf', cmd.pdf]] as const) {
-    if (target !== null && cmd.file !== '-' && resolve(target) === resolve(cmd.file)) {
+    if (overwritesProject(cmd.file, target)) {
       say(`linewright: ${flag} ${target} is the project file itself; choose another name so the drawing is not overwritten`);
       return EXIT_BAD_INPUT;
     }
@@ -74,26 +47,11 @@ async function check(cmd: CheckCommand): Promise<number> {
     say(`linewright: --out and --pdf both name ${cmd.out}; give each its own file`);
     return EXIT_BAD_INPUT;
   }
-  const { loadProject } = await import('../model/load');
   const { analyze } = await import('../analyze/analyze');
   const { hasViolations } = await import('../report/format');
-  let text: string;
-  try {
-    text = readInput(cmd.file);
-  } catch (e) {
-    say(`linewright: cannot read ${cmd.file}: ${ioMessage(e)}`);
-    return EXIT_BAD_INPUT;
-  }
-  const loaded = loadProject(text);
-  if (!loaded.ok) {
-    say(`linewright: ${cmd.file} is not a usable Linewright project (${loaded.errors.length} problem${loaded.errors.length === 1 ? '' : 's'}):`);
-    // Paths and messages quote the file's own text (ids, unknown keys): shown inert, never acted on by the terminal.
-    for (const e of loaded.errors) say(inertText(`${e.path || '(file)'}: ${e.message}`));
-    return EXIT_BAD_INPUT;
-  }
-  for (const notice of loaded.notices ?? []) say(`linewright: ${inertText(notice)}`);
-  const project: Project =
-    cmd.edition === null ? loaded.project : { ...loaded.project, project: { ...loaded.project.project, codeEdition: cmd.edition } };
+  const loaded = await loadForCli(cmd.file, cmd.edition);
+  if (typeof loaded === 'number') return loaded;
+  const { project, text } = loaded;
   const report = analyze(project);
   const output = await render(cmd, report, text);
   // Everything is rendered before anything is written: a renderer that fails is our bug (exit 3, below in
@@ -150,8 +108,9 @@ export async function main(argv: readonly string[]): Promise<number> {
       say(`${USAGE_SHORT}Run "linewright --help" for the options and exit codes.`);
       return EXIT_BAD_INPUT;
     case 'check':
+    case 'takeoff':
       try {
-        return await check(args);
+        return args.command === 'check' ? await check(args) : await (await import('./takeoff')).takeoff(args);
       } catch (e) {
         // A bug of ours, not bad input: name it plainly; the stack only when asked for.
         say(`linewright: internal error: ${e instanceof Error ? e.message : String(e)}`);
