@@ -2,10 +2,12 @@ import { runRule, type Rule } from '../rules/define';
 import type { RunFacts } from '../rules/facts';
 import { FEEDER_TAP_RULES, PROTECTION_RULES, SECONDARY_RULES, generatorRule, serviceRule, tapFromTap, tapTransformer } from '../rules/index';
 import { edgeFrom, type Graph } from '../topology/graph';
+import { isJoint } from '../topology/runs';
+import { joinFacts } from './runFacts';
 import type { FactsContext } from './context';
 import { effectiveRatingA, generatorFacts, isOcpd, transformerFacts } from './equipment';
 import { firstHolding, protectionTrial } from './trials';
-import type { ConductorRole, RuleTrial, Verdict } from './types';
+import { FAILING_VERDICTS, type ConductorRole, type RuleTrial, type Verdict } from './types';
 
 /** What the upstream walk from a node ends on. */
 export type Supply =
@@ -43,11 +45,15 @@ interface Walk {
   readonly secondariesOf: ReadonlyMap<number, RunFacts[]>;
   /** Per node: an OCPD or transformer lies somewhere on its load side. */
   readonly below: Uint8Array;
+  /** Runs judged as one (a tap or secondary continued through a joint), by their shared verdict. */
+  readonly joined: Map<RunVerdict, number[]>;
 }
 
 /** One run about to be judged: the one input of every judge below. */
 interface RunToJudge {
   readonly walk: Walk;
+  /** Run index. */
+  readonly run: number;
   readonly supply: Supply;
   /** The base facts; this stage's own copy, so the judges fill in the supply facts in place. */
   readonly facts: RunFacts;
@@ -68,6 +74,7 @@ export function classifyRuns(ctx: FactsContext): RunVerdict[] {
     results: new Array(runs.members.length),
     secondariesOf: secondariesByTransformer(ctx),
     below: ocpdBelow(g, order, count),
+    joined: new Map(),
   };
   for (let k = 0; k < count; k++) {
     const v = order[k]!;
@@ -88,7 +95,7 @@ export function classifyRuns(ctx: FactsContext): RunVerdict[] {
   for (let r = 0; r < runs.members.length; r++) {
     if (walk.results[r]) continue;
     const from = g.conductorFrom[runs.members[r]![0]!]!;
-    walk.results[r] = incomplete({ walk, supply: { kind: 'cycle', node: from }, facts: ctx.facts[r]!, role: 'unknown' });
+    walk.results[r] = incomplete({ walk, run: r, supply: { kind: 'cycle', node: from }, facts: ctx.facts[r]!, role: 'unknown' });
   }
   return walk.results as RunVerdict[];
 }
@@ -122,12 +129,13 @@ function toJudge(walk: Walk, r: number, supply: Supply): RunToJudge {
   const members = runs.members[r]!;
   const endNode = g.conductorTo[members[members.length - 1]!]!;
   const endsAtTransformer = endNode >= 0 && g.nodes[endNode]!.kind === 'transformer';
-  const feedsDevice = endNode >= 0 && (isOcpd(g.nodes[endNode]!) || walk.below[endNode] === 1);
+  // Conductors into distribution equipment (a panelboard, switchboard, tap box…) are feeders even with nothing drawn below it.
+  const feedsDevice = endNode >= 0 && (isOcpd(g.nodes[endNode]!) || g.nodes[endNode]!.kind === 'bus' || walk.below[endNode] === 1);
   if (endsAtTransformer) {
-    facts.transformer = transformerFacts(g, endNode, { ratingA: null, id: null });
     facts.secondaries = walk.secondariesOf.get(endNode) ?? [];
+    facts.transformer = transformerFacts(g, endNode, { ratingA: null, id: null }, facts.secondaries.map((s) => s.termination));
   }
-  return { walk, supply, facts, role: endsAtTransformer ? 'transformer-primary' : feedsDevice ? 'feeder' : 'branch' };
+  return { walk, run: r, supply, facts, role: endsAtTransformer ? 'transformer-primary' : feedsDevice ? 'feeder' : 'branch' };
 }
 
 function judgeRun(j: RunToJudge): RunVerdict {
@@ -153,16 +161,43 @@ function judgeRun(j: RunToJudge): RunVerdict {
 /** A run whose supply point lies on another run, judged already. */
 function onRun(j: RunToJudge, up: RunVerdict): RunVerdict {
   const { facts } = j;
+  const joined = continuedRun(j, up);
+  if (joined) return joined;
   if (up.family === 'service') return service(j);
   if (up.family === 'generator') return generator(j, up.generatorNode);
   if (up.verdict === 'incomplete') return incomplete(j);
   if (up.verdict === 'protected' || up.verdict === 'protected-next-size') return fedByOcpd(j, up.deviceNode);
-  // The supply point lies on a tap or a secondary: 240.21 forbids tapping it again.
   facts.suppliedFrom = { conductorIds: up.facts.conductorIds, verdict: up.verdict };
   facts.supplyOcpdA = up.facts.supplyOcpdA;
   facts.supplyOcpdId = up.facts.supplyOcpdId;
   const trial = runRule(tapFromTap, facts);
-  return { verdict: 'tap-from-tap', rule: tapFromTap, family: 'on-tap', role: j.role, supply: j.supply, deviceNode: up.deviceNode, generatorNode: -1, facts, tried: [trial], candidates: [] };
+  // The supply point lies on a tap or a secondary: 240.21 forbids tapping it again. On a conductor no rule
+  // makes acceptable it is not a tap from a tap but fed from an unprotected conductor (the trial names it).
+  const verdict: Verdict = FAILING_VERDICTS.has(up.verdict) ? 'unprotected' : 'tap-from-tap';
+  return { verdict, rule: verdict === 'tap-from-tap' ? tapFromTap : null, family: 'on-tap', role: j.role, supply: j.supply, deviceNode: up.deviceNode, generatorNode: -1, facts, tried: [trial], candidates: [] };
+}
+
+/**
+ * A tap or secondary that continues through a splice or tap box with no
+ * branch, changing size there, is one run: judged again as a whole on its
+ * weakest segment and total length, and both parts take that verdict.
+ */
+function continuedRun(j: RunToJudge, up: RunVerdict): RunVerdict | null {
+  const { graph: g, runs } = j.walk.ctx;
+  if (j.supply.kind !== 'run') return null;
+  const upMembers = runs.members[j.supply.run]!;
+  if (!isJoint(g, g.conductorTo[upMembers[upMembers.length - 1]!]!)) return null;
+  const onTap = up.family === 'fed-by-ocpd' && up.verdict !== 'protected' && up.verdict !== 'protected-next-size' && up.verdict !== 'incomplete';
+  const onSecondary = up.family === 'secondary' && up.verdict !== 'tap-transformer';
+  if (!onTap && !onSecondary) return null;
+  const whole: RunToJudge = { ...j, supply: up.supply, facts: joinFacts(up.facts, j.facts) };
+  if (onSecondary) whole.facts.transformer = up.facts.transformer;
+  const v = onTap ? fedByOcpd(whole, up.deviceNode) : secondary(whole, (up.supply as { node: number }).node);
+  const together = [...(j.walk.joined.get(up) ?? [j.supply.run]), j.run];
+  for (const r of together) j.walk.results[r] = v;
+  j.walk.joined.delete(up);
+  j.walk.joined.set(v, together);
+  return v;
 }
 
 function service(j: RunToJudge): RunVerdict {
@@ -225,7 +260,8 @@ function secondary(j: RunToJudge, tx: number): RunVerdict {
   const g = j.walk.ctx.graph;
   const primary = primarySupply(j.walk, tx);
   const device = primary.device >= 0 ? g.nodes[primary.device]! : null;
-  facts.transformer = transformerFacts(g, tx, { ratingA: device ? effectiveRatingA(device) : null, id: device?.id ?? null });
+  const ends = (j.walk.secondariesOf.get(tx) ?? []).map((s) => s.termination);
+  facts.transformer = transformerFacts(g, tx, { ratingA: device ? effectiveRatingA(device) : null, id: device?.id ?? null }, ends);
   // A transformer ahead of the service equipment (fed by service conductors, no OCPD) has service conductors on its secondary.
   if (primary.service) return service(j);
   const base = { family: 'secondary' as Family, role: 'transformer-secondary' as ConductorRole, supply: j.supply, deviceNode: primary.device, generatorNode: -1, facts };

@@ -1,18 +1,23 @@
-import type { Citation, ElementRef, Finding } from './types';
+import { VERDICT_LABELS, type Citation, type ElementRef, type Finding } from './types';
 import { conductorName, formatNumber } from '../rules/define';
 import type { Graph } from '../topology/graph';
 import type { RunVerdict } from './classify';
+import type { RunFacts } from '../rules/facts';
 import type { FixedContext } from './context';
 import { finding, type NewFinding } from './finding';
 import { failedTexts, incompleteReason, nearestTrial } from './summary';
 
-/** Stage: the findings of each conductor, in file order: its verdict, its ampacity, its load. */
+/**
+ * Stage: the findings of each conductor, in file order: its ampacity, then
+ * its run's verdict and load. A run of several segments gets one finding,
+ * on its first conductor, naming the others as related.
+ */
 export function conductorFindings(ctx: FixedContext): Finding[] {
   const { graph: g, runs, verdicts, ampacities, edition } = ctx;
   const runFixes = ctx.fixes;
   const out: Finding[] = [];
   const cites = (section: string): Citation => ({ code: 'NEC', edition, section });
-  const push = (f: NewFinding) => out.push(finding(f));
+  const pushOne = (f: NewFinding) => out.push(finding(f));
 
   for (let ci = 0; ci < g.conductors.length; ci++) {
     const c = g.conductors[ci]!;
@@ -21,10 +26,27 @@ export function conductorFindings(ctx: FixedContext): Finding[] {
     const fixes = runFixes[runs.runOf[ci]!]!;
     const amp = ampacities[ci]!;
     if (amp.problem) {
-      push({ ruleId: 'ampacity', messageId: `no-ampacity-${amp.problem.field}`, severity: 'warning', cites: cites('310.16'), subject: { kind: 'conductor', id: c.id }, message: `${describeConductor(c, f.parallelSets)}: ${amp.problem.message}` });
+      pushOne({ ruleId: 'ampacity', messageId: `no-ampacity-${amp.problem.field}`, severity: 'warning', cites: cites('310.16'), subject: { kind: 'conductor', id: c.id }, message: `${describeConductor(c, c.parallelSets)}: ${amp.problem.message}` });
     }
+    // The run's own findings once, on its first conductor.
+    if (f.conductorIds[0] !== c.id) continue;
+    const others: ElementRef[] = f.conductorIds.slice(1).map((id): ElementRef => ({ kind: 'conductor', id }));
+    const push = (x: NewFinding) => pushOne({ ...x, related: [...others, ...(x.related ?? [])] });
     switch (v.verdict) {
       case 'unprotected': {
+        if (f.suppliedFrom) {
+          push({
+            ruleId: 'tap-from-tap',
+            messageId: 'fed-from-unprotected',
+            severity: 'violation',
+            cites: cites('240.21'),
+            subject: { kind: 'conductor', id: c.id },
+            related: [...f.suppliedFrom.conductorIds.map((id): ElementRef => ({ kind: 'conductor', id })), ...deviceRefs(g, v)],
+            fixes,
+            message: `${describeRun(c, f)} is fed from unprotected conductor ${f.suppliedFrom.conductorIds.join(' → ')} (${VERDICT_LABELS[f.suppliedFrom.verdict]}): no OCPD that meets 240.4 protects it. Correct that conductor, or supply this one through an OCPD that protects it.`,
+          });
+          break;
+        }
         const n = nearestTrial(v.tried);
         const R = f.supplyOcpdA === null ? '' : `, fed by the ${formatNumber(f.supplyOcpdA)} A device ahead`;
         push({
@@ -36,7 +58,7 @@ export function conductorFindings(ctx: FixedContext): Finding[] {
           related: deviceRefs(g, v),
           fixes,
           data: { ampacityA: f.ampacityA ?? '?', deviceA: f.supplyOcpdA ?? '?' },
-          message: `${describeConductor(c, f.parallelSets)}, ${f.ampacityA === null ? '?' : formatNumber(f.ampacityA)} A${R}: no rule of NEC ${edition} makes it acceptable.${n ? ` Nearest is ${n.cites.section} (${n.title.toLowerCase()}), which fails: ${failedTexts(n).join(' ')}` : ''}`,
+          message: `${describeRun(c, f)}, ${f.ampacityA === null ? '?' : formatNumber(f.ampacityA)} A${R}: no rule of NEC ${edition} makes it acceptable.${n ? ` Nearest is ${n.cites.section} (${n.title.toLowerCase()}), which fails: ${failedTexts(n).join(' ')}` : ''}`,
         });
         break;
       }
@@ -49,12 +71,12 @@ export function conductorFindings(ctx: FixedContext): Finding[] {
           subject: { kind: 'conductor', id: c.id },
           related: [...(f.suppliedFrom?.conductorIds ?? []).map((id): ElementRef => ({ kind: 'conductor', id })), ...deviceRefs(g, v)],
           fixes,
-          message: `${describeConductor(c, f.parallelSets)} is tapped from ${f.suppliedFrom?.conductorIds.join(' → ') ?? '?'}, which is itself a tap or transformer secondary; a conductor supplied under 240.21 may supply another only through an OCPD that meets 240.4.`,
+          message: `${describeRun(c, f)} is tapped from ${f.suppliedFrom?.conductorIds.join(' → ') ?? '?'}, which is itself a tap or transformer secondary; a conductor supplied under 240.21 may supply another only through an OCPD that meets 240.4.`,
         });
         break;
       case 'incomplete':
         if (v.supply.kind === 'run' || v.supply.kind === 'ocpd' || v.supply.kind === 'transformer') {
-          push({ ruleId: 'incomplete', messageId: 'missing-data', severity: 'warning', cites: null, subject: { kind: 'conductor', id: c.id }, related: deviceRefs(g, v), message: `${describeConductor(c, f.parallelSets)}: no verdict yet; ${incompleteReason(v)}.` });
+          push({ ruleId: 'incomplete', messageId: 'missing-data', severity: 'warning', cites: null, subject: { kind: 'conductor', id: c.id }, related: deviceRefs(g, v), message: `${describeRun(c, f)}: no verdict yet; ${incompleteReason(v)}.` });
         }
         break;
       case 'protected-next-size':
@@ -65,7 +87,7 @@ export function conductorFindings(ctx: FixedContext): Finding[] {
           cites: cites('240.4(B)'),
           subject: { kind: 'conductor', id: c.id },
           related: deviceRefs(g, v),
-          message: `${describeConductor(c, f.parallelSets)}: the ${formatNumber(f.supplyOcpdA ?? 0)} A device is the next standard rating above its ${formatNumber(f.ampacityA ?? 0)} A ampacity (240.4(B)); confirm the circuit is not a multioutlet branch circuit for cord-and-plug loads.`,
+          message: `${describeRun(c, f)}: the ${formatNumber(f.supplyOcpdA ?? 0)} A device is the next standard rating above its ${formatNumber(f.ampacityA ?? 0)} A ampacity (240.4(B)); confirm the circuit is not a multioutlet branch circuit for cord-and-plug loads.`,
         });
         break;
       default:
@@ -80,13 +102,13 @@ export function conductorFindings(ctx: FixedContext): Finding[] {
           severity: 'needs-ahj',
           cites: t.cites,
           subject: { kind: 'conductor', id: c.id },
-          message: `${describeConductor(c, f.parallelSets)}: meets ${t.cites.section} only if the AHJ accepts its protection from physical damage by "other approved means".`,
+          message: `${describeRun(c, f)}: meets ${t.cites.section} only if the AHJ accepts its protection from physical damage by "other approved means".`,
         });
       }
     }
     if ((v.verdict === 'service' || v.verdict === 'generator') && v.tried[0]?.outcome === 'fails') {
       const t = v.tried[0];
-      push({ ruleId: t.ruleId, messageId: 'fails', severity: 'violation', cites: t.cites, subject: { kind: 'conductor', id: c.id }, message: `${describeConductor(c, f.parallelSets)}: ${failedTexts(t).join(' ')} Fails ${t.cites.section}.` });
+      push({ ruleId: t.ruleId, messageId: 'fails', severity: 'violation', cites: t.cites, subject: { kind: 'conductor', id: c.id }, message: `${describeRun(c, f)}: ${failedTexts(t).join(' ')} Fails ${t.cites.section}.` });
     }
     if (f.ampacityA !== null && f.calculatedLoadA !== null && f.calculatedLoadA > f.ampacityA + 1e-6 && v.role !== 'service') {
       const section = v.role === 'branch' ? '210.19(A)(1)' : '215.2(A)(1)';
@@ -97,12 +119,18 @@ export function conductorFindings(ctx: FixedContext): Finding[] {
         cites: cites(section),
         subject: { kind: 'conductor', id: c.id },
         data: { ampacityA: f.ampacityA, calculatedA: f.calculatedLoadA },
-        message: `${describeConductor(c, f.parallelSets)}: ampacity ${formatNumber(f.ampacityA)} A is below the calculated load of ${formatNumber(f.calculatedLoadA)} A (continuous × 1.25 plus noncontinuous, ${section}).`,
+        message: `${describeRun(c, f)}: ampacity ${formatNumber(f.ampacityA)} A is below the calculated load of ${formatNumber(f.calculatedLoadA)} A (continuous × 1.25 plus noncontinuous, ${section}).`,
       });
     }
   }
 
   return out;
+}
+
+/** The run as a finding names it: the conductor, or for a run of several segments all of them and the weakest size. */
+function describeRun(c: Graph['conductors'][number], f: RunFacts): string {
+  if (f.conductorIds.length === 1) return describeConductor(c, f.parallelSets);
+  return `Run ${f.conductorIds.join(' → ')} (${f.conductorIds.length} segments, judged as one on its weakest, ${conductorName(f)})`;
 }
 
 export function describeConductor(c: Graph['conductors'][number], sets: number): string {

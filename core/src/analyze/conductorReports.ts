@@ -10,12 +10,20 @@ import type { Citation, ConductorReport, DeviceRef, Finding } from './types';
 /** Stage: one report line per conductor, in file order; what a run's conductors share is built once per run. */
 export function conductorReports(ctx: FixedContext & { findings: readonly Finding[] }): ConductorReport[] {
   const { graph, runs, verdicts, ampacities, edition } = ctx;
+  // A run's finding sits on its first conductor and names the others as related: every segment shows it.
   const findingIdsBySubject = new Map<string, string[]>();
+  const add = (id: string, findingId: string) => {
+    const list = findingIdsBySubject.get(id) ?? [];
+    list.push(findingId);
+    findingIdsBySubject.set(id, list);
+  };
+  const chainOf = new Map<string, readonly string[]>();
+  for (const v of verdicts) if (v.facts.conductorIds.length > 1) chainOf.set(v.facts.conductorIds[0]!, v.facts.conductorIds);
   for (const f of ctx.findings) {
     if (f.subject.kind !== 'conductor') continue;
-    const list = findingIdsBySubject.get(f.subject.id) ?? [];
-    list.push(f.id);
-    findingIdsBySubject.set(f.subject.id, list);
+    add(f.subject.id, f.id);
+    const chain = chainOf.get(f.subject.id);
+    if (chain) for (const r of f.related) if (r.kind === 'conductor' && r.id !== f.subject.id && chain.includes(r.id)) add(r.id, f.id);
   }
   const shared = verdicts.map((v) => runShared(graph, v, edition));
   const conductors: ConductorReport[] = new Array(graph.conductors.length);

@@ -41,9 +41,13 @@ export function terminationOf(g: Graph, v: number): Termination {
     case 'bus': {
       let sum = 0;
       let devices = 0;
+      let onlyOcpds = true;
       for (const e of g.outEdges[v]!) {
         const w = e < 0 ? g.linkTo[-e - 1]! : -1;
-        if (w < 0 || !isOcpd(g.nodes[w]!)) continue;
+        if (w < 0 || !isOcpd(g.nodes[w]!)) {
+          onlyOcpds = false;
+          continue;
+        }
         const r = effectiveRatingA(g.nodes[w]!);
         devices++;
         sum = r === null || Number.isNaN(sum) ? Number.NaN : sum + r;
@@ -51,10 +55,21 @@ export function terminationOf(g: Graph, v: number): Termination {
       const t = termination('bus', node.id, label, false, node.busRatingA ?? null);
       t.busType = node.busType;
       t.groupedOcpdSumA = devices === 0 || Number.isNaN(sum) ? null : sum;
+      t.groupedOcpdCount = devices;
+      t.onlyOcpdsBelow = onlyOcpds && devices > 0;
       return t;
     }
-    case 'disconnect':
+    case 'disconnect': {
+      // A fusible switch: the fuses drawn inside it (its one bus link out, to an OCPD) are where the run ends.
+      const outs = g.outEdges[v]!;
+      const w = outs.length === 1 && outs[0]! < 0 ? g.linkTo[-outs[0]! - 1]! : -1;
+      if (w >= 0 && isOcpd(g.nodes[w]!)) {
+        const t = terminationOf(g, w);
+        t.label = `${t.label} in ${label}`;
+        return t;
+      }
       return termination('disconnect', node.id, label, false, node.ratingA ?? null);
+    }
     case 'transformer':
     case 'load':
     case 'splice':
@@ -65,10 +80,15 @@ export function terminationOf(g: Graph, v: number): Termination {
 }
 
 function termination(kind: Termination['kind'], nodeId: Termination['nodeId'], label: string, single: boolean, ratingA: number | null): Termination {
-  return { kind, nodeId, label, single, ratingA, atDisconnectingMeans: false, disconnectLocation: null, busType: null, groupedOcpdSumA: null };
+  return { kind, nodeId, label, single, ratingA, atDisconnectingMeans: false, disconnectLocation: null, busType: null, groupedOcpdSumA: null, groupedOcpdCount: 0, onlyOcpdsBelow: false };
 }
 
-export function transformerFacts(g: Graph, v: number, primaryOcpd: { ratingA: number | null; id: string | null }): NonNullable<RunFacts['transformer']> {
+export function transformerFacts(
+  g: Graph,
+  v: number,
+  primaryOcpd: { ratingA: number | null; id: string | null },
+  secondaryEnds: Termination[] = [],
+): NonNullable<RunFacts['transformer']> {
   const t = g.nodes[v]!;
   if (t.kind !== 'transformer') throw new Error(`node ${t.id} is not a transformer`);
   return {
@@ -83,6 +103,7 @@ export function transformerFacts(g: Graph, v: number, primaryOcpd: { ratingA: nu
     secondaryFlaA: transformerFullLoadA(t.kva, t.secondaryVoltsLL, t.phases),
     primaryOcpdA: primaryOcpd.ratingA,
     primaryOcpdId: (primaryOcpd.id as NonNullable<RunFacts['transformer']>['primaryOcpdId']) ?? null,
+    secondaryEnds,
   };
 }
 

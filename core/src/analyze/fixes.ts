@@ -47,7 +47,8 @@ export function suggestFixes(
     let ampacityA: number | null = Number.POSITIVE_INFINITY;
     let small: number | null = null;
     for (const c of members) {
-      const w = conductorAmpacity({ ...c, size }, edition).working;
+      // A segment already larger than the trial size keeps its size (a run may change size at a splice).
+      const w = conductorAmpacity(sizeIndexOf(c.size) >= i && c.material === facts.material ? c : { ...c, size }, edition).working;
       if (w === null) { ampacityA = null; break; }
       ampacityA = Math.min(ampacityA, w.ampacityA);
       if (w.smallConductorMaxOcpdA !== null) small = small === null ? w.smallConductorMaxOcpdA : Math.min(small, w.smallConductorMaxOcpdA);
@@ -70,7 +71,7 @@ export function suggestFixes(
     const sets = facts.parallelSets > 1 ? `${facts.parallelSets} sets of ` : '';
     fixes.push({
       kind: 'resize',
-      conductorIds: ids,
+      conductorIds: smallerThan(members, size, facts),
       size,
       material: facts.material,
       parallelSets: facts.parallelSets,
@@ -132,4 +133,9 @@ export function largestProtectingRatingA(facts: Pick<RunFacts, 'ampacityA' | 'sm
 function articleFor(n: number): 'a' | 'an' {
   const s = String(n);
   return s.startsWith('8') || s === '11' || s === '18' || /^1[18]\d{2}$/.test(s) ? 'an' : 'a';
+}
+
+/** The segments a resize changes: those smaller than the new size, or of another material or number of sets. */
+function smallerThan(members: readonly Conductor[], size: ConductorSize, f: Pick<RunFacts, 'material' | 'parallelSets'>): Conductor['id'][] {
+  return members.filter((c) => sizeIndexOf(c.size) < sizeIndexOf(size) || c.material !== f.material || c.parallelSets !== f.parallelSets).map((c) => c.id);
 }

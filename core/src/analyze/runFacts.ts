@@ -21,7 +21,8 @@ export function baseRunFacts(ctx: AnalysisContext): RunFacts[] {
   const out: RunFacts[] = new Array(runs.members.length);
   for (let r = 0; r < runs.members.length; r++) {
     const members = runs.members[r]!;
-    const first = g.conductors[members[0]!]!;
+    // The weakest segment names the run: size, material and sets of the lowest ampacity (the first on a tie or when unknown).
+    let weakest = g.conductors[members[0]!]!;
     let lengthFt: number | null = 0;
     let ampacityA: number | null = Number.POSITIVE_INFINITY;
     let small: number | null = null;
@@ -36,7 +37,10 @@ export function baseRunFacts(ctx: AnalysisContext): RunFacts[] {
       lengthFt = lengthFt === null || c.lengthFt === undefined ? null : lengthFt + c.lengthFt;
       const w = ampacities[ci]!.working;
       if (w === null) ampacityA = null;
-      else if (ampacityA !== null && w.ampacityA < ampacityA) ampacityA = w.ampacityA;
+      else if (ampacityA !== null && w.ampacityA < ampacityA) {
+        ampacityA = w.ampacityA;
+        weakest = c;
+      }
       if (w?.smallConductorMaxOcpdA != null) small = small === null ? w.smallConductorMaxOcpdA : Math.min(small, w.smallConductorMaxOcpdA);
       const conduit = RACEWAYS.has(c.wiring);
       if (!conduit) inRaceway = false;
@@ -56,9 +60,9 @@ export function baseRunFacts(ctx: AnalysisContext): RunFacts[] {
     out[r] = {
       edition,
       conductorIds: members.map((ci) => g.conductors[ci]!.id),
-      material: first.material,
-      size: first.size,
-      parallelSets: first.parallelSets,
+      material: weakest.material,
+      size: weakest.size,
+      parallelSets: weakest.parallelSets,
       lengthFt: lengthFt === null ? null : Math.round(lengthFt * 100) / 100,
       ampacityA,
       smallConductorMaxOcpdA: small,
@@ -75,7 +79,7 @@ export function baseRunFacts(ctx: AnalysisContext): RunFacts[] {
       extendsBeyondEquipment: beyond,
       multioutletCordAndPlug: cord,
       hasSplices: members.length > 1,
-      highBay: first.highBay ?? null,
+      highBay: members.map((ci) => g.conductors[ci]!.highBay).find((h) => h !== undefined) ?? null,
       site,
       transformer: null,
       secondaries: [],
@@ -86,3 +90,37 @@ export function baseRunFacts(ctx: AnalysisContext): RunFacts[] {
   return out;
 }
 
+
+/**
+ * One run made of two joined at a splice or tap box with no branch (the
+ * size may change there): the supply facts of the first, the end of the
+ * second, the weakest ampacity and the lengths added. Judged as one tap or
+ * secondary.
+ */
+export function joinFacts(a: RunFacts, b: RunFacts): RunFacts {
+  const weaker = a.ampacityA === null || (b.ampacityA !== null && a.ampacityA <= b.ampacityA) ? a : b;
+  const min = (x: number | null, y: number | null) => (x === null ? y : y === null ? x : Math.min(x, y));
+  const damage = a.damageProtection === 'none' || b.damageProtection === 'none' ? 'none' : a.damageProtection === 'raceway' ? b.damageProtection : a.damageProtection;
+  return {
+    ...b,
+    conductorIds: [...a.conductorIds, ...b.conductorIds],
+    material: weaker.material,
+    size: weaker.size,
+    parallelSets: weaker.parallelSets,
+    lengthFt: a.lengthFt === null || b.lengthFt === null ? null : Math.round((a.lengthFt + b.lengthFt) * 100) / 100,
+    ampacityA: a.ampacityA === null || b.ampacityA === null ? null : weaker.ampacityA,
+    smallConductorMaxOcpdA: min(a.smallConductorMaxOcpdA, b.smallConductorMaxOcpdA),
+    supplyOcpdA: a.supplyOcpdA,
+    supplyOcpdId: a.supplyOcpdId,
+    supplyOcpdKind: a.supplyOcpdKind,
+    inRaceway: a.inRaceway && b.inRaceway,
+    damageProtection: damage,
+    outdoors: a.outdoors && b.outdoors,
+    leavesEnclosure: a.leavesEnclosure === true || b.leavesEnclosure === true ? true : a.leavesEnclosure === null || b.leavesEnclosure === null ? null : false,
+    extendsBeyondEquipment: a.extendsBeyondEquipment || b.extendsBeyondEquipment,
+    multioutletCordAndPlug: a.multioutletCordAndPlug || b.multioutletCordAndPlug,
+    hasSplices: true,
+    highBay: a.highBay ?? b.highBay,
+    suppliedFrom: a.suppliedFrom,
+  };
+}

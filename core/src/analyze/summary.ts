@@ -83,6 +83,7 @@ export function describeRun(v: RunVerdict): string {
     case 'tap-from-tap':
       return `Tap from a tap: supplied from ${f.suppliedFrom?.conductorIds.join(' → ') ?? '?'}, itself "${f.suppliedFrom ? VERDICT_LABELS[f.suppliedFrom.verdict] : '?'}" (240.21).`;
     case 'unprotected': {
+      if (f.suppliedFrom) return `Unprotected: fed from unprotected conductor ${f.suppliedFrom.conductorIds.join(' → ')} ("${VERDICT_LABELS[f.suppliedFrom.verdict]}").`;
       const n = nearestTrial(v.tried);
       if (!n) return 'Unprotected: no rule fits.';
       return `Unprotected: no rule fits. Nearest is ${n.cites.section}, which fails: ${failedTexts(n).join(' ')}`;

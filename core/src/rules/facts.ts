@@ -22,6 +22,10 @@ export interface Termination {
   busType: 'switchgear' | 'switchboard' | 'panelboard' | 'tap-box' | 'busway' | null;
   /** For a bus: the sum of the ratings of the OCPDs it feeds directly (240.21(C)(3)); null when one lacks a rating. */
   groupedOcpdSumA: number | null;
+  /** For a bus: how many OCPDs it feeds directly through bus links. */
+  groupedOcpdCount: number;
+  /** For a bus: everything it feeds goes through one of those OCPDs (no conductor or other equipment straight off the bus). */
+  onlyOcpdsBelow: boolean;
 }
 
 export interface TransformerFacts {
@@ -37,6 +41,8 @@ export interface TransformerFacts {
   /** Rating of the OCPD protecting the primary; null when unknown or absent. */
   primaryOcpdA: number | null;
   primaryOcpdId: NodeId | null;
+  /** Where each secondary run of the transformer ends (450.3(B) Note 2 counts the devices there). */
+  secondaryEnds: Termination[];
 }
 
 export interface GeneratorFacts {

@@ -48,8 +48,34 @@ export const cases: RuleCases = {
       ),
       source: `${S}; ${X}; ${T}`,
     },
+    {
+      name: 'with a secondary device 450.3(B) allows 250 %: a 225 A primary (≤ 250 % of 90.21 A = 225.53 A) and 2 sets of 4/0 Cu (460 A) × 240 / 480 = 230 A ≥ 225 A into a 400 A breaker',
+      facts: secondary(
+        { size: '4/0', parallelSets: 2, ampacityA: 460, termination: terminationAt('ocpd', { ratingA: 400 }) },
+        { primaryOcpdA: 225, secondaryEnds: [terminationAt('ocpd', { ratingA: 400 })] },
+      ),
+      source: `${S}; ${X} (primary and secondary: 250 %, no round-up); ${T}`,
+    },
   ],
   fails: [
+    {
+      name: 'the same 225 A primary with no secondary device: primary-only protection allows 125 % of 90.21 A, next standard 125 A',
+      facts: secondary(
+        { size: '4/0', parallelSets: 2, ampacityA: 460, termination: terminationAt('bus', { ratingA: 400 }) },
+        { primaryOcpdA: 225, secondaryEnds: [terminationAt('bus', { ratingA: 400 })] },
+      ),
+      expect: ['primary450'],
+      source: `${S}; ${X}`,
+    },
+    {
+      name: 'with a secondary device the primary may be 250 % and no more: 250 A > 225.53 A (no round-up)',
+      facts: secondary(
+        { size: '4/0', parallelSets: 2, ampacityA: 460, termination: terminationAt('ocpd', { ratingA: 400 }) },
+        { primaryOcpdA: 250, secondaryEnds: [terminationAt('ocpd', { ratingA: 400 })] },
+      ),
+      expect: ['primary450', 'ratio'],
+      source: `${S}; ${X}`,
+    },
     {
       name: 'small transformer: 2.4 kVA single-phase 480 V is 5 A; 167 % is 8.35 A, so a 15 A primary breaker exceeds it (no round-up under 9 A)',
       facts: secondary({ size: '6', ampacityA: 65, loadA: 8, calculatedLoadA: 8, termination: terminationAt('ocpd', { ratingA: 10 }) }, { kva: 2.4, phases: 1, connection: 'single-phase-2w', primaryOcpdA: 15 }),

@@ -3,7 +3,7 @@ import { runFacts, type RuleCases } from './testing';
 
 const S = 'NFPA 70-2023 240.21';
 
-const upstream = (verdict: 'tap-25ft' | 'tap-10ft' | 'secondary-10ft' | 'tap-outside' | 'unprotected') => ({
+const upstream = (verdict: 'tap-25ft' | 'tap-10ft' | 'secondary-10ft' | 'tap-outside' | 'unprotected' | 'tap-from-tap') => ({
   conductorIds: ['C-TAP-1' as ConductorId],
   verdict,
 });
@@ -19,6 +19,11 @@ export const cases: RuleCases = {
       name: 'the same tap continued through a same-size pass-through splice: one run, its lengths added, still no tap from a tap',
       facts: runFacts({ conductorIds: ['C-1a' as ConductorId, 'C-1b' as ConductorId], hasSplices: true }),
       source: `${S}; common practice (a same-size splice continues the same tap)`,
+    },
+    {
+      name: 'the upstream run recorded is protected under 240.4: fed from a protected conductor, not a tap from a tap',
+      facts: runFacts({ suppliedFrom: { conductorIds: ['C-FDR' as ConductorId], verdict: 'protected' } }),
+      source: `${S}; NFPA 70-2023 240.4`,
     },
   ],
   fails: [
@@ -47,10 +52,16 @@ export const cases: RuleCases = {
       source: S,
     },
     {
-      name: 'spliced onto a conductor no rule protects',
+      name: 'spliced onto a conductor no rule protects: fails because it is fed from an unprotected conductor, not called a tap from a tap',
       facts: runFacts({ suppliedFrom: upstream('unprotected') }),
-      expect: ['supply'],
-      source: S,
+      expect: ['protectedSupply'],
+      source: `${S}; NFPA 70-2023 240.4 (the upstream run has no OCPD that protects it)`,
+    },
+    {
+      name: 'spliced onto a conductor that is itself a tap from a tap: fed from an unprotected conductor',
+      facts: runFacts({ suppliedFrom: upstream('tap-from-tap') }),
+      expect: ['protectedSupply'],
+      source: `${S}; NFPA 70-2023 240.4`,
     },
   ],
 };

@@ -42,6 +42,8 @@ export function terminationAt(kind: Termination['kind'] = 'ocpd', overrides: Par
     disconnectLocation: null,
     busType: null,
     groupedOcpdSumA: null,
+    groupedOcpdCount: 0,
+    onlyOcpdsBelow: false,
   };
   const byKind: Partial<Termination> =
     kind === 'ocpd'
@@ -70,6 +72,7 @@ export function transformerFacts(overrides: Partial<TransformerFacts> = {}): Tra
     connection: 'delta-wye',
     primaryOcpdA: 200,
     primaryOcpdId: id<NodeId>('CB-T1'),
+    secondaryEnds: [],
     ...overrides,
     kva,
     primaryVoltsLL,

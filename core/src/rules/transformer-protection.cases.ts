@@ -25,6 +25,10 @@ const secondaryRun = (end: Termination, n = 1) =>
     termination: end,
   });
 const breaker = (ratingA: number | null) => terminationAt('ocpd', { ratingA });
+/** A board without a main whose every output is one of `count` breakers of `eachA` (450.3(B) Note 2). */
+const mainLugBoard = (count: number, eachA: number, onlyOcpdsBelow = true) =>
+  terminationAt('bus', { busType: 'panelboard', ratingA: 400, groupedOcpdCount: count, groupedOcpdSumA: count * eachA, onlyOcpdsBelow });
+const N2 = `${S} Note 2 (up to six breakers grouped in one location count as the secondary device, ratings added)`;
 /** The primary run, judged by this rule: ends at the transformer, fed by a breaker of `primaryA`. */
 const primary = (primaryA: number | null, ends: Termination[], o: RunFactsOverrides = {}, t: Partial<TransformerFacts> = {}) =>
   runFacts({
@@ -71,8 +75,31 @@ export const cases: RuleCases = {
       facts: smallPrimary(10),
       source: `${S}; NFPA 70-2023 240.6(A)`,
     },
+    {
+      name: 'Note 2: the secondary lands on a main-lug board with six 50 A breakers, 300 A in all ≤ 300 A (125 % of 208.18 A = 260.22 A, next standard 300 A), so the 225 A primary (≤ 250 % of 90.21 A = 225.53 A) complies',
+      facts: primary(225, [mainLugBoard(6, 50)]),
+      source: `${N2}; NFPA 70-2023 240.6(A)`,
+    },
   ],
   fails: [
+    {
+      name: 'Note 2 allows at most six: a main-lug board with seven 40 A breakers is no secondary device, so the 225 A primary exceeds the 125 A of primary-only protection',
+      facts: primary(225, [mainLugBoard(7, 40)]),
+      expect: ['primary'],
+      source: N2,
+    },
+    {
+      name: 'Note 2: six 60 A breakers on the main-lug board add up to 360 A > 300 A',
+      facts: primary(225, [mainLugBoard(6, 60)]),
+      expect: ['secondary'],
+      source: N2,
+    },
+    {
+      name: 'Note 2 needs every output through the grouped devices: a board with a conductor straight off its bus is no secondary device, so 225 A > 125 A primary-only',
+      facts: primary(225, [mainLugBoard(3, 50, false)]),
+      expect: ['primary'],
+      source: N2,
+    },
     {
       name: 'small transformer, primary only: 2.4 kVA single-phase 480 V is 5 A; 167 % is 8.35 A and a 15 A breaker exceeds it (no round-up under 9 A)',
       facts: primary(15, [terminationAt('bus')], {}, { kva: 2.4, phases: 1, secondaryVoltsLL: 240 }),

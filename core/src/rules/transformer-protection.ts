@@ -1,13 +1,16 @@
 import { maxPrimaryOcpd, maxSecondaryOcpd, ocpdLimitA } from '../tables/transformer';
 import { atLeast, defineRule, when, type Check } from './define';
+import { secondaryDevices } from './secondaryDevices';
 
 /**
  * 450.3(B) (transformers of 1000 V and less): the primary device may not
  * exceed 125 % of primary rated current when it alone protects the
  * transformer (next standard size allowed from 9 A up; 167 % from 2 A, 300 %
  * below), or 250 % when every secondary run also ends in a device of at most
- * 125 % of secondary rated current. Judged on the primary run; it adds a
- * finding and never decides a conductor's verdict.
+ * 125 % of secondary rated current. Note 2: up to six breakers or sets of
+ * fuses grouped in one location (a board without a main) are that device,
+ * their ratings added. Judged on the primary run; it adds a finding and never
+ * decides a conductor's verdict.
  */
 export const transformerProtection = defineRule({
   id: 'transformer-protection',
@@ -19,15 +22,15 @@ export const transformerProtection = defineRule({
     primary:
       'The primary device ({{primaryA}} A) must not exceed {{allowedA}} A: {{pct}} % of the {{flaA}} A primary rated current ({{scheme}}).',
     secondary:
-      'The secondary devices ({{secondaryA}} A in all) must not exceed {{allowedA}} A: {{pct}} % of the {{flaA}} A secondary rated current.',
+      'The {{devices}} secondary device(s) ({{secondaryText}}, Note 2) must not exceed {{allowedA}} A: {{pct}} % of the {{flaA}} A secondary rated current.',
   },
   check(f) {
     const t = f.transformer;
     if (!t) return [];
     const device = f.supplyOcpdKind ?? 'breaker';
-    const ends = f.secondaries.map((s) => s.termination);
-    // Every secondary run ends in a device: primary-and-secondary protection, even while a rating is still missing.
-    const secondaryProtected = ends.length > 0 && ends.every((e) => e.kind === 'ocpd');
+    // Every secondary run ends in a device (Note 2: up to six grouped): primary-and-secondary protection, even while a rating is still missing.
+    const devices = secondaryDevices(f.secondaries.length > 0 ? f.secondaries.map((s) => s.termination) : t.secondaryEnds);
+    const secondaryProtected = devices.present;
     const scheme = secondaryProtected ? 'primary-and-secondary' : 'primary-only';
     const p = maxPrimaryOcpd(t.primaryFlaA, scheme, f.edition, device);
     const out: Check<'primary' | 'secondary'>[] = [
@@ -41,10 +44,9 @@ export const transformerProtection = defineRule({
     ];
     if (secondaryProtected) {
       const s = maxSecondaryOcpd(t.secondaryFlaA, f.edition, device);
-      const known = ends.every((e) => e.ratingA !== null);
-      const sum = ends.reduce((a, e) => a + (e.ratingA ?? 0), 0);
+      const sum = devices.sumA;
       const limitA = ocpdLimitA(s);
-      out.push(when('secondary', known ? sum <= limitA : null, { secondaryA: known ? sum : '?', allowedA: limitA, pct: s.maxPct, flaA: round2(t.secondaryFlaA) }));
+      out.push(when('secondary', sum === null ? null : sum <= limitA, { secondaryText: sum === null ? 'ratings not all given' : `${sum} A in all`, devices: devices.count, allowedA: limitA, pct: s.maxPct, flaA: round2(t.secondaryFlaA) }));
     }
     return out;
   },

@@ -2,11 +2,14 @@ import type { Graph } from './graph';
 
 /**
  * A run is one conductor, or several joined end to end at pass-through
- * joints: a splice with exactly one conductor in and one out of the same
- * material, size and number of sets. The rules judge a run as one conductor
- * whose length is the sum of its parts. An unfused disconnect is equipment,
- * not a splice: a tap that passes through one ends there, and what leaves it
- * is supplied from the tap (a tap from a tap).
+ * joints: a splice or a tap box with exactly one conductor in and one out,
+ * of the same material, size and number of sets. The rules judge a run as
+ * one conductor whose length is the sum of its parts. Where the size changes
+ * at such a joint (3/0 spliced to 4/0) the classifier decides: on a tap or a
+ * secondary the two are one run judged on the weakest segment (see
+ * `isJoint`); on a protected feeder the smaller conductor is a tap made there.
+ * An unfused disconnect is equipment, not a splice: a tap that passes through
+ * one ends there, and what leaves it is supplied from the tap (a tap from a tap).
  */
 export interface Runs {
   /** Conductor indices of each run, supply end first. */
@@ -15,17 +18,22 @@ export interface Runs {
   runOf: Int32Array;
 }
 
-export function isPassThroughJoint(g: Graph, node: number): boolean {
+/** A splice or tap box with one conductor in and one out and nothing else: no branch, whatever the sizes. */
+export function isJoint(g: Graph, node: number): boolean {
   if (node < 0) return false;
-  if (g.nodes[node]!.kind !== 'splice') return false;
+  const n = g.nodes[node]!;
+  if (n.kind !== 'splice' && !(n.kind === 'bus' && n.busType === 'tap-box')) return false;
   const ins = g.inEdges[node]!;
   const outs = g.outEdges[node]!;
-  if (ins.length !== 1 || outs.length !== 1) return false;
-  const p = ins[0]!;
-  const c = outs[0]!;
-  if (p < 0 || c < 0) return false;
-  const a = g.conductors[p]!;
-  const b = g.conductors[c]!;
+  // Conductors only: a bus link out of a tap box feeds equipment in it, which is a branch.
+  return ins.length === 1 && outs.length === 1 && ins[0]! >= 0 && outs[0]! >= 0;
+}
+
+/** A joint where nothing about the conductor changes: the two are one run from the start. */
+export function isPassThroughJoint(g: Graph, node: number): boolean {
+  if (!isJoint(g, node)) return false;
+  const a = g.conductors[g.inEdges[node]![0]!]!;
+  const b = g.conductors[g.outEdges[node]![0]!]!;
   return a.material === b.material && a.size === b.size && a.parallelSets === b.parallelSets;
 }
 
