@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { analyze, loadProject, type AnalysisReport, type ProjectInput } from '@linewright/core';
+import { analyze, loadProject, type AnalysisReport, type ConductorSize, type ProjectInput } from '@linewright/core';
 import { diagram } from '../../helpers/builder';
 
 /**
@@ -50,7 +50,7 @@ describe('a tap ending in a fusible switch (item 10)', () => {
 });
 
 describe('a joint that only changes size (item 11)', () => {
-  const chain = (second: string, secondFt = 12) =>
+  const chain = (second: ConductorSize, secondFt = 12) =>
     top()
       .tap({ id: 'T1', size: '3/0', lengthFt: 10 })
       .splice({ id: 'SP' })
