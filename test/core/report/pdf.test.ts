@@ -45,8 +45,8 @@ describe('renderPermitPdf', () => {
     expect(latin1.trimEnd().endsWith('%%EOF')).toBe(true);
   });
 
-  it('has the drawing, findings, schedule and working + assumptions pages: 4 for the fixture', () => {
-    expect(pageCount(latin1)).toBe(4);
+  it('has the drawing, findings, schedule, conductor-and-raceway schedule and working + assumptions pages: 5 for the fixture', () => {
+    expect(pageCount(latin1)).toBe(5);
   });
 
   it('uses an ANSI B landscape sheet, 17 × 11 in = 1224 × 792 pt (ASME Y14.1 sheet B)', () => {
@@ -63,9 +63,9 @@ describe('renderPermitPdf', () => {
   });
 
   it.skipIf(!HAS_PDFTOTEXT)('every page has the caution and "Page n of N" in its footer (needs pdftotext)', () => {
-    for (let p = 1; p <= 4; p++) {
+    for (let p = 1; p <= 5; p++) {
       const t = pageText(file, p).replace(/\s+/g, ' ');
-      expect(t).toContain(`Page ${p} of 4`);
+      expect(t).toContain(`Page ${p} of 5`);
       expect(t).toContain(CAUTION);
     }
   });
@@ -77,7 +77,15 @@ describe('renderPermitPdf', () => {
     const schedule = pageText(file, 3).replace(/\s+/g, ' ');
     expect(schedule).toContain('Conductor schedule');
     for (const c of fixtureReport.conductors) expect(schedule).toContain(c.id);
-    expect(pageText(file, 4)).toContain('Terminations are rated 75 °C');
+    expect(pageText(file, 5)).toContain('Terminations are rated 75 °C');
+  });
+
+  it.skipIf(!HAS_PDFTOTEXT)('the conductor and raceway schedule gives each run its EGC (Table 250.122) and raceway trade size (Chapter 9) (needs pdftotext)', () => {
+    const t = pageText(file, 4).replace(/\s+/g, ' ');
+    expect(t).toContain('Conductor and raceway schedule');
+    for (const c of fixtureReport.conductors) expect(t).toContain(c.id);
+    expect(t).toContain('Table 250.122');
+    expect(t).toMatch(/\d × [\d/-]+" EMT/);
   });
 
   it.skipIf(!HAS_PDFTOPPM)('page 1 renders with pdftoppm and has ink in the drawing area (skipped when poppler-utils is missing)', () => {
