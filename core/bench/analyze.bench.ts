@@ -1,26 +1,37 @@
 /**
- * `npm run bench`: load + analyze time and heap on synthetic one-lines of
- * 1 000, 10 000 and 100 000 conductors (core/bench/generateProject.ts), next to
- * a bare traversal of the same network as the floor. Prints figures only:
- * nothing here passes or fails on time.
+ * `npm run bench`: analysis speed and heap on synthetic one-lines of 1 000, 10 000 and 100 000
+ * conductors (core/bench/generateProject.ts), beside the true floor of that work, and the
+ * whole-process time of the `linewright` command on a sample. Prints figures only: nothing here
+ * passes or fails on time.
  *
  * Per size: warm-up runs, then timed runs; medians are reported.
- *   load     = JSON.parse of the file text + loadProject (schema, defaults, references)
- *   analyze  = analyze(project)
- *   floor    = JSON.parse + id → index maps + an upstream walk from every conductor
- *              over plain arrays until the first OCPD, transformer or source: the
- *              least work any classifier of this file must do.
- * Heap: with gc exposed (turned on below through v8 flags, no command-line switch
- * needed), the heap is collected before each size, then one extra untimed run holds
- * text, parsed JSON, project and report alive and samples heapUsed after each stage;
- * the largest sample minus the baseline is reported as "peak heap". It is a lower
- * bound of the true peak (garbage made between samples is not seen); the process's
- * peak RSS (resourceUsage().maxRSS, whole run, all sizes) is printed as well.
+ *   parse     = JSON.parse of the file text
+ *   load      = loadProject (schema, defaults, references) of the parsed file
+ *   analyze   = analyze(project)
+ *   pipeline  = parse + load + analyze, one after the other (what a check of the file costs)
+ *   floor     = over typed adjacency built beforehand (untimed: node and conductor indices, each
+ *               node's supply-side neighbour, supply-to-load order), one pass that reads every field
+ *               of every node and every conductor once and carries each node's nearest OCPD,
+ *               transformer or source down the network so every conductor learns what supplies it:
+ *               the least work any analysis that looks at all the data must do.
+ *   ratio     = analyze ÷ floor
+ *   JSON      = bytes per conductor of the compact JSON report (`--format json`, default detail)
+ * Heap: with gc exposed (turned on below through v8 flags, no command-line switch needed), the
+ * heap is collected before each size, then one extra untimed run holds text, parsed JSON, project
+ * and report alive and samples heapUsed after each stage; the largest sample minus the baseline is
+ * reported as "peak heap". It is a lower bound of the true peak (garbage made between samples is
+ * not seen); the process's peak RSS (resourceUsage().maxRSS, whole run, all sizes) is printed too.
+ * CLI: the command is built from the current source first (scripts/build-cli.mjs), then
+ * `node core/bin/linewright.mjs check samples/demo-clinic.json --format json` runs as a child
+ * process; the median wall time of the runs is reported.
  */
+import { spawnSync } from 'node:child_process';
 import { cpus, loadavg } from 'node:os';
+import { resolve } from 'node:path';
 import { setFlagsFromString } from 'node:v8';
 import { runInNewContext } from 'node:vm';
-import { analyze, loadProject } from '../src/index';
+import { analyze, loadProject, toJsonReport, type Project } from '../src/index';
+import { buildCli } from '../../scripts/build-cli.mjs';
 import { generateProject } from './generateProject';
 
 setFlagsFromString('--expose-gc');
@@ -28,9 +39,10 @@ const gc = runInNewContext('gc') as (() => void) | undefined;
 
 const SIZES = [
   { conductors: 1_000, warmup: 5, runs: 25 },
-  { conductors: 10_000, warmup: 5, runs: 15 },
-  { conductors: 100_000, warmup: 2, runs: 7 },
+  { conductors: 10_000, warmup: 3, runs: 15 },
+  { conductors: 100_000, warmup: 1, runs: 5 },
 ];
+const CLI_RUNS = 9;
 
 const median = (xs: number[]) => {
   const s = [...xs].sort((a, b) => a - b);
@@ -41,39 +53,82 @@ const ms = (t0: bigint, t1: bigint) => Number(t1 - t0) / 1e6;
 const round = (x: number, digits = 2) => Math.round(x * 10 ** digits) / 10 ** digits;
 const mb = (bytes: number) => round(bytes / 2 ** 20, 1);
 
+/** Kinds that end the upstream walk: what a conductor is judged against. */
 const SUPPLY_KINDS = new Set(['breaker', 'fuse', 'transformer', 'utility', 'generator']);
 
-interface RawFile {
-  nodes: { id: string; kind: string }[];
-  conductors: { from: string; to: string }[];
-  busLinks?: { from: string; to: string }[];
+/** Typed adjacency for the floor, built before the clock starts. */
+interface Adjacency {
+  nodes: readonly object[];
+  conductors: readonly object[];
+  /** Node indices in supply-to-load order. */
+  order: Int32Array;
+  /** Each node's supply-side neighbour (conductor or bus link), -1 for none. */
+  feeder: Int32Array;
+  isSupply: Uint8Array;
+  conductorFrom: Int32Array;
 }
 
-/** The floor: parse, index, walk up from every conductor. Returns a checksum so nothing is optimized away. */
-function bareTraversal(text: string): number {
-  const file = JSON.parse(text) as RawFile;
-  const n = file.nodes.length;
+function buildAdjacency(project: Project): Adjacency {
+  const n = project.nodes.length;
   const index = new Map<string, number>();
+  project.nodes.forEach((node, i) => index.set(node.id, i));
   const isSupply = new Uint8Array(n);
-  for (let i = 0; i < n; i++) {
-    const node = file.nodes[i]!;
-    index.set(node.id, i);
-    if (SUPPLY_KINDS.has(node.kind)) isSupply[i] = 1;
-  }
-  // One feeding node per node (radial system): conductors and bus links alike.
+  project.nodes.forEach((node, i) => (isSupply[i] = SUPPLY_KINDS.has(node.kind) ? 1 : 0));
   const feeder = new Int32Array(n).fill(-1);
-  const fromIndex = new Int32Array(file.conductors.length);
-  file.conductors.forEach((c, k) => {
-    const from = index.get(c.from)!;
-    fromIndex[k] = from;
-    feeder[index.get(c.to)!] = from;
+  const conductorFrom = new Int32Array(project.conductors.length);
+  project.conductors.forEach((c, k) => {
+    conductorFrom[k] = index.get(c.from)!;
+    feeder[index.get(c.to)!] = index.get(c.from)!;
   });
-  for (const l of file.busLinks ?? []) feeder[index.get(l.to)!] = index.get(l.from)!;
+  for (const l of project.busLinks) feeder[index.get(l.to)!] = index.get(l.from)!;
+  // Supply-to-load order: depth of each node along its feeders, then a counting sort.
+  const depth = new Int32Array(n).fill(-1);
+  for (let i = 0; i < n; i++) {
+    const path: number[] = [];
+    let at = i;
+    while (at >= 0 && depth[at] === -1 && path.length <= n) {
+      path.push(at);
+      at = feeder[at]!;
+    }
+    let d = at >= 0 ? depth[at]! : -1;
+    for (let k = path.length - 1; k >= 0; k--) depth[path[k]!] = ++d;
+  }
+  const order = Int32Array.from({ length: n }, (_, i) => i).sort((a, b) => depth[a]! - depth[b]!);
+  return { nodes: project.nodes, conductors: project.conductors, order, feeder, isSupply, conductorFrom };
+}
+
+/** Sums what a field holds, so reading it cannot be optimized away. */
+function weigh(value: unknown): number {
+  switch (typeof value) {
+    case 'number':
+      return value;
+    case 'string':
+      return value.length;
+    case 'boolean':
+      return value ? 1 : 0;
+    case 'object':
+      return value === null ? 0 : 1;
+    default:
+      return 0;
+  }
+}
+
+/** The floor: one pass over the prebuilt adjacency reading every field once. Returns a checksum. */
+function floorPass(a: Adjacency): number {
   let checksum = 0;
-  for (let k = 0; k < fromIndex.length; k++) {
-    let at = fromIndex[k]!;
-    for (let guard = 0; !isSupply[at] && feeder[at]! >= 0 && guard < n; guard++) at = feeder[at]!;
-    checksum += at;
+  const n = a.nodes.length;
+  const supplyOf = new Int32Array(n);
+  for (let k = 0; k < n; k++) {
+    const i = a.order[k]!;
+    const node = a.nodes[i] as Record<string, unknown>;
+    for (const key in node) checksum += weigh(node[key]);
+    const up = a.feeder[i]!;
+    supplyOf[i] = a.isSupply[i] || up < 0 ? i : supplyOf[up]!;
+  }
+  for (let k = 0; k < a.conductors.length; k++) {
+    const c = a.conductors[k] as Record<string, unknown>;
+    for (const key in c) checksum += weigh(c[key]);
+    checksum += supplyOf[a.conductorFrom[k]!]!;
   }
   return checksum;
 }
@@ -83,11 +138,13 @@ interface SizeResult {
   nodes: number;
   fileMB: number;
   runs: number;
+  parseMs: number;
   loadMs: number;
   analyzeMs: number;
-  totalMs: number;
+  pipelineMs: number;
   floorMs: number;
-  ratioToFloor: number;
+  analyzeToFloor: number;
+  jsonBytesPerConductor: number;
   peakHeapMB: number;
   verdicts: Record<string, number>;
 }
@@ -97,16 +154,21 @@ function measure({ conductors, warmup, runs }: (typeof SIZES)[number]): SizeResu
   const text = JSON.stringify(input);
   const once = () => {
     const t0 = process.hrtime.bigint();
-    const loaded = loadProject(JSON.parse(text));
+    const parsed: unknown = JSON.parse(text);
     const t1 = process.hrtime.bigint();
+    const loaded = loadProject(parsed);
+    const t2 = process.hrtime.bigint();
     if (!loaded.ok) throw new Error(`synthetic project refused: ${JSON.stringify(loaded.errors.slice(0, 3))}`);
     const report = analyze(loaded.project);
-    const t2 = process.hrtime.bigint();
-    return { load: ms(t0, t1), analyze: ms(t1, t2), total: ms(t0, t2), report };
+    const t3 = process.hrtime.bigint();
+    return { parse: ms(t0, t1), load: ms(t1, t2), analyze: ms(t2, t3), pipeline: ms(t0, t3), project: loaded.project, report };
   };
+  const first = once();
+  const adjacency = buildAdjacency(first.project);
+  let sink = 0;
   const floorOnce = () => {
     const t0 = process.hrtime.bigint();
-    bareTraversal(text);
+    sink += floorPass(adjacency);
     return ms(t0, process.hrtime.bigint());
   };
 
@@ -114,18 +176,22 @@ function measure({ conductors, warmup, runs }: (typeof SIZES)[number]): SizeResu
     once();
     floorOnce();
   }
+  const parse: number[] = [];
   const load: number[] = [];
   const analyzeT: number[] = [];
-  const total: number[] = [];
+  const pipeline: number[] = [];
   const floor: number[] = [];
   for (let i = 0; i < runs; i++) {
     // Alternate so drift in machine load hits both the same way.
     floor.push(floorOnce());
     const run = once();
+    parse.push(run.parse);
     load.push(run.load);
     analyzeT.push(run.analyze);
-    total.push(run.total);
+    pipeline.push(run.pipeline);
   }
+  if (sink === 0) console.log('(floor checksum 0)');
+  const jsonBytes = JSON.stringify(toJsonReport(first.report)).length + 1;
 
   // Heap: collect, then hold every stage's result alive and sample after each.
   gc?.();
@@ -133,7 +199,7 @@ function measure({ conductors, warmup, runs }: (typeof SIZES)[number]): SizeResu
   const held: unknown[] = [];
   let peak = 0;
   const sample = () => (peak = Math.max(peak, process.memoryUsage().heapUsed - base));
-  const parsed = JSON.parse(text);
+  const parsed: unknown = JSON.parse(text);
   held.push(parsed);
   sample();
   const loaded = loadProject(parsed);
@@ -141,46 +207,78 @@ function measure({ conductors, warmup, runs }: (typeof SIZES)[number]): SizeResu
   sample();
   if (loaded.ok) held.push(analyze(loaded.project));
   sample();
-  const report = held[2] as ReturnType<typeof analyze>;
-  const verdicts = Object.fromEntries(Object.entries(report.counts.byVerdict).filter(([, v]) => v > 0));
+  const verdicts = Object.fromEntries(Object.entries(first.report.counts.byVerdict).filter(([, v]) => v > 0));
   held.length = 0;
 
-  const medTotal = median(total);
+  const medAnalyze = median(analyzeT);
   const medFloor = median(floor);
   return {
     conductors,
     nodes: input.nodes.length,
     fileMB: mb(text.length),
     runs,
+    parseMs: round(median(parse)),
     loadMs: round(median(load)),
-    analyzeMs: round(median(analyzeT)),
-    totalMs: round(medTotal),
-    floorMs: round(medFloor),
-    ratioToFloor: round(medTotal / medFloor, 1),
+    analyzeMs: round(medAnalyze),
+    pipelineMs: round(median(pipeline)),
+    floorMs: round(medFloor, 3),
+    analyzeToFloor: round(medAnalyze / medFloor, 0),
+    jsonBytesPerConductor: Math.round(jsonBytes / conductors),
     peakHeapMB: mb(peak),
     verdicts,
   };
 }
 
+/** Whole-process time of the command on a sample, as a user runs it (median wall time, ms). */
+async function measureCli(): Promise<{ sample: string; runs: number; medianMs: number; exitCode: number | null }> {
+  await buildCli();
+  const root = resolve(import.meta.dirname, '../..');
+  const sample = 'samples/demo-clinic.json';
+  const args = ['core/bin/linewright.mjs', 'check', sample, '--format', 'json'];
+  const times: number[] = [];
+  let exitCode: number | null = null;
+  for (let i = 0; i < CLI_RUNS + 1; i++) {
+    const t0 = process.hrtime.bigint();
+    const r = spawnSync(process.execPath, args, { cwd: root, stdio: ['ignore', 'ignore', 'ignore'] });
+    if (i > 0) times.push(ms(t0, process.hrtime.bigint()));
+    exitCode = r.status;
+  }
+  return { sample, runs: CLI_RUNS, medianMs: round(median(times), 0), exitCode };
+}
+
 const pad = (s: string | number, w: number) => String(s).padStart(w);
 const load = () => loadavg().map((x) => round(x, 1));
+const COLUMNS = ['conductors', 'nodes', 'file MB', 'runs', 'parse', 'load', 'analyze', 'pipeline', 'floor', 'analyze/floor', 'JSON B/cond', 'peak heap MB'];
+const WIDTHS = [10, 8, 8, 5, 8, 8, 9, 9, 8, 14, 12, 13];
+const row = (cells: (string | number)[]) => cells.map((v, i) => pad(v, WIDTHS[i]!)).join(' ');
 console.log(`Linewright core benchmark, node ${process.version}, ${cpus().length} CPUs, load average ${load().join(' ')} at start, ${gc ? 'gc exposed' : 'gc NOT exposed: heap figures are rough'}`);
-console.log('a load average above the CPU count means other work shares the machine: figures are then upper bounds');
-console.log('medians of timed runs after warm-up; times in ms; load = JSON.parse + loadProject');
-console.log(['conductors', 'nodes', 'file MB', 'runs', 'load', 'analyze', 'load+analyze', 'floor', 'ratio', 'peak heap MB'].map((h, i) => pad(h, [10, 8, 8, 5, 9, 9, 13, 8, 6, 13][i]!)).join(' '));
+console.log('a load average above the CPU count means other work shares the machine: figures are then upper bounds; read ratios');
+console.log('medians of timed runs after warm-up; times in ms; pipeline = parse + load + analyze; floor = one field-reading pass over prebuilt typed adjacency');
+console.log(row(COLUMNS));
 const results: SizeResult[] = [];
 for (const size of SIZES) {
   const r = measure(size);
   results.push(r);
-  console.log(
-    [r.conductors, r.nodes, r.fileMB, r.runs, r.loadMs, r.analyzeMs, r.totalMs, r.floorMs, r.ratioToFloor, r.peakHeapMB]
-      .map((v, i) => pad(v, [10, 8, 8, 5, 9, 9, 13, 8, 6, 13][i]!))
-      .join(' '),
-  );
+  console.log(row([r.conductors, r.nodes, r.fileMB, r.runs, r.parseMs, r.loadMs, r.analyzeMs, r.pipelineMs, r.floorMs, r.analyzeToFloor, r.jsonBytesPerConductor, r.peakHeapMB]));
 }
 const at = (n: number) => results.find((r) => r.conductors === n)!;
-const growth10kTo100k = round(at(100_000).totalMs / at(10_000).totalMs, 1);
+const analyzeGrowth10kTo100k = round(at(100_000).analyzeMs / at(10_000).analyzeMs, 1);
+const pipelineGrowth10kTo100k = round(at(100_000).pipelineMs / at(10_000).pipelineMs, 1);
 const maxRssMB = round(process.resourceUsage().maxRSS / 1024, 0);
-console.log(`growth 10k -> 100k conductors: x${growth10kTo100k} (x10 is linear); process peak RSS ${maxRssMB} MB`);
+console.log(`growth 10k -> 100k conductors: analyze x${analyzeGrowth10kTo100k}, pipeline x${pipelineGrowth10kTo100k} (x10 is linear); process peak RSS ${maxRssMB} MB`);
 for (const r of results) console.log(`verdicts at ${r.conductors}: ${JSON.stringify(r.verdicts)}`);
-console.log(JSON.stringify({ node: process.version, cpus: cpus().length, loadAverageAtEnd: load(), gcExposed: Boolean(gc), sizes: results, growth10kTo100k, maxRssMB }));
+const cli = await measureCli();
+console.log(`linewright check ${cli.sample} --format json, whole process: ${cli.medianMs} ms median of ${cli.runs} (exit ${cli.exitCode})`);
+console.log(
+  JSON.stringify({
+    node: process.version,
+    cpus: cpus().length,
+    loadAverageAtEnd: load(),
+    gcExposed: Boolean(gc),
+    sizes: results,
+    analyzeGrowth10kTo100k,
+    pipelineGrowth10kTo100k,
+    maxRssMB,
+    cli,
+  }),
+);

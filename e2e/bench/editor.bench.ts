@@ -1,24 +1,29 @@
 /**
  * Editor benchmark (not a test): serves the built app with `vite preview`,
- * drives Debian's Chromium over generated drawings and prints
+ * drives Debian's Chromium and prints
+ *   - the demo's first paint: a fresh page with the demo drawing, from navigation start to the
+ *     first contentful paint and to the equipment painted, and the script bytes loaded by then
+ *     (the PDF and layout code must not be among them),
+ * then, over generated drawings counted in conductors (2 000 and 10 000 by default),
  *   - time to first render (open a project file → equipment painted) and to
  *     first verdicts (→ the check of that drawing painted),
  *   - edit-to-verdict latency over ≥ 20 edits (a conductor length typed in →
  *     the new verdicts painted), median and p95,
  *   - frame time during a scripted pan and a scripted zoom, from
  *     requestAnimationFrame deltas, median and p95.
- * The last line is one JSON object with every figure.
+ * The last line is one JSON object with every figure. Figures only: nothing passes or fails.
  *
- * Run: npm run bench:web   (builds first)   Env: CHROMIUM_PATH, BENCH_SIZES=200,2000,5000, BENCH_PORT
+ * Run: npm run bench:web   (builds first)
+ * Env: CHROMIUM_PATH, BENCH_CONDUCTORS=2000,10000, BENCH_PORT (default 4184)
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { chromium, type Page } from 'playwright-core';
 import { generateProject } from '../../core/bench/generateProject';
 
-const PORT = Number(process.env.BENCH_PORT ?? 4191);
+const PORT = Number(process.env.BENCH_PORT ?? 4184);
 const BASE = `http://127.0.0.1:${PORT}`;
-const SIZES = (process.env.BENCH_SIZES ?? '200,2000,5000').split(',').map(Number);
+const SIZES = (process.env.BENCH_CONDUCTORS ?? '2000,10000').split(',').map(Number);
 const EDITS = 25;
 const webDir = fileURLToPath(new URL('../../web/', import.meta.url));
 
@@ -48,9 +53,8 @@ async function startPreview(): Promise<ChildProcess> {
   throw new Error('vite preview did not start within 30 s');
 }
 
-/** Element count = equipment + conductors + bus links; the generator makes about 2 nodes and 1 bus link per conductor. */
-function projectOfElements(elements: number) {
-  const conductors = Math.max(1, Math.round(elements / 4));
+/** A generated drawing of exactly `conductors` conductors (about 2 equipment and 1 bus link per conductor). */
+function projectOfConductors(conductors: number) {
   const p = generateProject({ conductors, seed: 7 });
   return { text: JSON.stringify(p), nodes: p.nodes.length, conductors: p.conductors.length, busLinks: (p.busLinks ?? []).length };
 }
@@ -79,8 +83,8 @@ async function framesDuring(page: Page, act: () => Promise<void>): Promise<numbe
   });
 }
 
-async function measure(page: Page, elements: number) {
-  const p = projectOfElements(elements);
+async function measure(page: Page, conductors: number) {
+  const p = projectOfConductors(conductors);
   await page.goto(BASE);
   await page.waitForFunction(() => !!window.__linewright && window.__linewright.reportVersion() === window.__linewright.docVersion());
 
@@ -159,11 +163,41 @@ async function measure(page: Page, elements: number) {
   };
 }
 
+/** A fresh page with the demo drawing: first contentful paint, equipment painted, script bytes loaded by then. */
+async function measureDemoFirstPaint(page: Page) {
+  await page.goto(BASE);
+  await page.locator('.react-flow__node').first().waitFor({ state: 'visible' });
+  return page.evaluate(() => {
+    const painted = performance.now();
+    const fcp = performance.getEntriesByName('first-contentful-paint')[0]?.startTime ?? NaN;
+    const scripts = performance
+      .getEntriesByType('resource')
+      .filter((e): e is PerformanceResourceTiming => e instanceof PerformanceResourceTiming && e.initiatorType === 'script')
+      .concat(performance.getEntriesByType('navigation') as PerformanceResourceTiming[])
+      .filter((e) => /\.js(\?|$)/.test(e.name));
+    const scriptKB = scripts.reduce((sum, e) => sum + (e.decodedBodySize || 0), 0) / 1024;
+    return {
+      firstContentfulPaintMs: Math.round(fcp),
+      equipmentPaintedMs: Math.round(painted),
+      scriptKB: Math.round(scriptKB),
+      scripts: scripts.map((e) => e.name.replace(/^.*\/assets\//, '')),
+    };
+  });
+}
+
 async function main() {
   const server = await startPreview();
   const browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: ['--disable-gpu', '--disable-quic'] });
   const results = [];
+  let demo: Awaited<ReturnType<typeof measureDemoFirstPaint>>;
   try {
+    {
+      const ctx = await browser.newContext({ viewport: { width: 1440, height: 900 } });
+      await ctx.addInitScript({ content: "window.__name = (f) => f; localStorage.setItem('linewright.caution-seen', '1');" });
+      demo = await measureDemoFirstPaint(await ctx.newPage());
+      console.log(`demo first paint: first contentful paint ${demo.firstContentfulPaintMs} ms, equipment painted ${demo.equipmentPaintedMs} ms after navigation; ${demo.scriptKB} KB of script (${demo.scripts.join(', ')})`);
+      await ctx.close();
+    }
     for (const n of SIZES) {
       const ctx = await browser.newContext({ viewport: { width: 1440, height: 900 } });
       // tsx keeps function names with a `__name` helper that page functions then call; give the page one.
@@ -183,7 +217,7 @@ async function main() {
     await browser.close();
     server.kill();
   }
-  console.log(JSON.stringify({ bench: 'editor', chromium: 'headless, --disable-gpu', sizes: results }));
+  console.log(JSON.stringify({ bench: 'editor', chromium: 'headless, --disable-gpu', demo, sizes: results }));
 }
 
 await main();
