@@ -1,8 +1,14 @@
-import ELK from 'elkjs/lib/elk.bundled.js';
+import type ELK from 'elkjs/lib/elk.bundled.js';
 import type { Project } from '@linewright/core';
 import { kindSpec } from '../editor/equipment';
 
-const elk = new ELK();
+let elk: Promise<InstanceType<typeof ELK>> | null = null;
+
+/** elkjs (about 1.5 MB) loads on the first layout, in a chunk of its own, not with the editor. */
+function layoutEngine(): Promise<InstanceType<typeof ELK>> {
+  elk ??= import('elkjs/lib/elk.bundled.js').then((m) => new m.default());
+  return elk;
+}
 
 /**
  * Top-to-bottom layered layout of the whole drawing: supply at the top, loads
@@ -31,7 +37,7 @@ export async function layoutTopToBottom(p: Project): Promise<Map<string, { x: nu
       ...p.busLinks.map((b) => ({ id: `b:${b.id}`, sources: [b.from], targets: [b.to] })),
     ].filter((e) => e.sources[0] !== e.targets[0]),
   };
-  const out = await elk.layout(graph);
+  const out = await (await layoutEngine()).layout(graph);
   const pos = new Map<string, { x: number; y: number }>();
   for (const c of out.children ?? []) pos.set(c.id, { x: Math.round(c.x ?? 0), y: Math.round(c.y ?? 0) });
   return pos;

@@ -1,4 +1,4 @@
-import { coreRenderPermitPdf } from '../../analysis/coreApi';
+import { loadPermitPdf } from '../../analysis/coreApi';
 import { fileBaseName } from './saveJson';
 import { defineCommand } from './types';
 
@@ -7,13 +7,21 @@ export const exportPdf = defineCommand({
   id: 'export-pdf',
   label: 'Export PDF',
   canRun: ({ store }) => store.getState().report !== null,
-  run: (ctx) => {
+  run: async (ctx) => {
+    // The drawing and its report as they are now; the PDF code loads on first use (see loadPermitPdf).
     const { doc, report, reportVersion, docVersion } = ctx.store.getState();
     if (!report || reportVersion !== docVersion) {
       ctx.store.notify('The check is still running; export again in a moment.', 'error');
       return;
     }
-    const bytes = coreRenderPermitPdf(doc, report, { generatedAt: new Date().toISOString() });
+    let renderPermitPdf: Awaited<ReturnType<typeof loadPermitPdf>>['renderPermitPdf'];
+    try {
+      ({ renderPermitPdf } = await loadPermitPdf());
+    } catch (e) {
+      ctx.store.notify(`The PDF code could not be loaded (${e instanceof Error ? e.message : String(e)}); reload the page and export again.`, 'error');
+      return;
+    }
+    const bytes = renderPermitPdf(doc, report, { generatedAt: new Date().toISOString() });
     ctx.download(`${fileBaseName(doc)}.pdf`, 'application/pdf', bytes);
   },
 });
