@@ -51,6 +51,26 @@ export function applyFix(draft: Project, fix: Fix): void {
       c.from = id;
       return;
     }
+    case 'add-main': {
+      const bus = draft.nodes.find((n) => n.id === fix.busId);
+      if (!bus) throw new Error(`The fix refers to equipment "${fix.busId}", which is not in the drawing.`);
+      const incoming = [...draft.conductors, ...draft.busLinks].filter((x) => x.to === bus.id);
+      if (incoming.length !== 1) throw new Error(`"${fix.busId}" is fed from ${incoming.length} places; a main breaker needs exactly one.`);
+      const id = freshId(draft, `${bus.id}-main`) as NodeId;
+      const main: EquipmentNode = {
+        id,
+        kind: 'breaker',
+        label: `${fix.ratingA} A main`,
+        ratingA: fix.ratingA,
+        arrangement: 'single',
+        atDisconnectingMeans: false,
+        ...(bus.position ? { position: { x: bus.position.x, y: bus.position.y - 50 } } : {}),
+      };
+      draft.nodes.push(main);
+      incoming[0]!.to = id;
+      draft.busLinks.push({ id: freshId(draft, `${id}-link`) as BusLinkId, from: id, to: bus.id });
+      return;
+    }
     case 'set-field': {
       const ref = fix.ref;
       const target: Record<string, unknown> | undefined =

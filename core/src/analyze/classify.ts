@@ -264,6 +264,13 @@ function secondary(j: RunToJudge, tx: number): RunVerdict {
   facts.transformer = transformerFacts(g, tx, { ratingA: device ? effectiveRatingA(device) : null, id: device?.id ?? null }, ends);
   // A transformer ahead of the service equipment (fed by service conductors, no OCPD) has service conductors on its secondary.
   if (primary.service) return service(j);
+  // Fed straight from a generator (no OCPD): the secondary still runs from the generator to its first OCPD (445.13),
+  // judged against the nameplate current seen through the transformer. Not a feeder tap: nothing ahead is a feeder device.
+  if (primary.generator >= 0) {
+    const gen = generatorFacts(g, primary.generator);
+    facts.generator = gen && { ...gen, nameplateA: (gen.nameplateA * facts.transformer.primaryVoltsLL) / facts.transformer.secondaryVoltsLL };
+    return single(j, generatorRule, { verdict: 'generator', family: 'generator', role: 'generator', deviceNode: -1, generatorNode: primary.generator });
+  }
   const base = { family: 'secondary' as Family, role: 'transformer-secondary' as ConductorRole, supply: j.supply, deviceNode: primary.device, generatorNode: -1, facts };
   if (primary.run) {
     const pv = primary.run.verdict;
@@ -281,21 +288,23 @@ function secondary(j: RunToJudge, tx: number): RunVerdict {
   return { ...base, verdict: v.verdict, rule: v.rule, tried, candidates: SECONDARY_RULES };
 }
 
-/** The device protecting a transformer's primary, and the primary run when there is one. */
-function primarySupply(walk: Walk, tx: number): { device: number; run: RunVerdict | null; service: boolean } {
+/** The device protecting a transformer's primary, the primary run when there is one, and a service or generator straight ahead. */
+function primarySupply(walk: Walk, tx: number): { device: number; run: RunVerdict | null; service: boolean; generator: number } {
   const { graph: g, runs } = walk.ctx;
   const ins = g.inEdges[tx]!;
-  if (ins.length !== 1) return { device: -1, run: null, service: false };
+  const none = { device: -1, run: null, service: false, generator: -1 };
+  if (ins.length !== 1) return none;
   const e = ins[0]!;
   let run: RunVerdict | null = null;
   if (e >= 0) run = walk.results[runs.runOf[e]!] ?? null;
   else {
     const s = supplyAt(walk, edgeFrom(g, e));
-    if (s.kind === 'ocpd') return { device: s.node, run: null, service: false };
-    if (s.kind === 'utility') return { device: -1, run: null, service: true };
+    if (s.kind === 'ocpd') return { ...none, device: s.node };
+    if (s.kind === 'utility') return { ...none, service: true };
+    if (s.kind === 'generator') return { ...none, generator: s.node };
     if (s.kind === 'run') run = walk.results[s.run] ?? null;
   }
-  return { device: run?.deviceNode ?? -1, run, service: run?.family === 'service' };
+  return { device: run?.deviceNode ?? -1, run, service: run?.family === 'service', generator: run?.family === 'generator' ? run.generatorNode : -1 };
 }
 
 /** For each node: is there an OCPD or transformer anywhere on its load side? Decides feeder vs branch circuit. */

@@ -108,7 +108,11 @@ export function conductorFindings(ctx: FixedContext): Finding[] {
     }
     if ((v.verdict === 'service' || v.verdict === 'generator') && v.tried[0]?.outcome === 'fails') {
       const t = v.tried[0];
-      push({ ruleId: t.ruleId, messageId: 'fails', severity: 'violation', cites: t.cites, subject: { kind: 'conductor', id: c.id }, message: `${describeRun(c, f)}: ${failedTexts(t).join(' ')} Fails ${t.cites.section}.` });
+      // More than six service disconnects is a finding of its own (230.71), apart from the conductors' protection.
+      const tooMany = t.conditions.find((x) => x.id === 'disconnects' && x.status === 'fail');
+      if (tooMany) push({ ruleId: t.ruleId, messageId: 'too-many-disconnects', severity: 'violation', cites: cites('230.71'), subject: { kind: 'conductor', id: c.id }, message: `${describeRun(c, f)}: ${tooMany.text} Fails 230.71.` });
+      const rest = t.conditions.filter((x) => x.status === 'fail' && x !== tooMany).map((x) => x.text);
+      if (rest.length > 0) push({ ruleId: t.ruleId, messageId: 'fails', severity: 'violation', cites: t.cites, subject: { kind: 'conductor', id: c.id }, message: `${describeRun(c, f)}: ${rest.join(' ')} Fails ${t.cites.section}.` });
     }
     if (f.ampacityA !== null && f.calculatedLoadA !== null && f.calculatedLoadA > f.ampacityA + 1e-6 && v.role !== 'service') {
       const section = v.role === 'branch' ? '210.19(A)(1)' : '215.2(A)(1)';

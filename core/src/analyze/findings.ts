@@ -1,6 +1,7 @@
 import { conductorFindings } from './conductorFindings';
 import type { FixedContext } from './context';
 import { equipmentFindings } from './equipmentFindings';
+import { panelboardFindings } from './panelboardFindings';
 import { topologyFindings } from './topologyFindings';
 import type { Finding } from './types';
 
@@ -10,5 +11,5 @@ import type { Finding } from './types';
  * equipment, then the shape of the network.
  */
 export function collectFindings(ctx: FixedContext): Finding[] {
-  return [...conductorFindings(ctx), ...equipmentFindings(ctx), ...topologyFindings(ctx)];
+  return [...conductorFindings(ctx), ...equipmentFindings(ctx), ...panelboardFindings(ctx), ...topologyFindings(ctx)];
 }

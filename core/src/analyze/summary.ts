@@ -78,7 +78,9 @@ export function describeRun(v: RunVerdict): string {
     case 'generator': {
       const t = v.tried[0];
       const fails = t ? failedTexts(t) : [];
-      return fails.length > 0 ? `${capital(label)} conductors; fails ${t!.cites.section}: ${fails.join(' ')}` : `${capital(label)} conductors (${v.rule?.section ?? ''}).`;
+      // A service shows the load it carries: the calculated load (230.42(A)) beside the ampacity.
+      const load = v.verdict === 'service' && f.calculatedLoadA !== null ? ` Calculated load ${formatNumber(f.calculatedLoadA)} A on ${A} A.` : '';
+      return fails.length > 0 ? `${capital(label)} conductors; fails ${t!.cites.section}: ${fails.join(' ')}${load}` : `${capital(label)} conductors (${v.rule?.section ?? ''}).${load}`;
     }
     case 'tap-from-tap':
       return `Tap from a tap: supplied from ${f.suppliedFrom?.conductorIds.join(' → ') ?? '?'}, itself "${f.suppliedFrom ? VERDICT_LABELS[f.suppliedFrom.verdict] : '?'}" (240.21).`;

@@ -98,6 +98,8 @@ export type Fix =
   | { kind: 'resize'; conductorIds: ConductorId[]; size: ConductorSize; material: Material; parallelSets: number; forRule: string; label: string }
   | { kind: 'shorten'; conductorIds: ConductorId[]; maxLengthFt: number; forRule: string; label: string }
   | { kind: 'add-ocpd'; conductorId: ConductorId; ratingA: number; label: string }
+  /** A main breaker in a panelboard: drawn between its incoming conductor or link and its bus (408.36). */
+  | { kind: 'add-main'; busId: NodeId; ratingA: number; label: string }
   | { kind: 'set-field'; ref: ElementRef; field: string; value: string | number | boolean; label: string };
 
 export interface Finding {

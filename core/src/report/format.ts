@@ -134,6 +134,8 @@ export function fixText(fix: Fix): string {
       return `keep the run at most ${num(fix.maxLengthFt)} ft (${fix.forRule})`;
     case 'add-ocpd':
       return `add an OCPD of at most ${num(fix.ratingA)} A at the tap point`;
+    case 'add-main':
+      return `add a ${num(fix.ratingA)} A main breaker in ${fix.busId}`;
     case 'set-field':
       return `set ${fix.field} to ${String(fix.value)}`;
   }

@@ -159,6 +159,8 @@ export function jsonFix(f: Fix, list: ConductorList = ownList): Record<string, u
       return { kind: f.kind, label: f.label, forRule: f.forRule, ...list(f.conductorIds), maxLengthFt: f.maxLengthFt };
     case 'add-ocpd':
       return { kind: f.kind, label: f.label, conductorId: f.conductorId, ratingA: f.ratingA };
+    case 'add-main':
+      return { kind: f.kind, label: f.label, busId: f.busId, ratingA: f.ratingA };
     case 'set-field':
       return { kind: f.kind, label: f.label, ref: ref(f.ref), field: f.field, value: f.value };
   }

@@ -4,6 +4,7 @@ import { equipmentSccr } from './equipment-sccr';
 import { interruptingRating } from './interrupting-rating';
 import { voltageDropRule } from './voltage-drop';
 import { generatorRule } from './generator';
+import { panelboardProtection } from './panelboard-protection';
 import { protectedNextSize } from './protected-next-size';
 import { protectedRule } from './protected';
 import { secondary10ft } from './secondary-10ft';
@@ -52,11 +53,11 @@ export const ALL_RULES: readonly Rule[] = [
  * circuits from the short-circuit and voltage-drop studies (core/src/studies),
  * each over facts of its own, and add findings without deciding a verdict.
  */
-export const STUDY_RULES = [conductorWithstand, equipmentSccr, interruptingRating, voltageDropRule] as const;
+export const STUDY_RULES = [conductorWithstand, equipmentSccr, interruptingRating, panelboardProtection, voltageDropRule] as const;
 
 export const RULES_BY_ID: ReadonlyMap<string, Rule> = new Map(ALL_RULES.map((r) => [r.id, r]));
 
-export { conductorWithstand, equipmentSccr, interruptingRating, voltageDropRule };
+export { conductorWithstand, equipmentSccr, interruptingRating, panelboardProtection, voltageDropRule };
 export { generatorRule, serviceRule, tapFromTap, tapTransformer, transformerProtection };
 export type { Rule } from './define';
 export type { RunFacts, Termination, TransformerFacts } from './facts';

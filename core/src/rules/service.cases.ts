@@ -8,6 +8,11 @@ const T = 'NFPA 70-2023 Table 310.16';
 const service = (o: RunFactsOverrides = {}) =>
   runFacts({ lengthFt: 60, supplyOcpdA: null, supplyOcpdId: null, supplyOcpdKind: null, ...o });
 const main = (ratingA: number) => terminationAt('ocpd', { label: 'MAIN', ratingA });
+/** A switchboard without a main whose every output is one of `count` breakers of `eachA`: those are the service disconnects. */
+const mainLug = (count: number, eachA: number) =>
+  terminationAt('bus', { label: 'SWBD', busType: 'switchboard', ratingA: 1200, groupedOcpdCount: count, groupedOcpdSumA: count * eachA, onlyOcpdsBelow: true });
+const X3 = 'NFPA 70-2023 230.90(A) Exception No. 3';
+const D = 'NFPA 70-2023 230.71';
 
 export const cases: RuleCases = {
   meets: [
@@ -31,8 +36,41 @@ export const cases: RuleCases = {
       facts: service({ size: '400', parallelSets: 3, ampacityA: 1005, loadA: 850, calculatedLoadA: 850, termination: main(1000) }),
       source: `${S}; NFPA 70-2023 240.4(C); ${T}`,
     },
+    {
+      name: 'six 200 A disconnects on a main-lug switchboard (1200 A added) fed by 3 sets of 500 kcmil Cu (3 × 380 = 1140 A) with a calculated load of 900 A: the sum may exceed 1140 A because 900 A does not',
+      facts: service({ size: '500', parallelSets: 3, ampacityA: 1140, loadA: 800, calculatedLoadA: 900, termination: mainLug(6, 200) }),
+      source: `${X3}; ${D}; ${T}`,
+    },
+    {
+      name: 'at the limit: 4/0 Cu (230 A) with a calculated load of exactly 230 A under six 200 A disconnects',
+      facts: service({ size: '4/0', ampacityA: 230, loadA: 200, calculatedLoadA: 230, termination: mainLug(6, 200) }),
+      source: `${X3}; ${T}`,
+    },
+    {
+      name: 'two 100 A disconnects (200 A added) on 3/0 Cu (200 A): the sum does not exceed the ampacity',
+      facts: service({ loadA: 250, calculatedLoadA: 250, termination: mainLug(2, 100) }),
+      source: `${S}; ${T}`,
+    },
   ],
   fails: [
+    {
+      name: '4/0 Cu (230 A) into a main-lug switchboard with six 200 A breakers (1200 A added) and a calculated load of 600 A: over the ampacity, so Exception 3 does not apply',
+      facts: service({ size: '4/0', ampacityA: 230, loadA: 520, calculatedLoadA: 600, termination: mainLug(6, 200) }),
+      expect: ['sumOrLoad'],
+      source: `${X3}; ${T}`,
+    },
+    {
+      name: 'across the limit: a calculated load of 231 A on 4/0 Cu (230 A) under six 200 A disconnects',
+      facts: service({ size: '4/0', ampacityA: 230, loadA: 200, calculatedLoadA: 231, termination: mainLug(6, 200) }),
+      expect: ['sumOrLoad'],
+      source: `${X3}; ${T}`,
+    },
+    {
+      name: 'seven disconnects on one main-lug switchboard: more than six is not allowed, whatever the load',
+      facts: service({ size: '500', parallelSets: 3, ampacityA: 1140, loadA: 500, calculatedLoadA: 600, termination: mainLug(7, 100) }),
+      expect: ['disconnects'],
+      source: D,
+    },
     {
       name: '3/0 Cu at 75 °C (200 A) into a 225 A main: 200 A is itself a standard rating, so no round-up',
       facts: service({ termination: main(225) }),
@@ -53,6 +91,12 @@ export const cases: RuleCases = {
     },
   ],
   unknown: [
+    {
+      name: 'six 200 A disconnects over 4/0 Cu (230 A) with no load drawn: whether Exception 3 applies needs the calculated load',
+      facts: service({ size: '4/0', ampacityA: 230, loadA: null, calculatedLoadA: null, termination: mainLug(6, 200) }),
+      expect: ['sumOrLoad'],
+      source: X3,
+    },
     {
       name: 'ampacity not known',
       facts: service({ ampacityA: null, termination: main(200) }),
