@@ -9,7 +9,8 @@ import { App } from './App';
 import { emptyProject, type CommandContext } from './editor/commands';
 import { EditorStore } from './editor/store';
 import { CAUTION_SEEN_KEY } from './panels/Dialogs';
-import { loadDraft, startAutosave } from './persistence/autosave';
+import { restoreSession, startAutosave } from './persistence/autosave';
+import { OtherTabNotice, reportOtherTab } from './persistence/OtherTabNotice';
 import { downloadFile } from './persistence/download';
 import { installTestHook } from './testHook';
 
@@ -22,14 +23,16 @@ async function boot() {
   const store = new EditorStore(emptyProject());
   const ctx: CommandContext = { store, canvas: null, clipboard: { fragment: null, pasteCount: 0 }, download: downloadFile };
 
-  // Restore the autosaved drawing if there is one; otherwise open on the demo so a newcomer sees a checked one-line.
-  const draft = await loadDraft();
+  // Restore this tab's drawing (after a reload) or the newest one saved in this browser; otherwise open on
+  // the demo so a newcomer sees a checked one-line. Storage that never answers costs a few seconds, not the page.
+  const { identity, draft, storageProblem } = await restoreSession();
   let restored = false;
   if (draft) {
     const r = coreLoadProject(draft.project);
     if (r.ok) {
-      store.resetDocument(r.project);
-      store.notify(`Restored your drawing from this browser (autosaved ${clock(draft.savedAt)}).`);
+      // The undo history comes back with the drawing it was saved with.
+      store.resetDocument(r.project, draft.history);
+      store.notify(`Restored your drawing from this browser (autosaved ${clock(new Date(draft.savedAtMs).toISOString())}).`);
       restored = true;
     } else {
       store.notify(`The drawing autosaved in this browser could not be read (${r.errors[0]?.message ?? 'unknown problem'}); opened the demo instead.`, 'error');
@@ -39,6 +42,12 @@ async function boot() {
     const r = coreLoadProject(demoSample);
     if (r.ok) store.resetDocument(r.project);
     else store.notify(`The demo project did not load: ${r.errors.map((e) => `${e.path} ${e.message}`).join('; ')}`, 'error');
+  }
+  if (storageProblem) {
+    store.notify(
+      `${storageProblem}, so Linewright started ${restored ? 'on the copy kept in this tab' : 'on the demo'}. Autosave keeps a copy in this tab while storage is unavailable; use Save file to keep your work.`,
+      'error',
+    );
   }
 
   let seen: boolean;
@@ -50,21 +59,21 @@ async function boot() {
   if (!seen) store.setView({ cautionOpen: true });
 
   startAnalysis(store);
-  let savedAt: string | null = draft && restored ? clock(draft.savedAt) : null;
+  let savedAt: string | null = draft && restored ? clock(new Date(draft.savedAtMs).toISOString()) : null;
   const savedListeners = new Set<() => void>();
   let autosaveFailed = false;
-  startAutosave(
-    store,
-    (iso) => {
+  startAutosave(store, identity, {
+    onSaved: (iso) => {
       savedAt = clock(iso);
       for (const l of savedListeners) l();
     },
-    (e) => {
+    onError: (e) => {
       // Say it once; repeating it on every edit would bury the drawing in notices.
       if (!autosaveFailed) store.notify(`Autosave in this browser failed (${e.message}). Use Save file to keep your work.`, 'error');
       autosaveFailed = true;
     },
-  );
+    onOtherTab: reportOtherTab,
+  });
   installTestHook(ctx);
 
   function Root() {
@@ -75,7 +84,12 @@ async function boot() {
       },
       () => savedAt,
     );
-    return <App ctx={ctx} savedAt={s} />;
+    return (
+      <>
+        <App ctx={ctx} savedAt={s} />
+        <OtherTabNotice store={store} />
+      </>
+    );
   }
 
   createRoot(document.getElementById('root')!).render(

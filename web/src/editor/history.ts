@@ -9,6 +9,12 @@ export interface HistoryEntry {
   undo: Patch[];
 }
 
+/** The undo and redo stacks as plain data: `past` oldest first, `future` with the next redo last. */
+export interface HistorySnapshot {
+  past: HistoryEntry[];
+  future: HistoryEntry[];
+}
+
 /**
  * Undo/redo stacks of immer patches. Merging appends redo patches and
  * prepends undo patches so the merged entry replays as one step.
@@ -46,6 +52,17 @@ export class History {
   clear(): void {
     this.past = [];
     this.future = [];
+  }
+
+  /** Both stacks, oldest first, for saving beside the document (the entries are not copied). */
+  snapshot(): HistorySnapshot {
+    return { past: [...this.past], future: [...this.future] };
+  }
+
+  /** Replaces both stacks with saved ones (after a reload), keeping the newest within the limit. */
+  restore(saved: HistorySnapshot): void {
+    this.past = saved.past.slice(-this.limit);
+    this.future = saved.future.slice(-this.limit);
   }
 
   get undoLabel(): string | null {

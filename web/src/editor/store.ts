@@ -1,6 +1,6 @@
 import { applyPatches, enablePatches, produceWithPatches, type Draft } from 'immer';
 import type { AnalysisReport, LoadError, Project } from '@linewright/core';
-import { History, type HistoryIntent } from './history';
+import { History, type HistoryIntent, type HistorySnapshot } from './history';
 
 enablePatches();
 
@@ -159,10 +159,16 @@ export class EditorStore {
     this.setSelection(EMPTY_SELECTION);
   }
 
-  /** Start afresh with no history (first load, restore from autosave). */
-  resetDocument(doc: Project): void {
+  /** Start afresh (first load, restore from autosave), with no history or the history saved with the document. */
+  resetDocument(doc: Project, history?: HistorySnapshot): void {
     this.history.clear();
+    if (history) this.history.restore(history);
     this.commitDoc(doc, { view: { ...this.state.view, selection: EMPTY_SELECTION } });
+  }
+
+  /** The undo and redo stacks, for the autosave to keep beside the document. */
+  historySnapshot(): HistorySnapshot {
+    return this.history.snapshot();
   }
 
   setView(patch: Partial<ViewState>): void {

@@ -3,6 +3,7 @@ import { SEVERITY_LOOK, SEVERITY_TEXT } from '../analysis/verdicts';
 import { applyFix } from '../editor/commands';
 import { useCommandContext } from '../editor/useEditor';
 import { citeText } from './cite';
+import { IsolatedText } from './IsolatedText';
 
 /** A severity mark: glyph (shape) + word + colour. */
 export function SeverityMark({ severity }: { severity: Finding['severity'] }) {
@@ -36,7 +37,7 @@ export function FindingCard({ finding, showFixes = true }: { finding: Finding; s
         <SeverityMark severity={finding.severity} />
         {finding.cites && <span className="lw-cite">{citeText(finding.cites)}</span>}
       </div>
-      <div className="lw-finding-msg">{finding.message}</div>
+      <div className="lw-finding-msg"><IsolatedText text={finding.message} /></div>
       {showFixes && <FixButtons fixes={finding.fixes} />}
     </div>
   );

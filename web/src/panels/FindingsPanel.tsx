@@ -5,6 +5,7 @@ import { useCommandContext, useEditorState } from '../editor/useEditor';
 import type { Selection } from '../editor/store';
 import { citeText } from './cite';
 import { SeverityMark } from './FindingItem';
+import { IsolatedText } from './IsolatedText';
 
 /** Selection and frame for a finding: its subject and the elements it names. */
 export function selectionForFinding(f: Finding, doc: { conductors: readonly { id: string; from: string; to: string }[] }): { selection: Selection; frame: string[] } {
@@ -138,7 +139,7 @@ export function FindingsPanel() {
               }}
             >
               <SeverityMark severity={f.severity} />
-              <span className="lw-review-msg">{f.message}</span>
+              <span className="lw-review-msg"><IsolatedText text={f.message} /></span>
               <span className="lw-cite">{f.cites ? citeText(f.cites) : f.ruleId}</span>
             </li>
           ))}

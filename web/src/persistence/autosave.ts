@@ -1,102 +1,267 @@
-import type { Project } from '@linewright/core';
 import type { EditorStore } from '../editor/store';
+import {
+  LATEST_KEY,
+  asDraft,
+  boundHistory,
+  newId,
+  newer,
+  parseLatest,
+  readLatest,
+  readWal,
+  rememberIdentity,
+  tabIdentity,
+  writeLatest,
+  writeWal,
+  WAL_PREFIX,
+  type Draft,
+  type KeyValueStore,
+  type LatestSave,
+  type TabIdentity,
+} from './drafts';
+
+export type { Draft } from './drafts';
 
 const DB = 'linewright';
 const STORE = 'drafts';
-const KEY = 'current';
+/** The single key drafts had before each tab kept its own; still read as a fallback. */
+const LEGACY_KEY = 'current';
+/** Drafts kept in IndexedDB; the oldest beyond this are dropped. */
+const MAX_DRAFTS = 12;
+/** How long opening the drawing waits for IndexedDB before starting without it. */
+export const STORAGE_TIMEOUT_MS = 2500;
+/** How long one IndexedDB write may take before autosave says it failed. */
+const WRITE_TIMEOUT_MS = 10_000;
 
-export interface Draft {
-  savedAt: string;
-  project: Project;
-}
+class StorageTimeout extends Error {}
 
-function openDb(): Promise<IDBDatabase> {
-  return new Promise((resolve, reject) => {
-    const req = indexedDB.open(DB, 1);
-    req.onupgradeneeded = () => req.result.createObjectStore(STORE);
-    req.onsuccess = () => resolve(req.result);
-    req.onerror = () => reject(req.error);
+function withTimeout<T>(p: Promise<T>, ms: number, what: string): Promise<T> {
+  return new Promise<T>((resolve, reject) => {
+    const t = setTimeout(() => reject(new StorageTimeout(`${what} did not answer within ${Math.round(ms / 1000)} s`)), ms);
+    p.then(
+      (v) => (clearTimeout(t), resolve(v)),
+      (e: unknown) => (clearTimeout(t), reject(e instanceof Error ? e : new Error(String(e)))),
+    );
   });
 }
 
-async function tx<T>(mode: IDBTransactionMode, fn: (s: IDBObjectStore) => IDBRequest<T>): Promise<T> {
-  const db = await openDb();
-  try {
-    return await new Promise<T>((resolve, reject) => {
-      const t = db.transaction(STORE, mode);
-      const req = fn(t.objectStore(STORE));
-      t.oncomplete = () => resolve(req.result);
-      t.onerror = () => reject(t.error);
-      t.onabort = () => reject(t.error);
-    });
-  } finally {
-    db.close();
-  }
+let dbPromise: Promise<IDBDatabase> | null = null;
+
+function openDb(): Promise<IDBDatabase> {
+  dbPromise ??= new Promise<IDBDatabase>((resolve, reject) => {
+    const req = indexedDB.open(DB, 1);
+    req.onupgradeneeded = () => req.result.createObjectStore(STORE);
+    req.onsuccess = () => resolve(req.result);
+    req.onerror = () => reject(req.error ?? new Error('IndexedDB refused to open'));
+  });
+  // A failed open may succeed later (storage freed): ask again next time.
+  dbPromise.catch(() => (dbPromise = null));
+  return dbPromise;
 }
 
-/** The last autosaved drawing of this browser, or null. */
-export async function loadDraft(): Promise<Draft | null> {
+async function tx<T>(mode: IDBTransactionMode, fn: (s: IDBObjectStore) => IDBRequest<T> | void): Promise<T | undefined> {
+  const db = await openDb();
+  return new Promise<T | undefined>((resolve, reject) => {
+    const t = db.transaction(STORE, mode);
+    const req = fn(t.objectStore(STORE));
+    t.oncomplete = () => resolve(req ? req.result : undefined);
+    t.onerror = () => reject(t.error ?? new Error('IndexedDB transaction failed'));
+    t.onabort = () => reject(t.error ?? new Error('IndexedDB transaction aborted'));
+  });
+}
+
+async function readIdbDraft(docId: string | null): Promise<Draft | null> {
+  const v = await tx<unknown>('readonly', (s) => s.get(docId ?? LEGACY_KEY));
+  if (v === undefined && docId !== null) return asDraft(await tx<unknown>('readonly', (s) => s.get(LEGACY_KEY)));
+  return asDraft(v);
+}
+
+async function writeIdbDraft(d: Draft): Promise<void> {
+  await tx('readwrite', (s) => {
+    s.put(d, d.docId);
+    // Keep the newest MAX_DRAFTS: every tab writes its own, so old tabs' copies would pile up.
+    const all = s.getAll();
+    const keys = s.getAllKeys();
+    // Requests of one transaction answer in order, so both results are in when the second answers.
+    keys.onsuccess = () => {
+      const drafts = (all.result as unknown[]).map((v, i) => ({ key: keys.result[i], d: asDraft(v) }));
+      if (drafts.length <= MAX_DRAFTS) return;
+      drafts.sort((a, b) => (b.d?.savedAtMs ?? 0) - (a.d?.savedAtMs ?? 0));
+      for (const { key } of drafts.slice(MAX_DRAFTS)) if (key !== undefined && key !== d.docId) s.delete(key);
+    };
+  });
+}
+
+function local(): KeyValueStore | null {
   try {
-    const v = await tx<unknown>('readonly', (s) => s.get(KEY));
-    if (v && typeof v === 'object' && 'project' in v && 'savedAt' in v) return v as Draft;
-    return null;
+    return window.localStorage;
   } catch {
     return null;
   }
 }
 
-export async function saveDraft(project: Project): Promise<string> {
-  const savedAt = new Date().toISOString();
-  await tx('readwrite', (s) => s.put({ savedAt, project } satisfies Draft, KEY));
-  return savedAt;
+function session(): KeyValueStore | null {
+  try {
+    return window.sessionStorage;
+  } catch {
+    return null;
+  }
+}
+
+export interface Restored {
+  identity: TabIdentity;
+  /** The drawing to open: this tab's own after a reload, else the newest saved in this browser. */
+  draft: Draft | null;
+  /** Set when IndexedDB did not answer or failed: the editor says so and starts anyway. */
+  storageProblem: string | null;
 }
 
 /**
- * Saves the document after every committed edit. The write waits a moment so
- * it does not compete with painting the edit and its verdicts; writes are
- * serialized and a burst of edits coalesces into one write of the newest
- * document.
+ * Finds the drawing to open. A reload finds its own tab's document (the write-ahead copy or IndexedDB's,
+ * whichever is newer); a new tab starts from a copy of the newest draft, under an id of its own. An
+ * IndexedDB that never answers costs at most STORAGE_TIMEOUT_MS, then the write-ahead copy (if any) or
+ * the demo opens with a notice.
  */
-export function startAutosave(store: EditorStore, onSaved: (savedAt: string) => void, onError: (e: Error) => void, delayMs = 150): () => void {
-  let pending: Project | null = null;
+export async function restoreSession(timeoutMs = STORAGE_TIMEOUT_MS): Promise<Restored> {
+  const ls = local();
+  const identity = tabIdentity(session());
+  const source = identity.resumed ? identity.docId : (ls ? readLatest(ls)?.docId : null) ?? null;
+  const wal = ls && source ? readWal(ls, source) : null;
+  let idb: Draft | null = null;
+  let storageProblem: string | null = null;
+  try {
+    idb = await withTimeout(readIdbDraft(source), timeoutMs, "This browser's storage (IndexedDB)");
+  } catch (e) {
+    storageProblem = e instanceof Error ? e.message : String(e);
+  }
+  const draft = newer(wal, idb);
+  if (!identity.resumed && draft) identity.lineage = draft.lineage;
+  rememberIdentity(session(), identity);
+  return { identity, draft, storageProblem };
+}
+
+export interface AutosaveEvents {
+  onSaved: (savedAtIso: string) => void;
+  onError: (e: Error) => void;
+  /** Another tab saved a later version of the same drawing. */
+  onOtherTab: (other: LatestSave) => void;
+}
+
+/** Lets the "other tab" notice open that tab's version. */
+export async function readDraftOf(docId: string): Promise<Draft | null> {
+  const ls = local();
+  const wal = ls ? readWal(ls, docId) : null;
+  const idb = await withTimeout(readIdbDraft(docId), STORAGE_TIMEOUT_MS, "This browser's storage (IndexedDB)").catch(() => null);
+  return newer(wal, idb);
+}
+
+/**
+ * Saves the document after every committed edit, with its undo history (bounded). Two copies:
+ * a write-ahead copy in localStorage, written synchronously right after the edit and again on
+ * pagehide / hidden, which survives a reload or a closed tab that an asynchronous write would not;
+ * and IndexedDB, the store, written a moment later (serialized, a burst coalesced). The write-ahead
+ * copy is dropped once IndexedDB holds that version. Watches the other tabs through the `storage` event.
+ */
+export function startAutosave(store: EditorStore, identity: TabIdentity, events: AutosaveEvents, delayMs = 150): () => void {
+  const ls = local();
+  let pending: Draft | null = null;
   let writing = false;
   let timer: ReturnType<typeof setTimeout> | null = null;
+  let walTimer: ReturnType<typeof setTimeout> | null = null;
+  let walDirty = false;
+  // A drawing whose copy did not fit last time is not stringified on every edit again, only on leaving.
+  let walTooBig = false;
+  let lastStamp = 0;
+
+  const snapshot = (): Draft => {
+    // Strictly increasing, so the newer of two copies is never a tie.
+    lastStamp = Math.max(Date.now(), lastStamp + 1);
+    const s = store.getState();
+    return { docId: identity.docId, lineage: identity.lineage, tabId: identity.tabId, savedAtMs: lastStamp, project: s.doc, history: boundHistory(store.historySnapshot()) };
+  };
+
+  const writeAhead = (force: boolean) => {
+    if (walTimer !== null) clearTimeout(walTimer);
+    walTimer = null;
+    if (!walDirty || !ls || (walTooBig && !force)) return;
+    walDirty = false;
+    const d = pending ?? snapshot();
+    walTooBig = !writeWal(ls, d);
+    writeLatest(ls, d);
+  };
+
   const flush = async () => {
     if (writing) return;
     writing = true;
     while (pending) {
-      const p = pending;
+      const d = pending;
       pending = null;
       try {
-        onSaved(await saveDraft(p));
+        await withTimeout(writeIdbDraft(d), WRITE_TIMEOUT_MS, "This browser's storage (IndexedDB)");
         stats.saves++;
+        if (ls) {
+          // IndexedDB now holds this version: the write-ahead copy is only needed if it is newer.
+          const wal = readWal(ls, d.docId);
+          if (wal && wal.savedAtMs <= d.savedAtMs) ls.removeItem(WAL_PREFIX + d.docId);
+          writeLatest(ls, d);
+        }
+        events.onSaved(new Date(d.savedAtMs).toISOString());
       } catch (e) {
-        onError(e as Error);
+        events.onError(e instanceof Error ? e : new Error(String(e)));
       }
     }
     writing = false;
   };
-  stats.idle = () => timer === null && !writing && pending === null;
-  const off = store.onDocumentCommitted((s) => {
-    pending = s.doc;
+
+  stats.idle = () => timer === null && walTimer === null && !writing && pending === null;
+
+  const off = store.onDocumentCommitted(() => {
+    pending = snapshot();
+    walDirty = true;
+    if (walTimer === null) walTimer = setTimeout(() => writeAhead(false), 0);
     if (timer !== null) clearTimeout(timer);
     timer = setTimeout(() => {
       timer = null;
       void flush();
     }, delayMs);
   });
-  // Leaving the page inside the delay still saves: IndexedDB finishes a write started in pagehide.
+
+  // Leaving the page (reload, navigation, closing the tab): the synchronous copy first, then IndexedDB.
   const onHide = () => {
+    writeAhead(true);
     if (timer !== null) {
       clearTimeout(timer);
       timer = null;
       void flush();
     }
   };
+  const onVisibility = () => {
+    if (document.visibilityState === 'hidden') onHide();
+  };
+
+  const onStorage = (e: StorageEvent) => {
+    if (e.key !== LATEST_KEY) return;
+    const other = parseLatest(e.newValue);
+    if (!other || other.tabId === identity.tabId || other.lineage !== identity.lineage) return;
+    if (other.docId === identity.docId) {
+      // A duplicated tab carries the same document id: this tab forks to its own, so neither overwrites the other.
+      identity.docId = newId();
+      rememberIdentity(session(), identity);
+      pending = snapshot();
+      walDirty = true;
+      writeAhead(true);
+      void flush();
+    }
+    events.onOtherTab(other);
+  };
+
   window.addEventListener('pagehide', onHide);
+  document.addEventListener('visibilitychange', onVisibility);
+  window.addEventListener('storage', onStorage);
   return () => {
     off();
     window.removeEventListener('pagehide', onHide);
+    document.removeEventListener('visibilitychange', onVisibility);
+    window.removeEventListener('storage', onStorage);
   };
 }
 

@@ -1,0 +1,203 @@
+import type { Project } from '@linewright/core';
+import type { HistoryEntry, HistorySnapshot } from '../editor/history';
+
+/**
+ * What the autosave keeps, and the write-ahead copy beside IndexedDB. No DOM globals here: the
+ * storages are passed in, so the rules (which copy wins, how big a copy may get) are unit-tested.
+ *
+ * A drawing saved in this browser is a Draft. Each tab edits its own document (`docId`, kept in the
+ * tab's sessionStorage so a reload finds it again); a tab opened later starts from a copy of the newest
+ * draft under a new id, with the same `lineage`, so two tabs never write over each other, and each can
+ * tell when another tab saved a later version of the same drawing.
+ */
+export interface Draft {
+  docId: string;
+  /** The document this one was copied from, through any number of tabs; equal lineages are "the same drawing". */
+  lineage: string;
+  /** The tab (one page load) that wrote it. */
+  tabId: string;
+  savedAtMs: number;
+  project: Project;
+  /** Undo and redo steps, bounded (see boundHistory); absent when they did not fit. */
+  history?: HistorySnapshot;
+}
+
+/** Who saved last, in any tab: small, so every tab can watch it through the `storage` event. */
+export interface LatestSave {
+  docId: string;
+  lineage: string;
+  tabId: string;
+  savedAtMs: number;
+}
+
+export const WAL_PREFIX = 'linewright.wal.';
+export const LATEST_KEY = 'linewright.latest';
+export const SESSION_DOC_KEY = 'linewright.docId';
+export const SESSION_LINEAGE_KEY = 'linewright.lineage';
+
+/**
+ * Largest write-ahead copy kept in localStorage, in UTF-16 characters. Browsers give an origin about
+ * 5 M characters there and several tabs share it; a bigger drawing is saved to IndexedDB only.
+ */
+export const WAL_MAX_CHARS = 1_500_000;
+/** Budget of the saved undo history, in characters of JSON, and its most steps. */
+export const HISTORY_MAX_CHARS = 400_000;
+export const HISTORY_MAX_STEPS = 100;
+
+/** The part of the Web Storage API used here (localStorage, sessionStorage, or a Map in tests). */
+export type KeyValueStore = Pick<Storage, 'getItem' | 'setItem' | 'removeItem' | 'key' | 'length'>;
+
+export function newId(): string {
+  const c = globalThis.crypto;
+  if (c && 'randomUUID' in c) return c.randomUUID();
+  return `${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 10)}`;
+}
+
+/**
+ * The newest undo steps (and redo steps) that fit the budget, newest kept first: an old step is worth
+ * less than a recent one, and a step that replaced the whole drawing can be large.
+ */
+export function boundHistory(h: HistorySnapshot, maxChars = HISTORY_MAX_CHARS, maxSteps = HISTORY_MAX_STEPS): HistorySnapshot {
+  let budget = maxChars;
+  const take = (entries: readonly HistoryEntry[]): HistoryEntry[] => {
+    const kept: HistoryEntry[] = [];
+    for (let i = entries.length - 1; i >= 0 && kept.length < maxSteps; i--) {
+      const size = JSON.stringify(entries[i]).length;
+      if (size > budget) break;
+      budget -= size;
+      kept.push(entries[i]!);
+    }
+    return kept.reverse();
+  };
+  const past = take(h.past);
+  // Redo steps only when they continue from the kept undo steps (they always do: they are newer).
+  const future = take(h.future);
+  return { past, future };
+}
+
+/** A stored value read back as a Draft, or null when it is not one (another version, a broken write). */
+export function asDraft(v: unknown): Draft | null {
+  if (!v || typeof v !== 'object') return null;
+  const d = v as Partial<Draft> & { savedAt?: string };
+  if (!d.project || typeof d.project !== 'object') return null;
+  // Drafts written before tabs had ids: { savedAt, project }.
+  const savedAtMs = typeof d.savedAtMs === 'number' ? d.savedAtMs : typeof d.savedAt === 'string' ? Date.parse(d.savedAt) || 0 : 0;
+  const history = d.history && Array.isArray(d.history.past) && Array.isArray(d.history.future) ? d.history : undefined;
+  return {
+    docId: typeof d.docId === 'string' ? d.docId : 'legacy',
+    lineage: typeof d.lineage === 'string' ? d.lineage : typeof d.docId === 'string' ? d.docId : 'legacy',
+    tabId: typeof d.tabId === 'string' ? d.tabId : '',
+    savedAtMs,
+    project: d.project,
+    history,
+  };
+}
+
+/** The newer of two copies of a draft (the write-ahead copy and IndexedDB's). */
+export function newer(a: Draft | null, b: Draft | null): Draft | null {
+  if (!a) return b;
+  if (!b) return a;
+  return b.savedAtMs > a.savedAtMs ? b : a;
+}
+
+export function readWal(store: KeyValueStore, docId: string): Draft | null {
+  try {
+    const text = store.getItem(WAL_PREFIX + docId);
+    return text ? asDraft(JSON.parse(text)) : null;
+  } catch {
+    return null;
+  }
+}
+
+/**
+ * Writes the write-ahead copy synchronously (this is what survives a reload 50 ms after an edit, when an
+ * IndexedDB write started in pagehide does not finish). Drops the history, then the whole copy, when it
+ * would pass the bound; when the storage is full, older copies of other documents go first.
+ * Returns false when no copy could be kept.
+ */
+export function writeWal(store: KeyValueStore, draft: Draft, maxChars = WAL_MAX_CHARS): boolean {
+  let text = JSON.stringify(draft);
+  if (text.length > maxChars && draft.history) text = JSON.stringify({ ...draft, history: undefined });
+  if (text.length > maxChars) {
+    store.removeItem(WAL_PREFIX + draft.docId);
+    return false;
+  }
+  for (let attempt = 0; attempt < 2; attempt++) {
+    try {
+      store.setItem(WAL_PREFIX + draft.docId, text);
+      return true;
+    } catch {
+      // Quota: make room by dropping other documents' copies (IndexedDB keeps their saved versions).
+      for (const key of walKeys(store)) if (key !== WAL_PREFIX + draft.docId) store.removeItem(key);
+    }
+  }
+  return false;
+}
+
+export function walKeys(store: KeyValueStore): string[] {
+  const keys: string[] = [];
+  for (let i = 0; i < store.length; i++) {
+    const k = store.key(i);
+    if (k?.startsWith(WAL_PREFIX)) keys.push(k);
+  }
+  return keys;
+}
+
+export function readLatest(store: KeyValueStore): LatestSave | null {
+  try {
+    return parseLatest(store.getItem(LATEST_KEY));
+  } catch {
+    return null;
+  }
+}
+
+export function parseLatest(text: string | null): LatestSave | null {
+  if (!text) return null;
+  try {
+    const v = JSON.parse(text) as Partial<LatestSave>;
+    if (typeof v.docId !== 'string' || typeof v.lineage !== 'string' || typeof v.tabId !== 'string' || typeof v.savedAtMs !== 'number') return null;
+    return v as LatestSave;
+  } catch {
+    return null;
+  }
+}
+
+export function writeLatest(store: KeyValueStore, d: Pick<Draft, 'docId' | 'lineage' | 'tabId' | 'savedAtMs'>): void {
+  try {
+    store.setItem(LATEST_KEY, JSON.stringify({ docId: d.docId, lineage: d.lineage, tabId: d.tabId, savedAtMs: d.savedAtMs } satisfies LatestSave));
+  } catch {
+    // Full storage: the pointer is a convenience (which draft a new tab opens); the drafts themselves are kept.
+  }
+}
+
+/** This tab's document: the one it had before a reload, or a new id for a new tab (lineage given by the copy it starts from). */
+export interface TabIdentity {
+  docId: string;
+  lineage: string;
+  tabId: string;
+  /** True when the tab had a document before (a reload, or a duplicated tab). */
+  resumed: boolean;
+}
+
+export function tabIdentity(session: KeyValueStore | null): TabIdentity {
+  let docId: string | null = null;
+  let lineage: string | null = null;
+  try {
+    docId = session?.getItem(SESSION_DOC_KEY) ?? null;
+    lineage = session?.getItem(SESSION_LINEAGE_KEY) ?? null;
+  } catch {
+    // No session storage: a new document for this tab.
+  }
+  const resumed = docId !== null;
+  const id = docId ?? newId();
+  return { docId: id, lineage: lineage ?? id, tabId: newId(), resumed };
+}
+
+export function rememberIdentity(session: KeyValueStore | null, id: Pick<TabIdentity, 'docId' | 'lineage'>): void {
+  try {
+    session?.setItem(SESSION_DOC_KEY, id.docId);
+    session?.setItem(SESSION_LINEAGE_KEY, id.lineage);
+  } catch {
+    // No session storage (private mode quirks): the tab then starts from the newest draft after a reload.
+  }
+}
