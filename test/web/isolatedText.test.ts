@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { emptyProject } from '../../web/src/editor/commands/newDrawing';
-import { bidiHazards, isolateSegments } from '../../web/src/panels/IsolatedText';
+import { bidiHazards, isolateSegments } from '../../web/src/panels/bidi';
 
 /** Unicode bidi isolation (UAX #9 §2.7, isolates; the HTML <bdi> element). */
 describe('isolateSegments', () => {

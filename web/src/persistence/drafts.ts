@@ -45,7 +45,13 @@ export const HISTORY_MAX_CHARS = 400_000;
 export const HISTORY_MAX_STEPS = 100;
 
 /** The part of the Web Storage API used here (localStorage, sessionStorage, or a Map in tests). */
-export type KeyValueStore = Pick<Storage, 'getItem' | 'setItem' | 'removeItem' | 'key' | 'length'>;
+export interface KeyValueStore {
+  getItem(key: string): string | null;
+  setItem(key: string, value: string): void;
+  removeItem(key: string): void;
+  key(index: number): string | null;
+  readonly length: number;
+}
 
 export function newId(): string {
   const c = globalThis.crypto;
