@@ -33,6 +33,7 @@ import { runInNewContext } from 'node:vm';
 import { analyze, loadProject, toJsonReport, type Project } from '../src/index';
 import { buildCli } from '../../scripts/build-cli.mjs';
 import { generateProject } from './generateProject';
+import { printStudiesBench } from './studies';
 
 setFlagsFromString('--expose-gc');
 const gc = runInNewContext('gc') as (() => void) | undefined;
@@ -282,3 +283,4 @@ console.log(
     cli,
   }),
 );
+printStudiesBench();

@@ -2,6 +2,7 @@ import type { AnalysisReport, Citation, ConductorReport, ElementRef, Finding, Fi
 import { SEVERITIES, VERDICTS } from '../analyze/types';
 import { CAUTION } from '../caution';
 import { VERDICT_WORDS } from './format';
+import { jsonStudies, type JsonStudies } from './studies';
 import { TOOL_NAME, TOOL_VERSION } from './version';
 
 /**
@@ -29,6 +30,8 @@ export interface JsonReport {
   runs: JsonRun[];
   /** How much working the report carries: `summary` (the default) or `full` (adds `tried`). */
   detail: JsonDetail;
+  /** Available fault current by node and voltage drop by conductor (core/src/report/studies.ts). */
+  studies?: JsonStudies;
 }
 
 /** `summary`: verdicts, numbers, findings and fixes. `full`: also every rule tried, condition by condition. */
@@ -247,5 +250,6 @@ export function toJsonReport(report: AnalysisReport, options: JsonReportOptions 
     counts: { conductors: report.counts.conductors, byVerdict, bySeverity },
     runs,
     detail,
+    ...(report.studies ? { studies: jsonStudies(report.studies) } : {}),
   };
 }

@@ -1,4 +1,5 @@
 import { CAUTION } from '../caution';
+import { studiesTextLines } from './studies';
 import type { AnalysisReport, ConductorReport, Severity } from '../analyze/types';
 import {
   ROLE_WORDS,
@@ -136,6 +137,13 @@ export function renderText(report: AnalysisReport, options: TextOptions = {}): s
     }
   }
   out.push('');
+
+  for (const line of studiesTextLines(report)) {
+    if (line.kind === 'head') out.push(...(out[out.length - 1] === '' ? [] : ['']), paint(ANSI.bold, line.text));
+    else if (line.kind === 'row') out.push(`  ${inertText(line.text)}`.trimEnd());
+    else out.push(...wrap(inertText(line.text), width, '  ', '    '));
+  }
+  if (report.studies) out.push('');
 
   out.push(paint(ANSI.bold, 'ASSUMPTIONS'));
   if (report.assumptions.length === 0) out.push('  none stated');

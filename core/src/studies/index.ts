@@ -170,6 +170,7 @@ export function studyNetwork(project: Project, g: Graph, order: Int32Array, coun
     const known = !Number.isNaN(fault.r[v]!);
     faults[v] = {
       nodeId: g.nodes[v]!.id,
+      kind: g.nodes[v]!.kind,
       kA: kAt(v),
       xOverR: num(fault.xOverR[v]!),
       lineToGroundKA: num(fault.lineToGroundKA[v]!),
@@ -178,8 +179,10 @@ export function studyNetwork(project: Project, g: Graph, order: Int32Array, coun
       voltsLL: num(fault.voltsLL[v]!),
       ...(fault.unknownWhy[v] ? { unknownWhy: fault.unknownWhy[v] } : {}),
       parentId: p >= 0 ? g.nodes[p]!.id : null,
-      stepOhms: { r: fault.stepR[v]!, x: fault.stepX[v]! },
-      totalOhms: known ? { r: fault.r[v]!, x: fault.x[v]! } : null,
+      stepROhm: fault.stepR[v]!,
+      stepXOhm: fault.stepX[v]!,
+      rOhm: known ? fault.r[v]! : null,
+      xOhm: known ? fault.x[v]! : null,
     };
   }
 

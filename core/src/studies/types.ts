@@ -1,8 +1,9 @@
-import type { ConductorId, NodeId } from '../model/schema';
+import type { ConductorId, EquipmentKind, NodeId } from '../model/schema';
 
 /** Available fault current at one node, as the report carries it. */
 export interface NodeFault {
   nodeId: NodeId;
+  kind: EquipmentKind;
   /** Symmetrical RMS kA (three-phase bolted; line to line on single-phase systems), motor contribution included; null when unknown. */
   kA: number | null;
   xOverR: number | null;
@@ -15,11 +16,14 @@ export interface NodeFault {
   voltsLL: number | null;
   /** Why kA is unknown. */
   unknownWhy?: string;
-  /** The node supplying this one and the R, X this node's element adds (ohms at this node's voltage), for the working. */
+  /** The node supplying this one, for the working. */
   parentId: NodeId | null;
-  stepOhms: { r: number; x: number };
-  /** R and X from the source, ohms. */
-  totalOhms: { r: number; x: number } | null;
+  /** R and X this node's element adds (source, transformer with the primary referred, or the conductor arriving), ohms at this node's voltage. */
+  stepROhm: number;
+  stepXOhm: number;
+  /** R and X from the source to this node, ohms (one phase; the loop on single-phase circuits); null when unknown. */
+  rOhm: number | null;
+  xOhm: number | null;
 }
 
 /** Voltage drop of one conductor and the sums at its load end. */

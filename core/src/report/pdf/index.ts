@@ -9,6 +9,7 @@ import { drawingSheets } from './drawingSheets';
 import { findingsPages } from './findingsPages';
 import { schedulePages } from './schedulePages';
 import { racewaySchedulePages } from './racewaySchedulePages';
+import { studyPages } from './studyPages';
 import { assumptionsPage, workingPages } from './workingPages';
 import { footers } from './footers';
 
@@ -33,7 +34,7 @@ export interface PdfOptions {
 }
 
 /** The parts of the set in the order they print; a new part is one file and one line here. */
-const PARTS: readonly SheetPart[] = [drawingSheets, findingsPages, schedulePages, racewaySchedulePages, workingPages, assumptionsPage];
+const PARTS: readonly SheetPart[] = [drawingSheets, findingsPages, schedulePages, racewaySchedulePages, studyPages, workingPages, assumptionsPage];
 
 /** Renders the annotated permit-set PDF; returns the file's bytes. */
 export function renderPermitPdf(project: Project, report: AnalysisReport, options: PdfOptions = {}): Uint8Array {
