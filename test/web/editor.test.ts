@@ -52,8 +52,8 @@ describe('commands', () => {
     expect(h.store.getState().view.selection.nodes).toEqual([b!.id]);
   });
 
-  // Defaults for a new conductor: copper, THHN (90 °C), 75 °C terminations (110.14(C), common practice for
-  // equipment marked 60/75 °C), 30 °C ambient and three current-carrying conductors (the basis of NFPA 70-2023
+  // Defaults for a new conductor: copper, THHN (90 °C), terminations at the project's default (110.14(C)(1);
+  // 75 °C for equipment listed for it, common practice for equipment marked 60/75 °C), 30 °C ambient and three current-carrying conductors (the basis of NFPA 70-2023
   // Table 310.16), in raceway. Length is left empty so the check reports it missing instead of guessing.
   it('a drawn conductor takes the trade defaults and no length', () => {
     const h = harness();
@@ -62,8 +62,9 @@ describe('commands', () => {
     const [b, l] = h.doc().nodes.map((n) => n.id);
     connect.run(h.ctx, { from: b!, to: l!, as: 'conductor' });
     const c = h.doc().conductors[0]!;
-    expect(c).toMatchObject({ from: b, to: l, material: 'cu', insulation: 'THHN', terminalTempC: 75, ambientC: 30, currentCarrying: 3, damageProtection: 'raceway', parallelSets: 1 });
+    expect(c).toMatchObject({ from: b, to: l, material: 'cu', insulation: 'THHN', ambientC: 30, currentCarrying: 3, damageProtection: 'raceway', parallelSets: 1 });
     expect(c.lengthFt).toBeUndefined();
+    expect(c.terminalTempC).toBeUndefined();
     // 1/0 Cu at 75 °C = 150 A (NFPA 70-2023 Table 310.16) ≥ the 100 A default breaker: 240.4 needs no length.
     expect(h.report().conductors[0]!.verdict).toBe('protected');
   });

@@ -311,6 +311,7 @@ export function computeAmpacity(input: AmpacityInput): AmpacityResult {
       ambientFactor,
       adjustmentFactor: adjFactor,
       correctedA,
+      terminalTempC,
       terminalLimitA,
       perSetA,
       parallelSets,

@@ -1,8 +1,23 @@
 import { computeAmpacity } from '../ampacity/ampacity';
-import { INSULATIONS, type CodeEdition, type Conductor } from '../model/schema';
-import { materialIndexOf, sizeIndexOf } from '../tables/sizes';
+import { INSULATIONS, type CodeEdition, type Conductor, type ProjectSettings } from '../model/schema';
+import { materialIndexOf, SIZE_INDEX_1_0, sizeIndexOf } from '../tables/sizes';
 import type { Graph } from '../topology/graph';
 import type { AmpacityWorking } from './types';
+
+export type TerminationDefault = ProjectSettings['terminationDefault'];
+
+/**
+ * 110.14(C)(1): the termination rating a conductor is judged at. Its own when stated; else
+ * the project's default: 75 °C where the equipment is listed for it, or the code's own rule,
+ * 60 °C for 14 AWG to 1 AWG (terminals for circuits of 100 A or less) and 75 °C above. A
+ * circuit of 100 A or less on 1/0 or larger would take 60 °C too, but the 60 °C ampacity of
+ * 1/0 and larger (Cu 125 A, Al 100 A) already covers such a circuit, so size alone decides.
+ */
+export function terminalTempOf(c: Pick<Conductor, 'terminalTempC' | 'size'>, setting: TerminationDefault): 60 | 75 | 90 {
+  if (c.terminalTempC !== undefined) return c.terminalTempC;
+  if (setting === 'per-110.14(C)(1)' && c.size !== undefined && sizeIndexOf(c.size) < SIZE_INDEX_1_0) return 60;
+  return 75;
+}
 
 export interface ConductorAmpacity {
   working: AmpacityWorking | null;
@@ -24,10 +39,10 @@ const INSULATION_INDEX = new Map<string, number>(INSULATIONS.map((x, i) => [x, i
  * memo needs no string per conductor; NaN when an input falls outside the
  * packing (an ambient with more than two decimals), which skips the memo.
  */
-function ampacityKey(c: Conductor, edition: CodeEdition): number {
+function ampacityKey(c: Conductor, edition: CodeEdition, terminalTempC: 60 | 75 | 90): number {
   const ambient = Math.round(c.ambientC * 100);
   if (ambient !== c.ambientC * 100) return Number.NaN;
-  const term = c.terminalTempC === 60 ? 0 : c.terminalTempC === 75 ? 1 : 2;
+  const term = terminalTempC === 60 ? 0 : terminalTempC === 75 ? 1 : 2;
   let k = materialIndexOf(c.material);
   k = k * 30 + sizeIndexOf(c.size);
   k = k * 14 + (INSULATION_INDEX.get(c.insulation) ?? 0);
@@ -37,8 +52,9 @@ function ampacityKey(c: Conductor, edition: CodeEdition): number {
   return (k * 3 + term) * 2 + (edition === 2020 ? 0 : 1);
 }
 
-export function conductorAmpacity(c: Conductor, edition: CodeEdition): ConductorAmpacity {
-  const key = ampacityKey(c, edition);
+export function conductorAmpacity(c: Conductor, edition: CodeEdition, terminationDefault: TerminationDefault = 'listed-75'): ConductorAmpacity {
+  const terminalTempC = terminalTempOf(c, terminationDefault);
+  const key = ampacityKey(c, edition, terminalTempC);
   let hit = ampacityMemo.get(key);
   if (hit) return hit;
   const r = computeAmpacity({
@@ -48,7 +64,7 @@ export function conductorAmpacity(c: Conductor, edition: CodeEdition): Conductor
     parallelSets: c.parallelSets,
     ambientC: c.ambientC,
     currentCarrying: c.currentCarrying,
-    terminalTempC: c.terminalTempC,
+    terminalTempC,
     edition,
   });
   hit = Object.freeze(r.ok ? { working: deepFreeze(r.working), problem: null } : { working: null, problem: Object.freeze({ field: r.field, message: r.message }) });
@@ -66,6 +82,6 @@ function deepFreeze<T extends object>(o: T): T {
 
 
 /** Stage: the ampacity of every conductor of the graph, by index. */
-export function conductorAmpacities(ctx: { graph: Graph; edition: CodeEdition }): ConductorAmpacity[] {
-  return ctx.graph.conductors.map((c) => conductorAmpacity(c, ctx.edition));
+export function conductorAmpacities(ctx: { graph: Graph; edition: CodeEdition; terminationDefault: TerminationDefault }): ConductorAmpacity[] {
+  return ctx.graph.conductors.map((c) => conductorAmpacity(c, ctx.edition, ctx.terminationDefault));
 }

@@ -7,6 +7,7 @@ import { collectFindings } from './findings';
 import { runFixes } from './fixes';
 import { runStudies } from '../studies/index';
 import { baseRunFacts } from './runFacts';
+import { terminalTempOf } from './ampacities';
 import { SEVERITIES, VERDICTS, type AnalysisReport, type Severity, type Verdict } from './types';
 
 /**
@@ -45,12 +46,19 @@ export function analyze(project: Project): AnalysisReport {
 }
 
 function assumptionsFor(project: Project): string[] {
-  const terminals = new Set(project.conductors.map((c) => c.terminalTempC));
+  const setting = project.project.terminationDefault;
+  const terminals = new Set(project.conductors.map((c) => terminalTempOf(c, setting)));
+  const unstated = project.conductors.filter((c) => c.terminalTempC === undefined).length;
+  const rule =
+    setting === 'per-110.14(C)(1)'
+      ? 'per 110.14(C)(1): 60 °C for 14 AWG to 1 AWG (circuits of 100 A or less), 75 °C for larger conductors'
+      : '75 °C, for equipment listed and marked for 75 °C conductors (common practice for equipment marked 60/75 °C); confirm the markings';
   return [
     `Code edition: NFPA 70 (NEC) ${project.project.codeEdition}, without local amendments.`,
-    `Termination temperature ratings used (110.14(C)): ${[...terminals].sort().map((t) => `${t} °C`).join(', ') || 'none'}; 75 °C is the default for equipment marked 60/75 °C (common practice). Confirm the equipment's markings.`,
+    `Termination temperature ratings used (110.14(C)): ${[...terminals].sort().map((t) => `${t} °C`).join(', ') || 'none'}. Project default for a conductor that states none (${unstated} of ${project.conductors.length}): ${rule}.`,
     'Ampacities from Table 310.16 (not more than three current-carrying conductors in raceway, cable or earth, 30 °C basis), corrected by Table 310.15(B)(1) and adjusted by Table 310.15(C)(1).',
-    'Loads roll up as volt-amperes: continuous × 1.25 plus noncontinuous for the calculated load (215.2(A)(1)); tap conductors are compared with the unfactored sum. Single-phase loads on three-phase systems are taken as line to line.',
+    'Each load draws its current at its own voltage: three-phase VA / (√3 × V line to line), single-phase VA / V across it (line to neutral, e.g. 277 V on 480Y/277, or line to line); a single-phase load whose connection is not stated is taken at the reading that gives the larger current (kVA loads) or volt-amperes (loads in amperes). Motors draw the full-load current of Tables 430.248/430.250 (or the nameplate), HVAC units their nameplate MCA.',
+    'Feeders roll up volt-amperes over their own phases taken as balanced, and never less than the line current of the largest single load they serve; a single-phase transformer draws VA / V on its own primary phases. Calculated load: continuous × 1.25 plus noncontinuous plus 25 % of the largest motor (215.2(A)(1), 430.24); tap conductors are compared with the unfactored load.',
     'Tap lengths are conductor lengths as entered, not raceway lengths.',
   ];
 }

@@ -1,11 +1,11 @@
 import { runRule, type Rule } from '../rules/define';
 import type { RunFacts } from '../rules/facts';
-import { FEEDER_TAP_RULES, PROTECTION_RULES, SECONDARY_RULES, generatorRule, serviceRule, tapFromTap, tapTransformer } from '../rules/index';
+import { FEEDER_TAP_RULES, OWN_ARTICLE_RULES, PROTECTION_RULES, SECONDARY_RULES, generatorRule, serviceRule, tapFromTap, tapTransformer } from '../rules/index';
 import { edgeFrom, type Graph } from '../topology/graph';
 import { isJoint } from '../topology/runs';
 import { joinFacts } from './runFacts';
 import type { FactsContext } from './context';
-import { effectiveRatingA, generatorFacts, isOcpd, transformerFacts } from './equipment';
+import { deviceTypeOf, effectiveRatingA, generatorFacts, isOcpd, transformerFacts } from './equipment';
 import { firstHolding, protectionTrial } from './trials';
 import { FAILING_VERDICTS, type ConductorRole, type RuleTrial, type Verdict } from './types';
 
@@ -166,7 +166,7 @@ function onRun(j: RunToJudge, up: RunVerdict): RunVerdict {
   if (up.family === 'service') return service(j);
   if (up.family === 'generator') return generator(j, up.generatorNode);
   if (up.verdict === 'incomplete') return incomplete(j);
-  if (up.verdict === 'protected' || up.verdict === 'protected-next-size') return fedByOcpd(j, up.deviceNode);
+  if (up.verdict === 'protected' || up.verdict === 'protected-next-size' || up.verdict === 'motor-circuit' || up.verdict === 'hvac-circuit') return fedByOcpd(j, up.deviceNode);
   facts.suppliedFrom = { conductorIds: up.facts.conductorIds, verdict: up.verdict };
   facts.supplyOcpdA = up.facts.supplyOcpdA;
   facts.supplyOcpdId = up.facts.supplyOcpdId;
@@ -225,7 +225,15 @@ function fedByOcpd(j: RunToJudge, device: number): RunVerdict {
   facts.supplyOcpdA = effectiveRatingA(node);
   facts.supplyOcpdId = node.id;
   facts.supplyOcpdKind = node.kind === 'fuse' ? 'fuse' : 'breaker';
+  facts.supplyDeviceType = deviceTypeOf(node);
   if (facts.transformer) facts.transformer = { ...facts.transformer, primaryOcpdA: facts.supplyOcpdA, primaryOcpdId: node.id };
+  // 240.4(G): the branch circuit of one motor or HVAC unit is protected as its own article says, instead of by 240.4.
+  const own = role === 'branch' ? (facts.motor ? OWN_ARTICLE_RULES.motor : facts.hvac ? OWN_ARTICLE_RULES.hvac : null) : null;
+  if (own) {
+    const t = runRule(own, facts);
+    const v: Verdict = t.outcome === 'holds' ? own.verdict! : t.outcome === 'unknown' ? 'incomplete' : 'unprotected';
+    return { verdict: v, rule: v === own.verdict ? own : null, family: 'fed-by-ocpd', role, supply: j.supply, deviceNode: device, generatorNode: -1, facts, tried: [t], candidates: [own] };
+  }
   const tried: RuleTrial[] = [];
   let verdict: Verdict | null = null;
   let rule: Rule | null = null;

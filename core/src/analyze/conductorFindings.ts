@@ -1,5 +1,6 @@
 import { VERDICT_LABELS, type Citation, type ElementRef, type Finding } from './types';
-import { conductorName, formatNumber } from '../rules/define';
+import { conductorName, formatNumber, runRule } from '../rules/define';
+import { calculatedLoad } from '../rules/calculated-load';
 import type { Graph } from '../topology/graph';
 import type { RunVerdict } from './classify';
 import type { RunFacts } from '../rules/facts';
@@ -26,7 +27,10 @@ export function conductorFindings(ctx: FixedContext): Finding[] {
     const fixes = runFixes[runs.runOf[ci]!]!;
     const amp = ampacities[ci]!;
     if (amp.problem) {
-      pushOne({ ruleId: 'ampacity', messageId: `no-ampacity-${amp.problem.field}`, severity: 'warning', cites: cites('310.16'), subject: { kind: 'conductor', id: c.id }, message: `${describeConductor(c, c.parallelSets)}: ${amp.problem.message}` });
+      // The code says "shall" for parallel sets (310.10(G)) and for the insulation's temperature (310.14(A)(3)): violations; a missing fact is a warning.
+      const field = amp.problem.field;
+      const shall = field === 'parallelSets' ? '310.10(G)' : field === 'ambientC' ? '310.14(A)(3)' : null;
+      pushOne({ ruleId: 'ampacity', messageId: `no-ampacity-${field}`, severity: shall ? 'violation' : 'warning', cites: cites(shall ?? '310.16'), subject: { kind: 'conductor', id: c.id }, message: `${describeConductor(c, c.parallelSets)}: ${amp.problem.message}` });
     }
     // The run's own findings once, on its first conductor.
     if (f.conductorIds[0] !== c.id) continue;
@@ -114,17 +118,23 @@ export function conductorFindings(ctx: FixedContext): Finding[] {
       const rest = t.conditions.filter((x) => x.status === 'fail' && x !== tooMany).map((x) => x.text);
       if (rest.length > 0) push({ ruleId: t.ruleId, messageId: 'fails', severity: 'violation', cites: t.cites, subject: { kind: 'conductor', id: c.id }, message: `${describeRun(c, f)}: ${rest.join(' ')} Fails ${t.cites.section}.` });
     }
-    if (f.ampacityA !== null && f.calculatedLoadA !== null && f.calculatedLoadA > f.ampacityA + 1e-6 && v.role !== 'service') {
-      const section = v.role === 'branch' ? '210.19(A)(1)' : '215.2(A)(1)';
-      push({
-        ruleId: 'calculated-load',
-        messageId: 'below-load',
-        severity: 'violation',
-        cites: cites(section),
-        subject: { kind: 'conductor', id: c.id },
-        data: { ampacityA: f.ampacityA, calculatedA: f.calculatedLoadA },
-        message: `${describeRun(c, f)}: ampacity ${formatNumber(f.ampacityA)} A is below the calculated load of ${formatNumber(f.calculatedLoadA)} A (continuous × 1.25 plus noncontinuous, ${section}).`,
-      });
+    // 210.19(A)(1), 215.2(A)(1), 230.42(A): both halves; a motor or HVAC circuit is sized by its own article (430.22, 440.35).
+    if (c.id === f.conductorIds[0] && !(v.family === 'fed-by-ocpd' && (f.motor || f.hvac) && v.role === 'branch')) {
+      const t = runRule(calculatedLoad, f);
+      const section = v.role === 'branch' ? '210.19(A)(1)' : v.role === 'service' ? '230.42(A)' : '215.2(A)(1)';
+      for (const cond of t.conditions) {
+        if (cond.status !== 'fail') continue;
+        const part = `${section}(${cond.id === 'continuous' ? 'a' : 'b'})`;
+        push({
+          ruleId: 'calculated-load',
+          messageId: cond.id === 'continuous' ? 'below-calculated-load' : 'below-load',
+          severity: 'violation',
+          cites: cites(part),
+          subject: { kind: 'conductor', id: c.id },
+          data: cond.data,
+          message: `${describeRun(c, f)}: ${cond.text.replace(/\.$/, '')} (${part}).`,
+        });
+      }
     }
   }
 

@@ -58,6 +58,6 @@ export function prepareContext(project: Project): AnalysisContext {
     onCycle,
     loads: rollUpLoads(graph, order, count),
     runs: buildRuns(graph),
-    ampacities: conductorAmpacities({ graph, edition }),
+    ampacities: conductorAmpacities({ graph, edition, terminationDefault: project.project.terminationDefault }),
   };
 }

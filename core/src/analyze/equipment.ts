@@ -20,6 +20,13 @@ export function effectiveRatingA(node: EquipmentNode): number | null {
   return null;
 }
 
+/** Table 430.52 column of an OCPD node: a breaker is inverse-time unless stated instantaneous; a fuse's delay may be unstated (null). */
+export function deviceTypeOf(node: EquipmentNode): RunFacts['supplyDeviceType'] {
+  if (node.kind === 'breaker') return node.tripType === 'instantaneous' ? 'instantaneous' : 'inverse-time';
+  if (node.kind === 'fuse') return node.timeDelay === undefined ? null : node.timeDelay ? 'time-delay' : 'non-time-delay';
+  return null;
+}
+
 export const isOcpd = (node: EquipmentNode): boolean => node.kind === 'breaker' || node.kind === 'fuse';
 
 export function nodeLabel(node: EquipmentNode): string {

@@ -2,6 +2,7 @@ import type { Conductor, CodeEdition, ConductorSize } from '../model/schema';
 import { CONDUCTOR_SIZES } from '../model/schema';
 import { outcomeOf, type Rule } from '../rules/define';
 import { RULES_BY_ID } from '../rules/index';
+import { motorDeviceLimit } from '../rules/motor-device';
 
 const PROTECTION_IDS: ReadonlySet<string> = new Set(['protected', 'protected-next-size']);
 import type { RunFacts } from '../rules/facts';
@@ -38,23 +39,16 @@ export function suggestFixes(
   trials: readonly RuleTrial[],
   edition: CodeEdition,
 ): Fix[] {
+  if (facts.motor || facts.hvac) return ownArticleFixes(facts, members, edition);
   const fixes: Fix[] = [];
   const ids = facts.conductorIds;
   const resized = new Map<string, ConductorSize>();
   const start = sizeIndexOf(facts.size) + 1;
   for (let i = start; i < CONDUCTOR_SIZES.length && resized.size < rules.length; i++) {
     const size = CONDUCTOR_SIZES[i]!;
-    let ampacityA: number | null = Number.POSITIVE_INFINITY;
-    let small: number | null = null;
-    for (const c of members) {
-      // A segment already larger than the trial size keeps its size (a run may change size at a splice).
-      const w = conductorAmpacity(sizeIndexOf(c.size) >= i && c.material === facts.material ? c : { ...c, size }, edition).working;
-      if (w === null) { ampacityA = null; break; }
-      ampacityA = Math.min(ampacityA, w.ampacityA);
-      if (w.smallConductorMaxOcpdA !== null) small = small === null ? w.smallConductorMaxOcpdA : Math.min(small, w.smallConductorMaxOcpdA);
-    }
-    if (ampacityA === null) continue;
-    const trial: RunFacts = { ...facts, size, ampacityA, smallConductorMaxOcpdA: small };
+    const at = runAmpacityAt(members, size, edition, facts);
+    if (at === null) continue;
+    const trial: RunFacts = { ...facts, size, ampacityA: at.ampacityA, smallConductorMaxOcpdA: at.small };
     for (const rule of rules) {
       if (resized.has(rule.id)) continue;
       if (outcomeOf(rule.check(trial)) === 'holds') resized.set(rule.id, size);
@@ -112,6 +106,67 @@ export function suggestFixes(
   // Only the longest length the present size allows: a shorter limit says nothing more.
   const longest = shorten.reduce<Fix[]>((best, f) => (f.kind === 'shorten' && (best.length === 0 || f.maxLengthFt > (best[0] as { maxLengthFt: number }).maxLengthFt) ? [f] : best), []);
   return [...tapResizes, ...longest, ...addOcpd, ...protectionResizes];
+}
+
+/** The run's ampacity (lowest segment) and 240.4(D) limit were every segment of `size`; null when a segment has none. */
+function runAmpacityAt(members: readonly Conductor[], size: ConductorSize, edition: CodeEdition, facts: RunFacts): { ampacityA: number; small: number | null } | null {
+  let ampacityA = Number.POSITIVE_INFINITY;
+  let small: number | null = null;
+  for (const c of members) {
+    // A segment already larger than the trial size keeps its size (a run may change size at a splice).
+    const keep = sizeIndexOf(c.size) >= sizeIndexOf(size) && c.material === facts.material;
+    const w = conductorAmpacity(keep ? c : { ...c, size }, edition, facts.site.terminationDefault).working;
+    if (w === null) return null;
+    ampacityA = Math.min(ampacityA, w.ampacityA);
+    if (w.smallConductorMaxOcpdA !== null) small = small === null ? w.smallConductorMaxOcpdA : Math.min(small, w.smallConductorMaxOcpdA);
+  }
+  return { ampacityA, small };
+}
+
+/**
+ * Fixes for a motor or HVAC branch circuit (240.4(G)), only those its own article allows:
+ * the smallest conductor of at least 125 % of the full-load current (430.22) or the MCA
+ * (440.35), and a device no larger than Table 430.52 or the nameplate MOP allows. Never a
+ * breaker at the conductor's 240.4 ampacity, which need not start the motor.
+ */
+function ownArticleFixes(facts: RunFacts, members: readonly Conductor[], edition: CodeEdition): Fix[] {
+  const fixes: Fix[] = [];
+  const ids = facts.conductorIds;
+  const motor = facts.motor;
+  const minA = motor ? Math.round(motor.fullLoadA * 125) / 100 : facts.hvac!.mcaA;
+  if (facts.ampacityA !== null && facts.ampacityA < minA) {
+    for (let i = sizeIndexOf(facts.size) + 1; i < CONDUCTOR_SIZES.length; i++) {
+      const size = CONDUCTOR_SIZES[i]!;
+      const at = runAmpacityAt(members, size, edition, facts);
+      if (at === null || at.ampacityA < minA) continue;
+      const sets = facts.parallelSets > 1 ? `${facts.parallelSets} sets of ` : '';
+      const why = motor ? `at least 125 % of the ${motor.fullLoadA} A full-load current, ${minA} A (430.22)` : `at least the nameplate MCA of ${minA} A (440.35)`;
+      fixes.push({
+        kind: 'resize',
+        conductorIds: ids,
+        size,
+        material: facts.material,
+        parallelSets: facts.parallelSets,
+        forRule: motor ? 'motor-conductor' : 'hvac-circuit',
+        label: `Upsize to ${sets}${sizeLabel(size)} ${materialLabel(facts.material)} (${at.ampacityA} A): ${why}.`,
+      });
+      break;
+    }
+  }
+  const maxA = motor ? (motorDeviceLimit(facts)?.lowA ?? null) : largestStandardRatingAtMost(facts.hvac!.mopA, edition, facts.supplyOcpdKind ?? 'breaker');
+  if (maxA !== null && facts.supplyOcpdA !== null && facts.supplyOcpdA > maxA && facts.supplyOcpdId !== null) {
+    const kind = facts.supplyOcpdKind ?? 'breaker';
+    fixes.push({
+      kind: 'set-field',
+      ref: { kind: 'node', id: facts.supplyOcpdId },
+      field: 'ratingA',
+      value: maxA,
+      label: motor
+        ? `Use ${articleFor(maxA)} ${maxA} A ${kind} ahead: the largest 430.52(C)(1) allows for a ${motor.fullLoadA} A full-load current (Exception No. 1: next standard rating). A larger device needs the starting facts of Exception No. 2.`
+        : `Use ${articleFor(maxA)} ${maxA} A ${kind} ahead: the nameplate maximum (MOP) of ${facts.hvac!.mopA} A (440.22).`,
+    });
+  }
+  return fixes;
 }
 
 /** The largest rating that protects a run of this ampacity under 240.4, including (B) and (D). */

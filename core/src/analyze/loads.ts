@@ -1,23 +1,66 @@
+import type { NodeOfKind } from '../model/schema';
+import { motorTableFlcA, type MotorType } from '../tables/motor';
 import { edgeFrom, edgeTo, type Graph } from '../topology/graph';
 
 /**
  * System voltage at every node (from its source, changed by transformers) and
- * the load downstream of every node, as volt-amperes so that it adds up across
- * voltages. A transformer passes its load through unchanged (losses ignored),
- * so current scales by the voltage ratio.
+ * the load downstream of every node.
+ *
+ * Each load draws its current at its own voltage: a three-phase load
+ * VA / (√3·V_LL), a single-phase load VA / V across its own terminals (line to
+ * neutral: 277 V on 480Y/277, 120 V on 208Y/120 and 120/240; line to line:
+ * the system's V_LL). Loads add up as volt-amperes so that they carry across
+ * transformers (losses ignored). A feeder's current is its volt-amperes over
+ * its own phases taken as balanced (√3·V_LL three-phase, V_LL single-phase),
+ * and never less than the line current of the largest single load it serves
+ * (a lone 277 V load puts all its current on one phase). A single-phase
+ * transformer draws its primary current on its own phases: VA / V_primary.
+ *
+ * Unknown stays unknown: a node whose supplies disagree on voltage has none,
+ * a load below it has no current, and every total above it is unknown (never
+ * NaN, which would read as a failed comparison).
  */
 export interface SystemLoads {
-  /** Line-to-line voltage available at the node's load side; NaN when no source is upstream. */
+  /** Line-to-line voltage available at the node's load side; NaN when unknown. */
   voltsLL: Float64Array;
   phases: Uint8Array;
+  /** Line-to-neutral voltage of the system at the node; NaN where the system has no neutral. */
+  voltsLN: Float64Array;
   /** Noncontinuous and continuous VA at and below each node. */
   vaNoncontinuous: Float64Array;
   vaContinuous: Float64Array;
+  /** VA of the largest motor at and below each node: 430.24 adds 25 % of its full-load current. */
+  largestMotorVA: Float64Array;
+  /** Line current of the largest single load at and below each node, in the supply-side system of the node (A), as it flows and as calculated. */
+  singleA: Float64Array;
+  singleCalcA: Float64Array;
+  /** 1 where some load at or below the node has no known current: the totals there are unknown. */
+  unknown: Uint8Array;
+  /** The one load at or below each node when there is exactly one, else -1. */
+  onlyLoad: Int32Array;
+  /** Each load node's own circuit, or null (not a load, or its current is unknown). */
+  loadCircuits: (LoadCircuit | null)[];
+}
+
+/** One load's own circuit: the voltage across it, its line current, and how they were taken. */
+export interface LoadCircuit {
+  volts: number;
+  phases: 1 | 3;
+  connection: 'three-phase' | 'line-to-neutral' | 'line-to-line';
+  va: number;
+  /** Line current drawn, A (for a motor its table or nameplate full-load current; for HVAC its MCA). */
+  lineA: number;
+  continuous: boolean;
+  motor: { fullLoadA: number; source: string; hp: number | null; motorType: MotorType } | null;
+  hvac: { mcaA: number; mopA: number } | null;
+  /** How the current was taken, for the working. */
+  basis: string;
 }
 
 export function rollUpLoads(g: Graph, order: Int32Array, count: number): SystemLoads {
   const n = g.nodes.length;
   const voltsLL = new Float64Array(n).fill(Number.NaN);
+  const voltsLN = new Float64Array(n).fill(Number.NaN);
   const phases = new Uint8Array(n);
   for (let k = 0; k < count; k++) {
     const v = order[k]!;
@@ -25,58 +68,205 @@ export function rollUpLoads(g: Graph, order: Int32Array, count: number): SystemL
     if (node.kind === 'utility' || node.kind === 'generator') {
       voltsLL[v] = node.voltsLL;
       phases[v] = node.phases;
+      // A source is taken as having its neutral: 480Y/277, 208Y/120, 120/240 (common practice).
+      voltsLN[v] = node.phases === 3 ? Math.round(node.voltsLL / Math.sqrt(3)) : node.voltsLL / 2;
     } else if (node.kind === 'transformer') {
       voltsLL[v] = node.secondaryVoltsLL;
       phases[v] = node.phases;
+      voltsLN[v] = secondaryNeutralV(node);
     } else {
-      const ins = g.inEdges[v]!;
-      // With several supplies the voltage is not defined (the topology check reports it), whatever the file order.
-      if (ins.length !== 1) continue;
-      for (const e of ins) {
+      // Several supplies that agree on the system give it; supplies that disagree leave it unknown.
+      let first = true;
+      for (const e of g.inEdges[v]!) {
         const u = edgeFrom(g, e);
-        if (u >= 0 && !Number.isNaN(voltsLL[u]!)) {
+        const ok = u >= 0 && voltsLL[u]! > 0;
+        if (first && ok) {
           voltsLL[v] = voltsLL[u]!;
           phases[v] = phases[u]!;
+          voltsLN[v] = voltsLN[u]!;
+        } else if (!ok || voltsLL[u] !== voltsLL[v] || phases[u] !== phases[v]) {
+          voltsLL[v] = Number.NaN;
+          voltsLN[v] = Number.NaN;
+          phases[v] = 0;
           break;
         }
+        first = false;
       }
     }
   }
   const vaNoncontinuous = new Float64Array(n);
   const vaContinuous = new Float64Array(n);
+  const largestMotorVA = new Float64Array(n);
+  const singleA = new Float64Array(n);
+  const singleCalcA = new Float64Array(n);
+  const unknown = new Uint8Array(n);
+  const onlyLoad = new Int32Array(n).fill(-1);
+  const loadCount = new Uint32Array(n);
+  const loadCircuits: (LoadCircuit | null)[] = new Array(n).fill(null);
   for (let k = count - 1; k >= 0; k--) {
     const v = order[k]!;
     const node = g.nodes[v]!;
     if (node.kind === 'load') {
-      let va: number;
-      if (node.kva !== undefined) va = node.kva * 1000;
+      loadCount[v] = 1;
+      onlyLoad[v] = v;
+      const c = loadCircuit(node, voltsLL[v]!, phases[v]!, voltsLN[v]!);
+      loadCircuits[v] = c;
+      if (c === null) unknown[v] = 1;
       else {
-        const ph = node.phases ?? phases[v]!;
-        // A single-phase load on a three-phase system is taken as connected line to line.
-        va = (node.currentA ?? 0) * voltsLL[v]! * (ph === 3 ? Math.sqrt(3) : 1);
+        if (c.continuous) vaContinuous[v] = c.va;
+        else vaNoncontinuous[v] = c.va;
+        if (c.motor) largestMotorVA[v] = c.va;
+        singleA[v] = c.lineA;
+        singleCalcA[v] = c.lineA * (c.continuous || c.motor ? 1.25 : 1);
       }
-      if (node.continuous) vaContinuous[v] = vaContinuous[v]! + va;
-      else vaNoncontinuous[v] = vaNoncontinuous[v]! + va;
     }
     for (const e of g.outEdges[v]!) {
       const w = edgeTo(g, e);
       vaNoncontinuous[v] = vaNoncontinuous[v]! + vaNoncontinuous[w]!;
       vaContinuous[v] = vaContinuous[v]! + vaContinuous[w]!;
+      if (largestMotorVA[w]! > largestMotorVA[v]!) largestMotorVA[v] = largestMotorVA[w]!;
+      if (singleA[w]! > singleA[v]!) singleA[v] = singleA[w]!;
+      if (singleCalcA[w]! > singleCalcA[v]!) singleCalcA[v] = singleCalcA[w]!;
+      unknown[v] = unknown[v]! | unknown[w]!;
+      loadCount[v] = loadCount[v]! + loadCount[w]!;
+      if (loadCount[w] === 1 && loadCount[v] === 1) onlyLoad[v] = onlyLoad[w]!;
+    }
+    if (loadCount[v] !== 1) onlyLoad[v] = -1;
+    if (node.kind === 'transformer') toPrimary(node, v);
+  }
+  return { voltsLL, phases, voltsLN, vaNoncontinuous, vaContinuous, largestMotorVA, singleA, singleCalcA, unknown, onlyLoad, loadCircuits };
+
+  /**
+   * The largest-single-load currents at a transformer, seen from its primary.
+   * A single-phase transformer is itself one load on its primary: VA / Vp.
+   * Through a three-phase transformer a single-phase secondary load of S VA
+   * draws at least S / Vp_LL on a primary line (a line-to-neutral load of a
+   * delta-wye unit exactly that), so the secondary current scales by
+   * Vs_LN / Vp_LL, taken as Vs / (√3·Vp): never more than flows.
+   */
+  function toPrimary(t: NodeOfKind<'transformer'>, v: number): void {
+    if (t.phases === 1) {
+      singleA[v] = (vaNoncontinuous[v]! + vaContinuous[v]!) / t.primaryVoltsLL;
+      singleCalcA[v] = (vaNoncontinuous[v]! + 1.25 * vaContinuous[v]! + 0.25 * largestMotorVA[v]!) / t.primaryVoltsLL;
+    } else {
+      const ratio = t.secondaryVoltsLL / (Math.sqrt(3) * t.primaryVoltsLL);
+      singleA[v] = singleA[v]! * ratio;
+      singleCalcA[v] = singleCalcA[v]! * ratio;
     }
   }
-  return { voltsLL, phases, vaNoncontinuous, vaContinuous };
 }
 
-/** Current in a conductor from `fromNode` into `toNode`, unfactored and per 215.2(A)(1). Null when the voltage is unknown. */
-export function conductorLoadA(s: SystemLoads, fromNode: number, toNode: number): { flowingA: number; calculatedA: number } | null {
+/** Line-to-neutral voltage of a transformer's secondary, NaN where the connection has no neutral. */
+function secondaryNeutralV(t: NodeOfKind<'transformer'>): number {
+  switch (t.connection) {
+    case 'delta-wye':
+    case 'wye-wye':
+      return Math.round(t.secondaryVoltsLL / Math.sqrt(3));
+    case 'delta-delta-4w':
+    case 'single-phase-3w':
+      // 120/240 V: the centre tap; on a four-wire delta the two phases either side of it.
+      return t.secondaryVoltsLL / 2;
+    default:
+      return Number.NaN;
+  }
+}
+
+const round2 = (x: number): number => Math.round(x * 100) / 100;
+
+/**
+ * A load's own circuit on the system it sits on, or null when its current
+ * cannot be known (no system voltage, a line-to-neutral load on a system
+ * without a neutral, a motor the tables do not list and without a nameplate).
+ */
+export function loadCircuit(node: NodeOfKind<'load'>, sysV: number, sysPhases: number, sysLN: number): LoadCircuit | null {
+  if (!(sysV > 0)) return null;
+  const ph: 1 | 3 = node.phases ?? (sysPhases === 1 ? 1 : 3);
+  if (ph === 3 && sysPhases === 1) return null;
+  let volts: number;
+  let connection: LoadCircuit['connection'];
+  let basis: string;
+  if (ph === 3) {
+    volts = sysV;
+    connection = 'three-phase';
+    basis = `three-phase at ${sysV} V: VA / (√3 × ${sysV} V)`;
+  } else if (node.connection === 'line-to-neutral') {
+    if (!(sysLN > 0)) return null;
+    volts = sysLN;
+    connection = 'line-to-neutral';
+    basis = `single-phase line to neutral at ${sysLN} V: VA / ${sysLN} V`;
+  } else if (node.connection === 'line-to-line' || !(sysLN > 0)) {
+    volts = sysV;
+    connection = 'line-to-line';
+    basis = `single-phase line to line at ${sysV} V: VA / ${sysV} V`;
+  } else if (node.currentA !== undefined) {
+    // Connection not stated: a load given in amperes counts its volt-amperes at the higher voltage.
+    volts = sysV;
+    connection = 'line-to-line';
+    basis = `single-phase, connection not stated: ${node.currentA} A taken at ${sysV} V line to line, the larger volt-amperes`;
+  } else {
+    // Connection not stated: a load given in kVA draws its current at the lower voltage.
+    volts = sysLN;
+    connection = 'line-to-neutral';
+    basis = `single-phase, connection not stated: taken line to neutral at ${sysLN} V, the larger current`;
+  }
+  const k = ph === 3 ? Math.sqrt(3) * volts : volts;
+  const base = { volts, phases: ph, connection, continuous: node.continuous, motor: null, hvac: null };
+  if (node.hvac) {
+    // The nameplate MCA already holds 125 % of the largest motor-compressor (440.33): counted as it stands, noncontinuous.
+    const lineA = node.hvac.mcaA;
+    return { ...base, continuous: false, va: lineA * k, lineA, hvac: { ...node.hvac }, basis: `${basis}; HVAC equipment at its nameplate MCA, ${lineA} A` };
+  }
+  if (node.motor) {
+    const m = node.motor;
+    const table = m.hp === undefined ? null : motorTableFlcA(m.hp, volts, ph);
+    let fullLoadA: number;
+    let source: string;
+    if (table) {
+      fullLoadA = table.flcA;
+      source = `${table.table}, ${formatHp(m.hp!)} hp, ${table.columnV} V column`;
+    } else if (m.fullLoadA !== undefined) {
+      fullLoadA = m.fullLoadA;
+      source = m.hp === undefined ? 'nameplate full-load current' : `nameplate full-load current (${formatHp(m.hp)} hp at ${volts} V is not in the tables)`;
+    } else return null;
+    return {
+      ...base,
+      continuous: false,
+      va: fullLoadA * k,
+      lineA: fullLoadA,
+      motor: { fullLoadA, source, hp: m.hp ?? null, motorType: m.motorType ?? 'induction' },
+      basis: `${basis}; motor full-load current ${fullLoadA} A from ${source} (430.6(A))`,
+    };
+  }
+  if (node.kva !== undefined) {
+    const va = node.kva * 1000;
+    return { ...base, va, lineA: round2(va / k), basis };
+  }
+  if (node.currentA !== undefined) return { ...base, va: node.currentA * k, lineA: node.currentA, basis: `${node.currentA} A; ${basis}` };
+  return null;
+}
+
+function formatHp(hp: number): string {
+  const fractions: Record<string, string> = { '0.1667': '1/6', '0.25': '1/4', '0.3333': '1/3', '0.5': '1/2', '0.75': '3/4', '1.5': '1-1/2', '7.5': '7-1/2' };
+  return fractions[String(Math.round(hp * 10000) / 10000)] ?? String(hp);
+}
+
+/** The load a conductor from `fromNode` into `toNode` carries. Null when it cannot be known. */
+export interface ConductorLoad {
+  /** What flows: continuous plus noncontinuous, A. */
+  flowingA: number;
+  /** 1.25 × continuous + noncontinuous + 25 % of the largest motor (215.2(A)(1), 210.19(A)(1), 430.24), A. */
+  calculatedA: number;
+}
+
+export function conductorLoadA(s: SystemLoads, fromNode: number, toNode: number): ConductorLoad | null {
   const v = s.voltsLL[fromNode]!;
-  if (!(v > 0)) return null;
+  if (!(v > 0) || toNode < 0 || s.unknown[toNode]) return null;
   const k = s.phases[fromNode] === 3 ? Math.sqrt(3) * v : v;
   const non = s.vaNoncontinuous[toNode]!;
   const cont = s.vaContinuous[toNode]!;
-  return { flowingA: round2((non + cont) / k), calculatedA: round2((non + 1.25 * cont) / k) };
-}
-
-function round2(x: number): number {
-  return Math.round(x * 100) / 100;
+  const motor = s.largestMotorVA[toNode]!;
+  const flowingA = Math.max((non + cont) / k, s.singleA[toNode]!);
+  const calculatedA = Math.max((non + 1.25 * cont + 0.25 * motor) / k, s.singleCalcA[toNode]!);
+  if (!Number.isFinite(flowingA) || !Number.isFinite(calculatedA)) return null;
+  return { flowingA: round2(flowingA), calculatedA: round2(calculatedA) };
 }

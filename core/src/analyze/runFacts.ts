@@ -17,6 +17,7 @@ export function baseRunFacts(ctx: AnalysisContext): RunFacts[] {
     qualifiedMaintenance: project.project.qualifiedMaintenance,
     industrialInstallation: project.project.industrialInstallation,
     manufacturingWallHeightFt: project.project.manufacturingWallHeightFt ?? null,
+    terminationDefault: project.project.terminationDefault,
   };
   const out: RunFacts[] = new Array(runs.members.length);
   for (let r = 0; r < runs.members.length; r++) {
@@ -25,6 +26,7 @@ export function baseRunFacts(ctx: AnalysisContext): RunFacts[] {
     let weakest = g.conductors[members[0]!]!;
     let lengthFt: number | null = 0;
     let ampacityA: number | null = Number.POSITIVE_INFINITY;
+    let uncorrectedA: number | null = Number.POSITIVE_INFINITY;
     let small: number | null = null;
     let inRaceway = true;
     let damage: RunFacts['damageProtection'] = 'raceway';
@@ -36,10 +38,14 @@ export function baseRunFacts(ctx: AnalysisContext): RunFacts[] {
       const c = g.conductors[ci]!;
       lengthFt = lengthFt === null || c.lengthFt === undefined ? null : lengthFt + c.lengthFt;
       const w = ampacities[ci]!.working;
-      if (w === null) ampacityA = null;
-      else if (ampacityA !== null && w.ampacityA < ampacityA) {
-        ampacityA = w.ampacityA;
-        weakest = c;
+      if (w === null) ampacityA = uncorrectedA = null;
+      else if (ampacityA !== null && uncorrectedA !== null) {
+        if (w.ampacityA < ampacityA) {
+          ampacityA = w.ampacityA;
+          weakest = c;
+        }
+        const before = Math.round(w.terminalLimitA * w.parallelSets * 100) / 100;
+        if (before < uncorrectedA) uncorrectedA = before;
       }
       if (w?.smallConductorMaxOcpdA != null) small = small === null ? w.smallConductorMaxOcpdA : Math.min(small, w.smallConductorMaxOcpdA);
       const conduit = RACEWAYS.has(c.wiring);
@@ -57,6 +63,9 @@ export function baseRunFacts(ctx: AnalysisContext): RunFacts[] {
     const lastIndex = members[members.length - 1]!;
     const toNode = g.conductorTo[lastIndex]!;
     const load = conductorLoadA(loads, g.conductorFrom[members[0]!]!, toNode);
+    // The one load the run serves (for a branch circuit: through no OCPD), when it is a motor or HVAC unit.
+    const only = toNode >= 0 ? loads.onlyLoad[toNode]! : -1;
+    const circuit = only >= 0 ? loads.loadCircuits[only] ?? null : null;
     out[r] = {
       edition,
       conductorIds: members.map((ci) => g.conductors[ci]!.id),
@@ -65,10 +74,12 @@ export function baseRunFacts(ctx: AnalysisContext): RunFacts[] {
       parallelSets: weakest.parallelSets,
       lengthFt: lengthFt === null ? null : Math.round(lengthFt * 100) / 100,
       ampacityA,
+      ampacityUncorrectedA: uncorrectedA,
       smallConductorMaxOcpdA: small,
       supplyOcpdA: null,
       supplyOcpdId: null,
       supplyOcpdKind: null,
+      supplyDeviceType: null,
       termination: terminationOf(g, toNode),
       loadA: load?.flowingA ?? null,
       calculatedLoadA: load?.calculatedA ?? null,
@@ -84,6 +95,8 @@ export function baseRunFacts(ctx: AnalysisContext): RunFacts[] {
       transformer: null,
       secondaries: [],
       generator: null,
+      motor: circuit?.motor ? { fullLoadA: circuit.motor.fullLoadA, source: circuit.motor.source, motorType: circuit.motor.motorType } : null,
+      hvac: circuit?.hvac ?? null,
       suppliedFrom: null,
     };
   }

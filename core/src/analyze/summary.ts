@@ -55,6 +55,7 @@ export function incompleteReason(v: RunVerdict): string {
   if (v.family === 'secondary' && v.facts.transformer?.primaryOcpdA == null) missing.add('the rating of the primary device');
   for (const id of unknown) {
     if (id === 'length' || id === 'total') missing.add('the length (lengthFt)');
+    else if (id === 'device' && (v.facts.motor || v.facts.hvac)) missing.add(v.facts.supplyOcpdA === null ? 'the rating of the device ahead' : 'the fuse type ahead (time-delay or not, Table 430.52)');
     else if (id === 'termination' || id === 'device') missing.add('the rating of the device or equipment it ends in');
     else if (id === 'horizontal' || id === 'height' || id === 'noPenetration') missing.add('the high-bay facts (horizontal run, tap height, penetrations)');
     else if (id === 'accessible') missing.add('where the disconnecting means is');

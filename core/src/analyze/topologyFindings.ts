@@ -33,7 +33,8 @@ export function topologyFindings(ctx: AnalysisContext): Finding[] {
         cites: null,
         subject,
         related: g.inEdges[v]!.map((e) => edgeRef(g, e)),
-        message: `${name} is fed from ${ins} supplies at once; Linewright judges radial systems. Show the transfer equipment, or remove all but one supply.`,
+        data: { supplies: ins },
+        message: `${name} is fed from ${ins === 2 ? 'two' : ins} sources: ${supplyNames(g, v)}. Linewright judges radial systems, so the loads below it count against every supply and its voltage is known only where the supplies agree; show the transfer equipment, or remove all but one supply.`,
       });
     }
     if (ins === 0 && n.kind !== 'utility' && n.kind !== 'generator') {
@@ -56,6 +57,15 @@ export function topologyFindings(ctx: AnalysisContext): Finding[] {
     });
   }
   return out;
+}
+
+/** 'A and B', 'A, B and C': the equipment on the supply end of each edge into node v. */
+function supplyNames(g: Graph, v: number): string {
+  const names = g.inEdges[v]!.slice(0, MAX_RELATED).map((e) => {
+    const u = e >= 0 ? g.conductorFrom[e]! : g.linkFrom[-e - 1]!;
+    return u >= 0 ? nodeLabel(g.nodes[u]!) : '?';
+  });
+  return names.length <= 1 ? names.join('') : `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`;
 }
 
 function edgeRef(g: Graph, e: number): ElementRef {

@@ -5,6 +5,8 @@ import type { CodeEdition, ConductorId, ConductorSize, EquipmentKind, Material, 
 export const VERDICTS = [
   'protected',
   'protected-next-size',
+  'motor-circuit',
+  'hvac-circuit',
   'tap-10ft',
   'tap-25ft',
   'tap-transformer',
@@ -26,6 +28,8 @@ export type Verdict = (typeof VERDICTS)[number];
 export const VERDICT_LABELS: Readonly<Record<Verdict, string>> = {
   protected: 'protected',
   'protected-next-size': 'protected (next size up)',
+  'motor-circuit': 'motor circuit',
+  'hvac-circuit': 'HVAC circuit',
   'tap-10ft': 'tap: 10 ft',
   'tap-25ft': 'tap: 25 ft',
   'tap-transformer': 'tap: transformer',
@@ -144,6 +148,8 @@ export interface AmpacityWorking {
   adjustmentFactor: number;
   /** baseA × ambientFactor × adjustmentFactor, one conductor. */
   correctedA: number;
+  /** Termination temperature rating used (110.14(C)): the conductor's own, or the project default. */
+  terminalTempC: 60 | 75 | 90;
   /** Table 310.16 value in the termination's column, one conductor (110.14(C)). */
   terminalLimitA: number;
   /** min(correctedA, terminalLimitA). */

@@ -204,7 +204,13 @@ export function checkConsistency(p: Project): LoadError[] {
     const n = p.nodes[i]!;
     claim(n.id, 0, i);
     kindById.set(n.id, n.kind);
-    if (n.kind === 'load') {
+    if (n.kind === 'load' && n.motor && n.motor.hp === undefined && n.motor.fullLoadA === undefined) {
+      errors.push({ path: `nodes[${i}].motor.hp`, message: 'A motor needs its horsepower ("hp", for Tables 430.248/430.250) or its nameplate full-load current ("fullLoadA").' });
+    } else if (n.kind === 'load' && n.motor && n.hvac) {
+      errors.push({ path: `nodes[${i}].hvac`, message: 'A load is either a motor ("motor") or air-conditioning equipment with a nameplate MCA and MOP ("hvac"), not both.' });
+    } else if (n.kind === 'load' && n.hvac && n.hvac.mopA < n.hvac.mcaA) {
+      errors.push({ path: `nodes[${i}].hvac.mopA`, message: 'The nameplate maximum overcurrent device (MOP) is never below the minimum circuit ampacity (MCA); check the two values.' });
+    } else if (n.kind === 'load' && !n.motor && !n.hvac) {
       const given = (n.currentA === undefined ? 0 : 1) + (n.kva === undefined ? 0 : 1);
       if (given !== 1) {
         errors.push({

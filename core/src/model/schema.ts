@@ -111,6 +111,8 @@ const ocpdCommon = {
 export const breakerNode = z.strictObject({
   ...ocpdCommon,
   kind: z.literal('breaker'),
+  /** Table 430.52: an inverse-time breaker (the usual kind, and the reading when not stated) or an instantaneous-trip one (motor circuit protector). */
+  tripType: z.enum(['inverse-time', 'instantaneous']).optional().describe('Table 430.52: inverse-time (the usual breaker; the reading when not stated) or instantaneous-trip (a motor circuit protector).'),
   /** 240.6(B): adjustable long-time pickup; with restricted access 240.6(C) lets the setting count. */
   adjustableTrip: z
     .object({
@@ -125,6 +127,8 @@ export const fuseNode = z.strictObject({
   ...ocpdCommon,
   kind: z.literal('fuse'),
   currentLimiting: z.boolean().default(false).describe('A current-limiting fuse.'),
+  /** Table 430.52: a time-delay (dual-element) fuse or a non-time-delay one; not stated, a motor circuit is judged on what both allow. */
+  timeDelay: z.boolean().optional().describe('Table 430.52: a time-delay (dual-element) fuse (true) or non-time-delay (false); not stated, a motor circuit is judged on what both allow.'),
 });
 
 export const disconnectNode = z.strictObject({
@@ -150,11 +154,30 @@ export const transformerNode = z.strictObject({
   connection: z.enum(TRANSFORMER_CONNECTIONS).describe('Winding connection; 240.21(C)(1) needs single-phase-2w or delta-delta-3w.'),
 });
 
+export const MOTOR_TYPES = ['induction', 'design-b-energy-efficient', 'synchronous', 'wound-rotor', 'dc'] as const;
+
+/** A motor: Article 430 sizes its conductors and its short-circuit device from the table full-load current. */
+export const motorFacts = z.strictObject({
+  hp: z.number().positive().max(500).optional().describe('Horsepower; the full-load current then comes from Table 430.248 (single-phase) or 430.250 (three-phase) at the load\'s voltage (430.6(A)).'),
+  fullLoadA: amps.optional().describe('Nameplate full-load current, A; used where the tables do not apply or no horsepower is given.'),
+  motorType: z.enum(MOTOR_TYPES).optional().describe('Table 430.52 row: induction (squirrel-cage, the reading when not stated), design-b-energy-efficient, synchronous, wound-rotor or dc.'),
+});
+export type MotorFacts = z.infer<typeof motorFacts>;
+
+/** Air-conditioning or refrigeration equipment with its nameplate (440.4(B)). */
+export const hvacFacts = z.strictObject({
+  mcaA: amps.describe('Nameplate minimum circuit ampacity (MCA), A (440.4(B), 440.35).'),
+  mopA: amps.describe('Nameplate maximum overcurrent protective device (MOP), A (440.4(B), 440.22).'),
+});
+export type HvacFacts = z.infer<typeof hvacFacts>;
+
+export const LOAD_CONNECTIONS = ['line-to-neutral', 'line-to-line'] as const;
+
 export const loadNode = z.strictObject({
   ...common,
   kind: z.literal('load'),
-  /** Exactly one of currentA or kva. */
-  currentA: amps.optional().describe('Exactly one of currentA or kva.'),
+  /** Exactly one of currentA or kva, unless the load is a motor or HVAC equipment, which carry their own current. */
+  currentA: amps.optional().describe('Exactly one of currentA or kva (a motor or HVAC unit may give neither).'),
   kva: z.number().positive().max(50_000).optional().describe('Rating, kVA.'),
   powerFactor: z.number().gt(0).max(1).default(0.9).describe('Power factor, 0–1.'),
   /** Continuous: maximum current for 3 h or more (Article 100). */
@@ -162,6 +185,15 @@ export const loadNode = z.strictObject({
   /** Phases of the load itself; defaults to the system's. */
   phases: phases.optional().describe('Phases of the load itself; defaults to the system\'s.'),
   faultContributionXFlc: z.number().positive().max(10).optional().describe('Motor contribution to a fault, as a multiple of this load\'s full-load current (common practice: 4 for induction motors, 5 for synchronous); absent means none.'),
+  /**
+   * A single-phase load's connection: line to neutral (277 V on 480Y/277, 120 V on 208Y/120 or
+   * 120/240) or line to line (480 V, 208 V, 240 V). Not stated: the reading that gives the larger
+   * figure (a kVA load draws its current at the lower voltage; a load in amperes counts its VA at
+   * the higher), which is how files without this field were read where that was right.
+   */
+  connection: z.enum(LOAD_CONNECTIONS).optional().describe('Single-phase loads: line-to-neutral or line-to-line. Not stated: whichever gives the larger current (kVA loads) or volt-amperes (loads in amperes).'),
+  motor: motorFacts.optional().describe('A motor load (Article 430).'),
+  hvac: hvacFacts.optional().describe('Air-conditioning or refrigeration equipment with a nameplate MCA and MOP (Article 440).'),
 });
 
 export const equipmentNode = z.discriminatedUnion('kind', [
@@ -194,8 +226,8 @@ export const conductor = z.strictObject({
   ambientC: z.number().min(-40).max(90).default(30).describe('Ambient temperature, °C (Table 310.15(B)(1)).'),
   /** Current-carrying conductors in the raceway or cable, all sets counted (310.15(C)(1)). */
   currentCarrying: z.number().int().min(1).max(200).default(3).describe('Current-carrying conductors in the raceway or cable, all sets counted (310.15(C)(1)).'),
-  /** 110.14(C): lowest temperature rating of the terminations at either end. */
-  terminalTempC: z.union([z.literal(60), z.literal(75), z.literal(90)]).default(75).describe('110.14(C): lowest temperature rating of the terminations at either end.'),
+  /** 110.14(C): lowest temperature rating of the terminations at either end; not stated, the project's terminationDefault decides. */
+  terminalTempC: z.union([z.literal(60), z.literal(75), z.literal(90)]).optional().describe('110.14(C): lowest temperature rating of the terminations at either end. Not stated: the project setting terminationDefault decides (75 °C where equipment is listed for it, or per 110.14(C)(1)).'),
   /**
    * 240.21(B)(1), (C)(2): a field installation that leaves the enclosure where the tap is made.
    * Absent means not stated: a tap between two pieces of equipment leaves the enclosure, so the
@@ -245,6 +277,13 @@ export const projectSettings = z.strictObject({
   voltageDropCircuitPct: z.number().positive().max(20).optional().describe('Largest voltage drop of one feeder or branch circuit, % (210.19, 215.2 informational notes: 3 %). Default 3.'),
   voltageDropTotalPct: z.number().positive().max(20).optional().describe('Largest voltage drop from the source or transformer secondary to a load, % (informational notes: 5 %). Default 5.'),
   faultStudyDate: z.string().min(1).max(40).optional().describe('110.24(A): date the available fault current was calculated (e.g. 2026-12-02); marked on service equipment.'),
+  /**
+   * 110.14(C)(1): the termination rating of a conductor that does not state its own.
+   * 'listed-75': equipment listed and marked for 75 °C conductors (common practice for equipment
+   * marked 60/75 °C; how files without this setting have always been read).
+   * 'per-110.14(C)(1)': the code's own default, 60 °C for 14–1 AWG (circuits of 100 A or less), 75 °C above.
+   */
+  terminationDefault: z.enum(['listed-75', 'per-110.14(C)(1)']).default('listed-75').describe('110.14(C)(1): termination rating of a conductor that states none. listed-75 (equipment listed for 75 °C) or per-110.14(C)(1) (60 °C for 14–1 AWG, 75 °C above).'),
   preparedBy: label.optional(),
   notes: z.string().max(4000).optional(),
   makeupFtPerTermination: z.number().nonnegative().max(100).optional().describe(

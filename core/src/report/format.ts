@@ -31,6 +31,8 @@ export function verdictClass(verdict: Verdict): VerdictClass {
   switch (verdict) {
     case 'protected':
     case 'protected-next-size':
+    case 'motor-circuit':
+    case 'hvac-circuit':
     case 'service':
     case 'generator':
       return 'protected';

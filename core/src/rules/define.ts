@@ -4,7 +4,7 @@ import type { Citation, ConditionResult, ConditionStatus, RuleTrial, Verdict } f
 import type { CodeEdition } from '../model/schema';
 import type { RunFacts } from './facts';
 
-export type RuleFamily = 'protection' | 'equipment' | 'study' | 'feeder-tap' | 'transformer-secondary' | 'transformer-protection' | 'service' | 'generator' | 'tap-from-tap';
+export type RuleFamily = 'protection' | 'equipment' | 'study' | 'feeder-tap' | 'transformer-secondary' | 'transformer-protection' | 'service' | 'generator' | 'tap-from-tap' | 'motor' | 'hvac' | 'load';
 
 /**
  * One condition of one rule, as the rule's check returns it and as the

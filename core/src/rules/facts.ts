@@ -45,6 +45,14 @@ export interface TransformerFacts {
   secondaryEnds: Termination[];
 }
 
+export interface MotorRunFacts {
+  /** Full-load current, A: Table 430.248/430.250 by horsepower and voltage, or the nameplate (430.6(A)). */
+  fullLoadA: number;
+  /** Where the full-load current came from, in words. */
+  source: string;
+  motorType: 'induction' | 'design-b-energy-efficient' | 'synchronous' | 'wound-rotor' | 'dc';
+}
+
 export interface GeneratorFacts {
   id: NodeId;
   kva: number;
@@ -66,11 +74,19 @@ export interface RunFacts {
   lengthFt: number | null;
   /** Lowest ampacity along the run; null when a segment's ampacity cannot be found. */
   ampacityA: number | null;
+  /**
+   * Lowest ampacity along the run before correction and adjustment: Table 310.16 in the
+   * termination's column (110.14(C)), times the parallel sets; what 125 % of the continuous
+   * load is compared with (210.19(A)(1)(a), 215.2(A)(1)(a), 230.42(A)(1)). Null when unknown.
+   */
+  ampacityUncorrectedA: number | null;
   smallConductorMaxOcpdA: number | null;
   /** R: rating of the OCPD ahead of the run's supply point; null when unknown. */
   supplyOcpdA: number | null;
   supplyOcpdId: NodeId | null;
   supplyOcpdKind: 'breaker' | 'fuse' | null;
+  /** Table 430.52 column of the device ahead: a breaker's trip (inverse-time when not stated), a fuse's delay (null when not stated). */
+  supplyDeviceType: 'inverse-time' | 'instantaneous' | 'time-delay' | 'non-time-delay' | null;
   termination: Termination;
   /** Sum of the loads served, not factored (A). */
   loadA: number | null;
@@ -88,12 +104,16 @@ export interface RunFacts {
   /** The run passes through splices. */
   hasSplices: boolean;
   highBay: { horizontalFt: number; tapHeightAboveFloorFt: number; penetratesWallFloorCeiling: boolean } | null;
-  site: Pick<ProjectSettings, 'qualifiedMaintenance' | 'industrialInstallation'> & { manufacturingWallHeightFt: number | null };
+  site: Pick<ProjectSettings, 'qualifiedMaintenance' | 'industrialInstallation' | 'terminationDefault'> & { manufacturingWallHeightFt: number | null };
   /** For a secondary: the transformer supplying it. For a primary run ending at a transformer: that transformer. */
   transformer: TransformerFacts | null;
   /** For a primary run ending at a transformer: the transformer's secondary runs. */
   secondaries: RunFacts[];
   generator: GeneratorFacts | null;
+  /** The one load the run serves, when it is a motor (Article 430); null otherwise. */
+  motor: MotorRunFacts | null;
+  /** The one load the run serves, when it is HVAC equipment with a nameplate MCA and MOP (Article 440); null otherwise. */
+  hvac: { mcaA: number; mopA: number } | null;
   /** When the supply point lies on another run: that run's ids and verdict. */
   suppliedFrom: { conductorIds: ConductorId[]; verdict: Verdict } | null;
 }

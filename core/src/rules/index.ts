@@ -1,3 +1,4 @@
+import { calculatedLoad } from './calculated-load';
 import type { Rule } from './define';
 import { conductorWithstand } from './conductor-withstand';
 import { equipmentSccr } from './equipment-sccr';
@@ -5,6 +6,11 @@ import { interruptingRating } from './interrupting-rating';
 import { voltageDropRule } from './voltage-drop';
 import { generatorRule } from './generator';
 import { panelboardProtection } from './panelboard-protection';
+import { hvacCircuit } from './hvac-circuit';
+import { hvacDevice } from './hvac-device';
+import { motorCircuit } from './motor-circuit';
+import { motorConductor } from './motor-conductor';
+import { motorDevice } from './motor-device';
 import { protectedNextSize } from './protected-next-size';
 import { protectedRule } from './protected';
 import { secondary10ft } from './secondary-10ft';
@@ -30,7 +36,13 @@ export const SECONDARY_RULES: readonly Rule[] = [secondaryPrimaryProtected, seco
 
 /** Every rule, one line each, sorted by id. */
 export const ALL_RULES: readonly Rule[] = [
+  calculatedLoad,
   generatorRule,
+  hvacCircuit,
+  hvacDevice,
+  motorCircuit,
+  motorConductor,
+  motorDevice,
   protectedRule,
   protectedNextSize,
   secondary10ft,
@@ -58,6 +70,9 @@ export const STUDY_RULES = [conductorWithstand, equipmentSccr, interruptingRatin
 export const RULES_BY_ID: ReadonlyMap<string, Rule> = new Map(ALL_RULES.map((r) => [r.id, r]));
 
 export { conductorWithstand, equipmentSccr, interruptingRating, panelboardProtection, voltageDropRule };
-export { generatorRule, serviceRule, tapFromTap, tapTransformer, transformerProtection };
+/** 240.4(G): circuits whose conductors their own article protects, tried instead of 240.4 on the branch circuit of one such load. */
+export const OWN_ARTICLE_RULES = { motor: motorCircuit, hvac: hvacCircuit } as const;
+
+export { calculatedLoad, generatorRule, serviceRule, tapFromTap, tapTransformer, transformerProtection };
 export type { Rule } from './define';
 export type { RunFacts, Termination, TransformerFacts } from './facts';

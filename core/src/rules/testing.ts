@@ -1,7 +1,7 @@
 import type { ConductorId, NodeId } from '../model/schema';
 import { smallConductorMaxOcpdA } from '../tables/smallConductor';
 import { transformerFullLoadA } from '../tables/transformer';
-import type { GeneratorFacts, RunFacts, Termination, TransformerFacts } from './facts';
+import type { GeneratorFacts, MotorRunFacts, RunFacts, Termination, TransformerFacts } from './facts';
 
 /**
  * Fixture builders for the rules' reference tables (`<id>.cases.ts`) and the
@@ -118,10 +118,12 @@ export function runFacts(overrides: RunFactsOverrides = {}): RunFacts {
     parallelSets: 1,
     lengthFt: 20,
     ampacityA: 200,
+    ampacityUncorrectedA: 200,
     smallConductorMaxOcpdA: null,
     supplyOcpdA: 600,
     supplyOcpdId: id<NodeId>('CB-FEEDER'),
     supplyOcpdKind: 'breaker',
+    supplyDeviceType: 'inverse-time',
     termination: terminationAt('ocpd'),
     loadA: 150,
     calculatedLoadA: 150,
@@ -133,13 +135,16 @@ export function runFacts(overrides: RunFactsOverrides = {}): RunFacts {
     multioutletCordAndPlug: false,
     hasSplices: false,
     highBay: null,
-    site: { qualifiedMaintenance: false, industrialInstallation: false, manufacturingWallHeightFt: null },
+    site: { qualifiedMaintenance: false, industrialInstallation: false, manufacturingWallHeightFt: null, terminationDefault: 'listed-75' },
     transformer: null,
     secondaries: [],
     generator: null,
+    motor: null,
+    hvac: null,
     suppliedFrom: null,
   };
   const facts: RunFacts = { ...base, ...rest, site: { ...base.site, ...site } };
+  if (!('ampacityUncorrectedA' in rest)) facts.ampacityUncorrectedA = facts.ampacityA;
   if (!('smallConductorMaxOcpdA' in rest)) facts.smallConductorMaxOcpdA = smallConductorMaxOcpdA(facts.material, facts.size, facts.edition);
   return facts;
 }
@@ -155,6 +160,43 @@ export function secondaryRunFacts(overrides: RunFactsOverrides = {}): RunFacts {
     supplyOcpdId: null,
     supplyOcpdKind: null,
     transformer: transformerFacts(),
+    ...overrides,
+  });
+}
+
+/**
+ * Facts of a motor branch circuit: one 20 hp, 460 V three-phase induction motor
+ * (27 A, NFPA 70-2023 Table 430.250), 10 AWG Cu at 75 °C (35 A), 40 ft, behind a
+ * 70 A inverse-time breaker. Override `motor` fields through `motor`.
+ */
+export function motorRunFacts(overrides: RunFactsOverrides & { motorFacts?: Partial<MotorRunFacts> } = {}): RunFacts {
+  const { motorFacts, ...rest } = overrides;
+  return runFacts({
+    size: '10',
+    ampacityA: 35,
+    lengthFt: 40,
+    supplyOcpdA: 70,
+    supplyOcpdId: id<NodeId>('CB-M1'),
+    termination: terminationAt('load'),
+    loadA: 27,
+    calculatedLoadA: 33.75,
+    motor: { fullLoadA: 27, source: 'Table 430.250, 20 hp, 460 V column', motorType: 'induction', ...motorFacts },
+    ...rest,
+  });
+}
+
+/** Facts of a rooftop unit's circuit: MCA 18 A, MOP 25 A, 14 AWG Cu at 75 °C (20 A) behind a 25 A breaker. */
+export function hvacRunFacts(overrides: RunFactsOverrides = {}): RunFacts {
+  return runFacts({
+    size: '14',
+    ampacityA: 20,
+    lengthFt: 60,
+    supplyOcpdA: 25,
+    supplyOcpdId: id<NodeId>('CB-RTU'),
+    termination: terminationAt('load'),
+    loadA: 18,
+    calculatedLoadA: 18,
+    hvac: { mcaA: 18, mopA: 25 },
     ...overrides,
   });
 }

@@ -43,7 +43,8 @@ export function minimumPhaseSize(c: EgcConductor, ocpdA: number, calculatedLoadA
       parallelSets: c.parallelSets,
       ambientC: c.ambientC,
       currentCarrying,
-      terminalTempC: c.terminalTempC,
+      // Not stated: the project default (110.14(C)(1)) is not passed here; 75 °C, the listed-equipment default.
+      terminalTempC: c.terminalTempC ?? 75,
       edition,
     },
     calculatedLoadA ?? 0,

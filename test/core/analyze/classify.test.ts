@@ -356,7 +356,7 @@ describe('services, generators and loads', () => {
     const report = run(input);
     const c = verdictOf(report, 'F');
     expect(c.load).toEqual({ flowingA: 110, calculatedA: 137.5 });
-    expect(report.findings.some((f) => f.id === 'calculated-load:F:below-load')).toBe(true);
+    expect(report.findings.some((f) => f.id === 'calculated-load:F:below-calculated-load')).toBe(true);
   });
 
   it('a 100 A load at 208 V draws 100 × 208/480 = 43.33 A on the 480 V primary (current scales by the voltage ratio)', () => {

@@ -69,6 +69,7 @@ function working(baseA: number, sets = 1): AmpacityWorking {
     ambientFactor: 1,
     adjustmentFactor: 1,
     correctedA: baseA,
+    terminalTempC: 75,
     terminalLimitA: baseA,
     perSetA: baseA,
     parallelSets: sets,

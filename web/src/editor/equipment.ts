@@ -87,7 +87,6 @@ export function newConductorFields(): Omit<Conductor, 'id' | 'from' | 'to'> {
     wiring: 'steel-conduit',
     ambientC: 30,
     currentCarrying: 3,
-    terminalTempC: 75,
     extendsBeyondEquipment: false,
     outdoors: false,
     damageProtection: 'raceway',

@@ -1,5 +1,5 @@
 import {
-  BUS_TYPES, CODE_EDITIONS, CONDUCTOR_SIZES, DAMAGE_PROTECTION, INSULATIONS, MATERIALS, TRANSFORMER_CONNECTIONS, WIRING_METHODS,
+  BUS_TYPES, CODE_EDITIONS, CONDUCTOR_SIZES, DAMAGE_PROTECTION, INSULATIONS, LOAD_CONNECTIONS, MATERIALS, MOTOR_TYPES, TRANSFORMER_CONNECTIONS, WIRING_METHODS,
   type EquipmentKind,
 } from '@linewright/core';
 
@@ -54,9 +54,14 @@ export const NODE_FIELDS: Record<EquipmentKind, Field[]> = {
         { type: 'checkbox', key: 'adjustableTrip.restrictedAccess', label: 'Access to the setting is restricted' },
       ],
     },
+    { type: 'select', key: 'tripType', label: 'Trip (Table 430.52)', options: ['inverse-time', 'instantaneous'], optional: true, emptyLabel: '— not stated (inverse-time) —', optionLabels: { 'inverse-time': 'inverse-time', instantaneous: 'instantaneous-trip (motor circuit protector)' } },
     notes, id,
   ],
-  fuse: [label, ...ocpdCommon, { type: 'checkbox', key: 'currentLimiting', label: 'Current-limiting fuses' }, notes, id],
+  fuse: [
+    label, ...ocpdCommon, { type: 'checkbox', key: 'currentLimiting', label: 'Current-limiting fuses' },
+    { type: 'select', key: 'timeDelay', label: 'Fuse type (Table 430.52)', options: [true, false], optional: true, emptyLabel: '— not stated —', optionLabels: { true: 'time-delay (dual-element)', false: 'non-time-delay' } },
+    notes, id,
+  ],
   disconnect: [label, { type: 'number', key: 'ratingA', label: 'Switch rating', unit: 'A', optional: true }, notes, id],
   splice: [label, notes, id],
   transformer: [
@@ -72,7 +77,28 @@ export const NODE_FIELDS: Record<EquipmentKind, Field[]> = {
     { type: 'number', key: 'kva', label: 'Apparent power', unit: 'kVA', optional: true },
     { type: 'number', key: 'powerFactor', label: 'Power factor' },
     { type: 'checkbox', key: 'continuous', label: 'Continuous (3 h or more)' },
-    { type: 'select', key: 'phases', label: 'Phases of the load', options: [1, 3], optional: true }, notes, id,
+    { type: 'select', key: 'phases', label: 'Phases of the load', options: [1, 3], optional: true, emptyLabel: '— the system\'s —' },
+    {
+      type: 'select', key: 'connection', label: 'Single-phase connection', options: LOAD_CONNECTIONS, optional: true, emptyLabel: '— not stated (the larger current) —',
+      optionLabels: { 'line-to-neutral': 'line to neutral (277 V, 120 V)', 'line-to-line': 'line to line (480 V, 208 V, 240 V)' },
+    },
+    {
+      type: 'group', key: 'motor', label: 'Motor (Article 430)', make: () => ({ hp: 10 }),
+      help: 'Full-load current from Table 430.248/430.250 by horsepower, or the nameplate',
+      fields: [
+        { type: 'number', key: 'motor.hp', label: 'Horsepower', unit: 'hp', optional: true },
+        { type: 'number', key: 'motor.fullLoadA', label: 'Nameplate full-load current', unit: 'A', optional: true },
+        { type: 'select', key: 'motor.motorType', label: 'Motor type (Table 430.52)', options: MOTOR_TYPES, optional: true, emptyLabel: '— induction (squirrel-cage) —' },
+      ],
+    },
+    {
+      type: 'group', key: 'hvac', label: 'HVAC equipment nameplate (Article 440)', make: () => ({ mcaA: 20, mopA: 30 }),
+      fields: [
+        { type: 'number', key: 'hvac.mcaA', label: 'Minimum circuit ampacity (MCA)', unit: 'A' },
+        { type: 'number', key: 'hvac.mopA', label: 'Maximum overcurrent device (MOP)', unit: 'A' },
+      ],
+    },
+    notes, id,
   ],
 };
 
@@ -89,7 +115,7 @@ export const CONDUCTOR_FIELDS: Field[] = [
   { type: 'select', key: 'material', label: 'Material', options: MATERIALS, optionLabels: MAT_LABELS },
   { type: 'number', key: 'lengthFt', label: 'Length', unit: 'ft', optional: true, help: 'Conductor length, supply point to termination' },
   { type: 'select', key: 'insulation', label: 'Insulation', options: INSULATIONS },
-  { type: 'select', key: 'terminalTempC', label: 'Termination rating (110.14(C))', options: [60, 75, 90], optionLabels: { 60: '60 °C', 75: '75 °C', 90: '90 °C' } },
+  { type: 'select', key: 'terminalTempC', label: 'Termination rating (110.14(C))', options: [60, 75, 90], optional: true, emptyLabel: '— project default —', optionLabels: { 60: '60 °C', 75: '75 °C', 90: '90 °C' } },
   { type: 'number', key: 'ambientC', label: 'Ambient', unit: '°C' },
   { type: 'number', key: 'currentCarrying', label: 'Current-carrying conductors in raceway', integer: true },
   { type: 'select', key: 'wiring', label: 'Wiring method', options: WIRING_METHODS, optionLabels: WIRING_LABELS },
@@ -127,6 +153,10 @@ export const PROJECT_FIELDS: Field[] = [
   { type: 'number', key: 'manufacturingWallHeightFt', label: 'Manufacturing building wall height', unit: 'ft', optional: true, help: '240.21(B)(4) high-bay taps' },
   { type: 'checkbox', key: 'qualifiedMaintenance', label: 'Only qualified persons maintain and supervise the system' },
   { type: 'checkbox', key: 'industrialInstallation', label: 'Industrial installation (240.21(C)(3))' },
+  {
+    type: 'select', key: 'terminationDefault', label: 'Termination rating where a conductor states none (110.14(C)(1))', options: ['listed-75', 'per-110.14(C)(1)'],
+    optionLabels: { 'listed-75': '75 °C: equipment listed for it', 'per-110.14(C)(1)': 'per 110.14(C)(1): 60 °C for 14–1 AWG, 75 °C above' },
+  },
   { type: 'textarea', key: 'notes', label: 'Notes', optional: true },
 ];
 

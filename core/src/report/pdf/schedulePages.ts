@@ -25,7 +25,7 @@ export function schedulePages(sh: Sheet, { project, report }: PdfContext): void 
       width: 80,
       cell: (c) => {
         const f = facts.get(c.id);
-        return f ? `${f.insulation}, ${f.terminalTempC} °C terminals${f.ambientC !== 30 ? `, ${f.ambientC} °C ambient` : ''}` : '?';
+        return f ? `${f.insulation}, ${c.ampacity ? `${c.ampacity.terminalTempC} °C` : 'unknown'} terminals${f.ambientC !== 30 ? `, ${f.ambientC} °C ambient` : ''}` : '?';
       },
     },
     { head: 'Length', width: 45, cell: (c) => lengthText(c.lengthFt) },

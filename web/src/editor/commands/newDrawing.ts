@@ -5,7 +5,7 @@ export function emptyProject(name = 'Untitled one-line'): Project {
   return {
     format: PROJECT_FORMAT,
     version: PROJECT_VERSION,
-    project: { name, codeEdition: 2023, units: 'imperial', qualifiedMaintenance: false, industrialInstallation: false },
+    project: { name, codeEdition: 2023, units: 'imperial', qualifiedMaintenance: false, industrialInstallation: false, terminationDefault: 'listed-75' },
     nodes: [],
     conductors: [],
     busLinks: [],
