@@ -46,6 +46,34 @@ export function verdictClass(verdict: Verdict): VerdictClass {
   }
 }
 
+/** The ids of a report's violation findings, built once per list of findings. */
+const violationIds = new WeakMap<readonly Finding[], ReadonlySet<string>>();
+
+/**
+ * The one answer every view gives to "does this conductor show as
+ * violating?": its verdict is a failing one, or any finding on it is a
+ * violation, whatever its classification (an undersized service conductor is
+ * "service" and still alarms). The drawing, the CLI table and the PDF all ask here.
+ */
+export function showsViolation(report: Pick<AnalysisReport, 'findings'>, c: Pick<ConductorReport, 'verdict' | 'findingIds'>): boolean {
+  if (FAILING_VERDICTS.has(c.verdict)) return true;
+  if (c.findingIds.length === 0) return false;
+  let ids = violationIds.get(report.findings);
+  if (!ids) violationIds.set(report.findings, (ids = new Set(report.findings.filter((f) => f.severity === 'violation').map((f) => f.id))));
+  return c.findingIds.some((id) => ids.has(id));
+}
+
+/** The class a conductor is drawn with: its verdict's, or 'failing' whenever it shows a violation. */
+export function displayClass(report: Pick<AnalysisReport, 'findings'>, c: Pick<ConductorReport, 'verdict' | 'findingIds'>): VerdictClass {
+  return showsViolation(report, c) ? 'failing' : verdictClass(c.verdict);
+}
+
+/** The verdict words, with the alarm added where the verdict alone would not show it: 'service (230.90(A)) · violation'. */
+export function verdictAlarmText(report: Pick<AnalysisReport, 'findings'>, c: Pick<ConductorReport, 'verdict' | 'cites' | 'findingIds'>): string {
+  const text = verdictText(c);
+  return showsViolation(report, c) && !FAILING_VERDICTS.has(c.verdict) ? `${text} · violation` : text;
+}
+
 export const SEVERITY_WORDS: Record<Severity, string> = {
   violation: 'violation',
   'needs-ahj': 'needs AHJ review',

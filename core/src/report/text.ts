@@ -14,8 +14,8 @@ import {
   lengthText,
   numberFindings,
   refText,
-  verdictClass,
-  verdictText,
+  displayClass,
+  verdictAlarmText,
 } from './format';
 import { clipText, inertText, textLength } from './safeText';
 
@@ -34,7 +34,7 @@ interface Column {
   head: string;
   max: number;
   align?: 'right';
-  cell: (c: ConductorReport, numbers: Map<string, number>) => string;
+  cell: (c: ConductorReport, numbers: Map<string, number>, report: AnalysisReport) => string;
 }
 
 const COLUMNS: Column[] = [
@@ -42,12 +42,13 @@ const COLUMNS: Column[] = [
   { head: 'Label', max: 30, cell: (c) => c.label },
   { head: 'Role', max: 14, cell: (c) => ROLE_WORDS[c.role] },
   { head: 'Size', max: 24, cell: (c) => conductorText(c) },
-  { head: 'Length', max: 10, align: 'right', cell: (c) => lengthText(c.lengthFt) },
+  // A tap or secondary shows the length its rule counts (the whole run), not the segment's.
+  { head: 'Length', max: 10, align: 'right', cell: (c) => lengthText(c.tapLengthFt ?? c.lengthFt) },
   { head: 'Ampacity', max: 10, align: 'right', cell: (c) => ampsText(c.ampacity?.ampacityA) },
   // The rating must survive clipping, so only the device's name is shortened.
   { head: 'Upstream OCPD', max: 30, cell: (c) => deviceCell(c) },
   { head: 'Findings', max: 16, cell: (c, numbers) => c.findingIds.map((id) => numbers.get(id)).filter((n) => n !== undefined).map((n) => `[${n}]`).join(' ') },
-  { head: 'Verdict', max: 48, cell: (c) => verdictText(c) },
+  { head: 'Verdict', max: 60, cell: (c, _n, report) => verdictAlarmText(report, c) },
 ];
 
 function deviceCell(c: ConductorReport): string {
@@ -88,7 +89,7 @@ export function renderText(report: AnalysisReport, options: TextOptions = {}): s
   const width = options.width ?? 100;
   const paint = (code: string, s: string) => (options.color ? `${code}${s}${ANSI.reset}` : s);
   const verdictColour = (c: ConductorReport) => {
-    const k = verdictClass(c.verdict);
+    const k = displayClass(report, c);
     return k === 'failing' ? ANSI.red : k === 'incomplete' ? ANSI.gray : k === 'tap-rule' ? ANSI.blue : '';
   };
   const severityColour: Record<Severity, string> = { violation: ANSI.red, 'needs-ahj': ANSI.yellow, warning: ANSI.yellow, info: ANSI.gray };
@@ -108,7 +109,7 @@ export function renderText(report: AnalysisReport, options: TextOptions = {}): s
   if (report.conductors.length === 0) out.push('  (the drawing has no conductors)');
   else {
     // User text is made inert (no terminal escapes, no forged lines) before it is clipped and padded.
-    const cells = report.conductors.map((c) => COLUMNS.map((col) => clipText(inertText(col.cell(c, numbers)), col.max)));
+    const cells = report.conductors.map((c) => COLUMNS.map((col) => clipText(inertText(col.cell(c, numbers, report)), col.max)));
     const widths = COLUMNS.map((col, i) => cells.reduce((w, row) => Math.max(w, textLength(row[i]!)), col.head.length));
     const line = (row: string[]) => row.map((s, i) => pad(s, widths[i]!, COLUMNS[i]!.align)).join('  ').trimEnd();
     out.push(line(COLUMNS.map((c) => c.head)));

@@ -15,6 +15,7 @@ export {
   VERDICT_LABELS,
   VERDICT_COLOURS,
   verdictClass,
+  displayClass,
   type VerdictClass,
   type LoadResult,
 } from '@linewright/core';

@@ -1,5 +1,5 @@
-import type { Severity, Verdict } from '@linewright/core';
-import { SEVERITY_WORDS, VERDICT_COLOURS, VERDICT_LABELS, verdictClass, type VerdictClass } from './coreApi';
+import type { AnalysisReport, ConductorReport, Severity, Verdict } from '@linewright/core';
+import { SEVERITY_WORDS, VERDICT_COLOURS, VERDICT_LABELS, displayClass, verdictClass, type VerdictClass } from './coreApi';
 
 /**
  * How a verdict looks. Each class differs in text, line dash, badge shape and
@@ -32,6 +32,11 @@ export const VERDICT_TEXT = VERDICT_LABELS;
 
 export function verdictFamily(v: Verdict | null | undefined): VerdictFamily {
   return v ? verdictClass(v) : 'pending';
+}
+
+/** How one conductor of a report is drawn: the core's display class, so a violation alarms whatever the verdict. */
+export function conductorFamily(report: AnalysisReport, c: ConductorReport): VerdictFamily {
+  return displayClass(report, c);
 }
 
 /** The core's severity words, shared with every report. */

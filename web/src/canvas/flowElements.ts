@@ -1,7 +1,7 @@
 import type { Edge, Node } from '@xyflow/react';
-import type { BusLink, Conductor, EquipmentNode, Project } from '@linewright/core';
+import type { AnalysisReport, BusLink, Conductor, EquipmentNode, Project } from '@linewright/core';
 import { indexReport, type ReportIndex } from '../analysis/reportIndex';
-import { FAMILY_LOOK, VERDICT_TEXT, verdictFamily } from '../analysis/verdicts';
+import { FAMILY_LOOK, VERDICT_TEXT, conductorFamily, verdictFamily } from '../analysis/verdicts';
 import { conductorLine, kindSpec, nodeFacts } from '../editor/equipment';
 import type { EditorState, Selection } from '../editor/store';
 import type { BusLinkEdgeData, ConductorEdgeData, EquipmentNodeData } from './flowTypes';
@@ -95,7 +95,7 @@ export class FlowDeriver {
     const next = new Map<string, EdgeEntry>();
     const out: FlowEdge[] = [];
     for (const c of s.doc.conductors) {
-      const e = this.conductorEdge(c, selC.has(c.id), idx, kinds, s.report !== null);
+      const e = this.conductorEdge(c, selC.has(c.id), idx, kinds, s.report);
       if (e) {
         next.set(e.out.id, e);
         out.push(e.out);
@@ -122,14 +122,16 @@ export class FlowDeriver {
     return this.kindById;
   }
 
-  private conductorEdge(c: Conductor, selected: boolean, idx: ReportIndex, kinds: Map<string, EquipmentNode['kind']>, checked: boolean): EdgeEntry | null {
+  private conductorEdge(c: Conductor, selected: boolean, idx: ReportIndex, kinds: Map<string, EquipmentNode['kind']>, report: AnalysisReport | null): EdgeEntry | null {
+    const checked = report !== null;
     const fk = kinds.get(c.from);
     const tk = kinds.get(c.to);
     if (!fk || !tk) return null;
     const id = conductorEdgeId(c.id);
     const r = idx.conductor.get(c.id);
     const verdict = r?.verdict ?? null;
-    const family = checked ? verdictFamily(verdict) : 'pending';
+    // One core answer for the alarm: a violation on the conductor shows whatever its verdict.
+    const family = report && r ? conductorFamily(report, r) : checked ? verdictFamily(verdict) : 'pending';
     const verdictText = verdict ? VERDICT_TEXT[verdict] : checked ? 'not checked' : 'checking…';
     // The drawing shows the facts (sets × size, material, length); the conductor's own name is in the
     // details panel and the tooltip, so labels stay narrow enough to sit between columns of equipment.

@@ -1,6 +1,6 @@
 import type { ConductorReport, Project } from '@linewright/core';
 import { indexReport } from '../analysis/reportIndex';
-import { VERDICT_TEXT, verdictFamily } from '../analysis/verdicts';
+import { VERDICT_TEXT, conductorFamily } from '../analysis/verdicts';
 import { conductorLine, formatNum } from '../editor/equipment';
 import { useEditorState } from '../editor/useEditor';
 import { InlineBadge } from '../edges/VerdictBadge';
@@ -31,7 +31,7 @@ function useConductorReport(conductorId: string) {
 export function VerdictSummary({ conductorId }: { conductorId: string }) {
   const { report, stale, r } = useConductorReport(conductorId);
   if (!report || !r) return <p className="lw-muted" data-testid="working-verdict" data-verdict="pending">{report ? 'Not in the last check.' : 'Checking…'}</p>;
-  const family = verdictFamily(r.verdict);
+  const family = conductorFamily(report, r);
   return (
     <section className={`lw-verdict-summary${stale ? ' is-stale' : ''}`} aria-live="polite">
       <div className={`lw-verdict lw-verdict-${family}`} data-testid="working-verdict" data-verdict={r.verdict}>

@@ -1,6 +1,6 @@
 import type { EquipmentNode, Project } from '../../model/schema';
 import type { AnalysisReport } from '../../analyze/types';
-import { type VerdictClass, conductorText, labelStatesRating, lengthText, num, verdictClass, verdictText } from '../format';
+import { type VerdictClass, conductorText, displayClass, labelStatesRating, lengthText, num, verdictText } from '../format';
 import type { Point } from '../layout';
 import { BLACK, GREY, STYLE, VIOLATION, type DrawBox, type Rect, type Sheet } from './sheet';
 import { callout, drawSymbol, polyline, route, type Route } from './symbols';
@@ -192,7 +192,7 @@ export function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport,
     const z = all.get(c.to);
     if (!a || !z || (!placed.has(c.from) && !placed.has(c.to))) continue;
     const cr = reports.get(c.id);
-    const cls: VerdictClass = cr ? verdictClass(cr.verdict) : 'incomplete';
+    const cls: VerdictClass = cr ? displayClass(report, cr) : 'incomplete';
     const st = STYLE[cls];
     const r = route(a.p, z.p, s, a.node.kind === 'bus' ? { half: busHalf.get(c.from)! } : null, z.node.kind === 'bus');
     sh.stroke(st.color, st.width * styleScale, st.dash.map((v) => v * styleScale));

@@ -1,6 +1,6 @@
 import type { PdfContext } from './context';
 import type { ConductorReport } from '../../analyze/types';
-import { ROLE_WORDS, ampsText, conductorText, deviceText, lengthText, verdictClass, verdictText } from '../format';
+import { ROLE_WORDS, ampsText, conductorText, deviceText, lengthText, showsViolation, verdictAlarmText } from '../format';
 import { M, PAGE_W, type Sheet } from './sheet';
 import { table, type TableColumn } from './table';
 
@@ -33,7 +33,7 @@ export function schedulePages(sh: Sheet, { project, report }: PdfContext): void 
     { head: 'Upstream OCPD', width: 110, cell: (c) => deviceText(c.upstreamDevice) },
     { head: 'Tap length', width: 50, cell: (c) => (c.tapLengthFt === null ? '-' : lengthText(c.tapLengthFt)) },
     { head: 'Calc. load', width: 50, cell: (c) => (c.load ? ampsText(c.load.calculatedA) : '?') },
-    { head: 'Verdict', width: 130, cell: (c) => verdictText(c), bold: (c) => verdictClass(c.verdict) === 'failing' },
+    { head: 'Verdict', width: 130, cell: (c) => verdictAlarmText(report, c), bold: (c) => showsViolation(report, c) },
   ];
   const used = cols.reduce((a, c) => a + c.width, 0);
   cols.push({ head: 'Why', width: PAGE_W - 2 * M - used, cell: (c) => c.summary });
