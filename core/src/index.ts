@@ -11,3 +11,6 @@ export * from './tables/index';
 export { computeAmpacity, smallestSizeWithAmpacity, type AmpacityInput, type AmpacityResult } from './ampacity/index';
 export * from './report/index';
 export * from './takeoff/index';
+export { toTakeoffCsv, takeoffTableCsv } from './report/takeoffCsv';
+export { renderTakeoffText } from './report/takeoffText';
+export { toTakeoffJson, type TakeoffJson } from './report/takeoffJson';

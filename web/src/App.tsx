@@ -10,6 +10,7 @@ import { FindingsPanel } from './panels/FindingsPanel';
 import { Footer } from './panels/Footer';
 import { Legend, Palette } from './panels/Palette';
 import { Toolbar, openFile } from './panels/Toolbar';
+import { TakeoffView } from './panels/TakeoffView';
 
 function isTyping(t: EventTarget | null): boolean {
   const el = t as HTMLElement | null;
@@ -107,6 +108,7 @@ export function App({ ctx, savedAt }: { ctx: CommandContext; savedAt: string | n
         <Notices />
         <CautionDialog />
         <LoadErrorsDialog />
+        <TakeoffView />
       </ReactFlowProvider>
     </EditorContext.Provider>
   );

@@ -4,6 +4,7 @@ import {
   type Command,
 } from '../editor/commands';
 import { useCommandContext, useEditorState } from '../editor/useEditor';
+import { TakeoffButton } from './TakeoffView';
 
 function CmdButton({ cmd, testId, children, what }: { cmd: Command; testId: string; children?: React.ReactNode; what?: string | null }) {
   const ctx = useCommandContext();
@@ -61,6 +62,7 @@ export function Toolbar() {
           />
           <CmdButton cmd={saveJson} testId="cmd-save">Save file</CmdButton>
           <CmdButton cmd={exportPdf} testId="cmd-pdf">Export PDF</CmdButton>
+          <TakeoffButton />
         </div>
         <div className="lw-tool-group" role="group" aria-label="Edit">
           <CmdButton cmd={undo} testId="cmd-undo" what={history.undoLabel}>Undo</CmdButton>
