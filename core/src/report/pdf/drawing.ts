@@ -167,7 +167,7 @@ export function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport,
     marksBySubject.set(key, list);
   }
 
-  const placer = new Placer(Math.max(20, 60 * scale));
+  const placer = new Placer(Math.max(20, 60 * scale), box);
   const obstacle = (pts: Point[]) => {
     for (let i = 1; i < pts.length; i++) {
       const a = pts[i - 1]!, b = pts[i]!;
@@ -301,20 +301,16 @@ export function detailSheets(positions: Map<string, Point>, box: DrawBox): Detai
   const ny = Math.max(1, Math.ceil(bh / ((box.h - 60) / LEGIBLE_SCALE)));
   const tw = bw / nx;
   const th = bh / ny;
-  const used = new Set<number>();
+  // Only the regions that hold equipment are visited (sorted row by row), so the cost follows the
+  // number of pieces, not the area of the grid.
+  const used = new Map<string, [number, number]>();
   for (const p of positions.values()) {
     const i = Math.min(nx - 1, Math.floor((p.x - b.minX) / tw));
     const j = Math.min(ny - 1, Math.floor((p.y - b.minY) / th));
-    used.add(j * nx + i);
+    used.set(`${i},${j}`, [i, j]);
   }
-  const out: DetailSheet[] = [];
-  for (let j = 0; j < ny; j++) {
-    for (let i = 0; i < nx; i++) {
-      if (!used.has(j * nx + i)) continue;
-      out.push({ name: `D${out.length + 1}`, x0: b.minX + i * tw, y0: b.minY + j * th, w: tw, h: th });
-    }
-  }
-  return out;
+  const cells = [...used.values()].sort((a, z) => a[1] - z[1] || a[0] - z[0]);
+  return cells.map(([i, j], k) => ({ name: `D${k + 1}`, x0: b.minX + i * tw, y0: b.minY + j * th, w: tw, h: th }));
 }
 
 /** The scale a detail sheet draws its region at: as large as fits, never above 1.2. */

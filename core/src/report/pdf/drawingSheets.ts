@@ -1,9 +1,9 @@
-import { layoutNodes } from '../layout';
 import { BODY_BOTTOM, GREY, M, PAGE_W, SIDE_W, type Sheet } from './sheet';
 import { DETAIL_BELOW_SCALE, detailScale, detailSheets, drawOneLine, fit, viewAt } from './drawing';
 import { drawLegend } from './legend';
 import { drawSummary, drawTitleBlock } from './titleBlock';
 import type { PdfContext } from './context';
+import { printPositions } from './positions';
 
 /**
  * Page 1 (the one-line, legend, summary and title block) and, when the drawing is too big to read
@@ -20,9 +20,13 @@ export function drawingSheets(sh: Sheet, ctx: PdfContext): void {
   const box = { x: M, y: M + 32, w: sideX - M - 14, h: BODY_BOTTOM - M - 32 };
   sh.stroke(GREY, 0.6);
   sh.doc.rect(box.x, box.y, box.w, box.h, 'S');
-  const positions = layoutNodes(project.nodes, [...project.conductors, ...project.busLinks]);
+  const { positions, note } = printPositions(project);
   const overview = fit(positions, box);
   drawOneLine(sh, project, report, box, numbers, positions, overview);
+  if (note) {
+    sh.font(7, 'italic', GREY);
+    sh.text(sh.split(note, box.w - 12), box.x + 6, box.y + 10);
+  }
   // A drawing too big to read on one sheet gets detail sheets at a legible scale, keyed on the overview.
   const detailBox = { x: M, y: M + 32, w: PAGE_W - 2 * M, h: BODY_BOTTOM - M - 32 };
   const details = overview.scale < DETAIL_BELOW_SCALE ? detailSheets(positions, detailBox) : [];

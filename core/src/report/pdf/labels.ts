@@ -4,25 +4,42 @@ import { pdfSafe, type Rect, type Rgb, type Sheet } from './sheet';
 /**
  * Greedy label placement: obstacles (symbols, lines, placed labels) go into a uniform grid, and
  * each label takes the first candidate spot that overlaps nothing, or else the one that overlaps
- * least. Good enough for risers of a few hundred elements and linear in practice.
+ * least.
+ *
+ * Its cost is bounded by the number of labels, not by coordinates or crowding: rectangles are clipped
+ * to the drawing area before they are gridded (a line to a far-away point covers the cells of the sheet,
+ * not millions beyond it), and a cell that already holds CELL_CAP rectangles counts as full instead of
+ * being scanned again (4 000 pieces stacked at one point, or 4 000 parallel conductors on one line,
+ * would otherwise make every label scan every other one).
  */
 export class Placer {
   private readonly cells = new Map<string, Rect[]>();
-  constructor(private readonly cell: number) {}
+  private readonly full = new Set<string>();
+  static readonly CELL_CAP = 24;
+  constructor(
+    private readonly cell: number,
+    private readonly area: Rect,
+  ) {}
 
   private keys(r: Rect): string[] {
+    // Only the part inside the drawing area matters: labels are placed there.
+    const ax = Math.max(r.x, this.area.x), ay = Math.max(r.y, this.area.y);
+    const bx = Math.min(r.x + r.w, this.area.x + this.area.w), by = Math.min(r.y + r.h, this.area.y + this.area.h);
+    if (!(bx >= ax && by >= ay)) return [];
     const out: string[] = [];
-    const x0 = Math.floor(r.x / this.cell), x1 = Math.floor((r.x + r.w) / this.cell);
-    const y0 = Math.floor(r.y / this.cell), y1 = Math.floor((r.y + r.h) / this.cell);
+    const x0 = Math.floor(ax / this.cell), x1 = Math.floor(bx / this.cell);
+    const y0 = Math.floor(ay / this.cell), y1 = Math.floor(by / this.cell);
     for (let i = x0; i <= x1; i++) for (let j = y0; j <= y1; j++) out.push(`${i},${j}`);
     return out;
   }
 
   add(r: Rect): void {
     for (const k of this.keys(r)) {
+      if (this.full.has(k)) continue;
       const list = this.cells.get(k);
-      if (list) list.push(r);
-      else this.cells.set(k, [r]);
+      if (!list) this.cells.set(k, [r]);
+      else if (list.length < Placer.CELL_CAP) list.push(r);
+      else this.full.add(k);
     }
   }
 
@@ -30,6 +47,8 @@ export class Placer {
     let area = 0;
     const seen = new Set<Rect>();
     for (const k of this.keys(r)) {
+      // A full cell is as good as covered: a spot there overlaps at least a cell's worth.
+      if (this.full.has(k)) area += this.cell * this.cell;
       for (const o of this.cells.get(k) ?? []) {
         if (seen.has(o)) continue;
         seen.add(o);
