@@ -15,7 +15,8 @@ export function drawTitleBlock(sh: Sheet, report: AnalysisReport, project: Proje
   sh.text('PROJECT', x, y + 6);
   y += 9;
   sh.font(11, 'bold');
-  const name = sh.split(report.projectName || project.project.name, w);
+  // A long name (up to 200 characters) wraps to at most three lines and is cut with an ellipsis, so it stays inside the block.
+  const name = fitLines(sh, report.projectName || project.project.name, w, 3);
   sh.text(name, x, y + 10);
   y += 13 * name.length + 2;
   const rows: [string, string][] = [
@@ -31,7 +32,7 @@ export function drawTitleBlock(sh: Sheet, report: AnalysisReport, project: Proje
     sh.font(6.5, 'normal', GREY);
     sh.text(k, x, y + 8);
     sh.font(8, 'normal');
-    sh.text(v, x + 72, y + 8.5);
+    sh.text(fitLines(sh, v, w - 72, 1), x + 72, y + 8.5);
     y += 13;
   }
   d.line(box.x, y, box.x + box.w, y);
@@ -43,6 +44,17 @@ export function drawTitleBlock(sh: Sheet, report: AnalysisReport, project: Proje
   sh.font(6.8, 'normal');
   const caution = sh.split(report.caution || CAUTION, w);
   sh.text(caution, x, y + 6);
+}
+
+/** `text` wrapped to `width` in the current font, at most `max` lines, the last cut with an ellipsis when more would follow. */
+function fitLines(sh: Sheet, text: string, width: number, max: number): string[] {
+  const lines = sh.split(text, width);
+  if (lines.length <= max) return lines;
+  const kept = lines.slice(0, max);
+  let last = kept[max - 1]!;
+  while (last.length > 1 && sh.doc.getTextWidth(`${last}…`) > width) last = last.slice(0, -1);
+  kept[max - 1] = `${last.trimEnd()}…`;
+  return kept;
 }
 
 export function drawSummary(sh: Sheet, report: AnalysisReport, x: number, y: number): number {
