@@ -41,7 +41,8 @@ function keep(kind: string, index: number, note: string): void {
 
 function runFrom(start: number): Promise<number> {
   return new Promise((done) => {
-    const worker = new Worker(new URL('./worker.ts', import.meta.url), { workerData: { root: ROOT, seed, start, pdfEvery } });
+    // worker.mjs registers tsx in the thread, then loads worker.ts.
+    const worker = new Worker(new URL('./worker.mjs', import.meta.url), { workerData: { root: ROOT, seed, start, pdfEvery } });
     let current = start;
     let watchdog = setTimeout(hang, HUNG_MS);
     function hang() {
