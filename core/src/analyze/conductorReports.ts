@@ -101,10 +101,12 @@ function deviceRef(graph: Graph, v: number): DeviceRef {
   return d;
 }
 
-/** 240.21(B)(3) counts primary plus secondary; the trial that decided it carries the sum for both runs. */
+/** 240.21(B)(3) counts primary plus secondary: a secondary its own set's total, the primary the longest. */
 function transformerTapLength(v: RunVerdict): number | null {
-  const total = v.tried.find((t) => t.ruleId === 'tap-transformer')?.conditions.find((c) => c.id === 'length')?.data.totalFt;
-  return typeof total === 'number' ? total : null;
+  const lengths = v.tried.find((t) => t.ruleId === 'tap-transformer')?.conditions.filter((c) => c.id === 'length') ?? [];
+  const own = lengths.find((c) => c.data.secondaryId === v.facts.conductorIds[0]);
+  const totals = (own ? [own] : lengths).map((c) => c.data.totalFt).filter((x): x is number => typeof x === 'number');
+  return totals.length > 0 ? Math.max(...totals) : null;
 }
 
 

@@ -100,10 +100,10 @@ export const cases: RuleCases = {
       source: S,
     },
     {
-      name: 'the transformer feeds two secondary runs: the rule judges one primary plus one secondary',
-      facts: primary({ secondaries: [secondary(), secondary({ conductorIds: ['C-SEC-2' as ConductorId] })] }),
-      expect: ['oneSecondary', 'secondaryThird', 'load', 'length', 'single', 'device'],
-      source: `${S} (one primary plus one secondary conductor)`,
+      name: 'two secondary sets, each judged: the second (C-SEC-2) is 20 ft, so primary plus that set is over 25 ft while the first set holds',
+      facts: primary({ secondaries: [secondary(), secondary({ conductorIds: ['C-SEC-2' as ConductorId], lengthFt: 20 })] }),
+      expect: ['length'],
+      source: `${S} (each secondary set: primary plus secondary not over 25 ft)`,
     },
     {
       name: 'primary exposed to physical damage',
