@@ -83,24 +83,63 @@ function useFileDrop(ctx: CommandContext): boolean {
   return over;
 }
 
+/** A side panel folds to a narrow strip with one button, giving the drawing the width. */
+function useSide(key: string, initial: boolean): [boolean, () => void] {
+  const [open, setOpen] = useState<boolean>(() => {
+    try {
+      const v = window.localStorage.getItem(`linewright.side.${key}`);
+      return v === null ? initial : v === '1';
+    } catch {
+      return initial;
+    }
+  });
+  const toggle = () => {
+    setOpen(!open);
+    try {
+      window.localStorage.setItem(`linewright.side.${key}`, open ? '0' : '1');
+    } catch {
+      // Not remembered; still toggled.
+    }
+  };
+  return [open, toggle];
+}
+
+function SideToggle({ open, onToggle, side, what }: { open: boolean; onToggle: () => void; side: 'left' | 'right'; what: string }) {
+  const mark = (side === 'left') === open ? '«' : '»';
+  return (
+    <button type="button" className={`lw-side-toggle lw-side-toggle-${side}`} onClick={onToggle} aria-expanded={open} data-testid={`side-${side}`} title={`${open ? 'Hide' : 'Show'} the ${what}`}>
+      <span aria-hidden="true">{mark}</span>
+      {!open && <span className="lw-side-caption">{what}</span>}
+    </button>
+  );
+}
+
 export function App({ ctx, savedAt }: { ctx: CommandContext; savedAt: string | null }) {
   const dropping = useFileDrop(ctx);
+  const [leftOpen, toggleLeft] = useSide('left', true);
+  const [rightOpen, toggleRight] = useSide('right', true);
   useShortcuts(ctx, () => document.querySelector<HTMLInputElement>('[data-testid="open-file-input"]')?.click());
   return (
     <EditorContext.Provider value={ctx}>
       <ReactFlowProvider>
-        <div className="lw-app">
+        <div className={`lw-app${leftOpen ? '' : ' no-left'}${rightOpen ? '' : ' no-right'}`}>
           <Toolbar />
-          <aside className="lw-left">
-            <Palette />
-            <FindingsPanel />
-            <Legend />
+          <aside className="lw-left" aria-label="Equipment and findings">
+            <SideToggle open={leftOpen} onToggle={toggleLeft} side="left" what="equipment and findings" />
+            {leftOpen && (
+              <>
+                <Palette />
+                <FindingsPanel />
+                <Legend />
+              </>
+            )}
           </aside>
           <main className="lw-main">
             <Canvas />
           </main>
-          <aside className="lw-right">
-            <DetailsPanel />
+          <aside className="lw-right" aria-label="Details">
+            <SideToggle open={rightOpen} onToggle={toggleRight} side="right" what="details" />
+            {rightOpen && <DetailsPanel />}
           </aside>
           <Footer savedAt={savedAt} />
         </div>

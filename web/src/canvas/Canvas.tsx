@@ -1,6 +1,6 @@
 import { useCallback, useEffect, useMemo, useRef } from 'react';
 import {
-  Background, BackgroundVariant, ConnectionLineType, Controls, MiniMap, Panel, ReactFlow, useReactFlow, useStore,
+  Background, BackgroundVariant, ConnectionLineType, Controls, MiniMap, Panel, ReactFlow, useReactFlow, useStore, useStoreApi,
   type Connection, type EdgeChange, type IsValidConnection, type NodeChange,
 } from '@xyflow/react';
 import type { EquipmentKind } from '@linewright/core';
@@ -14,8 +14,13 @@ import { KIND_DRAG_TYPE } from '../panels/Palette';
 import { DrawingTools } from '../panels/Toolbar';
 import { FlowDeriver, selectionAfter, type FlowEdge, type FlowNode } from './flowElements';
 
-/** Below this zoom text is too small to read (11 px × 0.45 ≈ 5 px): draw lines, badges and symbols only. */
-const FAR_ZOOM = 0.45;
+/**
+ * Below this zoom the small print would be under about 7 px on screen (12 px × 0.6): the drawing shows
+ * names and verdict marks, grown to stay readable, and hides facts and conductor tags.
+ */
+const FAR_ZOOM = 0.6;
+/** Growth of names and marks at a zoom: enough to keep them near 10 px on screen. */
+const growAt = (zoom: number) => Math.max(1, 0.85 / zoom);
 const isFar = (s: { transform: [number, number, number] }) => s.transform[2] < FAR_ZOOM;
 
 /** Above this many elements only what is on screen is rendered. */
@@ -33,6 +38,19 @@ export function Canvas() {
   const rf = useReactFlow<FlowNode, FlowEdge>();
   const wrapper = useRef<HTMLDivElement>(null);
   const far = useStore(isFar);
+  const flowStore = useStoreApi<FlowNode, FlowEdge>();
+
+  // The growth factor follows every zoom step as a CSS variable, without a React render.
+  useEffect(() => {
+    let last = 0;
+    const apply = () => {
+      const g = growAt(flowStore.getState().transform[2]);
+      if (g !== last) wrapper.current?.style.setProperty('--grow', g.toFixed(3));
+      last = g;
+    };
+    apply();
+    return flowStore.subscribe(apply);
+  }, [flowStore]);
 
   // Give commands a way to read and move the view without knowing React Flow.
   useEffect(() => {
@@ -145,10 +163,8 @@ export function Canvas() {
   );
 
   const big = nodes.length + edges.length > CULL_FROM;
-  // Level of detail only pays on big drawings; a small one keeps its (small) text at any zoom.
-  const lod = big && far;
   return (
-    <div className={lod ? 'lw-canvas lw-far' : 'lw-canvas'} ref={wrapper} onDragOver={onDragOver} onDrop={onDrop} data-testid="canvas">
+    <div className={far ? 'lw-canvas lw-far' : 'lw-canvas'} ref={wrapper} onDragOver={onDragOver} onDrop={onDrop} data-testid="canvas">
       <ReactFlow<FlowNode, FlowEdge>
         nodes={nodes}
         edges={edges}

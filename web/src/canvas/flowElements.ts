@@ -5,6 +5,7 @@ import { FAMILY_LOOK, VERDICT_TEXT, conductorFamily, verdictFamily } from '../an
 import { conductorLine, kindSpec, nodeFacts } from '../editor/equipment';
 import type { EditorState, Selection } from '../editor/store';
 import type { BusLinkEdgeData, ConductorEdgeData, EquipmentNodeData } from './flowTypes';
+import { drawingGeometry, type Bar, type BusLinkGeometry, type ConductorGeometry, type Pt } from './geometry';
 
 export type FlowNode = Node<EquipmentNodeData>;
 export type FlowEdge = Edge<ConductorEdgeData> | Edge<BusLinkEdgeData>;
@@ -45,6 +46,7 @@ export class FlowDeriver {
   private lastEdges: FlowEdge[] = [];
   private kindById = new Map<string, EquipmentNode['kind']>();
   private kindFor: Project['nodes'] | null = null;
+  private posById = new Map<string, Pt>();
 
   nodes(s: EditorState): FlowNode[] {
     const key = [s.doc.nodes, s.view.selection, s.view.dragPositions, s.report];
@@ -86,23 +88,28 @@ export class FlowDeriver {
   }
 
   edges(s: EditorState): FlowEdge[] {
-    const key = [s.doc.conductors, s.doc.busLinks, s.doc.nodes, s.view.selection, s.report];
+    const key = [s.doc.conductors, s.doc.busLinks, s.doc.nodes, s.view.selection, s.view.dragPositions, s.report];
     if (sameKey(key, this.lastEdgesKey)) return this.lastEdges;
     const idx = indexReport(s.report);
     const kinds = this.kinds(s.doc.nodes);
+    const drag = s.view.dragPositions;
+    const pos = this.positions(s.doc.nodes);
+    const geo = drawingGeometry(s.doc.nodes, s.doc.conductors, s.doc.busLinks, (id) => drag?.get(id) ?? pos.get(id), conductorLine);
     const selC = new Set(s.view.selection.conductors);
     const selB = new Set(s.view.selection.busLinks);
     const next = new Map<string, EdgeEntry>();
     const out: FlowEdge[] = [];
     for (const c of s.doc.conductors) {
-      const e = this.conductorEdge(c, selC.has(c.id), idx, kinds, s.report);
+      const g = geo.conductors.get(c.id);
+      const e = g ? this.conductorEdge(c, g, selC.has(c.id), idx, kinds, s.report) : null;
       if (e) {
         next.set(e.out.id, e);
         out.push(e.out);
       }
     }
     for (const b of s.doc.busLinks) {
-      const e = this.busLinkEdge(b, selB.has(b.id), kinds);
+      const g = geo.busLinks.get(b.id);
+      const e = g ? this.busLinkEdge(b, g, selB.has(b.id), kinds) : null;
       if (e) {
         next.set(e.out.id, e);
         out.push(e.out);
@@ -117,12 +124,18 @@ export class FlowDeriver {
   private kinds(nodes: Project['nodes']): Map<string, EquipmentNode['kind']> {
     if (this.kindFor !== nodes) {
       this.kindById = new Map(nodes.map((n) => [n.id, n.kind]));
+      this.posById = new Map(nodes.map((n) => [n.id, n.position ?? { x: 0, y: 0 }]));
       this.kindFor = nodes;
     }
     return this.kindById;
   }
 
-  private conductorEdge(c: Conductor, selected: boolean, idx: ReportIndex, kinds: Map<string, EquipmentNode['kind']>, report: AnalysisReport | null): EdgeEntry | null {
+  private positions(nodes: Project['nodes']): Map<string, Pt> {
+    this.kinds(nodes);
+    return this.posById;
+  }
+
+  private conductorEdge(c: Conductor, g: ConductorGeometry, selected: boolean, idx: ReportIndex, kinds: Map<string, EquipmentNode['kind']>, report: AnalysisReport | null): EdgeEntry | null {
     const checked = report !== null;
     const fk = kinds.get(c.from);
     const tk = kinds.get(c.to);
@@ -136,11 +149,13 @@ export class FlowDeriver {
     // The drawing shows the facts (sets × size, material, length); the conductor's own name is in the
     // details panel and the tooltip, so labels stay narrow enough to sit between columns of equipment.
     const line = conductorLine(c);
-    const key = `${verdict}|${family}|${line}|${fk}|${tk}|${c.label ?? ''}`;
+    const key = `${verdict}|${family}|${line}|${fk}|${tk}|${c.label ?? ''}|${geometryKey(g.points, g.bar)}|${g.label.x},${g.label.y}`;
     const prev = this.edgeCache.get(id);
     if (prev && prev.src === c && prev.selected === selected && prev.key === key) return prev;
     const data: ConductorEdgeData =
-      prev && prev.key === key && prev.out.type === 'conductor' ? (prev.out.data as ConductorEdgeData) : { conductorId: c.id, name: c.label ?? null, line, verdict, verdictText, family };
+      prev && prev.key === key && prev.out.type === 'conductor'
+        ? (prev.out.data as ConductorEdgeData)
+        : { conductorId: c.id, name: c.label ?? null, line, verdict, verdictText, family, geometry: g };
     return {
       src: c, selected, key,
       out: {
@@ -152,12 +167,12 @@ export class FlowDeriver {
     };
   }
 
-  private busLinkEdge(b: BusLink, selected: boolean, kinds: Map<string, EquipmentNode['kind']>): EdgeEntry | null {
+  private busLinkEdge(b: BusLink, g: BusLinkGeometry, selected: boolean, kinds: Map<string, EquipmentNode['kind']>): EdgeEntry | null {
     const fk = kinds.get(b.from);
     const tk = kinds.get(b.to);
     if (!fk || !tk) return null;
     const id = busLinkEdgeId(b.id);
-    const key = `${fk}|${tk}`;
+    const key = `${fk}|${tk}|${geometryKey(g.points, g.bar)}`;
     const prev = this.edgeCache.get(id);
     if (prev && prev.src === b && prev.selected === selected && prev.key === key) return prev;
     return {
@@ -165,10 +180,16 @@ export class FlowDeriver {
       out: {
         id, type: 'busLink', source: b.from, target: b.to,
         sourceHandle: kindSpec(fk).ports.out, targetHandle: kindSpec(tk).ports.in,
-        selected, data: { busLinkId: b.id }, ariaLabel: `Bus link${b.label ? ` ${b.label}` : ''}`,
+        selected, data: { busLinkId: b.id, geometry: g }, ariaLabel: `Bus link${b.label ? ` ${b.label}` : ''}`,
       },
     };
   }
+}
+
+function geometryKey(points: readonly Pt[], bar: Bar | null): string {
+  let k = bar ? `${bar.x1},${bar.x2},${bar.y}:` : '';
+  for (const p of points) k += `${p.x},${p.y};`;
+  return k;
 }
 
 function sameKey(a: unknown[], b: unknown[]): boolean {

@@ -1,5 +1,6 @@
 import type { EquipmentNode, Severity, Verdict } from '@linewright/core';
 import type { VerdictFamily } from '../analysis/verdicts';
+import type { BusLinkGeometry, ConductorGeometry } from './geometry';
 
 /** What an equipment node component receives. */
 export interface EquipmentNodeData extends Record<string, unknown> {
@@ -19,8 +20,11 @@ export interface ConductorEdgeData extends Record<string, unknown> {
   verdict: Verdict | null;
   verdictText: string;
   family: VerdictFamily;
+  /** Wire and label position, from canvas/geometry.ts. */
+  geometry: ConductorGeometry;
 }
 
 export interface BusLinkEdgeData extends Record<string, unknown> {
   busLinkId: string;
+  geometry: BusLinkGeometry;
 }

@@ -22,6 +22,8 @@ export interface KindSpec {
   height: number;
   /** x of the wire through the symbol, where both ports sit. */
   wireX: number;
+  /** y of the bar of a bus, whose outgoing connections leave from the bar itself. */
+  barY?: number;
   /** Fields of a new node; parsed by the core schema before it enters the document. */
   defaults: () => { kind: EquipmentKind } & Record<string, unknown>;
 }
@@ -39,7 +41,7 @@ export const KIND_SPECS = {
   },
   bus: {
     kind: 'bus', short: 'Bus', title: 'Bus (switchboard, panelboard)', labelPrefix: 'PNL', ports: { in: 'line', out: 'load' },
-    width: 260, height: 56, wireX: 40,
+    width: 260, height: 60, wireX: 40, barY: 50,
     defaults: () => ({ kind: 'bus', busType: 'panelboard', busRatingA: 225 }),
   },
   breaker: {

@@ -5,12 +5,12 @@ import { NodeFrame, type EquipmentNodeData } from './NodeFrame';
 
 const S = KIND_SPECS.bus;
 
-/** A bus drawn as a heavy bar across the equipment, the wire meeting it at the supply point. */
+/** A bus drawn as a heavy bar low in its box, the wire meeting it at the supply point; name and rating sit above the bar. */
 export function BusSymbol() {
   return (
     <>
-      <line x1={S.wireX} y1={0} x2={S.wireX} y2={S.height} />
-      <rect x={4} y={S.height / 2 - 3.5} width={S.width - 8} height={7} className="lw-sym-fill" />
+      <line x1={S.wireX} y1={0} x2={S.wireX} y2={S.barY} />
+      <rect x={4} y={S.barY - 3.5} width={S.width - 8} height={7} className="lw-sym-fill" />
     </>
   );
 }

@@ -32,12 +32,12 @@ export function NodeFrame(props: { data: EquipmentNodeData; selected: boolean; s
       <svg className="lw-symbol" width={sw} height={spec.height} viewBox={`0 0 ${sw} ${spec.height}`} style={{ left: symX }} aria-hidden="true">
         {props.symbol}
       </svg>
-      <div className={bus ? 'lw-node-text lw-node-text-bus' : 'lw-node-text'} style={{ left: textLeft }}>
+      <div className={bus ? 'lw-node-text lw-node-text-bus' : 'lw-node-text'} style={bus ? { left: textLeft, height: (spec.barY ?? spec.height) - 6 } : { left: textLeft }}>
         <div className="lw-node-name">{nodeTitle(node)}</div>
         <div className="lw-node-facts">{nodeFacts(node)}</div>
       </div>
       {worst && (
-        <div className="lw-node-flag" style={{ color: SEVERITY_LOOK[worst].colour }} title={`${findingCount} finding(s), worst: ${SEVERITY_TEXT[worst]}`} data-testid={`node-flag-${node.id}`}>
+        <div className="lw-node-flag" style={{ color: SEVERITY_LOOK[worst].colour }} title={`${findingCount} ${findingCount === 1 ? 'finding' : 'findings'}, most serious: ${SEVERITY_TEXT[worst]}`} data-testid={`node-flag-${node.id}`}>
           <span aria-hidden="true">{SEVERITY_LOOK[worst].glyph}</span>
           <span className="lw-node-flag-n">{findingCount}</span>
         </div>

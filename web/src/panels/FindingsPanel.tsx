@@ -6,6 +6,7 @@ import type { Selection } from '../editor/store';
 import { citeText } from './cite';
 import { SeverityMark } from './FindingItem';
 import { IsolatedText } from './IsolatedText';
+import { Collapsible } from './Collapsible';
 
 /** Selection and frame for a finding: its subject and the elements it names. */
 export function selectionForFinding(f: Finding, doc: { conductors: readonly { id: string; from: string; to: string }[] }): { selection: Selection; frame: string[] } {
@@ -91,8 +92,7 @@ export function FindingsPanel() {
   };
 
   return (
-    <section className="lw-review" data-testid="review">
-      <h2>Findings</h2>
+    <Collapsible id="findings" title="Findings" className="lw-review" testId="review">
       {error && <p className="lw-error" role="alert">{error}</p>}
       <div className="lw-review-filters" role="group" aria-label="Show severities">
         {SEVERITIES.map((s) => (
@@ -150,6 +150,6 @@ export function FindingsPanel() {
           Show more ({shown.length - limit} not listed)
         </button>
       )}
-    </section>
+    </Collapsible>
   );
 }

@@ -5,6 +5,7 @@ import { addEquipment } from '../editor/commands';
 import { KIND_SPECS } from '../editor/equipment';
 import { useCommandContext } from '../editor/useEditor';
 import { InlineBadge } from '../edges/VerdictBadge';
+import { Collapsible } from './Collapsible';
 import {
   BreakerSymbol, BusSymbol, DisconnectSymbol, FuseSymbol, GeneratorSymbol, LoadSymbol, SpliceSymbol, TransformerSymbol, UtilitySymbol,
 } from '../nodes';
@@ -20,10 +21,9 @@ const SYMBOLS = {
 export function Palette() {
   const ctx = useCommandContext();
   return (
-    <section className="lw-palette" aria-label="Equipment">
-      <h2>Equipment</h2>
+    <Collapsible id="equipment" title="Equipment" className="lw-palette">
       <div className="lw-palette-grid">
-        {EQUIPMENT_KINDS.map((k) => {
+        {EQUIPMENT_KINDS.map((k, i) => {
           const spec = KIND_SPECS[k];
           const Sym = SYMBOLS[k];
           const w = k === 'bus' ? spec.width : 40;
@@ -39,17 +39,19 @@ export function Palette() {
                 e.dataTransfer.effectAllowed = 'copy';
               }}
               onClick={() => addEquipment.run(ctx, { kind: k })}
-              title={`Add ${spec.title.toLowerCase()} (click, or drag onto the drawing)`}
+              aria-keyshortcuts={String(i + 1)}
+              title={`Add ${spec.title.toLowerCase()} (key ${i + 1}; click, or drag onto the drawing). With one piece selected it goes below it, connected.`}
             >
               <svg width={28} height={34} viewBox={k === 'bus' ? `${spec.wireX - 40} 0 80 ${spec.height}` : `0 0 ${w} ${spec.height}`} className="lw-symbol-mini" aria-hidden="true">
                 <Sym />
               </svg>
               <span>{spec.short}</span>
+              <kbd className="lw-key" aria-hidden="true">{i + 1}</kbd>
             </button>
           );
         })}
       </div>
-    </section>
+    </Collapsible>
   );
 }
 
@@ -58,8 +60,7 @@ const FAMILIES: VerdictFamily[] = ['protected', 'tap-rule', 'failing', 'incomple
 /** What the line styles and badges on the drawing mean. */
 export function Legend() {
   return (
-    <section className="lw-legend" aria-label="Legend" data-testid="legend">
-      <h2>Legend</h2>
+    <Collapsible id="legend" title="Legend" className="lw-legend" testId="legend" defaultOpen={window.innerHeight >= 900}>
       <ul>
         {FAMILIES.map((f) => (
           <li key={f}>
@@ -78,6 +79,6 @@ export function Legend() {
           <span>bus link inside equipment (no length)</span>
         </li>
       </ul>
-    </section>
+    </Collapsible>
   );
 }
