@@ -71,8 +71,9 @@ describe('commands', () => {
 
   it('refuses a connection out of a load or into a source', () => {
     const h = harness();
-    addEquipment.run(h.ctx, { kind: 'utility' });
-    addEquipment.run(h.ctx, { kind: 'load' });
+    // Placed at given spots: no place-and-connect under a selected piece.
+    addEquipment.run(h.ctx, { kind: 'utility', position: { x: 0, y: 0 } });
+    addEquipment.run(h.ctx, { kind: 'load', position: { x: 0, y: 200 } });
     const [u, l] = h.doc().nodes.map((n) => n.id);
     connect.run(h.ctx, { from: l!, to: u!, as: 'conductor' });
     expect(h.doc().conductors).toHaveLength(0);

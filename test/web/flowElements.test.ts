@@ -50,7 +50,7 @@ describe('React Flow elements derived from the document', () => {
     const after = d.edges(h.store.getState());
     const tap = conductorEdgeId(ids.tapId);
     // 20 ft of 3/0 Cu from 600 A into a 200 A breaker: NFPA 70-2023 240.21(B)(2), 200 A ≥ 600/3 A.
-    expect(after.find((e) => e.id === tap)!.data).toMatchObject({ verdict: 'tap-25ft', verdictText: 'tap: 25 ft' });
+    expect(after.find((e) => e.id === tap)!.data).toMatchObject({ verdict: 'tap-25ft', verdictText: '25-ft tap rule' });
     for (let i = 0; i < after.length; i++) if (after[i]!.id !== tap) expect(after[i]).toBe(before[i]);
   });
 });

@@ -1,7 +1,10 @@
 import { useEffect, useState } from 'react';
 import { ReactFlowProvider } from '@xyflow/react';
 import { Canvas } from './canvas/Canvas';
-import { copySelection, deleteSelection, paste, redo, saveJson, selectAll, undo, zoomToFit, type CommandContext } from './editor/commands';
+import { EQUIPMENT_KINDS, type EquipmentKind } from '@linewright/core';
+import {
+  INSERTABLE_KINDS, addEquipment, copySelection, deleteSelection, insertIntoConductor, paste, redo, saveJson, selectAll, undo, zoomToFit, type CommandContext,
+} from './editor/commands';
 import { EMPTY_SELECTION } from './editor/store';
 import { EditorContext } from './editor/useEditor';
 import { DetailsPanel } from './panels/DetailsPanel';
@@ -16,6 +19,34 @@ function isTyping(t: EventTarget | null): boolean {
   const el = t as HTMLElement | null;
   if (!el || !el.tagName) return false;
   return el.tagName === 'INPUT' || el.tagName === 'TEXTAREA' || el.tagName === 'SELECT' || el.isContentEditable;
+}
+
+/** A digit key: insert into the one selected conductor when the kind can sit in a run, else add (and connect). */
+function addByKey(ctx: CommandContext, kind: EquipmentKind): void {
+  const sel = ctx.store.getState().view.selection;
+  if (sel.conductors.length === 1 && sel.nodes.length === 0 && sel.busLinks.length === 0 && INSERTABLE_KINDS.includes(kind)) {
+    insertIntoConductor.run(ctx, { conductorId: sel.conductors[0]!, kind });
+  } else addEquipment.run(ctx, { kind });
+}
+
+/** Alt+arrows walk the drawing: up to the supply, down to the first load, left and right among siblings. */
+function walkSelection(ctx: CommandContext, dir: 'up' | 'down' | 'left' | 'right'): void {
+  const { doc, view } = ctx.store.getState();
+  const id = view.selection.nodes[0];
+  if (!id) return;
+  const links = [...doc.conductors, ...doc.busLinks];
+  const xOf = (n: string) => doc.nodes.find((x) => x.id === n)?.position?.x ?? 0;
+  let next: string | undefined;
+  if (dir === 'up') next = links.find((l) => l.to === id)?.from;
+  else if (dir === 'down') next = links.filter((l) => l.from === id).map((l) => l.to).sort((a, b) => xOf(a) - xOf(b))[0];
+  else {
+    const supply = links.find((l) => l.to === id)?.from;
+    const sibs: string[] = supply ? links.filter((l) => l.from === supply).map((l) => String(l.to)).sort((a, b) => xOf(a) - xOf(b)) : [];
+    next = sibs[sibs.indexOf(id) + (dir === 'left' ? -1 : 1)];
+  }
+  if (!next) return;
+  ctx.store.setSelection({ nodes: [next], conductors: [], busLinks: [] });
+  ctx.store.requestFrame([next]);
 }
 
 /** Keyboard shortcuts; all of them call the same commands as the buttons. */
@@ -42,6 +73,8 @@ function useShortcuts(ctx: CommandContext, openPicker: () => void) {
       else if (mod && k === 'a') selectAll.run(ctx);
       else if (!mod && (e.key === 'Delete' || e.key === 'Backspace')) deleteSelection.run(ctx);
       else if (!mod && k === 'f') zoomToFit.run(ctx);
+      else if (!mod && !e.altKey && /^[1-9]$/.test(e.key)) addByKey(ctx, EQUIPMENT_KINDS[Number(e.key) - 1]!);
+      else if (e.altKey && !mod && e.key.startsWith('Arrow')) walkSelection(ctx, e.key.slice(5).toLowerCase() as 'up' | 'down' | 'left' | 'right');
       else if (e.key === 'Escape') ctx.store.setSelection(EMPTY_SELECTION);
       else return;
       e.preventDefault();

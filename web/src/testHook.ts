@@ -15,6 +15,8 @@ export interface TestHook {
   doc(): Project;
   open(text: string, fileName?: string): Promise<void>;
   setConductorLength(id: string, lengthFt: number): number;
+  /** Selects elements, as a click on the drawing would. */
+  select(sel: { nodes?: string[]; conductors?: string[]; busLinks?: string[] }): void;
   /** Resolves after the report for `version` (or a later one) has been rendered and painted. */
   whenChecked(version: number): Promise<void>;
   stats(): { analysisRuns: number; lastAnalysisMs: number; saves: number; saveIdle: boolean };
@@ -39,6 +41,7 @@ export function installTestHook(ctx: CommandContext): void {
       replaceElement.run(ctx, { target: { kind: 'conductor', id }, value: { ...c, lengthFt }, label: 'Set length' });
       return store.getState().docVersion;
     },
+    select: (sel) => store.setSelection({ nodes: sel.nodes ?? [], conductors: sel.conductors ?? [], busLinks: sel.busLinks ?? [] }),
     whenChecked: (version) =>
       new Promise<void>((resolve) => {
         const painted = () => requestAnimationFrame(() => requestAnimationFrame(() => resolve()));

@@ -1,5 +1,6 @@
 import type { AnalysisReport, ConductorReport, Severity, Verdict } from '@linewright/core';
-import { SEVERITY_WORDS, VERDICT_COLOURS, VERDICT_LABELS, displayClass, verdictClass, type VerdictClass } from './coreApi';
+import { VERDICT_WORDS } from '../words';
+import { SEVERITY_WORDS, VERDICT_COLOURS, displayClass, verdictClass, type VerdictClass } from './coreApi';
 
 /**
  * How a verdict looks. Each class differs in text, line dash, badge shape and
@@ -27,8 +28,8 @@ export const FAMILY_LOOK: Record<VerdictFamily, FamilyLook> = {
   pending: { colour: '#8c8c8c', dash: '', strokeWidth: 2, badge: 'none', legend: 'not checked yet' },
 };
 
-/** The core's verdict words, shared with every report. */
-export const VERDICT_TEXT = VERDICT_LABELS;
+/** Verdicts in plain words that name the rule (see words.ts). */
+export const VERDICT_TEXT = VERDICT_WORDS;
 
 export function verdictFamily(v: Verdict | null | undefined): VerdictFamily {
   return v ? verdictClass(v) : 'pending';

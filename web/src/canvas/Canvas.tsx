@@ -7,6 +7,7 @@ import type { EquipmentKind } from '@linewright/core';
 import { EQUIPMENT_KINDS } from '@linewright/core';
 import { addEquipment, connect, moveNodes } from '../editor/commands';
 import { kindSpec } from '../editor/equipment';
+import { connectionKindFor } from '../editor/placement';
 import { useCommandContext, useEditorState } from '../editor/useEditor';
 import { edgeTypes } from '../edges';
 import { nodeTypes } from '../nodes';
@@ -59,6 +60,26 @@ export function Canvas() {
         const r = wrapper.current?.getBoundingClientRect();
         if (!r) return { x: 0, y: 0 };
         return rf.screenToFlowPosition({ x: r.left + r.width / 2, y: r.top + r.height / 2 });
+      },
+      reveal: (b) => {
+        // After the new element has rendered: pan by the least that brings the box inside the view.
+        requestAnimationFrame(() => {
+          const r = wrapper.current?.getBoundingClientRect();
+          if (!r) return;
+          const { x, y, zoom } = rf.getViewport();
+          const pad = 40;
+          const left = b.x * zoom + x;
+          const top = b.y * zoom + y;
+          const right = (b.x + b.w) * zoom + x;
+          const bottom = (b.y + b.h) * zoom + y;
+          let dx = 0;
+          let dy = 0;
+          if (right > r.width - pad) dx = r.width - pad - right;
+          if (left + dx < pad) dx = pad - left;
+          if (bottom > r.height - pad) dy = r.height - pad - bottom;
+          if (top + dy < pad + 40) dy = pad + 40 - top;
+          if (dx || dy) void rf.setViewport({ x: x + dx, y: y + dy, zoom }, { duration: 150 });
+        });
       },
       fitAll: () => {
         // Wait a frame so React Flow holds the newly committed nodes.
@@ -135,7 +156,9 @@ export function Canvas() {
 
   const onConnect = useCallback(
     (c: Connection) => {
-      connect.run(ctx, { from: c.source, to: c.target, as: store.getState().view.connectAs });
+      const doc = store.getState().doc;
+      const to = doc.nodes.find((n) => n.id === c.target);
+      if (to) connect.run(ctx, { from: c.source, to: c.target, as: connectionKindFor(doc, c.source, to.kind) });
     },
     [ctx, store],
   );

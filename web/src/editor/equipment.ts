@@ -1,4 +1,5 @@
 import type { Conductor, EquipmentKind, EquipmentNode, Project } from '@linewright/core';
+import { plain } from '../words';
 
 /** Port names by direction. Supply comes in at the top, load leaves at the bottom. */
 export interface PortSpec {
@@ -158,7 +159,7 @@ export function nodeFacts(n: EquipmentNode): string {
     case 'generator':
       return `${n.kva} kVA · ${n.voltsLL} V ${n.phases}ϕ`;
     case 'bus':
-      return `${n.busType.replace('-', ' ')}${n.busRatingA ? ` · ${n.busRatingA} A bus` : ''}`;
+      return `${plain(n.busType)}${n.busRatingA ? ` · ${n.busRatingA} A bus` : ''}`;
     case 'breaker':
       return n.ratingA ? `${n.ratingA} A breaker${n.adjustableTrip ? ' (adj.)' : ''}` : 'rating ?';
     case 'fuse':

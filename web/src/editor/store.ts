@@ -23,8 +23,6 @@ export interface Notice {
 export interface ViewState {
   selection: Selection;
   snapToGrid: boolean;
-  /** Kind of connection a drag from port to port makes. */
-  connectAs: ConnectAs;
   notices: readonly Notice[];
   /** Errors from the last file that failed to open; the drawing was kept. */
   loadErrors: { fileName: string; errors: LoadError[] } | null;
@@ -76,7 +74,6 @@ export class EditorStore {
       view: {
         selection: EMPTY_SELECTION,
         snapToGrid: true,
-        connectAs: 'conductor',
         notices: [],
         loadErrors: null,
         cautionOpen: false,

@@ -2,7 +2,9 @@ import { indexReport } from '../analysis/reportIndex';
 import { connect, deleteSelection } from '../editor/commands';
 import { kindSpec } from '../editor/equipment';
 import { useCommandContext, useEditorState } from '../editor/useEditor';
+import { BusLinkTools, ConductorTools } from './ConnectionTools';
 import { ElementForm } from './ElementForm';
+import { count as plural } from '../words';
 import { BUS_LINK_FIELDS, CONDUCTOR_FIELDS, NODE_FIELDS, PROJECT_FIELDS } from './fields';
 import { FindingCard } from './FindingItem';
 import { VerdictSummary, WorkingPanel } from './WorkingPanel';
@@ -21,7 +23,7 @@ export function DetailsPanel() {
         <h2>Project</h2>
         <ElementForm key="project" target={{ kind: 'project' }} value={doc.project} fields={PROJECT_FIELDS} />
         <p className="lw-muted">
-          {doc.nodes.length} equipment · {doc.conductors.length} conductors · {doc.busLinks.length} bus links. Select something on the drawing to edit it.
+          {plural(doc.nodes.length, 'piece of equipment', 'pieces of equipment')} · {plural(doc.conductors.length, 'conductor')} · {plural(doc.busLinks.length, 'bus link')}. Select something on the drawing to edit it.
         </p>
         {report && report.assumptions.length > 0 && (
           <>
@@ -41,7 +43,7 @@ export function DetailsPanel() {
       <div className="lw-details" data-testid="details">
         <h2>{count} elements selected</h2>
         <p className="lw-muted">
-          {sel.nodes.length} equipment, {sel.conductors.length} conductors, {sel.busLinks.length} bus links. Drag to move them together; Ctrl+C copies them.
+          {plural(sel.nodes.length, 'piece of equipment', 'pieces of equipment')}, {plural(sel.conductors.length, 'conductor')}, {plural(sel.busLinks.length, 'bus link')}. Drag to move them together; Ctrl+C copies them.
         </p>
         {arg && upper && lower && (
           <div className="lw-connect-pair">
@@ -94,6 +96,7 @@ export function DetailsPanel() {
         </p>
         <VerdictSummary conductorId={c.id} />
         <ElementForm key={`c:${c.id}`} target={{ kind: 'conductor', id: c.id }} value={c} fields={CONDUCTOR_FIELDS} />
+        <ConductorTools key={`t:${c.id}:${c.lengthFt ?? ''}`} c={c} />
         <WorkingPanel conductorId={c.id} />
       </div>
     );
@@ -107,6 +110,7 @@ export function DetailsPanel() {
         Inside equipment, no length: {doc.nodes.find((x) => x.id === b.from)?.label || b.from} → {doc.nodes.find((x) => x.id === b.to)?.label || b.to}
       </p>
       <ElementForm key={`b:${b.id}`} target={{ kind: 'busLink', id: b.id }} value={b} fields={BUS_LINK_FIELDS} />
+      <BusLinkTools id={b.id} />
     </div>
   );
 }

@@ -23,6 +23,11 @@ export function FixButtons({ fixes }: { fixes: readonly Fix[] }) {
       {fixes.map((f, i) => (
         <button key={`${f.kind}-${i}`} type="button" className="lw-fix" data-testid="fix-button" data-fix-kind={f.kind} onClick={() => applyFix.run(ctx, f)} title="Apply as one edit; Undo takes it back">
           {f.label}
+          {f.kind === 'shorten' && (
+            <span className="lw-fix-note" data-testid="fix-design-note">
+              A design decision, not a correction of the drawing: the run must then be built no longer than {f.maxLengthFt} ft in the field.
+            </span>
+          )}
         </button>
       ))}
     </div>

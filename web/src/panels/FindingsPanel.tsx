@@ -7,6 +7,7 @@ import { citeText } from './cite';
 import { SeverityMark } from './FindingItem';
 import { IsolatedText } from './IsolatedText';
 import { Collapsible } from './Collapsible';
+import { ruleName } from '../words';
 
 /** Selection and frame for a finding: its subject and the elements it names. */
 export function selectionForFinding(f: Finding, doc: { conductors: readonly { id: string; from: string; to: string }[] }): { selection: Selection; frame: string[] } {
@@ -106,7 +107,7 @@ export function FindingsPanel() {
         <span>Rule</span>
         <select value={rule} onChange={(e) => setRule(e.target.value)} data-testid="filter-rule">
           <option value="">all rules</option>
-          {rules.map((r) => <option key={r} value={r}>{r}</option>)}
+          {rules.map((r) => <option key={r} value={r}>{ruleName(r)}</option>)}
         </select>
       </label>
       {shown.length === 0 ? (
@@ -140,7 +141,7 @@ export function FindingsPanel() {
             >
               <SeverityMark severity={f.severity} />
               <span className="lw-review-msg"><IsolatedText text={f.message} /></span>
-              <span className="lw-cite">{f.cites ? citeText(f.cites) : f.ruleId}</span>
+              <span className="lw-cite">{f.cites ? citeText(f.cites) : ruleName(f.ruleId)}</span>
             </li>
           ))}
         </ul>

@@ -83,20 +83,18 @@ export function Toolbar() {
   );
 }
 
-/** Drawing tools that sit on the canvas: what a port-to-port drag adds, and snapping. */
+/**
+ * Drawing tools that sit on the canvas. There is no connection mode: a port-to-port drag adds the
+ * connection the two pieces call for, which the details panel can change.
+ */
 export function DrawingTools() {
   const ctx = useCommandContext();
   const snap = useEditorState((s) => s.view.snapToGrid);
-  const connectAs = useEditorState((s) => s.view.connectAs);
   return (
     <div className="lw-drawing-tools" role="group" aria-label="Drawing tools">
-      <span className="lw-tool-caption">Drag port to port adds a</span>
-      <label className="lw-toggle">
-        <input type="radio" name="connect-as" checked={connectAs === 'conductor'} onChange={() => ctx.store.setView({ connectAs: 'conductor' })} data-testid="connect-conductor" /> conductor
-      </label>
-      <label className="lw-toggle">
-        <input type="radio" name="connect-as" checked={connectAs === 'busLink'} onChange={() => ctx.store.setView({ connectAs: 'busLink' })} data-testid="connect-buslink" /> bus link
-      </label>
+      <span className="lw-tool-caption" title="A bus and a device in the same equipment get a bus link; anything else a conductor. Change it in the details panel.">
+        Drag a bottom port to a top port to connect · keys 1–9 add equipment under the selected piece
+      </span>
       <span className="lw-sep" aria-hidden="true" />
       <label className="lw-toggle" title="Snap moved equipment to a 20-unit grid">
         <input type="checkbox" checked={snap} onChange={() => toggleSnap.run(ctx)} data-testid="toggle-snap" /> snap to grid

@@ -2,6 +2,7 @@ import {
   BUS_TYPES, CODE_EDITIONS, CONDUCTOR_SIZES, DAMAGE_PROTECTION, INSULATIONS, LOAD_CONNECTIONS, MATERIALS, MOTOR_TYPES, TRANSFORMER_CONNECTIONS, WIRING_METHODS,
   type EquipmentKind,
 } from '@linewright/core';
+import { plain } from '../words';
 
 /** One editable field of the details panel. `key` is a dotted path into the element. */
 export type Field =
@@ -14,6 +15,8 @@ export type Field =
   /** Adds or removes an optional sub-object; its fields follow, shown only when present. */
   | { type: 'group'; key: string; label: string; make: () => Record<string, unknown>; fields: Field[]; help?: string };
 
+
+const codeLabels = (codes: readonly string[]): Record<string, string> => Object.fromEntries(codes.map((c) => [c, plain(c)]));
 const label: Field = { type: 'text', key: 'label', label: 'Name on drawing', optional: true };
 const notes: Field = { type: 'textarea', key: 'notes', label: 'Notes', optional: true };
 const id: Field = { type: 'text', key: 'id', label: 'Id', help: 'Unique in the project; conductors follow a change.' };
@@ -40,7 +43,7 @@ export const NODE_FIELDS: Record<EquipmentKind, Field[]> = {
     { type: 'checkbox', key: 'overloadPreventedByDesign', label: 'Design prevents overload (445.13: 100 % instead of 115 %)' }, notes, id,
   ],
   bus: [
-    label, { type: 'select', key: 'busType', label: 'Equipment', options: BUS_TYPES },
+    label, { type: 'select', key: 'busType', label: 'Equipment', options: BUS_TYPES, optionLabels: codeLabels(BUS_TYPES) },
     { type: 'number', key: 'busRatingA', label: 'Bus rating', unit: 'A', optional: true }, notes, id,
   ],
   breaker: [
@@ -69,7 +72,7 @@ export const NODE_FIELDS: Record<EquipmentKind, Field[]> = {
     { type: 'number', key: 'primaryVoltsLL', label: 'Primary voltage', unit: 'V' },
     { type: 'number', key: 'secondaryVoltsLL', label: 'Secondary voltage', unit: 'V' }, phases,
     { type: 'number', key: 'impedancePct', label: 'Impedance', unit: '%Z', optional: true },
-    { type: 'select', key: 'connection', label: 'Connection', options: TRANSFORMER_CONNECTIONS }, notes, id,
+    { type: 'select', key: 'connection', label: 'Connection', options: TRANSFORMER_CONNECTIONS, optionLabels: codeLabels(TRANSFORMER_CONNECTIONS) }, notes, id,
   ],
   load: [
     label,

@@ -1,30 +1,20 @@
-import { equipmentNode, type EquipmentKind, type EquipmentNode } from '@linewright/core';
-import { freshId, freshLabel, kindSpec } from '../equipment';
+import { equipmentNode, type BusLinkId, type ConductorId, type EquipmentKind, type NodeId } from '@linewright/core';
+import { freshId, freshLabel, kindSpec, newConductorFields } from '../equipment';
+import { connectionKindFor, freeSpot, spotUnder, type ConnectionKind } from '../placement';
 import { defineCommand } from './types';
 
 export interface AddEquipmentArg {
   kind: EquipmentKind;
-  /** Top-left corner in drawing coordinates; defaults to the middle of the view. */
+  /** Top-left corner in drawing coordinates; defaults to below the selected piece or the middle of the view. */
   position?: { x: number; y: number };
 }
 
-/** The first spot at or below `at` where a w × h box overlaps no equipment (with a small margin). */
-function freeSpot(nodes: readonly EquipmentNode[], at: { x: number; y: number }, w: number, h: number): { x: number; y: number } {
-  const m = 16;
-  const p = { ...at };
-  for (let i = 0; i < 200; i++) {
-    const hit = nodes.find((n) => {
-      if (!n.position) return false;
-      const s = kindSpec(n.kind);
-      return p.x < n.position.x + s.width + m && p.x + w + m > n.position.x && p.y < n.position.y + s.height + m && p.y + h + m > n.position.y;
-    });
-    if (!hit) return p;
-    p.y = hit.position!.y + kindSpec(hit.kind).height + 40;
-  }
-  return p;
-}
-
-/** Places new equipment with the kind's defaults, parsed by the core schema, and selects it. */
+/**
+ * Places new equipment with the kind's defaults, parsed by the core schema, and selects it. With one
+ * piece selected that can feed it (and no position given), the new piece goes under it and is
+ * connected the way the two kinds call for (placement.connectionKindFor), in the same undo step; so
+ * a riser is built top-down from the keyboard. The view then follows the new piece.
+ */
 export const addEquipment = defineCommand<AddEquipmentArg>({
   id: 'add-equipment',
   label: 'Add equipment',
@@ -32,27 +22,31 @@ export const addEquipment = defineCommand<AddEquipmentArg>({
   run: (ctx, { kind, position }) => {
     const spec = kindSpec(kind);
     const { doc, view } = ctx.store.getState();
+    const sel = !position && view.selection.nodes.length === 1 && view.selection.conductors.length + view.selection.busLinks.length === 0
+      ? doc.nodes.find((n) => n.id === view.selection.nodes[0])
+      : undefined;
+    const feeder = sel && kindSpec(sel.kind).ports.out && spec.ports.in ? sel : undefined;
+    const as: ConnectionKind | null = feeder ? connectionKindFor(doc, feeder.id, kind) : null;
     let at = position;
     if (!at) {
-      // Below the one selected piece of equipment, on the same wire, so a riser builds top-down by clicks;
-      // otherwise in the middle of the view. Then down the sheet until the spot is free.
-      const sel = view.selection.nodes.length === 1 ? doc.nodes.find((n) => n.id === view.selection.nodes[0]) : undefined;
-      if (sel?.position && spec.ports.in) {
-        const s = kindSpec(sel.kind);
-        at = { x: sel.position.x + s.wireX - spec.wireX, y: sel.position.y + s.height + 60 };
-      } else {
+      if (feeder && as) at = spotUnder(doc, feeder, kind, as);
+      else {
         const c = ctx.canvas?.visibleCentre() ?? { x: 0, y: 0 };
-        at = { x: c.x - spec.wireX, y: c.y - spec.height / 2 };
+        at = freeSpot(doc, kind, { x: c.x - spec.wireX, y: c.y - spec.height / 2 }, false, 'down');
       }
-      at = freeSpot(doc.nodes, at, spec.width, spec.height);
     }
     const pos = view.snapToGrid ? { x: Math.round(at.x / 20) * 20, y: Math.round(at.y / 20) * 20 } : at;
     let newId = '';
-    ctx.store.edit(`Add ${spec.title.toLowerCase()}`, (d) => {
+    const what = feeder && as ? `Add ${spec.title.toLowerCase()} under ${feeder.label || feeder.id}` : `Add ${spec.title.toLowerCase()}`;
+    ctx.store.edit(what, (d) => {
       newId = freshId(d, `${kind}-`);
       const node = equipmentNode.parse({ ...spec.defaults(), id: newId, label: freshLabel(d, kind), position: pos });
       d.nodes.push(node);
+      if (!feeder || !as) return;
+      if (as === 'busLink') d.busLinks.push({ id: freshId(d, 'bl-') as BusLinkId, from: feeder.id as NodeId, to: newId as NodeId });
+      else d.conductors.push({ id: freshId(d, 'c-') as ConductorId, from: feeder.id as NodeId, to: newId as NodeId, ...newConductorFields() });
     });
     ctx.store.setSelection({ nodes: [newId], conductors: [], busLinks: [] });
+    ctx.canvas?.reveal({ x: pos.x, y: pos.y - 50, w: spec.width, h: spec.height + 50 });
   },
 });

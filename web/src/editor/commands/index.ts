@@ -3,6 +3,8 @@ export { addEquipment } from './addEquipment';
 export { applyFix } from './applyFix';
 export { arrangeDrawing } from './arrangeDrawing';
 export { connect, connectProblem } from './connect';
+export { convertConnection } from './convertConnection';
+export { insertIntoConductor, insertProblem, INSERTABLE_KINDS } from './insertIntoConductor';
 export { copySelection } from './copySelection';
 export { deleteSelection } from './deleteSelection';
 export { exportPdf } from './exportPdf';

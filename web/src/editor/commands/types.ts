@@ -7,6 +7,8 @@ export interface CanvasView {
   visibleCentre(): { x: number; y: number };
   /** Frames the whole drawing once the current document has rendered. */
   fitAll(): void;
+  /** Pans (never zooms) just enough that this box of the drawing is in view. */
+  reveal(box: { x: number; y: number; w: number; h: number }): void;
 }
 
 /** Copied elements, kept in the editor (and as JSON text on the system clipboard when allowed). */
