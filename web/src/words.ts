@@ -8,6 +8,8 @@ import { RULES_BY_ID, type Verdict } from '@linewright/core';
 export const VERDICT_WORDS: Readonly<Record<Verdict, string>> = {
   protected: 'protected',
   'protected-next-size': 'protected, next size up',
+  'motor-circuit': 'motor circuit, 240.4(G)',
+  'hvac-circuit': 'HVAC circuit, 240.4(G)',
   'tap-10ft': '10-ft tap rule',
   'tap-25ft': '25-ft tap rule',
   'tap-transformer': 'transformer tap rule',

@@ -1,3 +1,4 @@
+import { Fragment } from 'react';
 import type { Finding, Fix } from '@linewright/core';
 import { SEVERITY_LOOK, SEVERITY_TEXT } from '../analysis/verdicts';
 import { applyFix } from '../editor/commands';
@@ -21,14 +22,16 @@ export function FixButtons({ fixes }: { fixes: readonly Fix[] }) {
   return (
     <div className="lw-fixes">
       {fixes.map((f, i) => (
-        <button key={`${f.kind}-${i}`} type="button" className="lw-fix" data-testid="fix-button" data-fix-kind={f.kind} onClick={() => applyFix.run(ctx, f)} title="Apply as one edit; Undo takes it back">
-          {f.label}
+        <Fragment key={`${f.kind}-${i}`}>
+          <button type="button" className="lw-fix" data-testid="fix-button" data-fix-kind={f.kind} onClick={() => applyFix.run(ctx, f)} title="Apply as one edit; Undo takes it back">
+            {f.label}
+          </button>
           {f.kind === 'shorten' && (
             <span className="lw-fix-note" data-testid="fix-design-note">
               A design decision, not a correction of the drawing: the run must then be built no longer than {f.maxLengthFt} ft in the field.
             </span>
           )}
-        </button>
+        </Fragment>
       ))}
     </div>
   );

@@ -47,6 +47,7 @@ export const addEquipment = defineCommand<AddEquipmentArg>({
       else d.conductors.push({ id: freshId(d, 'c-') as ConductorId, from: feeder.id as NodeId, to: newId as NodeId, ...newConductorFields() });
     });
     ctx.store.setSelection({ nodes: [newId], conductors: [], busLinks: [] });
-    ctx.canvas?.reveal({ x: pos.x, y: pos.y - 50, w: spec.width, h: spec.height + 50 });
+    // A piece dropped at a spot is already where the user looks; one placed for them is brought into view.
+    if (!position) ctx.canvas?.reveal({ x: pos.x, y: pos.y - 50, w: spec.width, h: spec.height + 50 });
   },
 });
