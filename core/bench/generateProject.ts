@@ -14,7 +14,7 @@
  *
  * `conductors` is met exactly; `seed` picks a different but repeatable network.
  */
-import type { ProjectInput } from '../src/model/schema';
+import { PROJECT_VERSION, type ProjectInput } from '../src/model/schema';
 
 type NodeInput = ProjectInput['nodes'][number];
 type ConductorInput = ProjectInput['conductors'][number];
@@ -154,7 +154,7 @@ export function generateProject({ conductors, seed = 1 }: GenerateOptions): Proj
 
   return {
     format: 'linewright-project',
-    version: 1,
+    version: PROJECT_VERSION,
     project: { name: `Synthetic one-line, ${conductors} conductors (seed ${seed})` },
     nodes,
     conductors: wires,

@@ -1,7 +1,7 @@
 export * from './model/schema';
 export * from './analyze/types';
 export { loadProject, formatPath, type LoadResult } from './model/load';
-export { migrateToCurrent, MIGRATIONS, type Migration } from './model/migrations';
+export { migrateToCurrent, migrateV1toV2, MIGRATIONS, type Migration } from './model/migrations';
 export { CAUTION, CAUTION_SHORT } from './caution';
 export { analyze } from './analyze/analyze';
 export { applyFix } from './analyze/applyFix';
@@ -14,3 +14,4 @@ export * from './takeoff/index';
 export { toTakeoffCsv, takeoffTableCsv } from './report/takeoffCsv';
 export { renderTakeoffText } from './report/takeoffText';
 export { toTakeoffJson, type TakeoffJson } from './report/takeoffJson';
+export * from './review/index';

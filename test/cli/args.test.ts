@@ -5,7 +5,7 @@ import { USAGE, parseArgs } from '../../core/src/cli/args';
 // The command line is our own design (no outside source): these cases pin its documented behaviour.
 describe('parseArgs', () => {
   it('check FILE defaults to the text format and writes nothing else', () => {
-    expect(parseArgs(['check', 'samples/a.json'])).toEqual({ command: 'check', file: 'samples/a.json', format: 'text', pdf: null, out: null, edition: null, color: false, detail: 'summary' });
+    expect(parseArgs(['check', 'samples/a.json'])).toEqual({ command: 'check', file: 'samples/a.json', format: 'text', pdf: null, out: null, edition: null, color: false, detail: 'summary', failOnAhj: false });
   });
 
   it.each([

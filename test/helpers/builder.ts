@@ -11,7 +11,7 @@
  * to choose one. Positions are laid out top to bottom so a fixture can also
  * be opened in the editor. `build()` returns a fresh ProjectInput each time.
  */
-import type { ProjectInput } from '@linewright/core';
+import { PROJECT_VERSION, type ProjectInput } from '@linewright/core';
 
 export type NodeInput = ProjectInput['nodes'][number];
 export type ConductorInput = ProjectInput['conductors'][number];
@@ -150,7 +150,7 @@ export class DiagramBuilder {
   build(): ProjectInput {
     return structuredClone({
       format: 'linewright-project',
-      version: 1,
+      version: PROJECT_VERSION,
       project: this.settingsInput,
       nodes: this.nodes,
       conductors: this.conductors,

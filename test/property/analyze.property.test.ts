@@ -7,7 +7,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
-  CONDUCTOR_SIZES, VERDICTS, analyze, loadProject,
+  CONDUCTOR_SIZES, PROJECT_VERSION, VERDICTS, analyze, loadProject,
   type AnalysisReport, type ElementRef, type Fix, type Project, type ProjectInput,
 } from '@linewright/core';
 import { oddNetwork, treeNetwork } from '../helpers/networks';
@@ -241,7 +241,7 @@ describe('order independence, cases found by the properties', () => {
   // Whatever the analyzer does with a double feed, the file's order must not decide it.
   const doubleFed: ProjectInput = {
     format: 'linewright-project',
-    version: 1,
+    version: PROJECT_VERSION,
     project: { name: 'Double-fed bus below a tap' },
     nodes: [
       { kind: 'utility', voltsLL: 480, phases: 3, id: 'S1' },

@@ -2,6 +2,7 @@ import { CAUTION } from '../caution';
 import type { CodeEdition } from '../model/schema';
 import { JSON_DETAILS, type JsonDetail } from '../report/json';
 import { wrap } from '../report/text';
+import { DIFF_USAGE, toDiffCommand, type DiffCommand } from './diff';
 
 /** Pure argument parsing for the `linewright` command: no I/O here, so every case is a unit test. */
 
@@ -22,6 +23,8 @@ export interface CheckCommand {
   color: boolean;
   /** How much working the JSON report carries (default summary). */
   detail: JsonDetail;
+  /** Exit 1 also while a needs-AHJ finding has no standing AHJ acceptance in the file's review. */
+  failOnAhj: boolean;
 }
 
 /** `linewright takeoff FILE`: quantities for an estimator (core/src/cli/takeoff.ts). */
@@ -39,12 +42,14 @@ export interface TakeoffCommand {
 export type ParsedArgs =
   | CheckCommand
   | TakeoffCommand
+  | DiffCommand
   | { command: 'help' }
   | { command: 'version' }
   | { command: 'error'; message: string };
 
-export const USAGE_SHORT = `Usage: linewright check FILE [--format text|json|sarif|csv] [--out FILE] [--pdf FILE] [--edition 2020|2023] [--detail summary|full] [--color]
+export const USAGE_SHORT = `Usage: linewright check FILE [--format text|json|sarif|csv] [--out FILE] [--pdf FILE] [--edition 2020|2023] [--detail summary|full] [--color] [--fail-on-ahj]
        linewright takeoff FILE [--format text|csv|xlsx|json] [--out FILE] [--edition 2020|2023]
+       linewright diff OLD NEW [--format text|json]
        linewright --help | --version
 `;
 
@@ -62,6 +67,8 @@ Options for check:
   --detail summary|full          JSON report: summary (default) or full, which adds
                                  every rule tried with each condition
   --color                        colour the text report (off by default)
+  --fail-on-ahj                  exit 1 also while a needs-AHJ finding is open (a standing
+                                 AHJ acceptance recorded in the file's review closes it)
 
 Options for takeoff (wire, raceway, devices and equipment counted from the
 checked drawing: EGC by Table 250.122, raceway by Chapter 9):
@@ -73,7 +80,9 @@ checked drawing: EGC by Table 250.122, raceway by Chapter 9):
   -h, --help                     show this help
   -V, --version                  show the version
 
-Exit status:
+Other commands:
+${DIFF_USAGE}
+Exit status of check:
   0  no violations found
   1  violations found (see the report)
   2  the file could not be read as a project, or the arguments are wrong
@@ -94,6 +103,7 @@ export function parseArgs(argv: readonly string[]): ParsedArgs {
   const positional: string[] = [];
   const values = new Map<string, string>();
   let color = false;
+  let failOnAhj = false;
   let help = false;
   let version = false;
   for (let i = 0; i < argv.length; i++) {
@@ -105,6 +115,7 @@ export function parseArgs(argv: readonly string[]): ParsedArgs {
     if (arg === '-h' || arg === '--help') help = true;
     else if (arg === '-V' || arg === '--version') version = true;
     else if (arg === '--color' || arg === '--colour') color = true;
+    else if (arg === '--fail-on-ahj') failOnAhj = true;
     else if (arg.startsWith('--')) {
       const eq = arg.indexOf('=');
       const name = eq === -1 ? arg : arg.slice(0, eq);
@@ -128,7 +139,8 @@ export function parseArgs(argv: readonly string[]): ParsedArgs {
   const [command, file, ...rest] = positional;
   if (command === undefined) return error('no command given; expected "check FILE"');
   if (command === 'takeoff') return parseTakeoff(file, rest, values, color);
-  if (command !== 'check') return error(`unknown command "${command}"; expected "check FILE" or "takeoff FILE"`);
+  if (command === 'diff') return failOnAhj || color ? error('options --color and --fail-on-ahj apply to check, not diff') : toDiffCommand(positional.slice(1), values);
+  if (command !== 'check') return error(`unknown command "${command}"; expected "check FILE", "takeoff FILE" or "diff OLD NEW"`);
   if (file === undefined) return error('check needs a project file: linewright check FILE');
   if (rest.length > 0) return error(`unexpected argument "${rest[0]}"; check takes one file`);
 
@@ -147,6 +159,7 @@ export function parseArgs(argv: readonly string[]): ParsedArgs {
     edition,
     color,
     detail: detail as JsonDetail,
+    failOnAhj,
   };
 }
 

@@ -2,10 +2,12 @@ import { realpathSync, writeFileSync } from 'node:fs';
 import { isAbsolute, relative, resolve, sep } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type { AnalysisReport } from '../analyze/types';
+import type { Project } from '../model/schema';
 import { CAUTION } from '../caution';
 import { TOOL_NAME, TOOL_VERSION } from '../report/version';
 import { USAGE, USAGE_SHORT, parseArgs, type CheckCommand } from './args';
 import { EXIT_BAD_INPUT, EXIT_CLEAN, EXIT_INTERNAL, EXIT_VIOLATIONS, ioMessage, loadForCli, overwritesProject, say } from './io';
+import type { DiffCommand } from './diff';
 
 /** The only file of core that touches the file system and the process. */
 
@@ -20,15 +22,23 @@ function artifactUri(file: string): string {
   return pathToFileURL(abs).href;
 }
 
-async function render(cmd: CheckCommand, report: AnalysisReport, sourceText: string): Promise<string> {
+async function render(cmd: CheckCommand, report: AnalysisReport, sourceText: string, project: Project): Promise<string> {
+  const review = project.review ? await import('../review/index') : null;
   switch (cmd.format) {
-    case 'text':
-      return (await import('../report/text')).renderText(report, { color: cmd.color });
-    case 'json':
+    case 'text': {
+      const text = (await import('../report/text')).renderText(report, { color: cmd.color });
+      const lines = review ? review.reviewSummaryLines(project, report) : [];
+      return lines.length > 0 ? `${text}\n${lines.join('\n')}\n` : text;
+    }
+    case 'json': {
       // Compact: one line, no indentation (pipe it through a formatter to read it).
-      return `${JSON.stringify((await import('../report/json')).toJsonReport(report, { detail: cmd.detail }))}\n`;
-    case 'sarif':
-      return `${JSON.stringify((await import('../report/sarif')).toSarif(report, { artifactUri: artifactUri(cmd.file), sourceText }), null, 2)}\n`;
+      const json = (await import('../report/json')).toJsonReport(report, { detail: cmd.detail });
+      return `${JSON.stringify(review ? { ...json, review: review.toJsonReview(project, report) } : json)}\n`;
+    }
+    case 'sarif': {
+      const suppressions = review ? review.ahjJustifications(project.review, report) : undefined;
+      return `${JSON.stringify((await import('../report/sarif')).toSarif(report, { artifactUri: artifactUri(cmd.file), sourceText, suppressions }), null, 2)}\n`;
+    }
     case 'csv':
       return (await import('../report/csv')).toConductorScheduleCsv(report);
   }
@@ -53,7 +63,7 @@ async function check(cmd: CheckCommand): Promise<number> {
   if (typeof loaded === 'number') return loaded;
   const { project, text } = loaded;
   const report = analyze(project);
-  const output = await render(cmd, report, text);
+  const output = await render(cmd, report, text, project);
   // Everything is rendered before anything is written: a renderer that fails is our bug (exit 3, below in
   // main), never reported as a file that cannot be written.
   const pdf = cmd.pdf === null ? null : (await import('../report/pdf')).renderPermitPdf(project, report);
@@ -76,7 +86,26 @@ async function check(cmd: CheckCommand): Promise<number> {
   for (const w of written) say(`linewright: wrote ${w}`);
   // The text report ends with the caution; the other formats carry it inside, and CSV cannot, so say it here.
   if (cmd.format !== 'text' || cmd.out !== null) say(`Caution: ${report.caution || CAUTION}`);
-  return hasViolations(report) ? EXIT_VIOLATIONS : EXIT_CLEAN;
+  if (hasViolations(report)) return EXIT_VIOLATIONS;
+  if (cmd.failOnAhj) {
+    const { acceptedFindingIds } = await import('../review/dispositions');
+    const accepted = acceptedFindingIds(project.review, report);
+    if (report.findings.some((f) => f.severity === 'needs-ahj' && !accepted.has(f.id))) return EXIT_VIOLATIONS;
+  }
+  return EXIT_CLEAN;
+}
+
+async function diff(cmd: DiffCommand): Promise<number> {
+  const { runDiff, DiffInputError } = await import('./diff');
+  try {
+    const { output, comparison } = await runDiff(cmd);
+    process.stdout.write(output);
+    return comparison.matters ? EXIT_VIOLATIONS : EXIT_CLEAN;
+  } catch (e) {
+    if (!(e instanceof DiffInputError)) throw e;
+    say(`linewright: ${e.message}`);
+    return EXIT_BAD_INPUT;
+  }
 }
 
 let pipeGuard = false;
@@ -109,8 +138,10 @@ export async function main(argv: readonly string[]): Promise<number> {
       return EXIT_BAD_INPUT;
     case 'check':
     case 'takeoff':
+    case 'diff':
       try {
-        return args.command === 'check' ? await check(args) : await (await import('./takeoff')).takeoff(args);
+        if (args.command === 'takeoff') return await (await import('./takeoff')).takeoff(args);
+        return await (args.command === 'check' ? check(args) : diff(args));
       } catch (e) {
         // A bug of ours, not bad input: name it plainly; the stack only when asked for.
         say(`linewright: internal error: ${e instanceof Error ? e.message : String(e)}`);

@@ -5,13 +5,25 @@ import { foundText } from './found';
 /**
  * Schema versions and the steps between them. Step `n` turns a version-`n`
  * file into a version-`n + 1` file; each is a pure function on plain JSON
- * and has a test. Version 1 is the first published format, so the list is
- * empty today; `migrateToCurrent` already handles every other case (missing,
+ * and has a test. `migrateToCurrent` handles every other case (missing,
  * older, newer, not a number) so a file is never silently misread.
  */
 export type Migration = (old: Record<string, unknown>) => Record<string, unknown>;
 
-export const MIGRATIONS: Readonly<Record<number, Migration>> = {};
+/**
+ * Version 1 → 2: version 2 adds the plan-review block (comments, dispositions,
+ * rounds) and changes the meaning of nothing else, so every version-1 field is
+ * carried over as it is. Version 1 had no review block; a top-level "review" in
+ * a version-1 file was never ours, so it is moved to "reviewFromVersion1",
+ * where the loader sets it aside with a notice instead of reading it as review
+ * data it never was.
+ */
+export function migrateV1toV2(old: Record<string, unknown>): Record<string, unknown> {
+  const { review, ...rest } = old;
+  return review === undefined ? { ...rest, version: 2 } : { ...rest, version: 2, reviewFromVersion1: review };
+}
+
+export const MIGRATIONS: Readonly<Record<number, Migration>> = { 1: migrateV1toV2 };
 
 export type MigrationResult =
   | { ok: true; value: Record<string, unknown>; migratedFrom: number | null }

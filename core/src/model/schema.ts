@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { VERDICTS } from '../analyze/types';
 
 /**
  * The Linewright project file: one schema, every type inferred from it.
@@ -10,7 +11,7 @@ import { z } from 'zod';
  */
 
 export const PROJECT_FORMAT = 'linewright-project';
-export const PROJECT_VERSION = 1;
+export const PROJECT_VERSION = 2;
 
 export const nodeId = z.string().min(1, 'an id must not be empty').max(64).brand<'NodeId'>();
 export type NodeId = z.infer<typeof nodeId>;
@@ -301,6 +302,136 @@ export const seriesRating = z.strictObject({
 });
 export type SeriesRating = z.infer<typeof seriesRating>;
 
+// ---- Plan review (file version 2): comments, dispositions of findings, submittal rounds. ----
+// Kept in one block so the fields other work adds to the element kinds above never meet it.
+
+/** Most characters a comment or reply may hold: a long paragraph, never a document. */
+export const COMMENT_MAX_CHARS = 2000;
+const reviewText = z.string().max(COMMENT_MAX_CHARS, `keep a comment to ${COMMENT_MAX_CHARS} characters; split a longer one`);
+/** An ISO 8601 time or date as written by the editor (kept as text; never parsed for meaning). */
+const isoTime = z.string().min(4).max(40);
+
+export const REVIEW_ROLES = ['reviewer', 'designer'] as const;
+export const reviewAuthor = z.strictObject({
+  name: z.string().min(1, 'give the author a name').max(80),
+  role: z.enum(REVIEW_ROLES).describe('reviewer (checks the drawing) or designer (answers for it).'),
+});
+export type ReviewAuthor = z.infer<typeof reviewAuthor>;
+
+/** Where a comment sits: on an element, on a finding (by its stable id), or on an area of the drawing. */
+export const commentPin = z.discriminatedUnion('on', [
+  z.strictObject({ on: z.literal('node'), id: nodeId }),
+  z.strictObject({ on: z.literal('conductor'), id: conductorId }),
+  z.strictObject({ on: z.literal('busLink'), id: busLinkId }),
+  z.strictObject({
+    on: z.literal('finding'),
+    findingId: z.string().min(1).max(300).describe('Stable finding id (ruleId:subject:messageId).'),
+    subjectId: z.string().max(64).optional().describe('Element the finding was about when the comment was written.'),
+  }),
+  z.strictObject({
+    on: z.literal('area'),
+    x: z.number().finite(), y: z.number().finite(),
+    width: z.number().nonnegative().max(1e7), height: z.number().nonnegative().max(1e7),
+  }),
+]);
+export type CommentPin = z.infer<typeof commentPin>;
+
+export const COMMENT_STATES = ['open', 'answered', 'closed', 'withdrawn'] as const;
+export type CommentState = (typeof COMMENT_STATES)[number];
+
+export const commentReply = z.strictObject({
+  author: reviewAuthor,
+  at: isoTime,
+  text: reviewText.min(1, 'a reply needs some text'),
+});
+export type CommentReply = z.infer<typeof commentReply>;
+
+export const reviewComment = z.strictObject({
+  number: z.number().int().min(1).max(1_000_000).describe('Stable comment number; never reused.'),
+  pin: commentPin,
+  author: reviewAuthor,
+  at: isoTime.describe('When the comment was written (ISO 8601).'),
+  text: reviewText.min(1, 'a comment needs some text').describe('Plain text; never read as markup.'),
+  state: z.enum(COMMENT_STATES).describe('open → answered → closed, or withdrawn.'),
+  round: z.number().int().min(0).max(1000).describe('Number of the round under review when written; 0 before the first round.'),
+  replies: z.array(commentReply).max(500).default([]),
+});
+export type ReviewComment = z.infer<typeof reviewComment>;
+
+export const DISPOSITION_KINDS = ['ahj-accepted', 'disputed', 'deferred'] as const;
+export type DispositionKind = (typeof DISPOSITION_KINDS)[number];
+export const findingDisposition = z.strictObject({
+  findingId: z.string().min(1).max(300).describe('Stable finding id the disposition answers.'),
+  kind: z.enum(DISPOSITION_KINDS).describe('ahj-accepted (the AHJ accepts it), disputed (with a reason) or deferred (to a later round).'),
+  fingerprint: z.string().min(1).max(40).describe('Fingerprint of the finding\'s severity, message and values when dispositioned.'),
+  by: reviewAuthor,
+  at: isoTime,
+  ahjName: z.string().max(120).optional().describe('ahj-accepted: who accepted it for the AHJ.'),
+  ahjDate: z.string().max(40).optional().describe('ahj-accepted: when the AHJ accepted it.'),
+  reference: z.string().max(200).optional().describe('ahj-accepted: letter, permit or meeting reference.'),
+  reason: reviewText.optional().describe('disputed: why; deferred: until when or what.'),
+});
+export type FindingDisposition = z.infer<typeof findingDisposition>;
+
+// The element kinds appear again inside rounds: named, the JSON Schema writes each once under $defs.
+for (const [s, id] of [[equipmentNode, 'Equipment'], [conductor, 'Conductor'], [busLink, 'BusLink'], [projectSettings, 'ProjectSettings']] as const) {
+  if (!z.globalRegistry.has(s)) z.globalRegistry.add(s, { id });
+}
+
+/** The drawing part of a document: what a round freezes. */
+export const drawingSnapshot = z.strictObject({
+  project: projectSettings,
+  nodes: z.array(equipmentNode).max(500_000),
+  conductors: z.array(conductor).max(500_000),
+  busLinks: z.array(busLink).max(500_000),
+});
+export type DrawingSnapshot = z.infer<typeof drawingSnapshot>;
+
+/** A round stored as what changed since the round before: elements added or replaced whole, ids removed. */
+export const drawingChanges = z.strictObject({
+  project: projectSettings.optional(),
+  nodes: z.array(equipmentNode).max(500_000),
+  conductors: z.array(conductor).max(500_000),
+  busLinks: z.array(busLink).max(500_000),
+  removed: z.strictObject({
+    nodes: z.array(nodeId).max(500_000),
+    conductors: z.array(conductorId).max(500_000),
+    busLinks: z.array(busLinkId).max(500_000),
+  }),
+});
+export type DrawingChanges = z.infer<typeof drawingChanges>;
+
+export const roundSummary = z.strictObject({
+  edition: codeEdition,
+  verdicts: z.array(z.strictObject({ id: conductorId, verdict: z.enum(VERDICTS) })).max(500_000),
+  findings: z.array(z.strictObject({
+    id: z.string().min(1).max(300),
+    severity: z.enum(['violation', 'warning', 'needs-ahj', 'info']),
+    fingerprint: z.string().min(1).max(40),
+    message: z.string().max(2000),
+  })).max(500_000),
+});
+export type RoundSummary = z.infer<typeof roundSummary>;
+
+export const reviewRound = z.strictObject({
+  number: z.number().int().min(1).max(1000).describe('1 for the first submittal, counting up.'),
+  name: z.string().min(1, 'give the round a name').max(120).describe('e.g. "Submittal 1", "Resubmittal 2".'),
+  date: z.string().min(4).max(40).describe('Date the round was frozen (ISO 8601).'),
+  by: reviewAuthor.optional(),
+  snapshot: drawingSnapshot.optional().describe('The whole drawing; the first round, or when smaller than the changes.'),
+  changes: drawingChanges.optional().describe('What changed since the round before.'),
+  summary: roundSummary.describe('Verdicts and findings of the frozen drawing.'),
+});
+export type ReviewRound = z.infer<typeof reviewRound>;
+
+export const reviewBlock = z.strictObject({
+  comments: z.array(reviewComment).max(100_000).default([]),
+  dispositions: z.array(findingDisposition).max(100_000).default([]),
+  rounds: z.array(reviewRound).max(1000).default([]),
+});
+export type ReviewBlock = z.infer<typeof reviewBlock>;
+// ---- end of plan review ----
+
 export const project = z.strictObject({
   format: z.literal(PROJECT_FORMAT).describe('Always "linewright-project".'),
   version: z.literal(PROJECT_VERSION).describe('Project file version.'),
@@ -309,6 +440,7 @@ export const project = z.strictObject({
   conductors: z.array(conductor).max(500_000),
   busLinks: z.array(busLink).max(500_000).default([]),
   seriesRatings: z.array(seriesRating).max(10_000).optional().describe('240.86 series-rated combinations declared by the user.'),
+  review: reviewBlock.optional().describe('Plan review: comments, dispositions of findings, submittal rounds (version 2).'),
 });
 export type Project = z.infer<typeof project>;
 /** What a file may hold before defaults are filled in. */

@@ -10,6 +10,8 @@ export interface SarifOptions {
   artifactUri: string;
   /** The file's text: when given, each result also points at the line where its element's id is written. */
   sourceText?: string;
+  /** Finding id → why it is suppressed (an AHJ acceptance recorded in the review); each becomes a SARIF suppression (§3.35). */
+  suppressions?: ReadonlyMap<string, string>;
 }
 
 /**
@@ -79,6 +81,7 @@ export interface SarifResult {
   relatedLocations?: (SarifLocation & { id: number })[];
   partialFingerprints: Record<string, string>;
   properties: { severity: Severity; tags: string[]; citation: string | null; fixes: string[] };
+  suppressions?: { kind: 'external'; status: 'accepted'; justification: string }[];
 }
 
 /**
@@ -156,6 +159,8 @@ export function toSarif(report: AnalysisReport, options: SarifOptions): SarifLog
         fixes: f.fixes.map(fixText),
       },
     };
+    const why = options.suppressions?.get(f.id);
+    if (why !== undefined) result.suppressions = [{ kind: 'external', status: 'accepted', justification: why }];
     if (f.related.length > 0) result.relatedLocations = f.related.map((r, i) => ({ id: i + 1, ...location(r) }));
     return result;
   });

@@ -1,5 +1,6 @@
 import {
   CAUTION,
+  PROJECT_VERSION,
   SEVERITIES,
   VERDICTS,
   project as projectSchema,
@@ -22,7 +23,7 @@ import {
  */
 export const fixtureInput: ProjectInput = {
   format: 'linewright-project',
-  version: 1,
+  version: PROJECT_VERSION,
   project: { name: 'Harbor Lane Test Shop', codeEdition: 2023, preparedBy: 'R. Example, PE' },
   nodes: [
     { id: 'U1', kind: 'utility', label: 'Utility', voltsLL: 480, phases: 3, position: { x: 0, y: 0 } },
@@ -270,7 +271,7 @@ export function syntheticRiser(feeders: number, branches: number): { project: Pr
       conductors.push({ id: `CB${f}.${b}`, from: `B${f}.${b}`, to: `L${f}.${b}`, size: '12', lengthFt: 40 });
     }
   }
-  const project = projectSchema.parse({ format: 'linewright-project', version: 1, project: { name: 'Synthetic riser' }, nodes, conductors, busLinks });
+  const project = projectSchema.parse({ format: 'linewright-project', version: PROJECT_VERSION, project: { name: 'Synthetic riser' }, nodes, conductors, busLinks });
   const reports = project.conductors.map((c, i) =>
     conductor({
       id: c.id,
