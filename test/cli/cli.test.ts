@@ -3,7 +3,7 @@ import { mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync, existsSy
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { CAUTION } from '@linewright/core';
+import { CAUTION, PROJECT_VERSION } from '@linewright/core';
 import { fixtureInput } from '../core/report/fixture';
 import { CLI_ENTRY } from '../../scripts/build-cli.mjs';
 
@@ -45,7 +45,7 @@ function temp(name: string, content: string): string {
 /** A small invented building, fully protected: 200 A breaker on 3/0 Cu (200 A at 75 °C, NFPA 70-2023 Table 310.16). */
 const clean = {
   format: 'linewright-project',
-  version: 1,
+  version: PROJECT_VERSION,
   project: { name: 'Quiet Row workshop' },
   nodes: [
     { id: 'U', kind: 'utility', voltsLL: 480, phases: 3 },
