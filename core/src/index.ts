@@ -14,3 +14,4 @@ export * from './takeoff/index';
 export { toTakeoffCsv, takeoffTableCsv } from './report/takeoffCsv';
 export { renderTakeoffText } from './report/takeoffText';
 export { toTakeoffJson, type TakeoffJson } from './report/takeoffJson';
+export type * from './studies/types';
