@@ -15,3 +15,4 @@ export { toTakeoffCsv, takeoffTableCsv } from './report/takeoffCsv';
 export { renderTakeoffText } from './report/takeoffText';
 export { toTakeoffJson, type TakeoffJson } from './report/takeoffJson';
 export * from './review/index';
+export type * from './studies/types';

@@ -8,6 +8,7 @@ export { renderPermitPdf, pdfSafe, type PdfOptions } from './pdf';
 export { layoutNodes, DEFAULT_COLUMN_GAP, DEFAULT_LAYER_GAP, type Point, type LayoutNode, type LayoutEdge, type LayoutOptions } from './layout';
 export { projectJsonSchema, projectJsonSchemaText } from './jsonSchema';
 export { TOOL_NAME, TOOL_VERSION } from './version';
+export { faultText, pctText, faultWorking, loadDropRows, type FaultStep, type LoadDropRow } from './studies';
 export {
   VERDICT_WORDS,
   VERDICT_COLOURS,

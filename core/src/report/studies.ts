@@ -136,3 +136,41 @@ export function studiesTextLines(report: AnalysisReport): StudyLine[] {
   for (const n of s.notes) para(`- ${n}`);
   return out;
 }
+
+/** One step of the short-circuit working at a node: the element added, its R + jX and where the figure comes from. */
+export interface FaultStep {
+  nodeId: string;
+  kind: string;
+  rOhm: number;
+  xOhm: number;
+  voltsLL: number | null;
+  source: string;
+}
+
+const STEP_SOURCES: Readonly<Record<string, string>> = {
+  utility: 'utility: V / (√3 × available kA) at its X/R (an infinite bus when no kA is given)',
+  generator: 'generator: X″d × V² / kVA at its X/R (typical X″d when not given, common practice)',
+  transformer: '%Z × V² / kVA at its X/R (typical by kVA when not given, common practice); the primary side referred by (Vs/Vp)²',
+};
+
+/**
+ * The short-circuit working at one node, source first: each element's R + jX
+ * (ohms at its own voltage) and its source; the sum and the result are the
+ * node's own figures. Walks the supply chain once (the node's depth).
+ */
+export function faultWorking(report: AnalysisReport, nodeId: string): { steps: FaultStep[]; fault: StudiesReport['faults'][number] } | null {
+  const s = report.studies;
+  if (!s) return null;
+  const byId = new Map(s.faults.map((f) => [f.nodeId as string, f]));
+  const arriving = new Map(report.conductors.map((c) => [c.to as string, c]));
+  const fault = byId.get(nodeId);
+  if (!fault) return null;
+  const steps: FaultStep[] = [];
+  for (let f: typeof fault | undefined = fault, guard = 0; f && guard < 10_000; f = f.parentId ? byId.get(f.parentId) : undefined, guard++) {
+    if (f.stepROhm === 0 && f.stepXOhm === 0 && f.parentId !== null) continue;
+    const c = arriving.get(f.nodeId);
+    const source = STEP_SOURCES[f.kind] ?? (c ? `conductor ${c.id}: Chapter 9 Table 9 R and X per 1000 ft × ${c.lengthFt ?? '?'} ft${c.parallelSets > 1 ? ` / ${c.parallelSets} sets` : ''} (× 2 for a single-phase loop)` : 'bus link: no impedance');
+    steps.unshift({ nodeId: f.nodeId, kind: f.kind, rOhm: f.stepROhm, xOhm: f.stepXOhm, voltsLL: f.voltsLL, source });
+  }
+  return { steps, fault };
+}

@@ -3,6 +3,7 @@ import {
   Background, BackgroundVariant, ConnectionLineType, Controls, MiniMap, Panel, ReactFlow, useReactFlow, useStore, useStoreApi,
   type Connection, type EdgeChange, type IsValidConnection, type NodeChange,
 } from '@xyflow/react';
+import { StudyLayers } from '../studies/StudyLayers';
 import type { EquipmentKind } from '@linewright/core';
 import { EQUIPMENT_KINDS } from '@linewright/core';
 import { addEquipment, connect, moveNodes } from '../editor/commands';
@@ -219,6 +220,7 @@ export function Canvas() {
             Empty drawing. Click or drag equipment from the left onto the sheet, then drag from a bottom port (load side) to a top port (line side) to connect.
           </Panel>
         )}
+        <StudyLayers />
         <Controls showInteractive={false} position="bottom-left" />
         {!big && nodes.length > 0 && <MiniMap pannable zoomable position="bottom-right" nodeStrokeWidth={2} ariaLabel="Overview of the drawing" style={{ width: 150, height: 100 }} />}
       </ReactFlow>

@@ -1,3 +1,4 @@
+import { DropWorkingPanel, FaultWorkingPanel } from '../studies/StudyWorking';
 import { indexReport } from '../analysis/reportIndex';
 import { connect, deleteSelection } from '../editor/commands';
 import { kindSpec } from '../editor/equipment';
@@ -73,6 +74,7 @@ export function DetailsPanel() {
       <div className="lw-details" data-testid="details">
         <h2>{kindSpec(n.kind).title}</h2>
         <ElementForm key={`n:${n.id}`} target={{ kind: 'node', id: n.id }} value={n} fields={NODE_FIELDS[n.kind]} />
+        <FaultWorkingPanel nodeId={n.id} />
         {findings.length > 0 && (
           <>
             <h4>Findings</h4>
@@ -98,6 +100,7 @@ export function DetailsPanel() {
         <ElementForm key={`c:${c.id}`} target={{ kind: 'conductor', id: c.id }} value={c} fields={CONDUCTOR_FIELDS} />
         <ConductorTools key={`t:${c.id}:${c.lengthFt ?? ''}`} c={c} />
         <WorkingPanel conductorId={c.id} />
+        <DropWorkingPanel conductorId={c.id} />
       </div>
     );
   }
