@@ -14,6 +14,8 @@ import { Footer } from './panels/Footer';
 import { Legend, Palette } from './panels/Palette';
 import { Toolbar, openFile } from './panels/Toolbar';
 import { TakeoffView } from './panels/TakeoffView';
+import { ReviewOverlay } from './review/ReviewOverlay';
+import { ReviewPanel } from './review/ReviewPanel';
 
 function isTyping(t: EventTarget | null): boolean {
   const el = t as HTMLElement | null;
@@ -169,10 +171,12 @@ export function App({ ctx, savedAt }: { ctx: CommandContext; savedAt: string | n
           </aside>
           <main className="lw-main">
             <Canvas />
+            <ReviewOverlay />
           </main>
           <aside className="lw-right" aria-label="Details">
             <SideToggle open={rightOpen} onToggle={toggleRight} side="right" what="details" />
             {rightOpen && <DetailsPanel />}
+            {rightOpen && <ReviewPanel />}
           </aside>
           <Footer savedAt={savedAt} />
         </div>

@@ -6,3 +6,4 @@ export * from './fingerprint';
 export * from './rounds';
 export { sameValue } from './values';
 export * from './report';
+export * from './letter';

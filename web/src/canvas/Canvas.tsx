@@ -15,6 +15,7 @@ import { nodeTypes } from '../nodes';
 import { KIND_DRAG_TYPE } from '../panels/Palette';
 import { DrawingTools } from '../panels/Toolbar';
 import { FlowDeriver, selectionAfter, type FlowEdge, type FlowNode } from './flowElements';
+import { useReviewView } from '../review/reviewState';
 
 /**
  * Below this zoom the small print would be under about 7 px on screen (12 px × 0.6): the drawing shows
@@ -53,6 +54,7 @@ export function Canvas() {
     apply();
     return flowStore.subscribe(apply);
   }, [flowStore]);
+  const readOnly = useReviewView((v) => v.on);
 
   // Give commands a way to read and move the view without knowing React Flow.
   useEffect(() => {
@@ -210,6 +212,8 @@ export function Canvas() {
         fitView
         fitViewOptions={{ padding: 0.12, maxZoom: 1.2 }}
         elevateEdgesOnSelect
+        nodesDraggable={!readOnly}
+        nodesConnectable={!readOnly}
       >
         <Background variant={BackgroundVariant.Dots} gap={GRID} size={1} color="#c9ccd1" />
         <Panel position="top-left">

@@ -1,4 +1,4 @@
-import { applyPatches, enablePatches, produceWithPatches, type Draft } from 'immer';
+import { applyPatches, enablePatches, produceWithPatches, type Draft, type Patch } from 'immer';
 import type { AnalysisReport, LoadError, Project } from '@linewright/core';
 import { History, type HistoryIntent, type HistorySnapshot } from './history';
 
@@ -64,6 +64,11 @@ export class EditorStore {
    * Returns null to leave this commit to the asynchronous path.
    */
   inlineAnalysis: ((doc: Project) => { report: AnalysisReport | null; error: string | null } | null) | null = null;
+  /**
+   * Set while the document is read-only (review mode): given an edit's patches, returns why it is
+   * refused, or null to let it through. Undo and redo ask it too.
+   */
+  guard: ((patches: readonly Patch[]) => string | null) | null = null;
   private noticeSeq = 0;
   private frameSeq = 0;
 
@@ -122,6 +127,7 @@ export class EditorStore {
   edit(label: string, recipe: (d: Draft<Project>) => void, intent: HistoryIntent = 'record'): boolean {
     const [next, redo, undo] = produceWithPatches(this.state.doc, recipe);
     if (redo.length === 0) return false;
+    if (this.refused(redo)) return false;
     if (intent !== 'skip') this.history.push({ label, redo, undo }, intent === 'merge');
     this.commitDoc(next);
     return true;
@@ -136,9 +142,21 @@ export class EditorStore {
     this.set({ ...s, ...extra, ...report, doc, docVersion, view, history: this.historySummary() }, true);
   }
 
+  private refused(patches: readonly Patch[]): boolean {
+    const why = this.guard?.(patches);
+    if (!why) return false;
+    this.notify(why, 'error');
+    if (this.state.view.dragPositions) this.setView({ dragPositions: null });
+    return true;
+  }
+
   undo(): boolean {
     const e = this.history.takeUndo();
     if (!e) return false;
+    if (this.refused(e.undo)) {
+      this.history.takeRedo();
+      return false;
+    }
     this.commitDoc(applyPatches(this.state.doc, e.undo));
     return true;
   }
@@ -146,6 +164,10 @@ export class EditorStore {
   redo(): boolean {
     const e = this.history.takeRedo();
     if (!e) return false;
+    if (this.refused(e.redo)) {
+      this.history.takeUndo();
+      return false;
+    }
     this.commitDoc(applyPatches(this.state.doc, e.redo));
     return true;
   }

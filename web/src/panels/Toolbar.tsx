@@ -5,6 +5,7 @@ import {
 } from '../editor/commands';
 import { useCommandContext, useEditorState } from '../editor/useEditor';
 import { TakeoffButton } from './TakeoffView';
+import { ReviewSwitch } from '../review/ReviewSwitch';
 
 function CmdButton({ cmd, testId, children, what }: { cmd: Command; testId: string; children?: React.ReactNode; what?: string | null }) {
   const ctx = useCommandContext();
@@ -76,6 +77,7 @@ export function Toolbar() {
           <CmdButton cmd={arrangeDrawing} testId="cmd-arrange">Arrange</CmdButton>
         </div>
       </nav>
+      <ReviewSwitch />
       <div className="lw-history-hint" data-testid="history-hint" aria-live="polite">
         {history.undoLabel ? `Undo: ${history.undoLabel}` : 'Nothing to undo'}
       </div>

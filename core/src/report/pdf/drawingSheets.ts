@@ -4,6 +4,7 @@ import { drawLegend } from './legend';
 import { drawSummary, drawTitleBlock } from './titleBlock';
 import type { PdfContext } from './context';
 import { printPositions } from './positions';
+import { drawCommentPins, drawRevisionBlock } from './review';
 
 /**
  * Page 1 (the one-line, legend, summary and title block) and, when the drawing is too big to read
@@ -27,6 +28,7 @@ export function drawingSheets(sh: Sheet, ctx: PdfContext): void {
     sh.font(7, 'italic', GREY);
     sh.text(sh.split(note, box.w - 12), box.x + 6, box.y + 10);
   }
+  drawCommentPins(sh, ctx, positions, overview);
   // A drawing too big to read on one sheet gets detail sheets at a legible scale, keyed on the overview.
   const detailBox = { x: M, y: M + 32, w: PAGE_W - 2 * M, h: BODY_BOTTOM - M - 32 };
   const details = overview.scale < DETAIL_BELOW_SCALE ? detailSheets(positions, detailBox) : [];
@@ -44,6 +46,7 @@ export function drawingSheets(sh: Sheet, ctx: PdfContext): void {
   }
   let y = drawLegend(sh, sideX, M, SIDE_W);
   y = drawSummary(sh, report, sideX, y + 6);
+  y = drawRevisionBlock(sh, ctx, sideX, y + 6, SIDE_W);
   const tbH = 172;
   drawTitleBlock(sh, report, project, generated, { x: sideX, y: Math.max(y + 6, BODY_BOTTOM - tbH), w: SIDE_W, h: tbH });
 

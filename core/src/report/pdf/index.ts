@@ -12,8 +12,10 @@ import { racewaySchedulePages } from './racewaySchedulePages';
 import { studyPages } from './studyPages';
 import { assumptionsPage, workingPages } from './workingPages';
 import { footers } from './footers';
+import { reviewPages } from './review';
 
 export { pdfSafe } from './sheet';
+export { renderResponseLetterPdf, type LetterOptions } from './letter';
 export type { PdfContext, SheetPart } from './context';
 
 /**
@@ -34,7 +36,7 @@ export interface PdfOptions {
 }
 
 /** The parts of the set in the order they print; a new part is one file and one line here. */
-const PARTS: readonly SheetPart[] = [drawingSheets, findingsPages, schedulePages, racewaySchedulePages, studyPages, workingPages, assumptionsPage];
+const PARTS: readonly SheetPart[] = [drawingSheets, findingsPages, reviewPages, schedulePages, racewaySchedulePages, studyPages, workingPages, assumptionsPage];
 
 /** Renders the annotated permit-set PDF; returns the file's bytes. */
 export function renderPermitPdf(project: Project, report: AnalysisReport, options: PdfOptions = {}): Uint8Array {
