@@ -384,12 +384,14 @@ export const drawingSnapshot = z.strictObject({
   nodes: z.array(equipmentNode).max(500_000),
   conductors: z.array(conductor).max(500_000),
   busLinks: z.array(busLink).max(500_000),
+  seriesRatings: z.array(seriesRating).max(10_000).optional(),
 });
 export type DrawingSnapshot = z.infer<typeof drawingSnapshot>;
 
 /** A round stored as what changed since the round before: elements added or replaced whole, ids removed. */
 export const drawingChanges = z.strictObject({
   project: projectSettings.optional(),
+  seriesRatings: z.array(seriesRating).max(10_000).optional().describe('The whole list, when it changed.'),
   nodes: z.array(equipmentNode).max(500_000),
   conductors: z.array(conductor).max(500_000),
   busLinks: z.array(busLink).max(500_000),

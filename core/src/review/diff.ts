@@ -91,6 +91,15 @@ export function diffDrawings(a: DrawingSnapshot, b: DrawingSnapshot): ElementCha
   if (settings.length > 0) {
     out.push({ change: 'changed', list: 'project', id: 'project', fields: settings, layoutOnly: false, text: `project ${settings.map((f) => f.text).join('; ')}` });
   }
+  const series = (d: DrawingSnapshot) => (d.seriesRatings ?? []).map((r) => `${r.lineSideId} ahead of ${r.loadSideId} at ${r.combinationKA} kA`).sort();
+  const sa = series(a);
+  const sb = series(b);
+  if (!sameValue(sa, sb)) {
+    const gone = sa.filter((x) => !sb.includes(x));
+    const added = sb.filter((x) => !sa.includes(x));
+    const fields = [...gone.map((x) => ({ field: 'seriesRatings', before: x, after: undefined, text: `series rating ${x} removed` })), ...added.map((x) => ({ field: 'seriesRatings', before: undefined, after: x, text: `series rating ${x} added` }))];
+    out.push({ change: 'changed', list: 'project', id: 'project', fields, layoutOnly: false, text: `project ${fields.map((f) => f.text).join('; ')}` });
+  }
   for (const list of ['nodes', 'conductors', 'busLinks'] as const) {
     const before = new Map<string, Record<string, unknown>>((a[list] as unknown as Record<string, unknown>[]).map((e) => [e.id as string, e]));
     const seen = new Set<string>();

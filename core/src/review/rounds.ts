@@ -6,8 +6,10 @@ import { sameValue } from './values';
 type Keyed = { id: string };
 
 /** The drawing part of a document (what a round freezes): settings and elements, no review data. */
-export function snapshotOf(p: Pick<Project, 'project' | 'nodes' | 'conductors' | 'busLinks'>): DrawingSnapshot {
-  return { project: p.project, nodes: p.nodes, conductors: p.conductors, busLinks: p.busLinks };
+export function snapshotOf(p: Pick<Project, 'project' | 'nodes' | 'conductors' | 'busLinks' | 'seriesRatings'>): DrawingSnapshot {
+  const s: DrawingSnapshot = { project: p.project, nodes: p.nodes, conductors: p.conductors, busLinks: p.busLinks };
+  if (p.seriesRatings !== undefined) s.seriesRatings = p.seriesRatings;
+  return s;
 }
 
 /** What turns drawing `a` into drawing `b`: changed or new elements whole, removed ones by id. */
@@ -27,6 +29,7 @@ export function changesBetween(a: DrawingSnapshot, b: DrawingSnapshot): DrawingC
     removed: { nodes: removed(a.nodes, b.nodes), conductors: removed(a.conductors, b.conductors), busLinks: removed(a.busLinks, b.busLinks) },
   };
   if (!sameValue(a.project, b.project)) out.project = b.project;
+  if (!sameValue(a.seriesRatings ?? [], b.seriesRatings ?? [])) out.seriesRatings = b.seriesRatings ?? [];
   return out;
 }
 
@@ -40,12 +43,15 @@ export function applyChanges(a: DrawingSnapshot, ch: DrawingChanges): DrawingSna
     for (const u of ups) if (!present.has(u.id)) out.push(u);
     return out;
   };
-  return {
+  const out: DrawingSnapshot = {
     project: ch.project ?? a.project,
     nodes: apply(a.nodes, ch.nodes, ch.removed.nodes),
     conductors: apply(a.conductors, ch.conductors, ch.removed.conductors),
     busLinks: apply(a.busLinks, ch.busLinks, ch.removed.busLinks),
   };
+  const series = ch.seriesRatings ?? a.seriesRatings;
+  if (series !== undefined && (series.length > 0 || a.seriesRatings !== undefined)) out.seriesRatings = series;
+  return out;
 }
 
 /** The drawing frozen by round `number`, rebuilt from the first round forward. Throws when the rounds are broken. */

@@ -19,9 +19,14 @@ export interface ReviewView {
 
 export const AUTHOR_KEY = 'linewright.review.author';
 
+/** The browser's storage when there is one (unit tests run without it). */
+function storage(): { getItem(k: string): string | null; setItem(k: string, v: string): void } | null {
+  return (globalThis as { localStorage?: { getItem(k: string): string | null; setItem(k: string, v: string): void } }).localStorage ?? null;
+}
+
 function readAuthor(): ReviewAuthor | null {
   try {
-    const raw = localStorage.getItem(AUTHOR_KEY);
+    const raw = storage()?.getItem(AUTHOR_KEY);
     if (!raw) return null;
     const a = JSON.parse(raw) as Partial<ReviewAuthor>;
     return typeof a.name === 'string' && a.name.trim() !== '' && (a.role === 'reviewer' || a.role === 'designer') ? { name: a.name.slice(0, 80), role: a.role } : null;
@@ -54,7 +59,7 @@ export function useReviewView<T>(select: (v: ReviewView) => T): T {
 
 export function saveAuthor(author: ReviewAuthor): void {
   try {
-    localStorage.setItem(AUTHOR_KEY, JSON.stringify(author));
+    storage()?.setItem(AUTHOR_KEY, JSON.stringify(author));
   } catch {
     // Private windows may refuse storage; the name still holds for this visit.
   }
