@@ -1,4 +1,4 @@
-import { project as projectSchema, type Project } from '../../../core/src/model/schema';
+import { PROJECT_VERSION, project as projectSchema, type Project } from '../../../core/src/model/schema';
 import { buildGraph, topologicalOrder } from '../../../core/src/topology/graph';
 import { studyFaultCurrent } from '../../../core/src/studies/faultCurrent/faultCurrent';
 import { studyVoltageDrop } from '../../../core/src/studies/voltageDrop/voltageDrop';
@@ -28,7 +28,7 @@ export class Net {
     return this;
   }
   project(raw = false): Project {
-    const input = { format: 'linewright-project', version: 1, project: { name: 'Study test', codeEdition: 2023 }, nodes: this.nodes, conductors: this.conductors, busLinks: this.busLinks };
+    const input = { format: 'linewright-project', version: PROJECT_VERSION, project: { name: 'Study test', codeEdition: 2023 }, nodes: this.nodes, conductors: this.conductors, busLinks: this.busLinks };
     return raw ? (input as unknown as Project) : projectSchema.parse(input);
   }
   study(raw = false) {
