@@ -10,7 +10,7 @@ export function ReviewSwitch() {
     <div className={`lw-rv-switch${on ? ' is-on' : ''}`} role="group" aria-label="Review">
       <label title="Review mode: the drawing is read-only; only comments and dispositions of findings can change">
         <input type="checkbox" role="switch" aria-checked={on} checked={on} onChange={(e) => setReviewMode(store, e.target.checked)} data-testid="review-mode" />
-        {on ? 'Review mode: drawing read-only' : 'Review mode'}
+        Review mode{on ? ' (read-only)' : ''}
       </label>
       {author && (
         <span className="lw-rv-who" data-testid="review-who">
