@@ -22,7 +22,7 @@ async function person(browser: Browser, name: string, role: 'reviewer' | 'design
 
 async function openText(page: Page, name: string, text: string): Promise<void> {
   await page.getByTestId('open-file-input').setInputFiles({ name, mimeType: 'application/json', buffer: Buffer.from(text) });
-  await expect(page.getByTestId('notice').filter({ hasText: 'Opened' })).toBeVisible();
+  await expect(page.getByTestId('notice').filter({ hasText: `Opened ${name}` }).last()).toBeVisible();
   await checked(page);
 }
 
@@ -31,6 +31,12 @@ async function download(page: Page, testId: string, info: TestInfo, name: string
   const path = info.outputPath(name);
   await d.saveAs(path);
   return path;
+}
+
+/** Selects a conductor through its finding in the findings list (which also frames it), as a reviewer reads down the list. */
+async function selectByFinding(page: Page, conductorId: string): Promise<void> {
+  await page.getByTestId('finding').filter({ hasText: `(${conductorId})` }).first().click();
+  await expect(page.getByTestId('comment-target')).toHaveValue(`c:${conductorId}`);
 }
 
 const pdfText = (path: string) => execFileSync('pdftotext', ['-layout', path, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
@@ -43,7 +49,7 @@ test('a two-round review: comment, accept, answer, fix, freeze, compare, close, 
   await expect(reviewer.getByTestId('review-mode')).toBeChecked();
   // The drawing is read-only: an edit is refused with a notice and changes nothing.
   const before = await reviewer.evaluate(() => JSON.stringify(window.__linewright!.doc()));
-  await verdictOf(reviewer, 'TAP-L3').click();
+  await selectByFinding(reviewer, 'TAP-L3');
   await reviewer.getByTestId('cmd-delete').click();
   await expect(reviewer.getByTestId('notice').filter({ hasText: 'read-only' })).toBeVisible();
   expect(await reviewer.evaluate(() => JSON.stringify(window.__linewright!.doc()))).toBe(before);
@@ -55,7 +61,7 @@ test('a two-round review: comment, accept, answer, fix, freeze, compare, close, 
   await expect(reviewer.getByTestId('comment-pin').filter({ hasText: '1' })).toBeVisible();
 
   // A comment on the needs-AHJ finding, and the AHJ's acceptance of it.
-  await verdictOf(reviewer, 'TAP-L2').click();
+  await selectByFinding(reviewer, 'TAP-L2');
   await reviewer.getByTestId('comment-target').selectOption(`f:${AHJ_FINDING}`);
   await reviewer.getByTestId('comment-text').fill('Steel cover over the tray accepted by the building official; cite the meeting note on the sheet.');
   await reviewer.getByTestId('comment-add').click();
@@ -81,7 +87,7 @@ test('a two-round review: comment, accept, answer, fix, freeze, compare, close, 
   await designer.getByTestId('comment-reply-text').fill('Resized TAP-L3 to 3/0 Cu (200 A); length unchanged at 24 ft.');
   await designer.getByTestId('comment-reply').click();
   await expect(designer.locator('[data-testid="comment"][data-number="1"]')).toHaveAttribute('data-state', 'answered');
-  await verdictOf(designer, 'TAP-L3').click();
+  await selectByFinding(designer, 'TAP-L3');
   await designer.getByTestId('field-size').selectOption('3/0');
   await checked(designer);
   await expect(verdictOf(designer, 'TAP-L3')).toHaveAttribute('data-verdict', 'tap-25ft');
