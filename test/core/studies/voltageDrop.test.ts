@@ -21,6 +21,24 @@ describe('voltage-drop study (Chapter 9 Table 9 effective impedance)', () => {
     expect(s.drop.currentA[0]).toBeCloseTo(200, 6);
   });
 
+  it('a motor draws its table full-load current and HVAC equipment its nameplate MCA: 20 hp at 480 V is 27 A (NFPA 70 Table 430.250, 460 V column); VD = √3·27·Z·L over 480 V', () => {
+    const s = new Net()
+      .node('U', 'utility', { voltsLL: 480, phases: 3 })
+      .node('CB', 'breaker', { ratingA: 70 })
+      .link('L0', 'U', 'CB')
+      .node('MOT', 'load', { phases: 3, motor: { hp: 20 }, powerFactor: 0.85 })
+      .wire('CM', 'CB', 'MOT', { size: '10', lengthFt: 100 })
+      .node('CB2', 'breaker', { ratingA: 25 })
+      .link('L1', 'U', 'CB2')
+      .node('RTU', 'load', { phases: 3, hvac: { mcaA: 18, mopA: 25 }, powerFactor: 0.85 })
+      .wire('CR', 'CB2', 'RTU', { size: '12', lengthFt: 100 })
+      .study();
+    // 10 AWG Cu in steel: R 1.2, X 0.063 Ω/1000 ft (Chapter 9 Table 9); 12 AWG: R 2.0, X 0.068.
+    const zEff = (r: number, x: number) => r * 0.85 + x * Math.sqrt(1 - 0.85 ** 2);
+    expect(s.pct('CM')).toBeCloseTo((100 * SQRT3 * 27 * zEff(1.2, 0.063) * 0.1) / 480, 6);
+    expect(s.pct('CR')).toBeCloseTo((100 * SQRT3 * 18 * zEff(2.0, 0.068) * 0.1) / 480, 6);
+  });
+
   it('branch: 277 V single-phase, 16 A at PF 0.90, 150 ft of 10 AWG Cu in EMT (steel column): Z = 1.2·0.9 + 0.063·0.4359 = 1.1075, VD = 2·16·1.1075·0.15 = 5.32 V = 1.92 %; feeder plus branch add to the total', () => {
     const s = new Net()
       .node('U', 'utility', { voltsLL: 277, phases: 1 })

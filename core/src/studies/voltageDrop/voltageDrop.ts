@@ -1,4 +1,6 @@
+import type { NodeOfKind } from '../../model/schema';
 import { racewayColumn, table9Impedance } from '../../tables/chapter9Table9';
+import { motorTableFlcA } from '../../tables/motor';
 import { edgeTo, type Graph } from '../../topology/graph';
 
 /**
@@ -49,6 +51,18 @@ export interface VoltageDropInputs {
 
 const SQRT3 = Math.sqrt(3);
 
+/**
+ * The line current a motor or HVAC load states on its own terms: the table full-load current of a
+ * motor by horsepower (430.6(A), Tables 430.248/430.250) or its nameplate FLA, the nameplate MCA of
+ * HVAC equipment (440.4(B)); null for other loads, which give amperes or kVA.
+ */
+function nameplateLineA(node: NodeOfKind<'load'>, volts: number, phases: 1 | 3): number | null {
+  if (node.hvac) return node.hvac.mcaA;
+  if (!node.motor) return null;
+  const table = node.motor.hp === undefined ? null : motorTableFlcA(node.motor.hp, volts, phases);
+  return table?.flcA ?? node.motor.fullLoadA ?? null;
+}
+
 export function studyVoltageDrop(g: Graph, inp: VoltageDropInputs): VoltageDropStudy {
   const n = g.nodes.length;
   const m = g.conductors.length;
@@ -61,7 +75,9 @@ export function studyVoltageDrop(g: Graph, inp: VoltageDropInputs): VoltageDropS
     const v = order[k]!;
     const node = g.nodes[v]!;
     if (node.kind === 'load') {
-      const va = node.kva !== undefined ? node.kva * 1000 : (node.currentA ?? 0) * voltsLL[v]! * ((node.phases ?? (inp.singlePhase[v] ? 1 : 3)) === 3 ? SQRT3 : 1);
+      const phases = node.phases ?? (inp.singlePhase[v] ? 1 : 3);
+      const lineA = nameplateLineA(node, voltsLL[v]!, phases) ?? node.currentA ?? 0;
+      const va = node.kva !== undefined ? node.kva * 1000 : lineA * voltsLL[v]! * (phases === 3 ? SQRT3 : 1);
       if (Number.isFinite(va)) {
         p[v] = p[v]! + va * node.powerFactor;
         q[v] = q[v]! + va * Math.sqrt(1 - node.powerFactor * node.powerFactor);
