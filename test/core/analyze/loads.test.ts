@@ -1,18 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { analyze, loadProject, renderText, toConductorScheduleCsv, toJsonReport, type AnalysisReport, type ProjectInput } from '@linewright/core';
+import { renderText, toConductorScheduleCsv, toJsonReport } from '@linewright/core';
 import { diagram } from '../../helpers/builder';
+import { conductor, run } from '../../helpers/analyzeInput';
 
-function run(input: ProjectInput): AnalysisReport {
-  const r = loadProject(input);
-  if (!r.ok) throw new Error(r.errors.map((e) => `${e.path}: ${e.message}`).join('\n'));
-  return analyze(r.project);
-}
-
-const conductor = (report: AnalysisReport, id: string) => {
-  const c = report.conductors.find((x) => x.id === id);
-  if (!c) throw new Error(`no conductor ${id}`);
-  return c;
-};
 
 /** utility (480Y/277 V unless given) → breaker → branch conductor BR → one load. */
 function branch(load: Record<string, unknown>, opts: { volts?: number; breakerA?: number; size?: string; breaker?: Record<string, unknown>; fuse?: boolean } = {}) {

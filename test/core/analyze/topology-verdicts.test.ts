@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { analyze, loadProject, type AnalysisReport, type ConductorSize, type ProjectInput } from '@linewright/core';
+import type { ConductorSize } from '@linewright/core';
 import { diagram } from '../../helpers/builder';
+import { conductor, run } from '../../helpers/analyzeInput';
 
 /**
  * Verdicts that depend on the shape of the network (issue 6, items 10, 11,
@@ -9,17 +10,6 @@ import { diagram } from '../../helpers/builder';
  * 70-2023 Table 310.16 at 75 °C unless stated.
  */
 
-function run(input: ProjectInput): AnalysisReport {
-  const r = loadProject(input);
-  if (!r.ok) throw new Error(r.errors.map((e) => `${e.path}: ${e.message}`).join('\n'));
-  return analyze(r.project);
-}
-
-const conductor = (report: AnalysisReport, id: string) => {
-  const c = report.conductors.find((x) => x.id === id);
-  if (!c) throw new Error(`no conductor ${id}`);
-  return c;
-};
 
 /** utility → 2000 A main → switchboard → 600 A feeder breaker: the top of every case. */
 const top = () =>
