@@ -77,6 +77,7 @@ test('two tabs on the same drawing: the later save is announced, both versions a
   await ready(second);
   expect(await lengthOf(second, c.id)).toBe(301);
   await second.evaluate((id) => void window.__linewright!.setConductorLength(id, 302), c.id);
+  await second.waitForFunction(() => window.__linewright!.stats().saveIdle);
 
   const notice = page.getByTestId('other-tab-notice');
   await expect(notice).toBeVisible();
@@ -84,7 +85,9 @@ test('two tabs on the same drawing: the later save is announced, both versions a
   await shot(page, info, 'other-tab-notice');
   expect(await lengthOf(page, c.id), 'the first tab keeps its own drawing until asked').toBe(301);
 
+  // Opening reads the other tab's copy from storage (asynchronous): the notice closes once it is open.
   await page.getByTestId('other-tab-open').click();
+  await expect(notice).toBeHidden();
   await checked(page);
   expect(await lengthOf(page, c.id)).toBe(302);
   await page.getByTestId('cmd-undo').click();
