@@ -8,6 +8,7 @@ import { renderPermitPdf } from '../../core/src/report/pdf';
 import { looksLikeFormula } from '../../core/src/report/safeText';
 import { toSarif } from '../../core/src/report/sarif';
 import { renderText } from '../../core/src/report/text';
+import { sarifSchemaErrors } from '../helpers/sarifSchema';
 import type { Json } from './mutate';
 
 export type Outcome =
@@ -21,7 +22,8 @@ const RAW_CONTROL = /[\x00-\x09\x0b-\x1f\x7f-\x9f]/;
 /**
  * One input through everything a user can run on it: load; then, when it loads, the analysis and every
  * report (text, JSON, SARIF, CSV and, when asked, the PDF). Any exception, or a report that breaks its
- * promise (raw control characters in the text report, a live formula in the CSV, a rejection without a
+ * promise (raw control characters in the text report, a SARIF log the official 2.1.0 schema refuses,
+ * a live formula in the CSV, a rejection without a
  * message), is an internal error: a bug of ours, never the input's fault.
  */
 export function checkOne(text: string, options: { pdf: boolean }): Outcome {
@@ -46,7 +48,10 @@ export function checkOne(text: string, options: { pdf: boolean }): Outcome {
     stage = 'json';
     JSON.stringify(toJsonReport(report));
     stage = 'sarif';
-    JSON.stringify(toSarif(report, { artifactUri: 'fuzz.json', sourceText: text }));
+    const sarif = toSarif(report, { artifactUri: 'fuzz.json', sourceText: text });
+    JSON.stringify(sarif);
+    const invalid = sarifSchemaErrors(sarif);
+    if (invalid) throw new Error(`the SARIF log breaks the SARIF 2.1.0 schema: ${invalid.split('\n')[0]}`);
     stage = 'csv';
     const csv = toConductorScheduleCsv(report);
     for (const c of report.conductors) {

@@ -5,8 +5,9 @@ import { cleanReport, fixtureInput, fixtureReport } from './fixture';
 
 /**
  * Structural checks of the required properties and allowed values of a SARIF log, written from the
- * specification because the schema cannot be downloaded here. Source: OASIS SARIF 2.1.0, §3.13–3.27
- * (sarifLog, run, tool, toolComponent, result), with §3.4 artifactLocation, §3.11 message,
+ * specification; they add what a JSON schema cannot say (ruleIndex points at the rule named by ruleId,
+ * artifact indexes exist). The official schema itself is checked in sarifSchema.test.ts.
+ * Source: OASIS SARIF 2.1.0, §3.13–3.27 (sarifLog, run, tool, toolComponent, result), with §3.4 artifactLocation, §3.11 message,
  * §3.28–3.29 location and physicalLocation, §3.33 logicalLocation, §3.49 reportingDescriptor
  * (those section numbers from memory). Key sets are the properties the spec defines for each
  * object, so a misspelt key fails here as it would under the schema's additionalProperties: false.
