@@ -309,6 +309,7 @@ export function computeAmpacity(input: AmpacityInput): AmpacityResult {
       insulationTempC,
       baseA,
       ambientFactor,
+      currentCarrying,
       adjustmentFactor: adjFactor,
       correctedA,
       terminalTempC,

@@ -2,6 +2,7 @@ import { computeAmpacity } from '../ampacity/ampacity';
 import { INSULATIONS, type CodeEdition, type Conductor, type ProjectSettings } from '../model/schema';
 import { materialIndexOf, SIZE_INDEX_1_0, sizeIndexOf } from '../tables/sizes';
 import type { Graph } from '../topology/graph';
+import type { ConductorCircuit } from './circuits';
 import type { AmpacityWorking } from './types';
 
 export type TerminationDefault = ProjectSettings['terminationDefault'];
@@ -39,7 +40,7 @@ const INSULATION_INDEX = new Map<string, number>(INSULATIONS.map((x, i) => [x, i
  * memo needs no string per conductor; NaN when an input falls outside the
  * packing (an ambient with more than two decimals), which skips the memo.
  */
-function ampacityKey(c: Conductor, edition: CodeEdition, terminalTempC: 60 | 75 | 90): number {
+function ampacityKey(c: Conductor, edition: CodeEdition, terminalTempC: 60 | 75 | 90, currentCarrying: number): number {
   const ambient = Math.round(c.ambientC * 100);
   if (ambient !== c.ambientC * 100) return Number.NaN;
   const term = terminalTempC === 60 ? 0 : terminalTempC === 75 ? 1 : 2;
@@ -48,13 +49,17 @@ function ampacityKey(c: Conductor, edition: CodeEdition, terminalTempC: 60 | 75 
   k = k * 14 + (INSULATION_INDEX.get(c.insulation) ?? 0);
   k = k * 21 + c.parallelSets;
   k = k * 13_001 + (ambient + 4000);
-  k = k * 201 + c.currentCarrying;
+  k = k * 201 + currentCarrying;
   return (k * 3 + term) * 2 + (edition === 2020 ? 0 : 1);
 }
 
-export function conductorAmpacity(c: Conductor, edition: CodeEdition, terminationDefault: TerminationDefault = 'listed-75'): ConductorAmpacity {
+/**
+ * `currentCarrying` is the count Table 310.15(C)(1) adjusts for: the circuit's 310.15(E) count
+ * from analyze/circuits.ts (the takeoff reports the same), or the run's stated count alone.
+ */
+export function conductorAmpacity(c: Conductor, edition: CodeEdition, terminationDefault: TerminationDefault = 'listed-75', currentCarrying = c.currentCarrying): ConductorAmpacity {
   const terminalTempC = terminalTempOf(c, terminationDefault);
-  const key = ampacityKey(c, edition, terminalTempC);
+  const key = ampacityKey(c, edition, terminalTempC, currentCarrying);
   let hit = ampacityMemo.get(key);
   if (hit) return hit;
   const r = computeAmpacity({
@@ -63,7 +68,7 @@ export function conductorAmpacity(c: Conductor, edition: CodeEdition, terminatio
     insulation: c.insulation,
     parallelSets: c.parallelSets,
     ambientC: c.ambientC,
-    currentCarrying: c.currentCarrying,
+    currentCarrying,
     terminalTempC,
     edition,
   });
@@ -81,7 +86,10 @@ function deepFreeze<T extends object>(o: T): T {
 }
 
 
-/** Stage: the ampacity of every conductor of the graph, by index. */
-export function conductorAmpacities(ctx: { graph: Graph; edition: CodeEdition; terminationDefault: TerminationDefault }): ConductorAmpacity[] {
-  return ctx.graph.conductors.map((c) => conductorAmpacity(c, ctx.edition, ctx.terminationDefault));
+/**
+ * Stage: the ampacity of every conductor of the graph, by index, adjusted for the 310.15(E) count of
+ * its circuit (the stated count where larger), the one the takeoff reports.
+ */
+export function conductorAmpacities(ctx: { graph: Graph; edition: CodeEdition; terminationDefault: TerminationDefault; circuits: readonly ConductorCircuit[] }): ConductorAmpacity[] {
+  return ctx.graph.conductors.map((c, ci) => conductorAmpacity(c, ctx.edition, ctx.terminationDefault, ctx.circuits[ci]!.currentCarrying.adjustmentCount));
 }

@@ -3,6 +3,7 @@ import type { RunFacts } from '../rules/facts';
 import { buildGraph, topologicalOrder, type Graph } from '../topology/graph';
 import { buildRuns, type Runs } from '../topology/runs';
 import { conductorAmpacities, type ConductorAmpacity } from './ampacities';
+import { conductorCircuits, networkSystems, type ConductorCircuit } from './circuits';
 import type { RunVerdict } from './classify';
 import { rollUpLoads, type SystemLoads } from './loads';
 import type { Fix } from './types';
@@ -23,6 +24,8 @@ export interface AnalysisContext {
   readonly onCycle: Uint8Array;
   readonly loads: SystemLoads;
   readonly runs: Runs;
+  /** Per conductor, by index: the system, the neutral and the 310.15(E) count (the ampacity, takeoff and voltage drop read it). */
+  readonly circuits: readonly ConductorCircuit[];
   /** Per conductor, by index. */
   readonly ampacities: readonly ConductorAmpacity[];
 }
@@ -49,6 +52,8 @@ export function prepareContext(project: Project): AnalysisContext {
   const edition = project.project.codeEdition;
   const graph = buildGraph(project);
   const { order, count, onCycle } = topologicalOrder(graph);
+  const loads = rollUpLoads(graph, order, count);
+  const circuits = conductorCircuits(graph, networkSystems(graph, order, count, loads));
   return {
     project,
     edition,
@@ -56,8 +61,9 @@ export function prepareContext(project: Project): AnalysisContext {
     order,
     count,
     onCycle,
-    loads: rollUpLoads(graph, order, count),
+    loads,
     runs: buildRuns(graph),
-    ampacities: conductorAmpacities({ graph, edition, terminationDefault: project.project.terminationDefault }),
+    circuits,
+    ampacities: conductorAmpacities({ graph, edition, terminationDefault: project.project.terminationDefault, circuits }),
   };
 }

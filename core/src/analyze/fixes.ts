@@ -21,7 +21,8 @@ export function runFixes(ctx: VerdictContext): Fix[][] {
   const { graph, runs, edition } = ctx;
   return ctx.verdicts.map((v, r) => {
     if (v.verdict !== 'unprotected' && v.verdict !== 'tap-from-tap') return NO_FIXES;
-    const members = runs.members[r]!.map((ci) => graph.conductors[ci]!);
+    // Each segment at the count its ampacity was adjusted for (its circuit's 310.15(E) count), whatever size it is tried at.
+    const members = runs.members[r]!.map((ci) => ({ ...graph.conductors[ci]!, currentCarrying: ctx.circuits[ci]!.currentCarrying.adjustmentCount }));
     return suggestFixes(v.facts, members, v.verdict === 'tap-from-tap' ? [] : v.candidates, v.tried, edition);
   });
 }

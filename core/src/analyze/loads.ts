@@ -173,42 +173,50 @@ function secondaryNeutralV(t: NodeOfKind<'transformer'>): number {
 
 const round2 = (x: number): number => Math.round(x * 100) / 100;
 
+/** How a load is connected to the system it sits on: the voltage across it and how that was decided. */
+export interface LoadConnection {
+  volts: number;
+  phases: 1 | 3;
+  connection: LoadCircuit['connection'];
+  basis: string;
+}
+
 /**
- * A load's own circuit on the system it sits on, or null when its current
- * cannot be known (no system voltage, a line-to-neutral load on a system
- * without a neutral, a motor the tables do not list and without a nameplate).
+ * The voltage across a load and its connection, or null when the system
+ * cannot give it (no system voltage, a 3-phase load on a single-phase
+ * system, a line-to-neutral load on a system without a neutral). The load
+ * calculation, the neutral of the circuit and its voltage drop all read this.
  */
-export function loadCircuit(node: NodeOfKind<'load'>, sysV: number, sysPhases: number, sysLN: number): LoadCircuit | null {
+export function loadConnection(node: NodeOfKind<'load'>, sysV: number, sysPhases: number, sysLN: number): LoadConnection | null {
   if (!(sysV > 0)) return null;
   const ph: 1 | 3 = node.phases ?? (sysPhases === 1 ? 1 : 3);
   if (ph === 3 && sysPhases === 1) return null;
-  let volts: number;
-  let connection: LoadCircuit['connection'];
-  let basis: string;
-  if (ph === 3) {
-    volts = sysV;
-    connection = 'three-phase';
-    basis = `three-phase at ${sysV} V: VA / (√3 × ${sysV} V)`;
-  } else if (node.connection === 'line-to-neutral') {
+  if (ph === 3) return { volts: sysV, phases: 3, connection: 'three-phase', basis: `three-phase at ${sysV} V: VA / (√3 × ${sysV} V)` };
+  if (node.connection === 'line-to-neutral') {
     if (!(sysLN > 0)) return null;
-    volts = sysLN;
-    connection = 'line-to-neutral';
-    basis = `single-phase line to neutral at ${sysLN} V: VA / ${sysLN} V`;
-  } else if (node.connection === 'line-to-line' || !(sysLN > 0)) {
-    volts = sysV;
-    connection = 'line-to-line';
-    basis = `single-phase line to line at ${sysV} V: VA / ${sysV} V`;
-  } else if (node.currentA !== undefined) {
-    // Connection not stated: a load given in amperes counts its volt-amperes at the higher voltage.
-    volts = sysV;
-    connection = 'line-to-line';
-    basis = `single-phase, connection not stated: ${node.currentA} A taken at ${sysV} V line to line, the larger volt-amperes`;
-  } else {
-    // Connection not stated: a load given in kVA draws its current at the lower voltage.
-    volts = sysLN;
-    connection = 'line-to-neutral';
-    basis = `single-phase, connection not stated: taken line to neutral at ${sysLN} V, the larger current`;
+    return { volts: sysLN, phases: 1, connection: 'line-to-neutral', basis: `single-phase line to neutral at ${sysLN} V: VA / ${sysLN} V` };
   }
+  if (node.connection === 'line-to-line' || !(sysLN > 0)) {
+    return { volts: sysV, phases: 1, connection: 'line-to-line', basis: `single-phase line to line at ${sysV} V: VA / ${sysV} V` };
+  }
+  if (node.currentA !== undefined) {
+    // Connection not stated: a load given in amperes counts its volt-amperes at the higher voltage.
+    return { volts: sysV, phases: 1, connection: 'line-to-line', basis: `single-phase, connection not stated: ${node.currentA} A taken at ${sysV} V line to line, the larger volt-amperes` };
+  }
+  // Connection not stated: a load given in kVA draws its current at the lower voltage.
+  return { volts: sysLN, phases: 1, connection: 'line-to-neutral', basis: `single-phase, connection not stated: taken line to neutral at ${sysLN} V, the larger current` };
+}
+
+/**
+ * A load's own circuit on the system it sits on, or null when its current
+ * cannot be known (no connection, see loadConnection, or a motor the tables
+ * do not list and without a nameplate).
+ */
+export function loadCircuit(node: NodeOfKind<'load'>, sysV: number, sysPhases: number, sysLN: number): LoadCircuit | null {
+  const on = loadConnection(node, sysV, sysPhases, sysLN);
+  if (on === null) return null;
+  const { volts, connection, basis } = on;
+  const ph = on.phases;
   const k = ph === 3 ? Math.sqrt(3) * volts : volts;
   const base = { volts, phases: ph, connection, continuous: node.continuous, motor: null, hvac: null };
   if (node.hvac) {

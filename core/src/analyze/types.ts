@@ -145,6 +145,8 @@ export interface AmpacityWorking {
   /** Table 310.16 value for one conductor in the insulation's column. */
   baseA: number;
   ambientFactor: number;
+  /** Current-carrying conductors Table 310.15(C)(1) adjusted for (the circuit's 310.15(E) count, or the stated count where larger). */
+  currentCarrying: number;
   adjustmentFactor: number;
   /** baseA × ambientFactor × adjustmentFactor, one conductor. */
   correctedA: number;

@@ -226,7 +226,7 @@ export const conductor = z.strictObject({
   wiring: wiringMethod.default('steel-conduit').describe('Wiring method; the conduit kinds count as a raceway.'),
   ambientC: z.number().min(-40).max(90).default(30).describe('Ambient temperature, °C (Table 310.15(B)(1)).'),
   /** Current-carrying conductors in the raceway or cable, all sets counted (310.15(C)(1)). */
-  currentCarrying: z.number().int().min(1).max(200).default(3).describe('Current-carrying conductors in the raceway or cable, all sets counted (310.15(C)(1)).'),
+  currentCarrying: z.number().int().min(1).max(200).default(3).describe('Current-carrying conductors in the raceway or cable, all sets counted (310.15(C)(1)); the circuit\'s own 310.15(E) count (neutral and nonlinear load considered) is used where it is larger.'),
   /** 110.14(C): lowest temperature rating of the terminations at either end; not stated, the project's terminationDefault decides. */
   terminalTempC: z.union([z.literal(60), z.literal(75), z.literal(90)]).optional().describe('110.14(C): lowest temperature rating of the terminations at either end. Not stated: the project setting terminationDefault decides (75 °C where equipment is listed for it, or per 110.14(C)(1)).'),
   /**

@@ -1,6 +1,6 @@
 export * from './types';
 export { buildTakeoff, DEFAULT_MAKEUP_FT } from './takeoff';
-export { circuitMakeup, countCurrentCarrying } from './circuit';
+export { circuitMakeup, conductorCircuits, countCurrentCarrying } from '../analyze/circuits';
 export { sizeEgc, proportionalEgcSize, minimumPhaseSize } from './egc';
 export { sizeRaceway, racewayKindOf, type RacewayContent } from './raceway';
 export { networkSystems, systemText, systemHasNeutral } from './system';

@@ -3,11 +3,12 @@ import { effectiveRatingA, nodeLabel } from '../analyze/equipment';
 import { CAUTION } from '../caution';
 import type { Project } from '../model/schema';
 import { buildGraph, topologicalOrder, type Graph } from '../topology/graph';
-import { circuitMakeup, countCurrentCarrying } from './circuit';
+import { conductorCircuits } from '../analyze/circuits';
+import { rollUpLoads } from '../analyze/loads';
 import { sizeEgc } from './egc';
 import { racewayKindOf, sizeRaceway, type RacewayContent } from './raceway';
 import { networkSystems, systemText, type NetworkSystems } from './system';
-import type { CircuitMakeup, DeviceItem, EquipmentItem, SystemAt, Takeoff, TakeoffRun } from './types';
+import type { CircuitMakeup, DeviceItem, EquipmentItem, Takeoff, TakeoffRun } from './types';
 
 /** Makeup allowance at each end of every conductor when the project states none, ft (common practice). */
 export const DEFAULT_MAKEUP_FT = 2;
@@ -22,7 +23,8 @@ export const DEFAULT_MAKEUP_FT = 2;
 export function buildTakeoff(project: Project, report: AnalysisReport): Takeoff {
   const graph = buildGraph(project);
   const { order, count } = topologicalOrder(graph);
-  const systems = networkSystems(graph, order, count);
+  const systems = networkSystems(graph, order, count, rollUpLoads(graph, order, count));
+  const circuits = conductorCircuits(graph, systems);
   const edition = project.project.codeEdition;
   const makeupFt = project.project.makeupFtPerTermination ?? DEFAULT_MAKEUP_FT;
 
@@ -31,17 +33,13 @@ export function buildTakeoff(project: Project, report: AnalysisReport): Takeoff 
   for (let ci = 0; ci < graph.conductors.length; ci++) {
     const c = graph.conductors[ci]!;
     const r = report.conductors[ci]!;
-    const from = graph.conductorFrom[ci]!;
-    const to = graph.conductorTo[ci]!;
-    const system = from >= 0 ? systems.at[from]! : UNKNOWN_SYSTEM;
-    const serves = to >= 0 ? systems.serves[to]! : NOTHING;
-    const makeup = circuitMakeup(c, r.role, system, serves);
+    // The same circuit and 310.15(E) count the ampacity check used (analyze/circuits.ts).
+    const { system, makeup, currentCarrying: ccc } = circuits[ci]!;
     makeups[ci] = makeup;
-    const ccc = countCurrentCarrying(makeup, c.nonlinearLoad ?? false);
     const sets = c.parallelSets;
     const flags: string[] = [];
     if (system.arrangement === 'unknown') flags.push('supply system unknown: taken as 3-phase without a neutral');
-    const egc = sizeEgc(c, r, Math.max(c.currentCarrying, ccc.count), edition);
+    const egc = sizeEgc(c, r, ccc.adjustmentCount, edition);
     if (egc.problem) flags.push(egc.problem);
     const neutralSize = makeup.hasNeutral ? (c.neutralSize ?? c.size) : null;
     const neutralConductors = makeup.hasNeutral ? sets : 0;
@@ -96,8 +94,6 @@ export function buildTakeoff(project: Project, report: AnalysisReport): Takeoff 
   };
 }
 
-const UNKNOWN_SYSTEM: SystemAt = { voltsLL: null, phases: null, arrangement: 'unknown', basis: 'no supply drawn' };
-const NOTHING = { singlePhaseLoads: false, threePhaseLoads: false, distribution: false } as const;
 
 function feet(perConductorFt: number | null, conductors: number): number | null {
   if (perConductorFt === null) return null;
@@ -169,7 +165,7 @@ function takeoffAssumptions(makeupFt: number): string[] {
     `Wire feet = run length × conductors + ${makeupFt} ft of makeup at each end of every conductor (project setting; ${DEFAULT_MAKEUP_FT} ft when unset, common practice). Raceway feet = run length × raceways; no allowance for bends, offsets or waste.`,
     'Each parallel set runs in its own raceway with its own neutral and a full-size EGC (310.10(G), 250.122(F)).',
     'A 3-phase source is taken as a 4-wire wye and a single-phase source as 3-wire (common practice); a transformer secondary follows its connection.',
-    "Neutral 'auto' (common practice): carried where the supply has one and the run is the service or serves distribution equipment or single-phase loads; a run serving only single-phase loads is taken as line to neutral.",
+    "Neutral 'auto' (common practice): carried where the supply has one and the run is the service or serves distribution equipment or a load connected line to neutral (the load's own connection, as the load calculation takes it); a run serving only single-phase loads is taken as their own circuit.",
     'Neutral and EGC are insulated, of the phase conductors\' material and insulation, and count in the fill (Chapter 9 Table 1 Note 3).',
     'Raceway kind: as stated on the run, else steel conduit as EMT, aluminum conduit as RMC, PVC conduit as PVC Schedule 40; cable, cable tray and open wiring get no raceway.',
     'Terminations: every conductor end is one termination (lug or device terminal).',

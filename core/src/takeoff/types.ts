@@ -2,36 +2,8 @@ import type { ConductorRole, Verdict } from '../analyze/types';
 import type { ConductorId, ConductorSize, Insulation, Material, NodeId, RacewayKind } from '../model/schema';
 import type { TradeSize } from '../tables/chapter9Table4';
 
-/** The electrical system at a point of the network, as the takeoff needs it. */
-export interface SystemAt {
-  voltsLL: number | null;
-  phases: 1 | 3 | null;
-  /** 'wye-4w' and 'single-3w' have a neutral; 'single-2w' has one grounded conductor and one ungrounded. */
-  arrangement: 'wye-4w' | 'delta-3w' | 'high-leg-4w' | 'single-3w' | 'single-2w' | 'unknown';
-  /** How the arrangement was decided, for the working. */
-  basis: string;
-}
-
-/** What the conductors of one circuit are, decided once and used by fill, EGC, wire and the ampacity count. */
-export interface CircuitMakeup {
-  /** Ungrounded (phase) conductors in one parallel set. */
-  ungroundedPerSet: number;
-  /** A neutral (or grounded conductor) in each set. */
-  hasNeutral: boolean;
-  /** Why the neutral is or is not there. */
-  neutralReason: string;
-  /** The circuit's kind, which decides whether the neutral carries current of its own (310.15(E)). */
-  kind: 'three-phase-4w' | 'three-phase-3w' | 'two-phase-and-neutral-of-wye' | 'single-phase-3w' | 'two-wire' | 'line-to-line-2w';
-}
-
-/** 310.15(E): how many current-carrying conductors one raceway (one parallel set) holds. */
-export interface CurrentCarryingCount {
-  count: number;
-  neutralCounts: boolean;
-  /** The paragraph of 310.15(E) that decided the neutral, or null without a neutral. */
-  section: '310.15(E)(1)' | '310.15(E)(2)' | '310.15(E)(3)' | '2-wire' | null;
-  reason: string;
-}
+export type { CircuitMakeup, CurrentCarryingCount, SystemAt } from '../analyze/circuits';
+import type { CircuitMakeup, CurrentCarryingCount, SystemAt } from '../analyze/circuits';
 
 export interface EgcSizing {
   /** Size of one EGC; null when the takeoff cannot size it (see `reason`). */

@@ -68,6 +68,7 @@ function working(baseA: number, sets = 1): AmpacityWorking {
     insulationTempC: 90,
     baseA,
     ambientFactor: 1,
+    currentCarrying: 3,
     adjustmentFactor: 1,
     correctedA: baseA,
     terminalTempC: 75,

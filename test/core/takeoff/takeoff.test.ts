@@ -141,7 +141,7 @@ describe('neutral and phase conductors per run (auto, common practice)', () => {
   const net = () =>
     diagram().utility(480).breaker(1200, { id: 'MAIN' }).conductor({ id: 'SVC-LESS', size: '1', lengthFt: 10 }).switchboard(1200, { id: 'SB' })
       .breaker(200, { id: 'B-P' }).conductor({ id: 'TO-PANEL', size: '3/0', lengthFt: 40 }).panel(225, { id: 'P' })
-      .breaker(20, { id: 'B-L' }).conductor({ id: 'TO-LIGHT', size: '12', lengthFt: 70 }).load({ currentA: 10, phases: 1 })
+      .breaker(20, { id: 'B-L' }).conductor({ id: 'TO-LIGHT', size: '12', lengthFt: 70 }).load({ currentA: 10, phases: 1, connection: 'line-to-neutral' })
       .at('SB').breaker(60, { id: 'B-M' }).conductor({ id: 'TO-MOTOR', size: '6', lengthFt: 30 }).load({ currentA: 40, phases: 3 })
       .at('SB').breaker(100, { id: 'B-T' }).conductor({ id: 'PRIMARY', size: '3', lengthFt: 20 }).transformer({ kva: 45, connection: 'delta-delta-3w', secondaryVoltsLL: 240 })
       .conductor({ id: 'DELTA-SEC', size: '2/0', lengthFt: 10 }).breaker(150).panel(150).build();
@@ -191,7 +191,7 @@ describe('wire and raceway feet', () => {
   it('devices by poles: a 3-pole feeder breaker and a 1-pole lighting breaker', () => {
     const t = takeoffOf(
       diagram().utility(480).breaker(200, { id: 'F' }).conductor({ size: '3/0', lengthFt: 40 }).panel(225)
-        .breaker(20, { id: 'L' }).conductor({ size: '12', lengthFt: 70 }).load({ currentA: 10, phases: 1 }).build(),
+        .breaker(20, { id: 'L' }).conductor({ size: '12', lengthFt: 70 }).load({ currentA: 10, phases: 1, connection: 'line-to-neutral' }).build(),
     );
     const totals = takeoffTotals(t);
     expect(totals.devices).toEqual([
