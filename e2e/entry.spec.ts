@@ -8,10 +8,16 @@ test('build a riser with the keyboard alone', async ({ page }, info) => {
   await expect(page.locator('.react-flow__node')).toHaveCount(0);
   await page.locator('body').focus();
   // Keys follow the palette: 1 utility, 3 bus, 4 breaker, 8 transformer, 9 load; Alt+Up walks to the supply.
-  for (const k of ['1', '4', '3', '4', '9']) await page.keyboard.press(k);
+  // Each new piece is on screen the moment it is placed (the view follows it).
+  const press = async (k: string) => {
+    await page.keyboard.press(k);
+    const last = await page.evaluate(() => window.__linewright!.doc().nodes.at(-1)!.id);
+    await expect(page.getByTestId(`node-${last}`)).toBeInViewport();
+  };
+  for (const k of ['1', '4', '3', '4', '9']) await press(k);
   await page.keyboard.press('Alt+ArrowUp');
   await page.keyboard.press('Alt+ArrowUp');
-  for (const k of ['4', '8', '4', '3']) await page.keyboard.press(k);
+  for (const k of ['4', '8', '4', '3']) await press(k);
   await checked(page);
   const doc = await page.evaluate(() => window.__linewright!.doc());
   expect(doc.nodes.map((n) => n.kind)).toEqual(['utility', 'breaker', 'bus', 'breaker', 'load', 'breaker', 'transformer', 'breaker', 'bus']);

@@ -5,7 +5,7 @@ import { USAGE, parseArgs } from '../../core/src/cli/args';
 // The command line is our own design (no outside source): these cases pin its documented behaviour.
 describe('parseArgs', () => {
   it('check FILE defaults to the text format and writes nothing else', () => {
-    expect(parseArgs(['check', 'samples/a.json'])).toEqual({ command: 'check', file: 'samples/a.json', format: 'text', pdf: null, out: null, edition: null, color: false, detail: 'summary', failOnAhj: false });
+    expect(parseArgs(['check', 'samples/a.json'])).toEqual({ command: 'check', file: 'samples/a.json', format: 'text', pdf: null, sheet: 'ansi-b', out: null, edition: null, color: false, detail: 'summary', failOnAhj: false });
   });
 
   it.each([
@@ -13,6 +13,7 @@ describe('parseArgs', () => {
     [['check', '--format=sarif', 'a.json'], { format: 'sarif' }],
     [['check', 'a.json', '--format', 'csv', '--out', 'r.csv'], { format: 'csv', out: 'r.csv' }],
     [['check', 'a.json', '--pdf', 'out.pdf'], { pdf: 'out.pdf' }],
+    [['check', 'a.json', '--pdf', 'out.pdf', '--sheet', 'arch-d'], { pdf: 'out.pdf', sheet: 'arch-d' }],
     [['check', 'a.json', '--edition', '2020'], { edition: 2020 }],
     [['check', 'a.json', '--edition=2023'], { edition: 2023 }],
     [['check', 'a.json', '--color'], { color: true }],
@@ -40,6 +41,7 @@ describe('parseArgs', () => {
     [['check'], 'needs a project file'],
     [['check', 'a.json', 'b.json'], 'unexpected argument "b.json"'],
     [['check', 'a.json', '--bogus'], 'unknown option --bogus'],
+    [['check', 'a.json', '--sheet', 'a4'], 'option --sheet must be one of ansi-b, ansi-d, arch-d (got "a4")'],
     [['check', 'a.json', '--bogus=1'], 'unknown option --bogus'],
     [['check', 'a.json', '-x'], 'unknown option -x'],
     [['check', 'a.json', '--format'], 'option --format needs a value'],

@@ -9,6 +9,8 @@ import { DIFF_USAGE, toDiffCommand, type DiffCommand } from './diff';
 export const FORMATS = ['text', 'json', 'sarif', 'csv'] as const;
 export type OutputFormat = (typeof FORMATS)[number];
 export const EDITIONS = ['2020', '2023'] as const;
+/** PDF sheet sizes (report/pdf/sheet.ts SHEET_SIZES). */
+export const SHEETS = ['ansi-b', 'ansi-d', 'arch-d'] as const;
 
 export interface CheckCommand {
   command: 'check';
@@ -16,6 +18,8 @@ export interface CheckCommand {
   format: OutputFormat;
   /** Also write the permit-set PDF here. */
   pdf: string | null;
+  /** Sheet size of that PDF. */
+  sheet: (typeof SHEETS)[number];
   /** Write the report here instead of stdout. */
   out: string | null;
   /** Analyze under this edition instead of the project's own setting. */
@@ -47,7 +51,7 @@ export type ParsedArgs =
   | { command: 'version' }
   | { command: 'error'; message: string };
 
-export const USAGE_SHORT = `Usage: linewright check FILE [--format text|json|sarif|csv] [--out FILE] [--pdf FILE] [--edition 2020|2023] [--detail summary|full] [--color] [--fail-on-ahj]
+export const USAGE_SHORT = `Usage: linewright check FILE [--format text|json|sarif|csv] [--out FILE] [--pdf FILE] [--sheet ansi-b|ansi-d|arch-d] [--edition 2020|2023] [--detail summary|full] [--color] [--fail-on-ahj]
        linewright takeoff FILE [--format text|csv|xlsx|json] [--out FILE] [--edition 2020|2023]
        linewright diff OLD NEW [--format text|json]
        linewright --help | --version
@@ -63,6 +67,7 @@ Options for check:
   --format text|json|sarif|csv   report format on stdout (default: text)
   --out FILE                     write the report to FILE instead of stdout
   --pdf FILE                     also write the annotated permit-set PDF to FILE
+  --sheet ansi-b|ansi-d|arch-d   PDF sheet: ANSI B 17 x 11 in (default), ANSI D 34 x 22 in, ARCH D 36 x 24 in
   --edition 2020|2023            analyze under this NEC edition instead of the project's
   --detail summary|full          JSON report: summary (default) or full, which adds
                                  every rule tried with each condition
@@ -95,7 +100,7 @@ function error(message: string): ParsedArgs {
   return { command: 'error', message };
 }
 
-const VALUE_FLAGS = new Set(['--format', '--out', '--pdf', '--edition', '--detail']);
+const VALUE_FLAGS = new Set(['--format', '--out', '--pdf', '--sheet', '--edition', '--detail']);
 
 /** Parses `argv` (without node and the script). Flags may be written `--flag value` or `--flag=value`. */
 export function parseArgs(argv: readonly string[]): ParsedArgs {
@@ -150,11 +155,14 @@ export function parseArgs(argv: readonly string[]): ParsedArgs {
   if (typeof edition === 'object' && edition !== null) return edition;
   const detail = values.get('--detail') ?? 'summary';
   if (!(JSON_DETAILS as readonly string[]).includes(detail)) return error(`option --detail must be ${JSON_DETAILS.join(' or ')} (got "${detail}")`);
+  const sheet = values.get('--sheet') ?? 'ansi-b';
+  if (!(SHEETS as readonly string[]).includes(sheet)) return error(`option --sheet must be one of ${SHEETS.join(', ')} (got "${sheet}")`);
   return {
     command: 'check',
     file,
     format: format as OutputFormat,
     pdf: values.get('--pdf') ?? null,
+    sheet: sheet as CheckCommand['sheet'],
     out: values.get('--out') ?? null,
     edition,
     color,

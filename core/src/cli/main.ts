@@ -66,7 +66,7 @@ async function check(cmd: CheckCommand): Promise<number> {
   const output = await render(cmd, report, text, project);
   // Everything is rendered before anything is written: a renderer that fails is our bug (exit 3, below in
   // main), never reported as a file that cannot be written.
-  const pdf = cmd.pdf === null ? null : (await import('../report/pdf')).renderPermitPdf(project, report);
+  const pdf = cmd.pdf === null ? null : (await import('../report/pdf')).renderPermitPdf(project, report, { sheet: cmd.sheet });
 
   const written: string[] = [];
   try {

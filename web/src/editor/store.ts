@@ -1,5 +1,5 @@
 import { applyPatches, enablePatches, produceWithPatches, type Draft, type Patch } from 'immer';
-import type { AnalysisReport, LoadError, Project } from '@linewright/core';
+import type { AnalysisReport, LoadError, Project, SheetSize } from '@linewright/core';
 import { History, type HistoryIntent, type HistorySnapshot } from './history';
 
 enablePatches();
@@ -29,6 +29,8 @@ export interface ViewState {
   cautionOpen: boolean;
   /** Positions of nodes while a drag is in flight; committed as one edit on release. */
   dragPositions: ReadonlyMap<string, { x: number; y: number }> | null;
+  /** Sheet size of the exported permit PDF. */
+  pdfSheet: SheetSize;
   /** Bumped to ask the canvas to frame these element ids. */
   frameRequest: { seq: number; nodeIds: readonly string[] } | null;
 }
@@ -84,6 +86,7 @@ export class EditorStore {
         cautionOpen: false,
         dragPositions: null,
         frameRequest: null,
+        pdfSheet: 'ansi-b',
       },
       report: null,
       reportVersion: 0,

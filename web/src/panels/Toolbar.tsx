@@ -1,4 +1,5 @@
 import { useRef } from 'react';
+import { SHEET_SIZES, SHEET_SIZE_IDS, type SheetSize } from '@linewright/core';
 import {
   arrangeDrawing, copySelection, deleteSelection, exportPdf, newDrawing, openProject, paste, redo, saveJson, toggleSnap, undo, zoomToFit,
   type Command,
@@ -32,6 +33,7 @@ export function Toolbar() {
   const fileInput = useRef<HTMLInputElement>(null);
   const name = useEditorState((s) => s.doc.project.name);
   const history = useEditorState((s) => s.history);
+  const sheet = useEditorState((s) => s.view.pdfSheet);
   return (
     <header className="lw-top">
       <div className="lw-brand">
@@ -63,6 +65,9 @@ export function Toolbar() {
           />
           <CmdButton cmd={saveJson} testId="cmd-save">Save file</CmdButton>
           <CmdButton cmd={exportPdf} testId="cmd-pdf">Export PDF</CmdButton>
+          <select aria-label="PDF sheet size" title="Sheet size of the exported PDF" value={sheet} onChange={(e) => ctx.store.setView({ pdfSheet: e.target.value as SheetSize })} data-testid="pdf-sheet">
+            {SHEET_SIZE_IDS.map((id) => <option key={id} value={id}>{SHEET_SIZES[id].name}</option>)}
+          </select>
           <TakeoffButton />
         </div>
         <div className="lw-tool-group" role="group" aria-label="Edit">

@@ -2,7 +2,7 @@ import type { EquipmentNode, Project } from '../../model/schema';
 import type { AnalysisReport } from '../../analyze/types';
 import { type VerdictClass, conductorText, displayClass, labelStatesRating, lengthText, num, verdictText } from '../format';
 import type { Point } from '../layout';
-import { BLACK, GREY, STYLE, VIOLATION, type DrawBox, type Rect, type Sheet } from './sheet';
+import { BLACK, GREY, MIN_TEXT_PT, STYLE, VIOLATION, type DrawBox, type Rect, type Sheet } from './sheet';
 import { callout, drawSymbol, polyline, route, type Route } from './symbols';
 import { Placer, drawLabel, measure, type Label } from './labels';
 
@@ -65,10 +65,12 @@ export function boundsOf(points: Map<string, Point>): Bounds | null {
   return Number.isFinite(minX) ? { minX, minY, maxX, maxY } : null;
 }
 
-/** Scale (pt per layout unit) at which labels print at about 6.5 pt: what detail sheets aim for. */
+/** Scale (pt per layout unit) at which labels print at 6.5 pt: what detail sheets aim for. */
 export const LEGIBLE_SCALE = 0.5;
-/** Below this overview scale labels fall under about 4 pt on an 11 × 17 sheet: detail sheets follow. */
-export const DETAIL_BELOW_SCALE = 0.3;
+/** Label size at a scale; the smallest line of a label is 0.95 of it. */
+const labelFontAt = (scale: number) => Math.min(6.5, scale * 14);
+/** Below this scale the smallest label line would print under MIN_TEXT_PT: the view shows no text, detail sheets follow. */
+export const DETAIL_BELOW_SCALE = MIN_TEXT_PT / 0.95 / 14;
 
 /** A view of the layout region starting at (x0, y0) at a fixed scale, for a detail sheet. */
 export function viewAt(x0: number, y0: number, scale: number, box: DrawBox): View {
@@ -112,7 +114,7 @@ export function nodeLines(n: EquipmentNode): string[] {
 export function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport, box: DrawBox, numbers: ReadonlyMap<string, number>, positions: Map<string, Point>, view: View): void {
   const { map, scale } = view;
   const s = Math.max(3, Math.min(13, scale * 38));
-  const labelFont = Math.max(2.5, Math.min(6.5, scale * 14));
+  const labelFont = labelFontAt(scale);
   const margin = 2 * s;
   const inBox = (p: Point) => p.x >= box.x - margin && p.x <= box.x + box.w + margin && p.y >= box.y - margin && p.y <= box.y + box.h + margin;
   const all = new Map<string, Placed>();
@@ -218,8 +220,8 @@ export function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport,
   }
 
   // 3. Labels, flagged conductors first so they get the best spots, then equipment, then the rest.
-  // Under about 2.5 pt text is unreadable: a reduced overview shows structure and callouts only.
-  if (labelFont * 1.0 < 2.6 || scale < 0.16) {
+  // Text under the legible floor is never printed: a reduced overview shows structure and callouts only.
+  if (scale < DETAIL_BELOW_SCALE) {
     for (const cl of conductorLabels) {
       if (cl.label.callouts.length === 0) continue;
       cl.label.callouts.forEach((m, i) => callout(sh, m.kind, m.n, cl.r.labelAt.x + 5 + i * 9, cl.r.labelAt.y, 4));

@@ -1,6 +1,6 @@
 import type { PdfContext } from './context';
 import { SEVERITY_WORDS, citationText, fixText, numberFindings, refText } from '../format';
-import { GREY, M, PAGE_W, type Sheet } from './sheet';
+import { GREY, M, type Sheet } from './sheet';
 import { table } from './table';
 
 export function findingsPages(sh: Sheet, { report }: PdfContext): void {
@@ -26,7 +26,7 @@ export function findingsPages(sh: Sheet, { report }: PdfContext): void {
       { head: 'Rule', width: 110, cell: (r) => r.finding.ruleId },
       {
         head: 'Finding and fixes',
-        width: PAGE_W - 2 * M - 500,
+        width: sh.w - 2 * M - 500,
         cell: (r) => [r.finding.message, ...r.finding.fixes.map((f) => `Fix: ${fixText(f)}`)].join('\n'),
       },
     ],

@@ -3,7 +3,7 @@ import type { AnalysisReport } from '../../analyze/types';
 import { CAUTION } from '../../caution';
 import { numberFindings } from '../format';
 import { TOOL_NAME, TOOL_VERSION } from '../version';
-import { Sheet, pdfSafe } from './sheet';
+import { Sheet, pdfSafe, type SheetSize } from './sheet';
 import type { PdfContext, SheetPart } from './context';
 import { drawingSheets } from './drawingSheets';
 import { findingsPages } from './findingsPages';
@@ -14,7 +14,7 @@ import { assumptionsPage, workingPages } from './workingPages';
 import { footers } from './footers';
 import { reviewPages } from './review';
 
-export { pdfSafe } from './sheet';
+export { pdfSafe, SHEET_SIZES, SHEET_SIZE_IDS, type SheetSize } from './sheet';
 export { renderResponseLetterPdf, type LetterOptions } from './letter';
 export type { PdfContext, SheetPart } from './context';
 
@@ -33,6 +33,8 @@ export type { PdfContext, SheetPart } from './context';
 export interface PdfOptions {
   /** Shown in the title block and footers; ISO date-time. Defaults to now. */
   generatedAt?: string;
+  /** Sheet size; ANSI B unless given. */
+  sheet?: SheetSize;
 }
 
 /** The parts of the set in the order they print; a new part is one file and one line here. */
@@ -41,7 +43,7 @@ const PARTS: readonly SheetPart[] = [drawingSheets, findingsPages, reviewPages, 
 /** Renders the annotated permit-set PDF; returns the file's bytes. */
 export function renderPermitPdf(project: Project, report: AnalysisReport, options: PdfOptions = {}): Uint8Array {
   const generated = (options.generatedAt ?? new Date().toISOString()).replace('T', ' ').replace(/\.\d+Z$/, 'Z');
-  const sh = new Sheet();
+  const sh = new Sheet(options.sheet);
   sh.doc.setProperties({
     title: pdfSafe(`${report.projectName}: conductor protection review`),
     subject: pdfSafe(`NEC ${report.edition} 240.4 and 240.21 review. ${report.caution || CAUTION}`),

@@ -76,6 +76,20 @@ export class Placer {
         bestScore = score;
       }
     }
+    // Every near spot is taken: look a little further out, ring by ring, before printing over anything.
+    if (bestScore > 0) {
+      const c0 = candidates[0]!;
+      search: for (let ring = 1; ring <= 4; ring++) {
+        for (const [dx, dy] of [[0, 1], [0, -1], [1, 0], [-1, 0], [1, 1], [-1, 1], [1, -1], [-1, -1]] as const) {
+          const c = { ...c0, x: c0.x + dx * ring * (c0.w * 0.5 + 2), y: c0.y + dy * ring * (c0.h + 1) };
+          const outside = c.x < bounds.x || c.y < bounds.y || c.x + c.w > bounds.x + bounds.w || c.y + c.h > bounds.y + bounds.h;
+          if (!outside && this.overlap(c) === 0) {
+            best = c;
+            break search;
+          }
+        }
+      }
+    }
     this.add(best);
     return best;
   }

@@ -4,19 +4,24 @@ import { acceptedFindingIds, dispositionStates, DISPOSITION_WORDS, STANDING_WORD
 import { letterRows, type LetterRow } from '../../review/letter';
 import type { PdfContext } from './context';
 import type { View } from './drawing';
-import { BLACK, GREY, LIGHT, M, PAGE_W, type Rgb, type Sheet } from './sheet';
+import { BLACK, GREY, LIGHT, M, MIN_TEXT_PT, type DrawBox, type Rgb, type Sheet } from './sheet';
 import { table } from './table';
 
 /** Our own comment-pin look on paper: a numbered tag, blue (distinct from the circles and triangles of findings). */
 const PIN: Rgb = [0, 90, 160];
 
-/** Numbered comment pins beside the elements they are on (open and answered comments only; closed ones are in the table). */
-export function drawCommentPins(sh: Sheet, ctx: PdfContext, positions: Map<string, Point>, view: View): void {
+/**
+ * Numbered comment pins beside the elements they are on (open and answered comments only; closed ones are
+ * in the table). With `clip` (a detail sheet's region) only the pins of elements inside it are drawn.
+ */
+export function drawCommentPins(sh: Sheet, ctx: PdfContext, positions: Map<string, Point>, view: View, clip?: DrawBox): void {
   const r = reviewOf(ctx.project);
   if (r.comments.length === 0) return;
   const edges = new Map<string, { from: string; to: string }>([...ctx.project.conductors, ...ctx.project.busLinks].map((e) => [e.id as string, e]));
   const findings = new Map(ctx.report.findings.map((f) => [f.id, f]));
-  const size = Math.max(5, Math.min(8, view.scale * 20));
+  // The pin's number prints at 0.8 of its size: never under the 6 pt floor of the drawing sheets.
+  const size = Math.max(MIN_TEXT_PT / 0.8, Math.min(10, view.scale * 20));
+  const inside = (p: Point) => !clip || (p.x >= clip.x && p.x <= clip.x + clip.w && p.y >= clip.y && p.y <= clip.y + clip.h);
   const stacked = new Map<string, number>();
   for (const c of r.comments) {
     if (c.state !== 'open' && c.state !== 'answered') continue;
@@ -34,10 +39,11 @@ export function drawCommentPins(sh: Sheet, ctx: PdfContext, positions: Map<strin
       if (a && b) {
         const pa = view.map(a);
         const pb = view.map(b);
-        at = { x: (pa.x + pb.x) / 2 - size * 2.2, y: (pa.y + pb.y) / 2 };
+        const mid = { x: (pa.x + pb.x) / 2, y: (pa.y + pb.y) / 2 };
+        if (inside(mid)) at = { x: mid.x - size * 2.2, y: mid.y };
       } else if (a && !e) {
         const p = view.map(a);
-        at = { x: p.x - size * 2.6, y: p.y - size };
+        if (inside(p)) at = { x: p.x - size * 2.6, y: p.y - size };
       }
     }
     if (!at || id === null) continue;
@@ -96,7 +102,7 @@ export const LETTER_TABLE = (sh: Sheet, rows: readonly LetterRow[]) =>
       { head: 'On', width: 120, cell: (r) => `${r.on}${r.orphaned ? '\n(element deleted)' : ''}` },
       { head: 'Finding', width: 230, cell: (r) => (r.findingId ? `${r.findingId}\n${r.finding}` : '-') },
       { head: 'Comment', width: 300, cell: (r) => `${r.comment}\n— ${r.commentBy}` },
-      { head: 'Responses', width: PAGE_W - 2 * M - 746, cell: (r) => r.responses.join('\n') || '(no response yet)' },
+      { head: 'Responses', width: sh.w - 2 * M - 746, cell: (r) => r.responses.join('\n') || '(no response yet)' },
     ],
     rows,
     7.5,
@@ -123,7 +129,7 @@ export function dispositionTable(sh: Sheet, ctx: PdfContext): void {
           return d.kind === 'ahj-accepted' ? `by ${d.ahjName ?? '?'} on ${d.ahjDate ?? '?'}${d.reference ? `, reference ${d.reference}` : ''}` : (d.reason ?? '');
         },
       },
-      { head: 'Now', width: PAGE_W - 2 * M - 810, cell: (s) => `${STANDING_WORDS[s.standing]}; recorded by ${s.disposition.by.name}` },
+      { head: 'Now', width: sh.w - 2 * M - 810, cell: (s) => `${STANDING_WORDS[s.standing]}; recorded by ${s.disposition.by.name}` },
     ],
     states,
     7.5,

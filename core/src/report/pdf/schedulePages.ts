@@ -1,7 +1,7 @@
 import type { PdfContext } from './context';
 import type { ConductorReport } from '../../analyze/types';
 import { ROLE_WORDS, ampsText, conductorText, deviceText, lengthText, showsViolation, verdictAlarmText } from '../format';
-import { M, PAGE_W, type Sheet } from './sheet';
+import { M, type Sheet } from './sheet';
 import { table, type TableColumn } from './table';
 
 export function schedulePages(sh: Sheet, { project, report }: PdfContext): void {
@@ -36,6 +36,6 @@ export function schedulePages(sh: Sheet, { project, report }: PdfContext): void 
     { head: 'Verdict', width: 130, cell: (c) => verdictAlarmText(report, c), bold: (c) => showsViolation(report, c) },
   ];
   const used = cols.reduce((a, c) => a + c.width, 0);
-  cols.push({ head: 'Why', width: PAGE_W - 2 * M - used, cell: (c) => c.summary });
+  cols.push({ head: 'Why', width: sh.w - 2 * M - used, cell: (c) => c.summary });
   table(sh, cols, report.conductors, 7);
 }

@@ -3,6 +3,19 @@ import { type VerdictClass, VERDICT_COLOURS, hexToRgb } from '../format';
 
 /** The sheet: page geometry, pens and fonts, and text that standard PDF fonts can print. */
 
+/**
+ * Drawing sheets the set prints on, landscape, in points (1/72 in): ANSI B 17 × 11 in and ANSI D
+ * 34 × 22 in (ASME Y14.1), ARCH D 36 × 24 in (the architectural series).
+ */
+export const SHEET_SIZES = {
+  'ansi-b': { name: 'ANSI B (17 × 11 in)', w: 1224, h: 792 },
+  'ansi-d': { name: 'ANSI D (34 × 22 in)', w: 2448, h: 1584 },
+  'arch-d': { name: 'ARCH D (36 × 24 in)', w: 2592, h: 1728 },
+} as const;
+export type SheetSize = keyof typeof SHEET_SIZES;
+export const SHEET_SIZE_IDS = Object.keys(SHEET_SIZES) as SheetSize[];
+
+/** ANSI B, the default sheet. */
 export const PAGE_W = 1224;
 export const PAGE_H = 792;
 export const M = 36;
@@ -10,6 +23,12 @@ export const FOOTER_H = 30;
 export const BODY_BOTTOM = PAGE_H - M - FOOTER_H;
 export const SIDE_W = 270;
 export const FONT = 'helvetica';
+/**
+ * No text on a sheet is set smaller than this: about 6 pt prints legibly on an ANSI B sheet (common
+ * practice for drawing notes on reduced-size sets). Drawing views too small for it show structure
+ * and callouts only, and detail sheets at a legible scale follow.
+ */
+export const MIN_TEXT_PT = 6;
 
 export type Rgb = [number, number, number];
 // Okabe–Ito colour-blind-safe palette; every colour is paired with a line style and words.
@@ -41,10 +60,19 @@ export function pdfSafe(text: string): string {
 
 export class Sheet {
   readonly doc: jsPDF;
+  readonly size: SheetSize;
+  /** Page width and height, pt, and where the body ends above the footer. */
+  readonly w: number;
+  readonly h: number;
+  readonly bodyBottom: number;
   y = M;
 
-  constructor() {
-    this.doc = new jsPDF({ orientation: 'landscape', unit: 'pt', format: [PAGE_W, PAGE_H], compress: true });
+  constructor(size: SheetSize = 'ansi-b') {
+    this.size = size;
+    this.w = SHEET_SIZES[size].w;
+    this.h = SHEET_SIZES[size].h;
+    this.bodyBottom = this.h - M - FOOTER_H;
+    this.doc = new jsPDF({ orientation: 'landscape', unit: 'pt', format: [this.w, this.h], compress: true });
     this.doc.setFont(FONT, 'normal');
   }
 
@@ -73,13 +101,13 @@ export class Sheet {
   }
 
   newPage(): void {
-    this.doc.addPage([PAGE_W, PAGE_H], 'landscape');
+    this.doc.addPage([this.w, this.h], 'landscape');
     this.y = M;
   }
 
   /** Starts a new page when `h` more points would run into the footer. */
   need(h: number, onNewPage?: () => void): void {
-    if (this.y + h > BODY_BOTTOM) {
+    if (this.y + h > this.bodyBottom) {
       this.newPage();
       onNewPage?.();
     }

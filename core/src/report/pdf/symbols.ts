@@ -1,7 +1,7 @@
 import type { jsPDF } from 'jspdf';
 import type { EquipmentNode } from '../../model/schema';
 import type { Point } from '../layout';
-import { AHJ, BLACK, VIOLATION, type Sheet } from './sheet';
+import { MIN_TEXT_PT, AHJ, BLACK, VIOLATION, type Sheet } from './sheet';
 
 /** IEEE Std 315 style symbols, conductor routes and the numbered callouts of findings. */
 
@@ -29,8 +29,10 @@ export function drawSymbol(sh: Sheet, n: EquipmentNode, x: number, y: number, s:
     }
     case 'generator':
       d.circle(x, y, s * 0.9, 'S');
-      sh.font(Math.max(3, s * 0.9), 'bold');
-      sh.text('G', x, y, { align: 'center', baseline: 'middle' });
+      if (s * 0.9 >= MIN_TEXT_PT) {
+        sh.font(s * 0.9, 'bold');
+        sh.text('G', x, y, { align: 'center', baseline: 'middle' });
+      }
       d.line(x, y + s * 0.9, x, y + s);
       break;
     case 'bus':
@@ -108,12 +110,14 @@ export function polyline(sh: Sheet, pts: Point[]): void {
   for (let i = 1; i < pts.length; i++) sh.doc.line(pts[i - 1]!.x, pts[i - 1]!.y, pts[i]!.x, pts[i]!.y);
 }
 
-export function callout(sh: Sheet, kind: 'violation' | 'needs-ahj', n: number, x: number, y: number, r: number): void {
+export function callout(sh: Sheet, kind: 'violation' | 'needs-ahj', n: number, x: number, y: number, rAsked: number): void {
   const d = sh.doc;
+  // Large enough that its number prints at the legible floor.
+  const r = Math.max(rAsked, (String(n).length > 1 ? MIN_TEXT_PT / 0.95 : MIN_TEXT_PT / 1.2) + 0.01);
   sh.stroke(kind === 'violation' ? VIOLATION : AHJ, Math.max(0.8, r / 6));
   sh.fill([255, 255, 255]);
   if (kind === 'violation') d.circle(x, y, r, 'FD');
   else d.triangle(x, y - r * 1.1, x - r * 1.05, y + r * 0.75, x + r * 1.05, y + r * 0.75, 'FD');
-  sh.font(Math.max(3, r * (String(n).length > 1 ? 0.95 : 1.2)), 'bold');
+  sh.font(r * (String(n).length > 1 ? 0.95 : 1.2), 'bold');
   sh.text(String(n), x, kind === 'violation' ? y : y + r * 0.15, { align: 'center', baseline: 'middle' });
 }

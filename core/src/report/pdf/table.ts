@@ -1,4 +1,4 @@
-import { BODY_BOTTOM, LIGHT, M, PAGE_W, type Sheet } from './sheet';
+import { LIGHT, M, type Sheet } from './sheet';
 
 export interface TableColumn<T> {
   head: string;
@@ -11,7 +11,7 @@ export function table<T>(sh: Sheet, columns: TableColumn<T>[], rows: readonly T[
   const lineH = fontSize * 1.22;
   const header = () => {
     sh.fill(LIGHT);
-    sh.doc.rect(M, sh.y, PAGE_W - 2 * M, lineH + 5, 'F');
+    sh.doc.rect(M, sh.y, sh.w - 2 * M, lineH + 5, 'F');
     sh.font(fontSize, 'bold');
     let x = M + 3;
     for (const col of columns) {
@@ -28,13 +28,13 @@ export function table<T>(sh: Sheet, columns: TableColumn<T>[], rows: readonly T[
       return sh.split(col.cell(row), col.width - 6);
     });
     const h = Math.max(...cells.map((c) => c.length)) * lineH + 4;
-    if (sh.y + h > BODY_BOTTOM) {
+    if (sh.y + h > sh.bodyBottom) {
       sh.newPage();
       header();
     }
     if (i % 2 === 1) {
       sh.fill([247, 247, 247]);
-      sh.doc.rect(M, sh.y - 1, PAGE_W - 2 * M, h, 'F');
+      sh.doc.rect(M, sh.y - 1, sh.w - 2 * M, h, 'F');
     }
     let x = M + 3;
     columns.forEach((col, k) => {

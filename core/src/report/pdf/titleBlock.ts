@@ -4,7 +4,14 @@ import { CAUTION } from '../../caution';
 import { TOOL_NAME, TOOL_VERSION } from '../version';
 import { BLACK, GREY, LIGHT, type DrawBox, type Sheet } from './sheet';
 
-export function drawTitleBlock(sh: Sheet, report: AnalysisReport, project: Project, generated: string, box: DrawBox): void {
+/** Height the title block needs: project, rows, seal area, the caution. */
+export const TITLE_BLOCK_H = 300;
+
+/**
+ * The title block of a drawing sheet: project, sheet number, revision, date, preparer, a blank area
+ * for a professional seal, and the caution.
+ */
+export function drawTitleBlock(sh: Sheet, report: AnalysisReport, project: Project, generated: string, box: DrawBox, sheet: { n: number; of: number }): void {
   const d = sh.doc;
   sh.stroke(BLACK, 1.2);
   d.rect(box.x, box.y, box.w, box.h, 'S');
@@ -20,6 +27,9 @@ export function drawTitleBlock(sh: Sheet, report: AnalysisReport, project: Proje
   sh.text(name, x, y + 10);
   y += 13 * name.length + 2;
   const rows: [string, string][] = [
+    ['SHEET', `${sheet.n} of ${sheet.of} (one-line diagram)`],
+    ['REVISION', ''],
+    ['DATE', generated.slice(0, 10)],
     ['CODE EDITION', `NFPA 70 (NEC) ${report.edition}`],
     ['PREPARED BY', project.project.preparedBy ?? 'not stated'],
     ['GENERATED', generated],
@@ -36,12 +46,21 @@ export function drawTitleBlock(sh: Sheet, report: AnalysisReport, project: Proje
     y += 13;
   }
   d.line(box.x, y, box.x + box.w, y);
+  // Left blank for the seal and signature of the professional who takes responsibility.
+  const sealH = 96;
+  sh.font(6.5, 'normal', GREY);
+  sh.text('PROFESSIONAL SEAL AND SIGNATURE', x, y + 8);
+  sh.stroke(GREY, 0.4, [2, 2]);
+  d.rect(box.x + box.w / 2 - sealH / 2 + 10, y + 12, sealH - 20, sealH - 20, 'S');
+  y += sealH;
+  sh.stroke(GREY, 0.4);
+  d.line(box.x, y, box.x + box.w, y);
   sh.fill(LIGHT);
   d.rect(box.x, y, box.w, 16, 'F');
   sh.font(8.5, 'bold');
   sh.text('FOR REVIEW — NOT A VERDICT OF ACCEPTANCE', box.x + box.w / 2, y + 11, { align: 'center' });
   y += 20;
-  sh.font(6.8, 'normal');
+  sh.font(6.5, 'normal');
   const caution = sh.split(report.caution || CAUTION, w);
   sh.text(caution, x, y + 6);
 }

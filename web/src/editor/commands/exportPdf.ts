@@ -21,7 +21,7 @@ export const exportPdf = defineCommand({
       ctx.store.notify(`The PDF code could not be loaded (${e instanceof Error ? e.message : String(e)}); reload the page and export again.`, 'error');
       return;
     }
-    const bytes = renderPermitPdf(doc, report, { generatedAt: new Date().toISOString() });
+    const bytes = renderPermitPdf(doc, report, { generatedAt: new Date().toISOString(), sheet: ctx.store.getState().view.pdfSheet });
     ctx.download(`${fileBaseName(doc)}.pdf`, 'application/pdf', bytes);
   },
 });
