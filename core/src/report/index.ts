@@ -4,7 +4,8 @@ export { toJsonReport, type JsonReport, type JsonConductor, type JsonFinding, ty
 export { toSarif, toUriReference, idLines, SARIF_SCHEMA, type SarifLog, type SarifOptions } from './sarif';
 export { toConductorScheduleCsv, csvField, SCHEDULE_COLUMNS } from './csv';
 export { spreadsheetCell, looksLikeFormula, inertText, clipText, textLength } from './safeText';
-export { renderPermitPdf, renderResponseLetterPdf, pdfSafe, SHEET_SIZES, SHEET_SIZE_IDS, type PdfOptions, type LetterOptions, type SheetSize } from './pdf';
+export { renderPermitPdf, renderResponseLetterPdf, pdfSafe, type PdfOptions, type LetterOptions } from './pdf';
+export { SHEET_SIZES, SHEET_SIZE_IDS, type SheetSize } from './pdf/sheetSizes';
 export { layoutNodes, DEFAULT_COLUMN_GAP, DEFAULT_LAYER_GAP, type Point, type LayoutNode, type LayoutEdge, type LayoutOptions } from './layout';
 export { projectJsonSchema, projectJsonSchemaText } from './jsonSchema';
 export { TOOL_NAME, TOOL_VERSION } from './version';
