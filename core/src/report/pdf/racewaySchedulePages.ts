@@ -5,7 +5,7 @@ import type { TakeoffRun } from '../../takeoff/types';
 import { tradeSizeLabel } from '../../tables/chapter9Table4';
 import { materialLabel, sizeLabel } from '../../tables/sizes';
 import { lengthText } from '../format';
-import { M, PAGE_W, type Sheet } from './sheet';
+import { M, type Sheet } from './sheet';
 import { table, type TableColumn } from './table';
 
 function conductors(count: number, size: TakeoffRun['size'] | null, material: TakeoffRun['material'], insulation: string): string {
@@ -40,12 +40,12 @@ export function racewaySchedulePages(sh: Sheet, { project, report }: PdfContext)
     { head: 'Length', width: 45, cell: (r) => lengthText(r.lengthFt) },
   ];
   const used = cols.reduce((a, c) => a + c.width, 0);
-  cols.push({ head: 'Notes', width: PAGE_W - 2 * M - used, cell: (r) => [r.raceway.problem, r.egc.problem].filter((x) => x !== null).join('; ') || r.circuit.neutralReason });
+  cols.push({ head: 'Notes', width: sh.w - 2 * M - used, cell: (r) => [r.raceway.problem, r.egc.problem].filter((x) => x !== null).join('; ') || r.circuit.neutralReason });
   table(sh, cols, takeoff.runs, 7);
   sh.font(7.5, 'italic');
   const note = sh.split(
     'EGC: Table 250.122 from the OCPD ahead; increased by 250.122(B) where the phase conductors exceed the minimum the OCPD and load need; one in each raceway of a parallel set (250.122(F)). Raceway: Chapter 9 Tables 1, 4 and 5 with the EGC counted; one raceway per parallel set. CCC: current-carrying conductors per raceway, 310.15(E).',
-    PAGE_W - 2 * M,
+    sh.w - 2 * M,
   );
   sh.text(note, M, sh.y + 8);
   sh.y += note.length * 9 + 8;

@@ -1,7 +1,7 @@
 import type { NodeFault } from '../../studies/types';
 import { faultText, loadDropRows, pctText, type LoadDropRow } from '../studies';
 import type { PdfContext } from './context';
-import { M, PAGE_W, type Sheet } from './sheet';
+import { M, type Sheet } from './sheet';
 import { table, type TableColumn } from './table';
 
 /**
@@ -37,7 +37,7 @@ export function studyPages(sh: Sheet, { project, report }: PdfContext): void {
   const used = cols.reduce((a, c) => a + c.width, 0);
   cols.push({
     head: 'Note',
-    width: PAGE_W - 2 * M - used,
+    width: sh.w - 2 * M - used,
     cell: (f) => {
       const m = service.get(f.nodeId);
       return [m ? `110.24 marking: ${faultText(m.kA, m.upperBound)}, date ${m.date ?? 'not entered'}` : '', f.unknownWhy ?? '', f.motorKA > 0 ? `includes ${f.motorKA.toFixed(2)} kA motor contribution` : ''].filter(Boolean).join('; ');
@@ -52,7 +52,7 @@ export function studyPages(sh: Sheet, { project, report }: PdfContext): void {
     { head: 'Load', width: 110, cell: (r) => r.loadId, bold: (r) => (r.totalPct ?? 0) > s.voltageDrop.totalLimitPct },
     { head: 'Total', width: 60, cell: (r) => pctText(r.totalPct), bold: (r) => (r.totalPct ?? 0) > s.voltageDrop.totalLimitPct },
   ];
-  vdCols.push({ head: 'By segment, source to load', width: PAGE_W - 2 * M - 170, cell: (r) => r.segments.map((g) => `${g.conductorId} ${pctText(g.pct)}`).join(' + ') });
+  vdCols.push({ head: 'By segment, source to load', width: sh.w - 2 * M - 170, cell: (r) => r.segments.map((g) => `${g.conductorId} ${pctText(g.pct)}`).join(' + ') });
   if (rows.length === 0) {
     sh.font(9, 'normal');
     sh.text('No load has a computed drop (lengths or loads missing).', M, sh.y + 9);
@@ -63,7 +63,7 @@ export function studyPages(sh: Sheet, { project, report }: PdfContext): void {
   sh.heading('Study method and defaults');
   sh.font(8, 'normal');
   for (const n of s.notes) {
-    const lines = sh.split(`- ${n}`, PAGE_W - 2 * M - 20);
+    const lines = sh.split(`- ${n}`, sh.w - 2 * M - 20);
     sh.need(lines.length * 10 + 2);
     sh.text(lines, M + 6, sh.y + 8);
     sh.y += lines.length * 10 + 2;
