@@ -10,14 +10,15 @@ import { analyze, loadProject, renderPermitPdf, SHEET_SIZE_IDS, SHEET_SIZES } fr
  * `pdftotext -bbox` (installed with the test tools, README). Helvetica's box is 0.926 of its size
  * (ascent 718 + descent 207 per 1000 units, the font's AFM), so a 6 pt word is 5.56 pt tall.
  */
-const SAMPLES = ['demo-clinic', 'mixed-use', 'bottling-hall', 'cold-storage'];
+// Every sample, and a project under review (comment pins on the drawing, a revision block in the title column).
+const SAMPLES = ['demo-clinic', 'mixed-use', 'bottling-hall', 'cold-storage', 'motor-shop', 'service-yard', 'review/round-2'];
 const dir = mkdtempSync(join(tmpdir(), 'lw-pdf-'));
 const BOX_PER_PT = 0.926;
 
 interface Word { page: number; x: number; y: number; w: number; h: number; text: string }
 
 function words(pdf: Uint8Array, name: string): Word[] {
-  const file = join(dir, `${name}.pdf`);
+  const file = join(dir, `${name.replace(/\//g, '-')}.pdf`);
   writeFileSync(file, pdf);
   const html = execFileSync('pdftotext', ['-bbox', file, '-'], { encoding: 'utf8', maxBuffer: 64 << 20 });
   const out: Word[] = [];
@@ -30,9 +31,12 @@ function words(pdf: Uint8Array, name: string): Word[] {
   return out;
 }
 
-/** Text size of a word in pt; a word set vertically (a match line) has its size across its box's width. */
+/**
+ * Text size of a word in pt. A word set vertically (a match line) is much taller than wide and has its
+ * size across its box's width; a word of one or two characters may be either way, so the larger side counts.
+ */
 function sizeOf(w: Word): number {
-  const across = w.text.length <= 2 ? Math.max(w.h, w.w) : Math.min(w.h, w.w);
+  const across = w.text.length <= 2 ? Math.max(w.h, w.w) : w.h > 1.8 * w.w ? w.w : w.h;
   return across / BOX_PER_PT;
 }
 

@@ -218,6 +218,15 @@ export function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport,
     if (pl.node.kind === 'bus') placer.add({ x: pl.p.x - half, y: pl.p.y - s * 0.3, w: 2 * half, h: s * 0.6 });
     else placer.add({ x: pl.p.x - s, y: pl.p.y - s, w: 2 * s, h: 2 * s });
   }
+  // A bus bar whose piece lies on another detail sheet but whose bar runs into this one is drawn too
+  // (clipped at the frame), so the drops on this sheet hang from a bar; its label is on the other sheet.
+  for (const [id, pl] of all) {
+    if (pl.node.kind !== 'bus' || placed.has(id)) continue;
+    const half = busHalf.get(id)!;
+    if (pl.p.y < box.y || pl.p.y > box.y + box.h || pl.p.x + half < box.x || pl.p.x - half > box.x + box.w) continue;
+    drawSymbol(sh, pl.node, pl.p.x, pl.p.y, s, half);
+    placer.add({ x: pl.p.x - half, y: pl.p.y - s * 0.3, w: 2 * half, h: s * 0.6 });
+  }
 
   // 3. Labels, flagged conductors first so they get the best spots, then equipment, then the rest.
   // Text under the legible floor is never printed: a reduced overview shows structure and callouts only.

@@ -1,7 +1,7 @@
 import { BLACK, GREY, M, SIDE_W, type DrawBox, type Sheet } from './sheet';
 import { DETAIL_BELOW_SCALE, detailScale, detailSheets, drawOneLine, fit, viewAt, type DetailSheet } from './drawing';
 import { drawLegend } from './legend';
-import { TITLE_BLOCK_H, drawSummary, drawTitleBlock } from './titleBlock';
+import { drawSummary, drawTitleBlock, titleBlockHeights } from './titleBlock';
 import type { PdfContext } from './context';
 import { printPositions } from './positions';
 import { drawCommentPins, drawRevisionBlock } from './review';
@@ -43,13 +43,17 @@ export function drawingSheets(sh: Sheet, ctx: PdfContext): void {
       sh.font(7, 'bold', GREY);
       sh.text(d.name, a.x + 2, a.y + 8);
     }
+    // Above the frame, right-aligned on the subtitle's line: inside it the note would print over the drawing.
     sh.font(8, 'bold');
-    sh.text(`Key plan at reduced scale, text left out: detail sheets ${details[0]!.name}-${details[details.length - 1]!.name} follow at a legible scale, each outlined here.`, box.x + 6, box.y + box.h - 6);
+    sh.text(`Key plan at reduced scale, text left out: detail sheets ${details[0]!.name}-${details[details.length - 1]!.name} follow at a legible scale, each outlined here.`, box.x + box.w, M + 24, { align: 'right' });
   }
   let y = drawLegend(sh, sideX, M, SIDE_W);
   y = drawSummary(sh, report, sideX, y + 6);
-  y = drawRevisionBlock(sh, ctx, sideX, y + 6, SIDE_W);
-  drawTitleBlock(sh, report, project, generated, { x: sideX, y: Math.max(y + 6, sh.bodyBottom - TITLE_BLOCK_H), w: SIDE_W, h: Math.min(TITLE_BLOCK_H, sh.bodyBottom - y - 6) }, { n: 1, of: sheets });
+  // The revisions take what the title block (at its most compact) leaves; the title block the rest, up to its full height.
+  const tb = titleBlockHeights(sh, report, project, generated, SIDE_W);
+  y = drawRevisionBlock(sh, ctx, sideX, y + 6, SIDE_W, sh.bodyBottom - tb.least - y - 12);
+  const tbH = Math.max(tb.least, Math.min(tb.full, sh.bodyBottom - y - 6));
+  drawTitleBlock(sh, report, project, generated, { x: sideX, y: sh.bodyBottom - tbH, w: SIDE_W, h: tbH }, { n: 1, of: sheets });
 
   details.forEach((d, k) => {
     sh.newPage();
@@ -64,29 +68,54 @@ export function drawingSheets(sh: Sheet, ctx: PdfContext): void {
     const a = view.map({ x: d.x0, y: d.y0 });
     const z = view.map({ x: d.x0 + d.w, y: d.y0 + d.h });
     const region = { x: a.x, y: a.y, w: Math.min(z.x, box.x + box.w - 14) - a.x, h: Math.min(z.y, box.y + box.h - 14) - a.y };
-    drawOneLine(sh, project, report, region, numbers, positions, view);
+    // An edge with no sheet beyond it is the drawing's own edge: there the clip opens to the frame, so a
+    // symbol or label on that edge prints whole.
+    const n = neighbours(d, details);
+    const x1 = n.left ? region.x : box.x + 1;
+    const y1 = n.above ? region.y : box.y + 1;
+    const x2 = n.right ? region.x + region.w : box.x + box.w - 1;
+    const y2 = n.below ? region.y + region.h : box.y + box.h - 1;
+    const clip = { x: x1, y: y1, w: x2 - x1, h: y2 - y1 };
+    drawOneLine(sh, project, report, clip, numbers, positions, view);
     drawCommentPins(sh, ctx, positions, view, region);
-    matchLines(sh, d, details, region);
-    drawTitleBlock(sh, report, project, generated, { x: sideX, y: sh.bodyBottom - TITLE_BLOCK_H, w: SIDE_W, h: TITLE_BLOCK_H }, { n: k + 2, of: sheets });
+    matchLines(sh, n, region);
+    drawTitleBlock(sh, report, project, generated, { x: sideX, y: sh.bodyBottom - tb.full, w: SIDE_W, h: tb.full }, { n: k + 2, of: sheets });
   });
+}
+
+interface Neighbours {
+  right?: DetailSheet;
+  left?: DetailSheet;
+  below?: DetailSheet;
+  above?: DetailSheet;
+}
+
+/** The detail sheets that continue `d` on each side (regions of the same grid sharing an edge). */
+function neighbours(d: DetailSheet, all: readonly DetailSheet[]): Neighbours {
+  const near = (a: number, b: number) => Math.abs(a - b) < 1e-6 * Math.max(1, Math.abs(a));
+  return {
+    right: all.find((o) => near(o.x0, d.x0 + d.w) && near(o.y0, d.y0)),
+    left: all.find((o) => near(o.x0 + o.w, d.x0) && near(o.y0, d.y0)),
+    below: all.find((o) => near(o.y0, d.y0 + d.h) && near(o.x0, d.x0)),
+    above: all.find((o) => near(o.y0 + o.h, d.y0) && near(o.x0, d.x0)),
+  };
 }
 
 /**
  * Heavy dash-dot lines on the edges a detail region shares with another, each naming the sheet that
  * continues the drawing there (the drafting convention for a drawing split across sheets).
  */
-function matchLines(sh: Sheet, d: DetailSheet, all: readonly DetailSheet[], r: DrawBox): void {
-  const near = (a: number, b: number) => Math.abs(a - b) < 1e-6 * Math.max(1, Math.abs(a));
+function matchLines(sh: Sheet, n: Neighbours, r: DrawBox): void {
   const x1 = r.x;
   const x2 = r.x + r.w;
   const y1 = r.y;
   const y2 = r.y + r.h;
   // Each note sits outside the region, in the margin beside its line, so it covers nothing drawn.
   const sides: { other: DetailSheet | undefined; line: [number, number, number, number]; at: { x: number; y: number }; vertical: boolean }[] = [
-    { other: all.find((o) => near(o.x0, d.x0 + d.w) && near(o.y0, d.y0)), line: [x2, y1, x2, y2], at: { x: x2 + 11, y: (y1 + y2) / 2 }, vertical: true },
-    { other: all.find((o) => near(o.x0 + o.w, d.x0) && near(o.y0, d.y0)), line: [x1, y1, x1, y2], at: { x: x1 - 5, y: (y1 + y2) / 2 }, vertical: true },
-    { other: all.find((o) => near(o.y0, d.y0 + d.h) && near(o.x0, d.x0)), line: [x1, y2, x2, y2], at: { x: (x1 + x2) / 2, y: y2 + 10 }, vertical: false },
-    { other: all.find((o) => near(o.y0 + o.h, d.y0) && near(o.x0, d.x0)), line: [x1, y1, x2, y1], at: { x: (x1 + x2) / 2, y: y1 - 4 }, vertical: false },
+    { other: n.right, line: [x2, y1, x2, y2], at: { x: x2 + 11, y: (y1 + y2) / 2 }, vertical: true },
+    { other: n.left, line: [x1, y1, x1, y2], at: { x: x1 - 5, y: (y1 + y2) / 2 }, vertical: true },
+    { other: n.below, line: [x1, y2, x2, y2], at: { x: (x1 + x2) / 2, y: y2 + 10 }, vertical: false },
+    { other: n.above, line: [x1, y1, x2, y1], at: { x: (x1 + x2) / 2, y: y1 - 4 }, vertical: false },
   ];
   for (const s of sides) {
     if (!s.other) continue;

@@ -13,11 +13,17 @@ export function footers(sh: Sheet, report: AnalysisReport, generated: string): v
     // One line at 6.5 pt fits the standard caution; a longer one shrinks, never below the 6 pt legible floor.
     let size = 6.5;
     while (size > MIN_TEXT_PT && sh.doc.getTextWidth(pdfSafe(report.caution || CAUTION)) > sh.w - 2 * M) sh.font((size -= 0.5), 'normal');
-    sh.text(sh.split(report.caution || CAUTION, sh.w - 2 * M), M, y + 9);
-    sh.font(7, 'normal', GREY);
-    sh.text(`${report.projectName} · NEC ${report.edition} · generated ${generated} · for review — not a verdict of acceptance`, M, y + 20);
+    const caution = sh.split(report.caution || CAUTION, sh.w - 2 * M);
+    sh.text(caution, M, y + 9);
+    // A caution that still wraps pushes the line below it down (into the margin), never over it.
+    const below = y + 20 + (caution.length - 1) * size * 1.15;
     sh.font(8, 'bold');
-    sh.text(`Page ${p} of ${total}`, sh.w - M, y + 20, { align: 'right' });
+    const page = `Page ${p} of ${total}`;
+    const pageW = sh.doc.getTextWidth(page);
+    sh.text(page, sh.w - M, below, { align: 'right' });
+    sh.font(7, 'normal', GREY);
+    const line = sh.split(`${report.projectName} · NEC ${report.edition} · generated ${generated} · for review — not a verdict of acceptance`, sh.w - 2 * M - pageW - 12)[0] ?? '';
+    sh.text(line, M, below);
   }
 }
 

@@ -58,21 +58,26 @@ export function drawCommentPins(sh: Sheet, ctx: PdfContext, positions: Map<strin
   }
 }
 
-/** The revision block of the title column: one line per round. Returns the y below it; draws nothing without rounds. */
-export function drawRevisionBlock(sh: Sheet, ctx: PdfContext, x: number, y: number, w: number): number {
+/**
+ * The revision block of the title column: one line per round, the latest that fit in `maxH` (at most six).
+ * Returns the y below it; draws nothing without rounds.
+ */
+export function drawRevisionBlock(sh: Sheet, ctx: PdfContext, x: number, y: number, w: number, maxH = Infinity): number {
   const rounds = reviewOf(ctx.project).rounds;
   const accepted = acceptedFindingIds(ctx.project.review, ctx.report).size;
   if (rounds.length === 0 && accepted === 0) return y;
+  const rowH = 11;
+  const fits = Math.floor((maxH - 14 - rowH - (accepted > 0 ? rowH : 0) - 4) / rowH);
+  if (fits < Math.min(1, rounds.length)) return y;
+  const shown = rounds.slice(-Math.min(6, fits));
   const d = sh.doc;
   sh.stroke(BLACK, 1);
-  const rowH = 11;
-  const shown = rounds.slice(-6);
   const h = 14 + rowH * (shown.length + 1) + (accepted > 0 ? rowH : 0) + 4;
   d.rect(x, y, w, h, 'S');
   sh.fill(LIGHT);
   d.rect(x, y, w, 12, 'F');
   sh.font(7, 'bold');
-  sh.text('REVISIONS (REVIEW ROUNDS)', x + 6, y + 8.5);
+  sh.text(shown.length < rounds.length ? `REVISIONS (LATEST ${shown.length} OF ${rounds.length} REVIEW ROUNDS)` : 'REVISIONS (REVIEW ROUNDS)', x + 6, y + 8.5);
   let yy = y + 14;
   sh.font(6.5, 'bold', GREY);
   sh.text('NO.', x + 6, yy + 7);
