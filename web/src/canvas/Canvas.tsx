@@ -216,7 +216,7 @@ export function Canvas() {
         nodesConnectable={!readOnly}
       >
         <Background variant={BackgroundVariant.Dots} gap={GRID} size={1} color="#c9ccd1" />
-        <Panel position="top-left">
+        <Panel position="top-left" className="lw-drawing-tools-panel">
           <DrawingTools />
         </Panel>
         {nodes.length === 0 && (

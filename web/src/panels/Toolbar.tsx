@@ -65,8 +65,8 @@ export function Toolbar() {
           />
           <CmdButton cmd={saveJson} testId="cmd-save">Save file</CmdButton>
           <CmdButton cmd={exportPdf} testId="cmd-pdf">Export PDF</CmdButton>
-          <select aria-label="PDF sheet size" title="Sheet size of the exported PDF" value={sheet} onChange={(e) => ctx.store.setView({ pdfSheet: e.target.value as SheetSize })} data-testid="pdf-sheet">
-            {SHEET_SIZE_IDS.map((id) => <option key={id} value={id}>{SHEET_SIZES[id].name}</option>)}
+          <select aria-label="PDF sheet size" title={`Sheet size of the exported PDF: ${SHEET_SIZES[sheet].name}`} value={sheet} onChange={(e) => ctx.store.setView({ pdfSheet: e.target.value as SheetSize })} data-testid="pdf-sheet">
+            {SHEET_SIZE_IDS.map((id) => <option key={id} value={id} title={SHEET_SIZES[id].name}>{SHEET_SIZES[id].short}</option>)}
           </select>
           <TakeoffButton />
         </div>
