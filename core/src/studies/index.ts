@@ -1,4 +1,4 @@
-import type { VerdictContext } from '../analyze/context';
+import type { AnalysisContext, VerdictContext } from '../analyze/context';
 import type { Finding, Severity } from '../analyze/types';
 import { CONDUCTOR_SIZES, type ConductorSize, type EquipmentNode, type Material, type NodeId, type Project } from '../model/schema';
 import type { Check, Rule } from '../rules/define';
@@ -50,14 +50,33 @@ export function runStudies(ctx: VerdictContext): StudiesResult {
   ctx.verdicts.forEach((v, r) => {
     if ((v.verdict.startsWith('tap-') && v.verdict !== 'tap-from-tap') || v.verdict.startsWith('secondary-')) taps.push({ conductors: ctx.runs.members[r]!, deviceNode: v.deviceNode });
   });
-  return studyNetwork(ctx.project, ctx.graph, ctx.order, ctx.count, taps);
+  return studyNetwork(ctx, taps);
+}
+
+/** The network the studies read: the project, its graph and order, the loads and each conductor's circuit. */
+export type StudiedNetwork = Pick<AnalysisContext, 'project' | 'graph' | 'order' | 'count' | 'loads' | 'circuits'>;
+
+/** The voltage-drop study on the supply tree and conductor impedances the fault study already read. */
+export function studyVoltageDropAfterFault(net: Omit<StudiedNetwork, 'project'>, fault: FaultStudy): VoltageDropStudy {
+  return studyVoltageDrop(net.graph, {
+    order: net.order,
+    count: net.count,
+    voltsLL: fault.voltsLL,
+    loads: net.loads,
+    circuits: net.circuits,
+    rOhmPerKft: fault.rOhmPerKft,
+    xOhmPerKft: fault.xOhmPerKft,
+    parent: fault.parent,
+    parentEdge: fault.parentEdge,
+  });
 }
 
 /** The studies over a network and the tap and secondary runs the classifier accepted. */
-export function studyNetwork(project: Project, g: Graph, order: Int32Array, count: number, taps: readonly TapRun[]): StudiesResult {
+export function studyNetwork(net: StudiedNetwork, taps: readonly TapRun[]): StudiesResult {
+  const { project, graph: g, order, count } = net;
   const edition = project.project.codeEdition;
   const fault = studyFaultCurrent(g, order, count);
-  const drop = studyVoltageDrop(g, { order, count, voltsLL: fault.voltsLL, singlePhase: fault.loop, parent: fault.parent, parentEdge: fault.parentEdge });
+  const drop = studyVoltageDropAfterFault(net, fault);
   const findings: Finding[] = [];
   const push = (rule: Rule<string, never>, severity: Severity, subject: Finding['subject'], checks: readonly Check[], related: Finding['related'] = [], data: Finding['data'] = {}) => {
     const failed = checks.filter((c) => c.status === 'fail');
@@ -146,44 +165,50 @@ export function studyNetwork(project: Project, g: Graph, order: Int32Array, coun
   // Voltage drop: each circuit at its end, each load's total.
   const circuitLimit = project.project.voltageDropCircuitPct ?? DEFAULT_VD_CIRCUIT_PCT;
   const totalLimit = project.project.voltageDropTotalPct ?? DEFAULT_VD_TOTAL_PCT;
+  // Only a drop above its limit can fail the rule (pct ≤ limit holds), so the others build no checks.
+  const over = (pct: number, limit: number) => pct > limit + 1e-9;
   const conductorsDrop: ConductorDrop[] = new Array(g.conductors.length);
   for (let c = 0; c < g.conductors.length; c++) {
     const cond = g.conductors[c]!;
     const to = g.conductorTo[c]!;
-    const pct = num(drop.pct[c]!);
-    const circuitPct = to >= 0 && fault.parentEdge[to] === c ? num(drop.circuitPct[to]!) : null;
-    conductorsDrop[c] = { conductorId: cond.id, currentA: num(drop.currentA[c]!), powerFactor: num(drop.powerFactor[c]!), pct, circuitPct, totalPct: to >= 0 && fault.parentEdge[to] === c ? num(drop.totalPct[to]!) : null };
-    if (circuitPct !== null && to >= 0 && endsCircuit(g, to)) {
+    const onTree = to >= 0 && fault.parentEdge[to] === c;
+    const circuitPct = onTree ? num(drop.circuitPct[to]!) : null;
+    conductorsDrop[c] = { conductorId: cond.id, currentA: num(drop.currentA[c]!), powerFactor: num(drop.powerFactor[c]!), pct: num(drop.pct[c]!), circuitPct, totalPct: onTree ? num(drop.totalPct[to]!) : null };
+    if (circuitPct !== null && over(circuitPct, circuitLimit) && endsCircuit(g, to)) {
       const checks = voltageDropRule.check({ edition, scope: 'circuit', subject: `Conductor ${cond.label ? `${cond.label} (${cond.id})` : cond.id}`, pct: circuitPct, limitPct: circuitLimit });
       push(voltageDropRule, 'warning', { kind: 'conductor', id: cond.id }, checks);
     }
   }
   for (let v = 0; v < g.nodes.length; v++) {
     const node = g.nodes[v]!;
-    if (node.kind !== 'load' || Number.isNaN(drop.totalPct[v]!)) continue;
-    push(voltageDropRule, 'warning', { kind: 'node', id: node.id }, voltageDropRule.check({ edition, scope: 'total', subject: `Load ${label(node)}`, pct: drop.totalPct[v]!, limitPct: totalLimit }));
+    const total = drop.totalPct[v]!;
+    if (node.kind !== 'load' || !over(total, totalLimit)) continue;
+    push(voltageDropRule, 'warning', { kind: 'node', id: node.id }, voltageDropRule.check({ edition, scope: 'total', subject: `Load ${label(node)}`, pct: total, limitPct: totalLimit }));
   }
 
+  // One object shape for every row (the optional `unknownWhy` added after), so building 100 000 rows stays on the fast path.
   const faults: NodeFault[] = new Array(g.nodes.length);
   for (let v = 0; v < g.nodes.length; v++) {
     const p = fault.parent[v]!;
     const known = !Number.isNaN(fault.r[v]!);
-    faults[v] = {
-      nodeId: g.nodes[v]!.id,
-      kind: g.nodes[v]!.kind,
+    const node = g.nodes[v]!;
+    const row: NodeFault = {
+      nodeId: node.id,
+      kind: node.kind,
       kA: kAt(v),
       xOverR: num(fault.xOverR[v]!),
       lineToGroundKA: num(fault.lineToGroundKA[v]!),
       motorKA: fault.motorKA[v]!,
       upperBound: fault.upperBound[v] === 1,
       voltsLL: num(fault.voltsLL[v]!),
-      ...(fault.unknownWhy[v] ? { unknownWhy: fault.unknownWhy[v] } : {}),
       parentId: p >= 0 ? g.nodes[p]!.id : null,
       stepROhm: fault.stepR[v]!,
       stepXOhm: fault.stepX[v]!,
       rOhm: known ? fault.r[v]! : null,
       xOhm: known ? fault.x[v]! : null,
     };
+    if (fault.unknownWhy[v]) row.unknownWhy = fault.unknownWhy[v];
+    faults[v] = row;
   }
 
   return {

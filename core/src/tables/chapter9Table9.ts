@@ -82,9 +82,19 @@ const COLUMN_INDEX: Readonly<Record<RacewayColumn, 0 | 1 | 2>> = { pvc: 0, alumi
 
 /** R and X of one conductor, Ω/1000 ft, or null when Table 9 has no value for it. */
 export function table9Impedance(material: Material, size: ConductorSize, column: RacewayColumn): { rOhmPerKft: number; xOhmPerKft: number } | null {
+  const r = table9ROhmPerKft(material, size, column);
+  return Number.isNaN(r) ? null : { rOhmPerKft: r, xOhmPerKft: table9XOhmPerKft(size, column) };
+}
+
+/** R of one conductor, Ω/1000 ft, NaN when Table 9 has no value (no object: the studies read it per conductor). */
+export function table9ROhmPerKft(material: Material, size: ConductorSize, column: RacewayColumn): number {
   const row = BY_INDEX[sizeIndexOf(size)];
-  if (!row) return null;
-  const rs = material === 'cu' ? row.rCu : row.rAl;
-  if (!rs) return null;
-  return { rOhmPerKft: rs[COLUMN_INDEX[column]], xOhmPerKft: column === 'steel' ? row.xSteel : row.xPvcAl };
+  const rs = row ? (material === 'cu' ? row.rCu : row.rAl) : null;
+  return rs ? rs[COLUMN_INDEX[column]] : Number.NaN;
+}
+
+/** X of one conductor, Ω/1000 ft, NaN when Table 9 has no row for the size. */
+export function table9XOhmPerKft(size: ConductorSize, column: RacewayColumn): number {
+  const row = BY_INDEX[sizeIndexOf(size)];
+  return row ? (column === 'steel' ? row.xSteel : row.xPvcAl) : Number.NaN;
 }

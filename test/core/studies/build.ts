@@ -1,7 +1,7 @@
 import { PROJECT_VERSION, project as projectSchema, type Project } from '../../../core/src/model/schema';
-import { buildGraph, topologicalOrder } from '../../../core/src/topology/graph';
+import { prepareContext } from '../../../core/src/analyze/context';
 import { studyFaultCurrent } from '../../../core/src/studies/faultCurrent/faultCurrent';
-import { studyVoltageDrop } from '../../../core/src/studies/voltageDrop/voltageDrop';
+import { studyVoltageDropAfterFault } from '../../../core/src/studies/index';
 
 type Raw = Record<string, unknown>;
 
@@ -33,10 +33,10 @@ export class Net {
   }
   study(raw = false) {
     const p = this.project(raw);
-    const g = buildGraph(p);
-    const { order, count } = topologicalOrder(g);
-    const fault = studyFaultCurrent(g, order, count);
-    const drop = studyVoltageDrop(g, { order, count, voltsLL: fault.voltsLL, singlePhase: fault.loop, parent: fault.parent, parentEdge: fault.parentEdge });
+    const ctx = prepareContext(p);
+    const g = ctx.graph;
+    const fault = studyFaultCurrent(g, ctx.order, ctx.count);
+    const drop = studyVoltageDropAfterFault(ctx, fault);
     const at = (id: string) => g.nodeIndex.get(id)!;
     const wire = (id: string) => p.conductors.findIndex((c) => c.id === id);
     return { p, g, fault, drop, kA: (id: string) => fault.kA[at(id)]!, xr: (id: string) => fault.xOverR[at(id)]!, pct: (id: string) => drop.pct[wire(id)]!, total: (id: string) => drop.totalPct[at(id)]!, circuit: (id: string) => drop.circuitPct[at(id)]! };

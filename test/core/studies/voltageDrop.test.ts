@@ -58,6 +58,70 @@ describe('voltage-drop study (Chapter 9 Table 9 effective impedance)', () => {
     expect(s.circuit('LT')).toBeCloseTo(s.total('LT'), 12);
   });
 
+  // Each conductor on its own circuit (the load's own connection): single-phase 2-wire VD = 2·I·(R cos θ + X sin θ)·L/1000
+  // over the line-to-neutral voltage, line to line over V_LL, three-phase √3·I·(…)·L/1000 over V_LL (IEEE Std 141
+  // Chapter 3 approximate formula with the Chapter 9 Table 9 note's effective Z; from memory).
+  it('277 V lighting on a 480Y/277 V system, line to neutral: 16 A at PF 0.90, 150 ft of 10 AWG Cu in steel: 2·16·1.1075·0.15 = 5.32 V = 1.92 % of 277 V (not of 480 V)', () => {
+    const s = new Net()
+      .node('U', 'utility', { voltsLL: 480, phases: 3 })
+      .node('CB', 'breaker', { ratingA: 20 })
+      .link('L0', 'U', 'CB')
+      .node('LT', 'load', { currentA: 16, phases: 1, connection: 'line-to-neutral', powerFactor: 0.9 })
+      .wire('B', 'CB', 'LT', { size: '10', lengthFt: 150 })
+      .study();
+    const zEff = 1.2 * 0.9 + 0.063 * Math.sqrt(1 - 0.81); // Chapter 9 Table 9, 10 AWG Cu, steel conduit
+    expect(s.drop.currentA[0]).toBeCloseTo(16, 9);
+    expect(s.drop.singlePhase[0]).toBe(1);
+    expect(s.pct('B')).toBeCloseTo((100 * 2 * 16 * zEff * 0.15) / 277, 6);
+    expect(s.pct('B')).toBeCloseTo(1.92, 2);
+  });
+
+  it('120 V load on a 208Y/120 V system, 1.44 kVA at PF 1.0 (12 A), 100 ft of 12 AWG Cu in PVC (R 2.0 Ω/1000 ft): 2·12·2.0·0.1 = 4.8 V = 4.0 % of 120 V', () => {
+    const s = new Net()
+      .node('U', 'utility', { voltsLL: 208, phases: 3 })
+      .node('CB', 'breaker', { ratingA: 20 })
+      .link('L0', 'U', 'CB')
+      .node('R1', 'load', { kva: 1.44, phases: 1, connection: 'line-to-neutral', powerFactor: 1 })
+      .wire('B', 'CB', 'R1', { size: '12', lengthFt: 100, wiring: 'pvc-conduit' })
+      .study();
+    expect(s.drop.currentA[0]).toBeCloseTo(12, 9);
+    expect(s.pct('B')).toBeCloseTo(4.0, 9);
+  });
+
+  it('208 V single-phase load, line to line on 208Y/120 V: 20 A at PF 1.0, 100 ft of 10 AWG Cu in PVC (R 1.2): 2·20·1.2·0.1 = 4.8 V = 2.31 % of 208 V', () => {
+    const s = new Net()
+      .node('U', 'utility', { voltsLL: 208, phases: 3 })
+      .node('CB', 'breaker', { ratingA: 30 })
+      .link('L0', 'U', 'CB')
+      .node('H', 'load', { currentA: 20, phases: 1, connection: 'line-to-line', powerFactor: 1 })
+      .wire('B', 'CB', 'H', { size: '10', lengthFt: 100, wiring: 'pvc-conduit' })
+      .study();
+    expect(s.drop.currentA[0]).toBeCloseTo(20, 9);
+    expect(s.pct('B')).toBeCloseTo((100 * 4.8) / 208, 9);
+  });
+
+  it('a 3-phase feeder to a panelboard and a 277 V branch below it: the feeder over 480 V by √3, the branch over 277 V by 2, and the total is their sum', () => {
+    const s = new Net()
+      .node('U', 'utility', { voltsLL: 480, phases: 3 })
+      .node('CB1', 'breaker', { ratingA: 100 })
+      .link('L0', 'U', 'CB1')
+      .node('P', 'bus', { busType: 'panelboard' })
+      .wire('F', 'CB1', 'P', { size: '3', lengthFt: 200 })
+      .node('CB2', 'breaker', { ratingA: 20 })
+      .link('L1', 'P', 'CB2')
+      .node('LT', 'load', { currentA: 16, phases: 1, connection: 'line-to-neutral', powerFactor: 1 })
+      .wire('B', 'CB2', 'LT', { size: '12', lengthFt: 100 })
+      .node('M', 'load', { kva: 50, phases: 3, powerFactor: 1 })
+      .link('L2', 'P', 'M')
+      .study();
+    // Feeder: (50 000 + 16·277) VA / (√3·480) = 66.47 A; 3 AWG Cu in steel R 0.25 (Chapter 9 Table 9) at PF 1.
+    const feederA = (50_000 + 16 * 277) / (SQRT3 * 480);
+    expect(s.drop.currentA[0]).toBeCloseTo(feederA, 6);
+    expect(s.pct('F')).toBeCloseTo((100 * SQRT3 * feederA * 0.25 * 0.2) / 480, 6);
+    expect(s.pct('B')).toBeCloseTo((100 * 2 * 16 * 2.0 * 0.1) / 277, 6);
+    expect(s.total('LT')).toBeCloseTo(s.pct('F') + s.pct('B'), 12);
+  });
+
   it('a circuit starts again at each device; the total runs on to the transformer or source', () => {
     const s = new Net()
       .node('U', 'utility', { voltsLL: 480, phases: 3 })

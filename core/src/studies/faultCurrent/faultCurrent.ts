@@ -1,5 +1,5 @@
 import type { EquipmentNode } from '../../model/schema';
-import { racewayColumn, table9Impedance } from '../../tables/chapter9Table9';
+import { racewayColumn, table9ROhmPerKft, table9XOhmPerKft } from '../../tables/chapter9Table9';
 import {
   TYPICAL_GENERATOR_XDPP_PU,
   TYPICAL_GENERATOR_X_OVER_R,
@@ -62,6 +62,9 @@ export interface FaultStudy {
   stepX: Float64Array;
   /** The source or transformer whose zone the node lies in (-1 when none). */
   zone: Int32Array;
+  /** Per conductor that supplies a node: Chapter 9 Table 9 R and X of one conductor, Ω/1000 ft; NaN when not read or not known. */
+  rOhmPerKft: Float64Array;
+  xOhmPerKft: Float64Array;
   /** Statements of method and defaults used, once each. */
   notes: string[];
 }
@@ -86,6 +89,8 @@ export function studyFaultCurrent(g: Graph, order: Int32Array, count: number): F
   const stepR = new Float64Array(n);
   const stepX = new Float64Array(n);
   const zone = new Int32Array(n).fill(-1);
+  const rOhmPerKft = new Float64Array(g.conductors.length).fill(Number.NaN);
+  const xOhmPerKft = new Float64Array(g.conductors.length).fill(Number.NaN);
   const notes = new Set<string>();
 
   for (let k = 0; k < count; k++) {
@@ -137,14 +142,16 @@ export function studyFaultCurrent(g: Graph, order: Int32Array, count: number): F
     let dx = 0;
     if (e >= 0) {
       const c = g.conductors[e]!;
-      const z = table9Impedance(c.material, c.size, racewayColumn(c.wiring));
-      if (!z || c.lengthFt === undefined) {
+      const column = racewayColumn(c.wiring);
+      const rc = (rOhmPerKft[e] = table9ROhmPerKft(c.material, c.size, column));
+      const xc = (xOhmPerKft[e] = table9XOhmPerKft(c.size, column));
+      if (Number.isNaN(rc) || c.lengthFt === undefined) {
         upperBound[v] = 1;
         notes.add('A conductor without a length or a Chapter 9 Table 9 value counts as zero impedance: the fault current below it is an upper bound ("at most").');
       } else {
         const factor = ((isLoop ? 2 : 1) * c.lengthFt) / 1000 / c.parallelSets;
-        dr = z.rOhmPerKft * factor;
-        dx = z.xOhmPerKft * factor;
+        dr = rc * factor;
+        dx = xc * factor;
       }
     }
     if (node.kind === 'transformer') {
@@ -206,7 +213,7 @@ export function studyFaultCurrent(g: Graph, order: Int32Array, count: number): F
   }
   if (lineToGroundKA.some((a) => !Number.isNaN(a)))
     notes.add('Line-to-ground: computed only at the terminals of a grounded-wye transformer secondary (delta primary: zero-sequence impedance taken equal to positive-sequence, so I_LG = I_3φ) and of a center-tapped single-phase secondary (line to neutral about 1.5 × line to line), common practice; elsewhere the return path is not in the drawing.');
-  return { kA, xOverR, r, x, loop, voltsLL, motorKA, lineToGroundKA, upperBound, unknownWhy, parent, parentEdge, stepR, stepX, zone, notes: [...notes] };
+  return { kA, xOverR, r, x, loop, voltsLL, motorKA, lineToGroundKA, upperBound, unknownWhy, parent, parentEdge, stepR, stepX, zone, rOhmPerKft, xOhmPerKft, notes: [...notes] };
 }
 
 /** Transformer R and X on the secondary, ohms (phase or single-phase loop), or null without %Z. */

@@ -1,24 +1,29 @@
-import type { NodeOfKind } from '../../model/schema';
-import { racewayColumn, table9Impedance } from '../../tables/chapter9Table9';
-import { motorTableFlcA } from '../../tables/motor';
-import { edgeTo, type Graph } from '../../topology/graph';
+import type { ConductorCircuit } from '../../analyze/circuits';
+import type { SystemLoads } from '../../analyze/loads';
+import type { Graph } from '../../topology/graph';
 
 /**
  * Voltage drop per conductor and cumulative from the source to every load,
  * by the effective impedance of the Chapter 9 Table 9 notes:
  * Z_eff = R·cos θ + X·sin θ (θ the power-factor angle of the load served,
- * lagging), three-phase VD = √3·I·Z_eff·L/1000, single-phase VD =
- * 2·I·Z_eff·L/1000, R and X divided by the parallel sets, L one way; percent of
- * the circuit's own voltage. Linear: one pass load-to-source for the current
- * and power factor, one pass source-to-load for the sums.
+ * lagging), R and X divided by the parallel sets, L one way. Each conductor is
+ * taken on its own circuit (analyze/circuits.ts, from the loads' own
+ * connection, loads.ts `loadConnection`): three-phase VD = √3·I·Z_eff·L/1000
+ * over V_LL; a single-phase 2-wire line-to-neutral circuit VD =
+ * 2·I·Z_eff·L/1000 over V_LN; a line-to-line circuit 2·I·Z_eff·L/1000 over
+ * V_LL (the approximate voltage-drop formula of IEEE Std 141, Chapter 3, with
+ * the Table 9 note's Z_eff; from memory). Linear: one pass load-to-source for
+ * the real and reactive power, one pass over the conductors, one pass
+ * source-to-load for the sums.
  *
  * The current in a conductor is what flows to the loads below it (unfactored),
- * from the real and reactive power of each load, so a feeder serving loads of
- * several power factors carries their combined power factor. Transformer
- * losses and regulation are not included: the total counts from the last
- * source or transformer secondary (stated in the report). The circuit figure
- * counts from the last overcurrent device, so a feeder and a branch circuit
- * are judged separately and add up in the total.
+ * from the real and reactive power of each load (its own circuit's
+ * volt-amperes, loads.ts), so a feeder serving loads of several power factors
+ * carries their combined power factor. Transformer losses and regulation are
+ * not included: the total counts from the last source or transformer
+ * secondary (stated in the report). The circuit figure counts from the last
+ * overcurrent device, so a feeder and a branch circuit are judged separately
+ * and add up in the total (percentages of their own voltages).
  */
 export interface VoltageDropStudy {
   /** Per conductor: current, A; NaN when unknown. */
@@ -36,14 +41,19 @@ export interface VoltageDropStudy {
   notes: string[];
 }
 
-/** What the voltage-drop study needs from the network: voltages, phase arrangement and supply order. */
+/** What the voltage-drop study needs from the network: voltages, each conductor's circuit, the loads and the supply order. */
 export interface VoltageDropInputs {
   order: Int32Array;
   count: number;
-  /** Line-to-line voltage at each node. */
+  /** Line-to-line voltage at each node (NaN when unknown). */
   voltsLL: Float64Array;
-  /** 1 where the circuit arriving at the node is single phase (a single-phase system, load or transformer). */
-  singlePhase: Uint8Array;
+  /** The loads: each load's own circuit (volt-amperes) and the line-to-neutral voltage at each node. */
+  loads: Pick<SystemLoads, 'loadCircuits' | 'voltsLN'>;
+  /** Each conductor's circuit (analyze/circuits.ts): three-phase, line to neutral, line to line. */
+  circuits: readonly Pick<ConductorCircuit, 'makeup' | 'system'>[];
+  /** Each conductor's Chapter 9 Table 9 R and X, Ω per 1000 ft of one conductor (NaN when not known), as the fault study read them. */
+  rOhmPerKft: Float64Array;
+  xOhmPerKft: Float64Array;
   /** Supplying node and edge of each node (-1 for none). */
   parent: Int32Array;
   parentEdge: Int32Array;
@@ -51,23 +61,12 @@ export interface VoltageDropInputs {
 
 const SQRT3 = Math.sqrt(3);
 
-/**
- * The line current a motor or HVAC load states on its own terms: the table full-load current of a
- * motor by horsepower (430.6(A), Tables 430.248/430.250) or its nameplate FLA, the nameplate MCA of
- * HVAC equipment (440.4(B)); null for other loads, which give amperes or kVA.
- */
-function nameplateLineA(node: NodeOfKind<'load'>, volts: number, phases: 1 | 3): number | null {
-  if (node.hvac) return node.hvac.mcaA;
-  if (!node.motor) return null;
-  const table = node.motor.hp === undefined ? null : motorTableFlcA(node.motor.hp, volts, phases);
-  return table?.flcA ?? node.motor.fullLoadA ?? null;
-}
-
 export function studyVoltageDrop(g: Graph, inp: VoltageDropInputs): VoltageDropStudy {
   const n = g.nodes.length;
   const m = g.conductors.length;
-  const { order, count, voltsLL } = inp;
-  // Real and reactive power at and below each node.
+  const { order, count, voltsLL, parent, parentEdge } = inp;
+  const { loadCircuits, voltsLN } = inp.loads;
+  // Real and reactive power at and below each node, one pass load to source along the supply tree.
   const p = new Float64Array(n);
   const q = new Float64Array(n);
   let unknownLoad = false;
@@ -75,19 +74,17 @@ export function studyVoltageDrop(g: Graph, inp: VoltageDropInputs): VoltageDropS
     const v = order[k]!;
     const node = g.nodes[v]!;
     if (node.kind === 'load') {
-      const phases = node.phases ?? (inp.singlePhase[v] ? 1 : 3);
-      const lineA = nameplateLineA(node, voltsLL[v]!, phases) ?? node.currentA ?? 0;
-      const va = node.kva !== undefined ? node.kva * 1000 : lineA * voltsLL[v]! * (phases === 3 ? SQRT3 : 1);
-      if (Number.isFinite(va)) {
-        p[v] = p[v]! + va * node.powerFactor;
-        q[v] = q[v]! + va * Math.sqrt(1 - node.powerFactor * node.powerFactor);
+      const lc = loadCircuits[v];
+      if (lc) {
+        const pf = node.powerFactor;
+        p[v] = p[v]! + lc.va * pf;
+        q[v] = q[v]! + lc.va * Math.sqrt(1 - pf * pf);
       } else unknownLoad = true;
     }
-    for (const e of g.outEdges[v]!) {
-      const w = edgeTo(g, e);
-      if (w < 0 || inp.parent[w] !== v) continue;
-      p[v] = p[v]! + p[w]!;
-      q[v] = q[v]! + q[w]!;
+    const u = parent[v]!;
+    if (u >= 0) {
+      p[u] = p[u]! + p[v]!;
+      q[u] = q[u]! + q[v]!;
     }
   }
 
@@ -98,21 +95,27 @@ export function studyVoltageDrop(g: Graph, inp: VoltageDropInputs): VoltageDropS
   for (let c = 0; c < m; c++) {
     const to = g.conductorTo[c]!;
     const from = g.conductorFrom[c]!;
-    if (to < 0 || from < 0 || inp.parentEdge[to] !== c) continue;
-    const cond = g.conductors[c]!;
-    const volts = voltsLL[from]!;
-    const one = inp.singlePhase[to]!;
-    singlePhase[c] = one;
-    const s = Math.hypot(p[to]!, q[to]!);
+    if (to < 0 || from < 0 || parentEdge[to] !== c) continue;
+    // Each conductor on its own circuit: three-phase √3 over V_LL; a 2-wire line-to-neutral circuit 2 over V_LN
+    // (the grounded conductor carries the return); a 2-wire system's circuit 2 over its voltage; a line-to-line
+    // or 3-wire single-phase circuit 2 over V_LL (balanced: the neutral carries no current).
+    const circuit = inp.circuits[c]!;
+    const three = circuit.makeup.kind === 'three-phase-4w' || circuit.makeup.kind === 'three-phase-3w';
+    singlePhase[c] = three ? 0 : 1;
+    const volts = three ? voltsLL[from]! : circuit.makeup.kind === 'two-wire' && circuit.system.arrangement !== 'single-2w' ? voltsLN[from]! : voltsLL[from]!;
     if (!(volts > 0)) continue;
-    const amps = s / ((one ? 1 : SQRT3) * volts);
-    const pf = s > 0 ? p[to]! / s : 1;
+    const pt = p[to]!;
+    const qt = q[to]!;
+    const s = Math.sqrt(pt * pt + qt * qt);
+    const amps = s / ((three ? SQRT3 : 1) * volts);
+    const pf = s > 0 ? pt / s : 1;
     currentA[c] = amps;
     powerFactor[c] = pf;
-    const z = table9Impedance(cond.material, cond.size, racewayColumn(cond.wiring));
-    if (!z || cond.lengthFt === undefined) continue;
-    const zEff = z.rOhmPerKft * pf + z.xOhmPerKft * Math.sqrt(1 - pf * pf);
-    const vd = ((one ? 2 : SQRT3) * amps * zEff * cond.lengthFt) / 1000 / cond.parallelSets;
+    const r = inp.rOhmPerKft[c]!;
+    const lengthFt = g.conductors[c]!.lengthFt;
+    if (Number.isNaN(r) || lengthFt === undefined) continue;
+    const zEff = r * pf + inp.xOhmPerKft[c]! * Math.sqrt(1 - pf * pf);
+    const vd = ((three ? SQRT3 : 2) * amps * zEff * lengthFt) / 1000 / g.conductors[c]!.parallelSets;
     pct[c] = (100 * vd) / volts;
   }
 
@@ -120,13 +123,13 @@ export function studyVoltageDrop(g: Graph, inp: VoltageDropInputs): VoltageDropS
   const circuitPct = new Float64Array(n).fill(Number.NaN);
   for (let k = 0; k < count; k++) {
     const v = order[k]!;
-    const u = inp.parent[v]!;
+    const u = parent[v]!;
     if (u < 0) {
       const kind = g.nodes[v]!.kind;
       if (kind === 'utility' || kind === 'generator') totalPct[v] = circuitPct[v] = 0;
       continue;
     }
-    const e = inp.parentEdge[v]!;
+    const e = parentEdge[v]!;
     const d = e >= 0 ? pct[e]! : 0;
     // Values arrive at v; what leaves a source or transformer starts again, and a circuit also starts at a device.
     const up = g.nodes[u]!.kind;
@@ -135,7 +138,7 @@ export function studyVoltageDrop(g: Graph, inp: VoltageDropInputs): VoltageDropS
     circuitPct[v] = (newSystem || up === 'breaker' || up === 'fuse' ? 0 : circuitPct[u]!) + d;
   }
   const notes = [
-    'Voltage drop: Chapter 9 Table 9 effective impedance R·cos θ + X·sin θ at the power factor of the loads served (lagging), conductors at 75 °C; three-phase √3·I·Z·L, single-phase 2·I·Z·L, over the circuit voltage. Totals count from the source or transformer secondary; transformer regulation is not included.',
+    "Voltage drop: Chapter 9 Table 9 effective impedance R·cos θ + X·sin θ at the power factor of the loads served (lagging), conductors at 75 °C; each conductor on its own circuit: three-phase √3·I·Z·L/1000 over the line-to-line voltage, a line-to-neutral circuit 2·I·Z·L/1000 over the line-to-neutral voltage, a line-to-line or single-phase 3-wire circuit 2·I·Z·L/1000 over the line-to-line voltage (balanced). Totals count from the source or transformer secondary; transformer regulation is not included.",
   ];
   if (unknownLoad) notes.push('A load without a known voltage adds nothing to the currents above it.');
   return { currentA, powerFactor, pct, singlePhase, totalPct, circuitPct, notes };
