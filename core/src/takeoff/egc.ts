@@ -4,7 +4,8 @@ import type { ConductorReport } from '../analyze/types';
 import type { CodeEdition, Conductor, ConductorSize } from '../model/schema';
 import { conductorAreaCmil } from '../tables/conductorProperties';
 import { egcSizeForOcpd, smallestSizeWithAreaCmil } from '../tables/egc250_122';
-import { sizeIndexOf, sizeLabel } from '../tables/sizes';
+import { supplySideBondingJumper } from '../tables/bondingJumper250_102';
+import { materialLabel, sizeIndexOf, sizeLabel } from '../tables/sizes';
 import type { EgcSizing } from './types';
 
 type EgcConductor = Pick<
@@ -69,8 +70,7 @@ const TAP_VERDICTS: ReadonlySet<ConductorReport['verdict']> = new Set(['tap-10ft
  * from the feeder OCPD (250.122(G)); never larger than the phase conductors
  * (250.122(A)). Service, generator and transformer-secondary conductors have
  * no OCPD at their supply end: what runs with them is a supply-side bonding
- * jumper (250.102(C)), whose table is not transcribed here, so the takeoff
- * counts it only when the run states its size.
+ * jumper, sized by Table 250.102(C)(1) (see sizeSupplySideJumper).
  */
 export function sizeEgc(
   c: EgcConductor,
@@ -83,19 +83,7 @@ export function sizeEgc(
   const base = { material, tableSize: null, minimumPhaseSize: null, increaseRatio: 1, ocpdA: null } as const;
   const stated = c.egcSize ?? null;
 
-  if (SUPPLY_SIDE_ROLES.has(report.role)) {
-    if (stated !== null) {
-      return { ...base, size: stated, count: sets, cites: ['250.102(C)'], reason: 'supply-side bonding jumper as stated on the run (250.102(C)), one per raceway', problem: null };
-    }
-    return {
-      ...base,
-      size: null,
-      count: 0,
-      cites: ['250.102(C)'],
-      reason: `${report.role} conductors have no OCPD at their supply end: the supply-side bonding jumper is sized by 250.102(C)`,
-      problem: 'supply-side bonding jumper not counted: size it by 250.102(C) and enter it as the run\'s egcSize',
-    };
-  }
+  if (SUPPLY_SIDE_ROLES.has(report.role)) return sizeSupplySideJumper(c, report.role, edition);
 
   const ocpdA = report.upstreamDevice?.ratingA ?? null;
   if (ocpdA === null) {
@@ -148,4 +136,37 @@ export function sizeEgc(
     };
   }
   return { ...computed, size, reason: notes.join('; '), problem: null };
+}
+
+/**
+ * The supply-side bonding jumper of a service, generator or transformer-secondary run (250.92(B) and
+ * 250.102(C) at a service, 250.30(A)(2) at a separately derived system): Table 250.102(C)(1) by the
+ * ungrounded conductors in each raceway (250.102(C)(2): one jumper per raceway, sized by that
+ * raceway's conductors), 12.5 % of their area above 1100 kcmil Cu / 1750 kcmil Al, of the supply
+ * conductors' material. A stated size below that is flagged.
+ */
+function sizeSupplySideJumper(c: EgcConductor, role: ConductorReport['role'], edition: CodeEdition): EgcSizing {
+  const sets = c.parallelSets;
+  const j = supplySideBondingJumper(c.size, c.material, edition);
+  const cites = ['Table 250.102(C)(1)'];
+  if (j.basis === 'percent') cites.push('250.102(C)(1)');
+  if (sets > 1) cites.push('250.102(C)(2)');
+  const why =
+    j.basis === 'table'
+      ? `Table 250.102(C)(1), ${sizeLabel(c.size)} ${materialLabel(c.material)} ungrounded conductors: ${sizeLabel(j.size!)}`
+      : `above the table (over 1100 kcmil Cu / 1750 kcmil Al): 12.5 % of ${sizeLabel(c.size)} = ${Math.round(j.neededCmil!)} cmil → ${sizeLabel(j.size!)} (250.102(C)(1))`;
+  const notes = [`${role} conductors have no OCPD at their supply end: a supply-side bonding jumper`, why];
+  if (sets > 1) notes.push(`one in each of ${sets} raceways, sized by the conductors in that raceway (250.102(C)(2))`);
+  const base = { material: c.material, tableSize: j.size, minimumPhaseSize: null, increaseRatio: 1, ocpdA: null, count: sets, cites };
+  const stated = c.egcSize ?? null;
+  if (stated !== null) {
+    const below = j.size !== null && sizeIndexOf(stated) < sizeIndexOf(j.size);
+    return {
+      ...base,
+      size: stated,
+      reason: `stated ${sizeLabel(stated)}; minimum ${j.size === null ? 'unknown' : sizeLabel(j.size)}: ${notes.join('; ')}`,
+      problem: below ? `the stated supply-side bonding jumper ${sizeLabel(stated)} is below the 250.102(C)(1) minimum ${sizeLabel(j.size!)}` : null,
+    };
+  }
+  return { ...base, size: j.size, reason: notes.join('; '), problem: null };
 }

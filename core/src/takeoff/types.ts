@@ -11,14 +11,14 @@ export interface EgcSizing {
   material: Material;
   /** One per raceway or cable (250.122(F)): the number of parallel sets. 0 when not sized. */
   count: number;
-  /** Table 250.122 size from the OCPD ahead, before any increase. */
+  /** Table 250.122 size from the OCPD ahead, before any increase; for a supply-side bonding jumper its Table 250.102(C)(1) (or 12.5 %) size. */
   tableSize: ConductorSize | null;
   /** Smallest phase size the OCPD and load allow, against which 250.122(B) measures an increase. */
   minimumPhaseSize: ConductorSize | null;
   /** Circular-mil ratio of the actual to the minimum phase conductors (1 when not increased). */
   increaseRatio: number;
   ocpdA: number | null;
-  /** Sections that sized it: 'Table 250.122', '250.122(B)', '250.122(F)', '250.122(G)', '250.122(A)', '250.102(C)'. */
+  /** Sections that sized it: 'Table 250.122', '250.122(B)', '250.122(F)', '250.122(G)', '250.122(A)'; a supply-side bonding jumper 'Table 250.102(C)(1)', '250.102(C)(1)' (12.5 %), '250.102(C)(2)'. */
   cites: string[];
   reason: string;
   /** What an estimator must resolve (missing OCPD, stated size below the minimum), or null. */

@@ -61,12 +61,29 @@ describe('250.122(B): EGC increased in proportion to upsized phase conductors', 
     expect(tap.egc.cites).toContain('250.122(G)');
   });
 
-  it('a service has no OCPD ahead: its bonding jumper is not counted unless stated (250.102(C)), and the run says so', () => {
+  it('a service has no OCPD ahead: its supply-side bonding jumper is sized by Table 250.102(C)(1): 500 kcmil Cu (over 350 through 600) → 1/0 Cu', () => {
     const t = takeoffOf(diagram().utility(480).conductor({ size: '500', lengthFt: 20 }).breaker(400).switchboard(400).build());
-    expect(t.runs[0]!.egc.size).toBeNull();
-    expect(t.runs[0]!.flags.join(' ')).toMatch(/250\.102\(C\)/);
-    const stated = takeoffOf(diagram().utility(480).conductor({ size: '500', lengthFt: 20, egcSize: '1/0' }).breaker(400).switchboard(400).build());
-    expect(stated.runs[0]!.egc.size).toBe('1/0');
+    expect(t.runs[0]!.egc).toMatchObject({ size: '1/0', count: 1, cites: ['Table 250.102(C)(1)'], problem: null });
+    const stated = takeoffOf(diagram().utility(480).conductor({ size: '500', lengthFt: 20, egcSize: '2/0' }).breaker(400).switchboard(400).build());
+    expect(stated.runs[0]!.egc.size).toBe('2/0');
+    const below = takeoffOf(diagram().utility(480).conductor({ size: '500', lengthFt: 20, egcSize: '2' }).breaker(400).switchboard(400).build());
+    expect(below.runs[0]!.flags.join(' ')).toMatch(/below the 250\.102\(C\)\(1\) minimum 1\/0 AWG/);
+  });
+
+  it('250.102(C)(2): a service of 4 × 600 kcmil Cu in four raceways has a 1/0 Cu jumper in each (sized by one raceway, not by the 2400 kcmil total)', () => {
+    const t = takeoffOf(diagram().utility(480).conductor({ size: '600', parallelSets: 4, lengthFt: 20 }).breaker(2000).switchboard(2000).build());
+    expect(t.runs[0]!.egc).toMatchObject({ size: '1/0', count: 4 });
+    expect(t.runs[0]!.egc.cites).toContain('250.102(C)(2)');
+  });
+
+  it('250.102(C)(1) above the table: a transformer secondary of 1500 kcmil Cu needs 12.5 % × 1 500 000 = 187 500 cmil → 4/0 Cu (211 600 cmil, Chapter 9 Table 8)', () => {
+    const t = takeoffOf(
+      diagram().utility(480).breaker(1200).conductor({ size: '600', parallelSets: 3, lengthFt: 20 }).transformer({ kva: 500, impedancePct: 5 })
+        .conductor({ id: 'SEC', size: '1500', parallelSets: 1, lengthFt: 10 }).breaker(1200).switchboard(1600).build(),
+    );
+    const sec = t.runs.find((r) => r.conductorId === 'SEC')!;
+    expect(0.125 * 1_500_000).toBe(187_500);
+    expect(sec.egc).toMatchObject({ size: '4/0', cites: ['Table 250.102(C)(1)', '250.102(C)(1)'] });
   });
 
   it('a stated EGC below the minimum is flagged: 10 AWG on a 100 A circuit (Table 250.122: 8 AWG)', () => {
