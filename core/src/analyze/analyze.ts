@@ -47,8 +47,12 @@ export function analyze(project: Project): AnalysisReport {
 
 function assumptionsFor(project: Project): string[] {
   const setting = project.project.terminationDefault;
-  const terminals = new Set(project.conductors.map((c) => terminalTempOf(c, setting)));
-  const unstated = project.conductors.filter((c) => c.terminalTempC === undefined).length;
+  const terminals = new Set<number>();
+  let unstated = 0;
+  for (const c of project.conductors) {
+    terminals.add(terminalTempOf(c, setting));
+    if (c.terminalTempC === undefined) unstated++;
+  }
   const rule =
     setting === 'per-110.14(C)(1)'
       ? 'per 110.14(C)(1): 60 °C for 14 AWG to 1 AWG (circuits of 100 A or less), 75 °C for larger conductors'

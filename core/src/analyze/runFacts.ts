@@ -34,6 +34,7 @@ export function baseRunFacts(ctx: AnalysisContext): RunFacts[] {
     let leaves: boolean | null = false;
     let beyond = false;
     let cord = false;
+    let highBay: RunFacts['highBay'] = null;
     for (const ci of members) {
       const c = g.conductors[ci]!;
       lengthFt = lengthFt === null || c.lengthFt === undefined ? null : lengthFt + c.lengthFt;
@@ -59,6 +60,7 @@ export function baseRunFacts(ctx: AnalysisContext): RunFacts[] {
       else if (c.leavesEnclosure === undefined && leaves === false) leaves = null;
       beyond ||= c.extendsBeyondEquipment;
       cord ||= c.multioutletCordAndPlug;
+      if (highBay === null && c.highBay !== undefined) highBay = c.highBay;
     }
     const lastIndex = members[members.length - 1]!;
     const toNode = g.conductorTo[lastIndex]!;
@@ -90,7 +92,7 @@ export function baseRunFacts(ctx: AnalysisContext): RunFacts[] {
       extendsBeyondEquipment: beyond,
       multioutletCordAndPlug: cord,
       hasSplices: members.length > 1,
-      highBay: members.map((ci) => g.conductors[ci]!.highBay).find((h) => h !== undefined) ?? null,
+      highBay,
       site,
       transformer: null,
       secondaries: [],

@@ -103,7 +103,6 @@ export function studyNetwork(net: StudiedNetwork, taps: readonly TapRun[]): Stud
   const noRating: NodeId[] = [];
   for (let v = 0; v < g.nodes.length; v++) {
     const node = g.nodes[v]!;
-    const subject = { kind: 'node', id: node.id } as const;
     if (node.kind === 'breaker' || node.kind === 'fuse') {
       if (node.interruptingKA === undefined) {
         if (kAt(v) !== null) noRating.push(node.id);
@@ -120,9 +119,9 @@ export function studyNetwork(net: StudiedNetwork, taps: readonly TapRun[]): Stud
         upperBound: fault.upperBound[v] === 1,
         series: s ? { lineSideId: s.lineSideId, lineSide: lineSide >= 0 ? label(g.nodes[lineSide]!) : s.lineSideId, combinationKA: s.combinationKA, lineSideIsAhead: isAhead(fault, lineSide, v) } : null,
       };
-      push(interruptingRating, 'violation', subject, interruptingRating.check(facts), s ? [{ kind: 'node', id: s.lineSideId }] : []);
+      push(interruptingRating, 'violation', { kind: 'node', id: node.id }, interruptingRating.check(facts), s ? [{ kind: 'node', id: s.lineSideId }] : []);
     } else if (node.kind === 'bus' && node.sccrKA !== undefined) {
-      push(equipmentSccr, 'violation', subject, equipmentSccr.check({ edition, equipmentId: node.id, equipment: label(node), sccrKA: node.sccrKA, faultKA: kAt(v), upperBound: fault.upperBound[v] === 1 }));
+      push(equipmentSccr, 'violation', { kind: 'node', id: node.id }, equipmentSccr.check({ edition, equipmentId: node.id, equipment: label(node), sccrKA: node.sccrKA, faultKA: kAt(v), upperBound: fault.upperBound[v] === 1 }));
     }
   }
   if (noRating.length > 0) {
@@ -154,12 +153,12 @@ export function studyNetwork(net: StudiedNetwork, taps: readonly TapRun[]): Stud
     const k = withstandConstant(c.material, facts.initialC, facts.finalC);
     const allowed = facts.faultKA === null ? null : withstandTimeS(facts.faultKA * 1000, facts.areaCmil * facts.parallelSets, k);
     withstand.push({ conductorIds: facts.conductorIds, faultKA: facts.faultKA, clearingTimeS: facts.clearingTimeS, clearingBasis: facts.clearingBasis, allowedS: allowed, withstands: allowed === null ? null : allowed >= facts.clearingTimeS });
-    for (const ci of t.conductors) {
-      push(conductorWithstand, 'violation', { kind: 'conductor', id: g.conductors[ci]!.id }, checks, [{ kind: 'node', id: device.id }], {
-        ...(facts.smallestSize ? { smallestSize: facts.smallestSize } : {}),
-        ...(allowed !== null ? { longestClearingS: Number(allowed.toPrecision(3)) } : {}),
-      });
-    }
+    if (!checks.some((x) => x.status === 'fail')) continue;
+    const extra = {
+      ...(facts.smallestSize ? { smallestSize: facts.smallestSize } : {}),
+      ...(allowed !== null ? { longestClearingS: Number(allowed.toPrecision(3)) } : {}),
+    };
+    for (const ci of t.conductors) push(conductorWithstand, 'violation', { kind: 'conductor', id: g.conductors[ci]!.id }, checks, [{ kind: 'node', id: device.id }], extra);
   }
 
   // Voltage drop: each circuit at its end, each load's total.
@@ -186,30 +185,8 @@ export function studyNetwork(net: StudiedNetwork, taps: readonly TapRun[]): Stud
     push(voltageDropRule, 'warning', { kind: 'node', id: node.id }, voltageDropRule.check({ edition, scope: 'total', subject: `Load ${label(node)}`, pct: total, limitPct: totalLimit }));
   }
 
-  // One object shape for every row (the optional `unknownWhy` added after), so building 100 000 rows stays on the fast path.
   const faults: NodeFault[] = new Array(g.nodes.length);
-  for (let v = 0; v < g.nodes.length; v++) {
-    const p = fault.parent[v]!;
-    const known = !Number.isNaN(fault.r[v]!);
-    const node = g.nodes[v]!;
-    const row: NodeFault = {
-      nodeId: node.id,
-      kind: node.kind,
-      kA: kAt(v),
-      xOverR: num(fault.xOverR[v]!),
-      lineToGroundKA: num(fault.lineToGroundKA[v]!),
-      motorKA: fault.motorKA[v]!,
-      upperBound: fault.upperBound[v] === 1,
-      voltsLL: num(fault.voltsLL[v]!),
-      parentId: p >= 0 ? g.nodes[p]!.id : null,
-      stepROhm: fault.stepR[v]!,
-      stepXOhm: fault.stepX[v]!,
-      rOhm: known ? fault.r[v]! : null,
-      xOhm: known ? fault.x[v]! : null,
-    };
-    if (fault.unknownWhy[v]) row.unknownWhy = fault.unknownWhy[v];
-    faults[v] = row;
-  }
+  for (let v = 0; v < g.nodes.length; v++) faults[v] = nodeFault(g, fault, v);
 
   return {
     report: {
@@ -223,6 +200,30 @@ export function studyNetwork(net: StudiedNetwork, taps: readonly TapRun[]): Stud
     fault,
     drop,
   };
+}
+
+/** One node's row of the short-circuit table: one object shape for every row (the optional `unknownWhy` added after), so building 100 000 rows stays on the fast path. */
+export function nodeFault(g: Graph, fault: FaultStudy, v: number): NodeFault {
+  const p = fault.parent[v]!;
+  const known = !Number.isNaN(fault.r[v]!);
+  const node = g.nodes[v]!;
+  const row: NodeFault = {
+    nodeId: node.id,
+    kind: node.kind,
+    kA: Number.isNaN(fault.kA[v]!) ? null : fault.kA[v]!,
+    xOverR: num(fault.xOverR[v]!),
+    lineToGroundKA: num(fault.lineToGroundKA[v]!),
+    motorKA: fault.motorKA[v]!,
+    upperBound: fault.upperBound[v] === 1,
+    voltsLL: num(fault.voltsLL[v]!),
+    parentId: p >= 0 ? g.nodes[p]!.id : null,
+    stepROhm: fault.stepR[v]!,
+    stepXOhm: fault.stepX[v]!,
+    rOhm: known ? fault.r[v]! : null,
+    xOhm: known ? fault.x[v]! : null,
+  };
+  if (fault.unknownWhy[v]) row.unknownWhy = fault.unknownWhy[v];
+  return row;
 }
 
 function label(node: EquipmentNode): string {

@@ -47,7 +47,9 @@ export function isStandardRating(a: number, edition: CodeEdition, device: OcpdDe
 
 /** Smallest standard rating strictly above `a`, or null above the largest (6000 A). */
 export function nextStandardRatingAbove(a: number, edition: CodeEdition, device: OcpdDevice): number | null {
-  for (const r of LISTS[edition][device]) if (r > a) return r;
+  const list = LISTS[edition][device];
+  // Index loops: this runs for every conductor, and an iterator costs an allocation per step until the caller is optimized.
+  for (let i = 0; i < list.length; i++) if (list[i]! > a) return list[i]!;
   return null;
 }
 
@@ -55,9 +57,6 @@ export function nextStandardRatingAbove(a: number, edition: CodeEdition, device:
 export function largestStandardRatingAtMost(a: number, edition: CodeEdition, device: OcpdDevice): number | null {
   const list = LISTS[edition][device];
   let best: number | null = null;
-  for (const r of list) {
-    if (r > a) break;
-    best = r;
-  }
+  for (let i = 0; i < list.length && list[i]! <= a; i++) best = list[i]!;
   return best;
 }
