@@ -28,13 +28,13 @@ export interface JsonReport {
   counts: AnalysisReport['counts'];
   /** Runs of more than one conductor joined at pass-through splices, each listed once. */
   runs: JsonRun[];
-  /** How much working the report carries: `summary` (the default) or `full` (adds `tried`). */
+  /** How much working the report carries: `summary` (the default) or `full` (adds `tried` and the short-circuit working). */
   detail: JsonDetail;
   /** Available fault current by node and voltage drop by conductor (core/src/report/studies.ts). */
   studies?: JsonStudies;
 }
 
-/** `summary`: verdicts, numbers, findings and fixes. `full`: also every rule tried, condition by condition. */
+/** `summary`: verdicts, numbers, findings and fixes. `full`: also every rule tried, condition by condition, and the short-circuit working of every node. */
 export const JSON_DETAILS = ['summary', 'full'] as const;
 export type JsonDetail = (typeof JSON_DETAILS)[number];
 
@@ -250,6 +250,6 @@ export function toJsonReport(report: AnalysisReport, options: JsonReportOptions 
     counts: { conductors: report.counts.conductors, byVerdict, bySeverity },
     runs,
     detail,
-    ...(report.studies ? { studies: jsonStudies(report.studies) } : {}),
+    ...(report.studies ? { studies: jsonStudies(report.studies, detail === 'full') } : {}),
   };
 }

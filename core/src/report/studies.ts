@@ -11,9 +11,21 @@ import type { StudiesReport } from '../studies/types';
 const r2 = (x: number | null): number | null => (x === null ? null : Math.round(x * 100) / 100);
 const r1 = (x: number | null): number | null => (x === null || !Number.isFinite(x) ? null : Math.round(x * 10) / 10);
 
+/** One node's row of `shortCircuit`: `node`, `kA` and `atMost` always; the rest only with `detail: 'full'`. */
+export interface JsonShortCircuit {
+  node: string;
+  kA: number | null;
+  xOverR?: number | null;
+  lineToGroundKA?: number | null;
+  motorKA?: number;
+  atMost: boolean;
+  voltsLL?: number | null;
+  unknownWhy?: string | null;
+}
+
 export interface JsonStudies {
   notes: string[];
-  shortCircuit: { node: string; kA: number | null; xOverR: number | null; lineToGroundKA: number | null; motorKA: number; atMost: boolean; voltsLL: number | null; unknownWhy: string | null }[];
+  shortCircuit: JsonShortCircuit[];
   serviceMarkings: { node: string; kA: number | null; atMost: boolean; date: string | null }[];
   withstand: { conductorIds: string[]; faultKA: number | null; clearingTimeS: number; clearingBasis: string; allowedS: number | null; withstands: boolean | null }[];
   voltageDrop: {
@@ -23,20 +35,29 @@ export interface JsonStudies {
   };
 }
 
-/** The `studies` section of the JSON report (docs/report-json.md), keys in a fixed order. */
-export function jsonStudies(s: StudiesReport): JsonStudies {
+/**
+ * The `studies` section of the JSON report (docs/report-json.md), keys in a fixed order. A row per
+ * node is a third of a default report; by default it carries the figure a reviewer marks and
+ * compares ratings with (kA, and whether it is an upper bound), and `full` adds the working.
+ */
+export function jsonStudies(s: StudiesReport, full = false): JsonStudies {
   return {
     notes: [...s.notes],
-    shortCircuit: s.faults.map((f) => ({
-      node: f.nodeId,
-      kA: r2(f.kA),
-      xOverR: r1(f.xOverR),
-      lineToGroundKA: r2(f.lineToGroundKA),
-      motorKA: r2(f.motorKA) ?? 0,
-      atMost: f.upperBound,
-      voltsLL: f.voltsLL,
-      unknownWhy: f.unknownWhy ?? null,
-    })),
+    shortCircuit: s.faults.map(
+      (f): JsonShortCircuit =>
+        full
+          ? {
+              node: f.nodeId,
+              kA: r2(f.kA),
+              xOverR: r1(f.xOverR),
+              lineToGroundKA: r2(f.lineToGroundKA),
+              motorKA: r2(f.motorKA) ?? 0,
+              atMost: f.upperBound,
+              voltsLL: f.voltsLL,
+              unknownWhy: f.unknownWhy ?? null,
+            }
+          : { node: f.nodeId, kA: r2(f.kA), atMost: f.upperBound },
+    ),
     serviceMarkings: s.serviceMarkings.map((m) => ({ node: m.nodeId, kA: r2(m.kA), atMost: m.upperBound, date: m.date })),
     withstand: s.withstand.map((w) => ({ conductorIds: [...w.conductorIds], faultKA: r2(w.faultKA), clearingTimeS: w.clearingTimeS, clearingBasis: w.clearingBasis, allowedS: w.allowedS === null ? null : Number(w.allowedS.toPrecision(3)), withstands: w.withstands })),
     voltageDrop: {

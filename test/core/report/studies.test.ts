@@ -41,6 +41,15 @@ describe('study figures in the reports', () => {
     expect(j.serviceMarkings.map((m) => m.node)).toEqual(['MSB-MAIN']);
   });
 
+  it('by default a short-circuit row is node, kA and atMost; --detail full adds the working (docs/report-json.md)', () => {
+    const summary = toJsonReport(report).studies!.shortCircuit;
+    const full = toJsonReport(report, { detail: 'full' }).studies!.shortCircuit;
+    expect(summary.map((r) => Object.keys(r))).toEqual(summary.map(() => ['node', 'kA', 'atMost']));
+    expect(Object.keys(full[0]!)).toEqual(['node', 'kA', 'xOverR', 'lineToGroundKA', 'motorKA', 'atMost', 'voltsLL', 'unknownWhy']);
+    expect(full.map(({ node, kA, atMost }) => ({ node, kA, atMost }))).toEqual(summary);
+    expect(full.find((r) => r.node === 'UTIL')!.xOverR).not.toBeNull();
+  });
+
   it('each load row adds up: the segments from the source to the load sum to its total', () => {
     const rows = loadDropRows(report);
     expect(rows.length).toBeGreaterThan(0);
