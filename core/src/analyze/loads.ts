@@ -191,20 +191,59 @@ export function loadConnection(node: NodeOfKind<'load'>, sysV: number, sysPhases
   if (!(sysV > 0)) return null;
   const ph: 1 | 3 = node.phases ?? (sysPhases === 1 ? 1 : 3);
   if (ph === 3 && sysPhases === 1) return null;
-  if (ph === 3) return { volts: sysV, phases: 3, connection: 'three-phase', basis: `three-phase at ${sysV} V: VA / (√3 × ${sysV} V)` };
+  if (ph === 3) return new Connection(sysV, 3, 'three-phase', 'three-phase', node, sysV, sysLN);
   if (node.connection === 'line-to-neutral') {
     if (!(sysLN > 0)) return null;
-    return { volts: sysLN, phases: 1, connection: 'line-to-neutral', basis: `single-phase line to neutral at ${sysLN} V: VA / ${sysLN} V` };
+    return new Connection(sysLN, 1, 'line-to-neutral', 'line-to-neutral', node, sysV, sysLN);
   }
-  if (node.connection === 'line-to-line' || !(sysLN > 0)) {
-    return { volts: sysV, phases: 1, connection: 'line-to-line', basis: `single-phase line to line at ${sysV} V: VA / ${sysV} V` };
-  }
-  if (node.currentA !== undefined) {
-    // Connection not stated: a load given in amperes counts its volt-amperes at the higher voltage.
-    return { volts: sysV, phases: 1, connection: 'line-to-line', basis: `single-phase, connection not stated: ${node.currentA} A taken at ${sysV} V line to line, the larger volt-amperes` };
-  }
+  if (node.connection === 'line-to-line' || !(sysLN > 0)) return new Connection(sysV, 1, 'line-to-line', 'line-to-line', node, sysV, sysLN);
+  // Connection not stated: a load given in amperes counts its volt-amperes at the higher voltage.
+  if (node.currentA !== undefined) return new Connection(sysV, 1, 'line-to-line', 'unstated-amperes', node, sysV, sysLN);
   // Connection not stated: a load given in kVA draws its current at the lower voltage.
-  return { volts: sysLN, phases: 1, connection: 'line-to-neutral', basis: `single-phase, connection not stated: taken line to neutral at ${sysLN} V, the larger current` };
+  return new Connection(sysLN, 1, 'line-to-neutral', 'unstated-kva', node, sysV, sysLN);
+}
+
+/** How the connection was decided: as drawn, or (not stated) by what the load is given in. */
+type Decided = LoadCircuit['connection'] | 'unstated-amperes' | 'unstated-kva';
+
+/**
+ * A load's connection. Its `basis` (the working in words) is written on first read: the load
+ * calculation and the circuit count each ask for every load's connection, and formatting the
+ * numbers of every load of a campus cost more than the roll-up itself.
+ */
+class Connection implements LoadConnection {
+  readonly volts: number;
+  readonly phases: 1 | 3;
+  readonly connection: LoadCircuit['connection'];
+  readonly #decided: Decided;
+  readonly #node: NodeOfKind<'load'>;
+  readonly #sysV: number;
+  readonly #sysLN: number;
+  constructor(volts: number, phases: 1 | 3, connection: LoadCircuit['connection'], decided: Decided, node: NodeOfKind<'load'>, sysV: number, sysLN: number) {
+    this.volts = volts;
+    this.phases = phases;
+    this.connection = connection;
+    this.#decided = decided;
+    this.#node = node;
+    this.#sysV = sysV;
+    this.#sysLN = sysLN;
+  }
+  get basis(): string {
+    const sysV = this.#sysV;
+    const sysLN = this.#sysLN;
+    switch (this.#decided) {
+      case 'three-phase':
+        return `three-phase at ${sysV} V: VA / (√3 × ${sysV} V)`;
+      case 'line-to-neutral':
+        return `single-phase line to neutral at ${sysLN} V: VA / ${sysLN} V`;
+      case 'line-to-line':
+        return `single-phase line to line at ${sysV} V: VA / ${sysV} V`;
+      case 'unstated-amperes':
+        return `single-phase, connection not stated: ${this.#node.currentA} A taken at ${sysV} V line to line, the larger volt-amperes`;
+      case 'unstated-kva':
+        return `single-phase, connection not stated: taken line to neutral at ${sysLN} V, the larger current`;
+    }
+  }
 }
 
 /**
@@ -215,18 +254,16 @@ export function loadConnection(node: NodeOfKind<'load'>, sysV: number, sysPhases
 export function loadCircuit(node: NodeOfKind<'load'>, sysV: number, sysPhases: number, sysLN: number): LoadCircuit | null {
   const on = loadConnection(node, sysV, sysPhases, sysLN);
   if (on === null) return null;
-  const { volts, connection, basis } = on;
-  const ph = on.phases;
-  const k = ph === 3 ? Math.sqrt(3) * volts : volts;
-  const base = { volts, phases: ph, connection, continuous: node.continuous, motor: null, hvac: null };
+  const { volts } = on;
+  const k = on.phases === 3 ? Math.sqrt(3) * volts : volts;
   if (node.hvac) {
     // The nameplate MCA already holds 125 % of the largest motor-compressor (440.33): counted as it stands, noncontinuous.
     const lineA = node.hvac.mcaA;
-    return { ...base, continuous: false, va: lineA * k, lineA, hvac: { ...node.hvac }, basis: `${basis}; HVAC equipment at its nameplate MCA, ${lineA} A` };
+    return new Circuit(on, lineA * k, lineA, false, null, { ...node.hvac }, node);
   }
   if (node.motor) {
     const m = node.motor;
-    const table = m.hp === undefined ? null : motorTableFlcA(m.hp, volts, ph);
+    const table = m.hp === undefined ? null : motorTableFlcA(m.hp, volts, on.phases);
     let fullLoadA: number;
     let source: string;
     if (table) {
@@ -236,21 +273,47 @@ export function loadCircuit(node: NodeOfKind<'load'>, sysV: number, sysPhases: n
       fullLoadA = m.fullLoadA;
       source = m.hp === undefined ? 'nameplate full-load current' : `nameplate full-load current (${formatHp(m.hp)} hp at ${volts} V is not in the tables)`;
     } else return null;
-    return {
-      ...base,
-      continuous: false,
-      va: fullLoadA * k,
-      lineA: fullLoadA,
-      motor: { fullLoadA, source, hp: m.hp ?? null, motorType: m.motorType ?? 'induction' },
-      basis: `${basis}; motor full-load current ${fullLoadA} A from ${source} (430.6(A))`,
-    };
+    return new Circuit(on, fullLoadA * k, fullLoadA, false, { fullLoadA, source, hp: m.hp ?? null, motorType: m.motorType ?? 'induction' }, null, node);
   }
   if (node.kva !== undefined) {
     const va = node.kva * 1000;
-    return { ...base, va, lineA: round2(va / k), basis };
+    return new Circuit(on, va, round2(va / k), node.continuous, null, null, node);
   }
-  if (node.currentA !== undefined) return { ...base, va: node.currentA * k, lineA: node.currentA, basis: `${node.currentA} A; ${basis}` };
+  if (node.currentA !== undefined) return new Circuit(on, node.currentA * k, node.currentA, node.continuous, null, null, node);
   return null;
+}
+
+/** A load's circuit; like its connection, the `basis` text is written on first read. */
+class Circuit implements LoadCircuit {
+  readonly volts: number;
+  readonly phases: 1 | 3;
+  readonly connection: LoadCircuit['connection'];
+  readonly va: number;
+  readonly lineA: number;
+  readonly continuous: boolean;
+  readonly motor: LoadCircuit['motor'];
+  readonly hvac: LoadCircuit['hvac'];
+  readonly #on: LoadConnection;
+  readonly #node: NodeOfKind<'load'>;
+  constructor(on: LoadConnection, va: number, lineA: number, continuous: boolean, motor: LoadCircuit['motor'], hvac: LoadCircuit['hvac'], node: NodeOfKind<'load'>) {
+    this.volts = on.volts;
+    this.phases = on.phases;
+    this.connection = on.connection;
+    this.va = va;
+    this.lineA = lineA;
+    this.continuous = continuous;
+    this.motor = motor;
+    this.hvac = hvac;
+    this.#on = on;
+    this.#node = node;
+  }
+  get basis(): string {
+    const basis = this.#on.basis;
+    if (this.hvac) return `${basis}; HVAC equipment at its nameplate MCA, ${this.lineA} A`;
+    if (this.motor) return `${basis}; motor full-load current ${this.motor.fullLoadA} A from ${this.motor.source} (430.6(A))`;
+    if (this.#node.kva === undefined && this.#node.currentA !== undefined) return `${this.#node.currentA} A; ${basis}`;
+    return basis;
+  }
 }
 
 function formatHp(hp: number): string {
