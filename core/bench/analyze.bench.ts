@@ -21,6 +21,10 @@
  * and report alive and samples heapUsed after each stage; the largest sample minus the baseline is
  * reported as "peak heap". It is a lower bound of the true peak (garbage made between samples is
  * not seen); the process's peak RSS (resourceUsage().maxRSS, whole run, all sizes) is printed too.
+ * Re-check: a session (createAnalysis) on the 10 000-conductor network, then one-conductor edits of
+ * branch circuits (a length changed by a foot, each a new project sharing every other object, as
+ * an editor's immer edit does), each timed through session.update(); median and 95th percentile,
+ * and how many the session re-checked on their own. One load edit (which it re-checks whole) too.
  * CLI: the command is built from the current source first (scripts/build-cli.mjs), then
  * `node core/bin/linewright.mjs check samples/demo-clinic.json --format json` runs as a child
  * process; the median wall time of the runs is reported.
@@ -30,7 +34,7 @@ import { cpus, loadavg } from 'node:os';
 import { resolve } from 'node:path';
 import { setFlagsFromString } from 'node:v8';
 import { runInNewContext } from 'node:vm';
-import { analyze, loadProject, toJsonReport, type Project } from '../src/index';
+import { analyze, createAnalysis, loadProject, toJsonReport, type Project } from '../src/index';
 import { buildCli } from '../../scripts/build-cli.mjs';
 import { generateProject } from './generateProject';
 import { printStudiesBench } from './studies';
@@ -230,6 +234,36 @@ function measure({ conductors, warmup, runs }: (typeof SIZES)[number]): SizeResu
   };
 }
 
+/** One-conductor edits through an incremental session at 10 000 conductors (see the header). */
+function measureRecheck(conductors = 10_000, edits = 60): { conductors: number; edits: number; incremental: number; medianMs: number; p95Ms: number; loadEditMs: number } {
+  const loaded = loadProject(generateProject({ conductors, seed: 1 }));
+  if (!loaded.ok) throw new Error('synthetic project refused');
+  let project = loaded.project;
+  const session = createAnalysis(project);
+  const branches = session.report.conductors.flatMap((c, i) => (c.role === 'branch' && c.lengthFt !== null ? [i] : []));
+  const times: number[] = [];
+  let incremental = 0;
+  for (let k = 0; k < edits + 5; k++) {
+    const i = branches[(k * 7919) % branches.length]!;
+    const c = project.conductors[i]!;
+    const next: Project = { ...project, conductors: project.conductors.map((x, j) => (j === i ? { ...c, lengthFt: (c.lengthFt ?? 0) + (k % 2 ? -1 : 1) } : x)) };
+    const t0 = process.hrtime.bigint();
+    session.update(next);
+    const t = ms(t0, process.hrtime.bigint());
+    project = next;
+    if (k < 5) continue;
+    times.push(t);
+    if (session.last.mode === 'incremental') incremental++;
+  }
+  const loadAt = project.nodes.findIndex((n) => n.kind === 'load' && n.kva !== undefined);
+  const withLoad: Project = { ...project, nodes: project.nodes.map((n, j) => (j === loadAt && n.kind === 'load' ? { ...n, kva: (n.kva ?? 1) + 1 } : n)) };
+  const t0 = process.hrtime.bigint();
+  session.update(withLoad);
+  const loadEditMs = ms(t0, process.hrtime.bigint());
+  const sorted = [...times].sort((a, b) => a - b);
+  return { conductors, edits, incremental, medianMs: round(median(times), 3), p95Ms: round(sorted[Math.ceil(sorted.length * 0.95) - 1]!, 3), loadEditMs: round(loadEditMs, 1) };
+}
+
 /** Whole-process time of the command on a sample, as a user runs it (median wall time, ms). */
 async function measureCli(): Promise<{ sample: string; runs: number; medianMs: number; exitCode: number | null }> {
   await buildCli();
@@ -268,6 +302,8 @@ const pipelineGrowth10kTo100k = round(at(100_000).pipelineMs / at(10_000).pipeli
 const maxRssMB = round(process.resourceUsage().maxRSS / 1024, 0);
 console.log(`growth 10k -> 100k conductors: analyze x${analyzeGrowth10kTo100k}, pipeline x${pipelineGrowth10kTo100k} (x10 is linear); process peak RSS ${maxRssMB} MB`);
 for (const r of results) console.log(`verdicts at ${r.conductors}: ${JSON.stringify(r.verdicts)}`);
+const recheck = measureRecheck();
+console.log(`re-check after one-conductor edit @${recheck.conductors / 1000}k: median ${recheck.medianMs} ms, p95 ${recheck.p95Ms} ms over ${recheck.edits} branch-circuit length edits (${recheck.incremental} re-checked on their own); a load edit (whole re-run) ${recheck.loadEditMs} ms`);
 const cli = await measureCli();
 console.log(`linewright check ${cli.sample} --format json, whole process: ${cli.medianMs} ms median of ${cli.runs} (exit ${cli.exitCode})`);
 console.log(
@@ -280,6 +316,7 @@ console.log(
     analyzeGrowth10kTo100k,
     pipelineGrowth10kTo100k,
     maxRssMB,
+    recheck,
     cli,
   }),
 );

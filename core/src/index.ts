@@ -4,6 +4,7 @@ export { loadProject, formatPath, type LoadResult } from './model/load';
 export { migrateToCurrent, migrateV1toV2, MIGRATIONS, type Migration } from './model/migrations';
 export { CAUTION, CAUTION_SHORT } from './caution';
 export { analyze } from './analyze/analyze';
+export { createAnalysis, type AnalysisSession, type UpdateMode } from './analyze/incremental';
 export { applyFix } from './analyze/applyFix';
 export { ALL_RULES, RULES_BY_ID } from './rules/index';
 export { renderTemplate, formatNumber } from './rules/define';

@@ -2,13 +2,13 @@ import { CAUTION } from '../caution';
 import type { Project } from '../model/schema';
 import { classifyRuns } from './classify';
 import { conductorReports } from './conductorReports';
-import { prepareContext } from './context';
+import { prepareContext, type FixedContext } from './context';
 import { collectFindings } from './findings';
 import { runFixes } from './fixes';
-import { runStudies } from '../studies/index';
+import { runStudies, type StudiesResult } from '../studies/index';
 import { baseRunFacts } from './runFacts';
 import { terminalTempOf } from './ampacities';
-import { SEVERITIES, VERDICTS, type AnalysisReport, type Severity, type Verdict } from './types';
+import { SEVERITIES, VERDICTS, type AnalysisReport, type ConductorReport, type Finding, type Severity, type Verdict } from './types';
 
 /**
  * The whole analysis, top to bottom: a chain of stages, each one context
@@ -17,21 +17,33 @@ import { SEVERITIES, VERDICTS, type AnalysisReport, type Severity, type Verdict 
  * "incomplete" verdicts, never as exceptions.
  */
 export function analyze(project: Project): AnalysisReport {
+  return runAnalysis(project).report;
+}
+
+/** The report and what its stages left behind, for an incremental re-check (./incremental.ts). */
+export interface AnalysisState {
+  readonly ctx: FixedContext;
+  readonly studies: StudiesResult;
+  /** Conductor ci's findings are report.findings[start[ci] .. start[ci + 1]); start[conductors] ends them. */
+  readonly conductorFindingStart: Int32Array;
+  /** Where the studies' findings begin in report.findings (they come last). */
+  readonly studyFindingStart: number;
+  readonly report: AnalysisReport;
+}
+
+/** `analyze()`, keeping each stage's result. */
+export function runAnalysis(project: Project): AnalysisState {
   const prepared = prepareContext(project);
   const verdicts = classifyRuns({ ...prepared, facts: baseRunFacts(prepared) });
   const judged = { ...prepared, verdicts };
   const fixed = { ...judged, fixes: runFixes(judged) };
   // Fault current and voltage drop: their findings join the rest; withstand is judged on the taps that passed 240.21.
   const studies = runStudies(judged);
-  const findings = [...collectFindings(fixed), ...studies.findings];
+  const conductorFindingStart = new Int32Array(prepared.graph.conductors.length + 1);
+  const collected = collectFindings(fixed, conductorFindingStart);
+  const findings = [...collected, ...studies.findings];
   const conductors = conductorReports({ ...fixed, findings });
-
-  const byVerdict = Object.fromEntries(VERDICTS.map((v) => [v, 0])) as Record<Verdict, number>;
-  for (const c of conductors) byVerdict[c.verdict]++;
-  const bySeverity = Object.fromEntries(SEVERITIES.map((s) => [s, 0])) as Record<Severity, number>;
-  for (const f of findings) bySeverity[f.severity]++;
-
-  return {
+  const report: AnalysisReport = {
     format: 'linewright-analysis',
     version: 1,
     projectName: project.project.name,
@@ -41,11 +53,21 @@ export function analyze(project: Project): AnalysisReport {
     conductors,
     findings,
     studies: studies.report,
-    counts: { conductors: conductors.length, byVerdict, bySeverity },
+    counts: countsOf(conductors, findings),
   };
+  return { ctx: fixed, studies, conductorFindingStart, studyFindingStart: collected.length, report };
 }
 
-function assumptionsFor(project: Project): string[] {
+/** The report's totals: conductors by verdict, findings by severity (every key, zeros included). */
+export function countsOf(conductors: readonly ConductorReport[], findings: readonly Finding[]): AnalysisReport['counts'] {
+  const byVerdict = Object.fromEntries(VERDICTS.map((v) => [v, 0])) as Record<Verdict, number>;
+  for (const c of conductors) byVerdict[c.verdict]++;
+  const bySeverity = Object.fromEntries(SEVERITIES.map((s) => [s, 0])) as Record<Severity, number>;
+  for (const f of findings) bySeverity[f.severity]++;
+  return { conductors: conductors.length, byVerdict, bySeverity };
+}
+
+export function assumptionsFor(project: Project): string[] {
   const setting = project.project.terminationDefault;
   const terminals = new Set<number>();
   let unstated = 0;

@@ -100,6 +100,15 @@ export function classifyRuns(ctx: FactsContext): RunVerdict[] {
   return walk.results as RunVerdict[];
 }
 
+/**
+ * Judges run `r` again on its own after its facts changed: a branch circuit fed straight from an
+ * OCPD (`supply`), whose verdict depends on nothing upstream but the device (see incremental.ts).
+ */
+export function judgeFedByOcpd(ctx: FactsContext, r: number, supply: Supply, device: number, facts: RunFacts): RunVerdict {
+  const walk: Walk = { ctx, nodeSupply: [], results: [], secondariesOf: new Map(), below: new Uint8Array(0), joined: new Map() };
+  return fedByOcpd({ walk, run: r, supply, facts, role: 'branch' }, device);
+}
+
 function secondariesByTransformer(ctx: FactsContext): Map<number, RunFacts[]> {
   const { graph: g, runs } = ctx;
   const out = new Map<number, RunFacts[]>();

@@ -13,132 +13,138 @@ import { failedTexts, incompleteReason, nearestTrial } from './summary';
  * its run's verdict and load. A run of several segments gets one finding,
  * on its first conductor, naming the others as related.
  */
-export function conductorFindings(ctx: FixedContext): Finding[] {
+export function conductorFindings(ctx: FixedContext, start?: Int32Array): Finding[] {
+  const out: Finding[] = [];
+  const n = ctx.graph.conductors.length;
+  for (let ci = 0; ci < n; ci++) {
+    if (start) start[ci] = out.length;
+    conductorFindingsOf(ctx, ci, out);
+  }
+  if (start) start[n] = out.length;
+  return out;
+}
+
+/** The findings of conductor `ci`, appended to `out`: its ampacity, then (on a run's first conductor) the run's. */
+export function conductorFindingsOf(ctx: FixedContext, ci: number, out: Finding[]): void {
   const { graph: g, runs, verdicts, ampacities, edition } = ctx;
   const runFixes = ctx.fixes;
-  const out: Finding[] = [];
   const cites = (section: string): Citation => ({ code: 'NEC', edition, section });
   const pushOne = (f: NewFinding) => out.push(finding(f));
-
-  for (let ci = 0; ci < g.conductors.length; ci++) {
-    const c = g.conductors[ci]!;
-    const v = verdicts[runs.runOf[ci]!]!;
-    const f = v.facts;
-    const fixes = runFixes[runs.runOf[ci]!]!;
-    const amp = ampacities[ci]!;
-    if (amp.problem) {
-      // The code says "shall" for parallel sets (310.10(G)) and for the insulation's temperature (310.14(A)(3)): violations; a missing fact is a warning.
-      const field = amp.problem.field;
-      const shall = field === 'parallelSets' ? '310.10(G)' : field === 'ambientC' ? '310.14(A)(3)' : null;
-      pushOne({ ruleId: 'ampacity', messageId: `no-ampacity-${field}`, severity: shall ? 'violation' : 'warning', cites: cites(shall ?? '310.16'), subject: { kind: 'conductor', id: c.id }, message: `${describeConductor(c, c.parallelSets)}: ${amp.problem.message}` });
-    }
-    // The run's own findings once, on its first conductor.
-    if (f.conductorIds[0] !== c.id) continue;
-    const others: ElementRef[] = f.conductorIds.slice(1).map((id): ElementRef => ({ kind: 'conductor', id }));
-    const push = (x: NewFinding) => pushOne({ ...x, related: [...others, ...(x.related ?? [])] });
-    switch (v.verdict) {
-      case 'unprotected': {
-        if (f.suppliedFrom) {
-          push({
-            ruleId: 'tap-from-tap',
-            messageId: 'fed-from-unprotected',
-            severity: 'violation',
-            cites: cites('240.21'),
-            subject: { kind: 'conductor', id: c.id },
-            related: [...f.suppliedFrom.conductorIds.map((id): ElementRef => ({ kind: 'conductor', id })), ...deviceRefs(g, v)],
-            fixes,
-            message: `${describeRun(c, f)} is fed from unprotected conductor ${f.suppliedFrom.conductorIds.join(' → ')} (${VERDICT_LABELS[f.suppliedFrom.verdict]}): no OCPD that meets 240.4 protects it. Correct that conductor, or supply this one through an OCPD that protects it.`,
-          });
-          break;
-        }
-        const n = nearestTrial(v.tried);
-        const R = f.supplyOcpdA === null ? '' : `, fed by the ${formatNumber(f.supplyOcpdA)} A device ahead`;
-        push({
-          ruleId: n?.ruleId ?? 'protected',
-          messageId: 'no-rule-fits',
-          severity: 'violation',
-          cites: n?.cites ?? cites('240.4'),
-          subject: { kind: 'conductor', id: c.id },
-          related: deviceRefs(g, v),
-          fixes,
-          data: { ampacityA: f.ampacityA ?? '?', deviceA: f.supplyOcpdA ?? '?' },
-          message: `${describeRun(c, f)}, ${f.ampacityA === null ? '?' : formatNumber(f.ampacityA)} A${R}: no rule of NEC ${edition} makes it acceptable.${n ? ` Nearest is ${n.cites.section} (${n.title.toLowerCase()}), which fails: ${failedTexts(n).join(' ')}` : ''}`,
-        });
-        break;
-      }
-      case 'tap-from-tap':
+  const c = g.conductors[ci]!;
+  const v = verdicts[runs.runOf[ci]!]!;
+  const f = v.facts;
+  const fixes = runFixes[runs.runOf[ci]!]!;
+  const amp = ampacities[ci]!;
+  if (amp.problem) {
+    // The code says "shall" for parallel sets (310.10(G)) and for the insulation's temperature (310.14(A)(3)): violations; a missing fact is a warning.
+    const field = amp.problem.field;
+    const shall = field === 'parallelSets' ? '310.10(G)' : field === 'ambientC' ? '310.14(A)(3)' : null;
+    pushOne({ ruleId: 'ampacity', messageId: `no-ampacity-${field}`, severity: shall ? 'violation' : 'warning', cites: cites(shall ?? '310.16'), subject: { kind: 'conductor', id: c.id }, message: `${describeConductor(c, c.parallelSets)}: ${amp.problem.message}` });
+  }
+  // The run's own findings once, on its first conductor.
+  if (f.conductorIds[0] !== c.id) return;
+  const others: ElementRef[] = f.conductorIds.slice(1).map((id): ElementRef => ({ kind: 'conductor', id }));
+  const push = (x: NewFinding) => pushOne({ ...x, related: [...others, ...(x.related ?? [])] });
+  switch (v.verdict) {
+    case 'unprotected': {
+      if (f.suppliedFrom) {
         push({
           ruleId: 'tap-from-tap',
-          messageId: 'supply',
+          messageId: 'fed-from-unprotected',
           severity: 'violation',
           cites: cites('240.21'),
           subject: { kind: 'conductor', id: c.id },
-          related: [...(f.suppliedFrom?.conductorIds ?? []).map((id): ElementRef => ({ kind: 'conductor', id })), ...deviceRefs(g, v)],
+          related: [...f.suppliedFrom.conductorIds.map((id): ElementRef => ({ kind: 'conductor', id })), ...deviceRefs(g, v)],
           fixes,
-          message: `${describeRun(c, f)} is tapped from ${f.suppliedFrom?.conductorIds.join(' → ') ?? '?'}, which is itself a tap or transformer secondary; a conductor supplied under 240.21 may supply another only through an OCPD that meets 240.4.`,
+          message: `${describeRun(c, f)} is fed from unprotected conductor ${f.suppliedFrom.conductorIds.join(' → ')} (${VERDICT_LABELS[f.suppliedFrom.verdict]}): no OCPD that meets 240.4 protects it. Correct that conductor, or supply this one through an OCPD that protects it.`,
         });
         break;
-      case 'incomplete':
-        if (v.supply.kind === 'run' || v.supply.kind === 'ocpd' || v.supply.kind === 'transformer') {
-          push({ ruleId: 'incomplete', messageId: 'missing-data', severity: 'warning', cites: null, subject: { kind: 'conductor', id: c.id }, related: deviceRefs(g, v), message: `${describeRun(c, f)}: no verdict yet; ${incompleteReason(v)}.` });
-        }
-        break;
-      case 'protected-next-size':
-        push({
-          ruleId: 'protected-next-size',
-          messageId: 'round-up-used',
-          severity: 'info',
-          cites: cites('240.4(B)'),
-          subject: { kind: 'conductor', id: c.id },
-          related: deviceRefs(g, v),
-          message: `${describeRun(c, f)}: the ${formatNumber(f.supplyOcpdA ?? 0)} A device is the next standard rating above its ${formatNumber(f.ampacityA ?? 0)} A ampacity (240.4(B)); confirm the circuit is not a multioutlet branch circuit for cord-and-plug loads.`,
-        });
-        break;
-      default:
-        break;
-    }
-    for (const t of v.tried) {
-      if (t.outcome !== 'holds' || t.ruleId !== v.rule?.id) continue;
-      if (t.conditions.some((cond) => cond.needsAhj)) {
-        push({
-          ruleId: t.ruleId,
-          messageId: 'other-approved-means',
-          severity: 'needs-ahj',
-          cites: t.cites,
-          subject: { kind: 'conductor', id: c.id },
-          message: `${describeRun(c, f)}: meets ${t.cites.section} only if the AHJ accepts its protection from physical damage by "other approved means".`,
-        });
       }
+      const n = nearestTrial(v.tried);
+      const R = f.supplyOcpdA === null ? '' : `, fed by the ${formatNumber(f.supplyOcpdA)} A device ahead`;
+      push({
+        ruleId: n?.ruleId ?? 'protected',
+        messageId: 'no-rule-fits',
+        severity: 'violation',
+        cites: n?.cites ?? cites('240.4'),
+        subject: { kind: 'conductor', id: c.id },
+        related: deviceRefs(g, v),
+        fixes,
+        data: { ampacityA: f.ampacityA ?? '?', deviceA: f.supplyOcpdA ?? '?' },
+        message: `${describeRun(c, f)}, ${f.ampacityA === null ? '?' : formatNumber(f.ampacityA)} A${R}: no rule of NEC ${edition} makes it acceptable.${n ? ` Nearest is ${n.cites.section} (${n.title.toLowerCase()}), which fails: ${failedTexts(n).join(' ')}` : ''}`,
+      });
+      break;
     }
-    if ((v.verdict === 'service' || v.verdict === 'generator') && v.tried[0]?.outcome === 'fails') {
-      const t = v.tried[0];
-      // More than six service disconnects is a finding of its own (230.71), apart from the conductors' protection.
-      const tooMany = t.conditions.find((x) => x.id === 'disconnects' && x.status === 'fail');
-      if (tooMany) push({ ruleId: t.ruleId, messageId: 'too-many-disconnects', severity: 'violation', cites: cites('230.71'), subject: { kind: 'conductor', id: c.id }, message: `${describeRun(c, f)}: ${tooMany.text} Fails 230.71.` });
-      const rest = t.conditions.filter((x) => x.status === 'fail' && x !== tooMany).map((x) => x.text);
-      if (rest.length > 0) push({ ruleId: t.ruleId, messageId: 'fails', severity: 'violation', cites: t.cites, subject: { kind: 'conductor', id: c.id }, message: `${describeRun(c, f)}: ${rest.join(' ')} Fails ${t.cites.section}.` });
-    }
-    // 210.19(A)(1), 215.2(A)(1), 230.42(A): both halves; a motor or HVAC circuit is sized by its own article (430.22, 440.35).
-    if (c.id === f.conductorIds[0] && !(v.family === 'fed-by-ocpd' && (f.motor || f.hvac) && v.role === 'branch')) {
-      const t = runRule(calculatedLoad, f);
-      const section = v.role === 'branch' ? '210.19(A)(1)' : v.role === 'service' ? '230.42(A)' : '215.2(A)(1)';
-      for (const cond of t.conditions) {
-        if (cond.status !== 'fail') continue;
-        const part = `${section}(${cond.id === 'continuous' ? 'a' : 'b'})`;
-        push({
-          ruleId: 'calculated-load',
-          messageId: cond.id === 'continuous' ? 'below-calculated-load' : 'below-load',
-          severity: 'violation',
-          cites: cites(part),
-          subject: { kind: 'conductor', id: c.id },
-          data: cond.data,
-          message: `${describeRun(c, f)}: ${cond.text.replace(/\.$/, '')} (${part}).`,
-        });
+    case 'tap-from-tap':
+      push({
+        ruleId: 'tap-from-tap',
+        messageId: 'supply',
+        severity: 'violation',
+        cites: cites('240.21'),
+        subject: { kind: 'conductor', id: c.id },
+        related: [...(f.suppliedFrom?.conductorIds ?? []).map((id): ElementRef => ({ kind: 'conductor', id })), ...deviceRefs(g, v)],
+        fixes,
+        message: `${describeRun(c, f)} is tapped from ${f.suppliedFrom?.conductorIds.join(' → ') ?? '?'}, which is itself a tap or transformer secondary; a conductor supplied under 240.21 may supply another only through an OCPD that meets 240.4.`,
+      });
+      break;
+    case 'incomplete':
+      if (v.supply.kind === 'run' || v.supply.kind === 'ocpd' || v.supply.kind === 'transformer') {
+        push({ ruleId: 'incomplete', messageId: 'missing-data', severity: 'warning', cites: null, subject: { kind: 'conductor', id: c.id }, related: deviceRefs(g, v), message: `${describeRun(c, f)}: no verdict yet; ${incompleteReason(v)}.` });
       }
+      break;
+    case 'protected-next-size':
+      push({
+        ruleId: 'protected-next-size',
+        messageId: 'round-up-used',
+        severity: 'info',
+        cites: cites('240.4(B)'),
+        subject: { kind: 'conductor', id: c.id },
+        related: deviceRefs(g, v),
+        message: `${describeRun(c, f)}: the ${formatNumber(f.supplyOcpdA ?? 0)} A device is the next standard rating above its ${formatNumber(f.ampacityA ?? 0)} A ampacity (240.4(B)); confirm the circuit is not a multioutlet branch circuit for cord-and-plug loads.`,
+      });
+      break;
+    default:
+      break;
+  }
+  for (const t of v.tried) {
+    if (t.outcome !== 'holds' || t.ruleId !== v.rule?.id) continue;
+    if (t.conditions.some((cond) => cond.needsAhj)) {
+      push({
+        ruleId: t.ruleId,
+        messageId: 'other-approved-means',
+        severity: 'needs-ahj',
+        cites: t.cites,
+        subject: { kind: 'conductor', id: c.id },
+        message: `${describeRun(c, f)}: meets ${t.cites.section} only if the AHJ accepts its protection from physical damage by "other approved means".`,
+      });
     }
   }
-
-  return out;
+  if ((v.verdict === 'service' || v.verdict === 'generator') && v.tried[0]?.outcome === 'fails') {
+    const t = v.tried[0];
+    // More than six service disconnects is a finding of its own (230.71), apart from the conductors' protection.
+    const tooMany = t.conditions.find((x) => x.id === 'disconnects' && x.status === 'fail');
+    if (tooMany) push({ ruleId: t.ruleId, messageId: 'too-many-disconnects', severity: 'violation', cites: cites('230.71'), subject: { kind: 'conductor', id: c.id }, message: `${describeRun(c, f)}: ${tooMany.text} Fails 230.71.` });
+    const rest = t.conditions.filter((x) => x.status === 'fail' && x !== tooMany).map((x) => x.text);
+    if (rest.length > 0) push({ ruleId: t.ruleId, messageId: 'fails', severity: 'violation', cites: t.cites, subject: { kind: 'conductor', id: c.id }, message: `${describeRun(c, f)}: ${rest.join(' ')} Fails ${t.cites.section}.` });
+  }
+  // 210.19(A)(1), 215.2(A)(1), 230.42(A): both halves; a motor or HVAC circuit is sized by its own article (430.22, 440.35).
+  if (c.id === f.conductorIds[0] && !(v.family === 'fed-by-ocpd' && (f.motor || f.hvac) && v.role === 'branch')) {
+    const t = runRule(calculatedLoad, f);
+    const section = v.role === 'branch' ? '210.19(A)(1)' : v.role === 'service' ? '230.42(A)' : '215.2(A)(1)';
+    for (const cond of t.conditions) {
+      if (cond.status !== 'fail') continue;
+      const part = `${section}(${cond.id === 'continuous' ? 'a' : 'b'})`;
+      push({
+        ruleId: 'calculated-load',
+        messageId: cond.id === 'continuous' ? 'below-calculated-load' : 'below-load',
+        severity: 'violation',
+        cites: cites(part),
+        subject: { kind: 'conductor', id: c.id },
+        data: cond.data,
+        message: `${describeRun(c, f)}: ${cond.text.replace(/\.$/, '')} (${part}).`,
+      });
+    }
+  }
 }
 
 /** The run as a finding names it: the conductor, or for a run of several segments all of them and the weakest size. */

@@ -9,7 +9,7 @@ import type { Citation, ConductorReport, DeviceRef, Finding } from './types';
 
 /** Stage: one report line per conductor, in file order; what a run's conductors share is built once per run. */
 export function conductorReports(ctx: FixedContext & { findings: readonly Finding[] }): ConductorReport[] {
-  const { graph, runs, verdicts, ampacities, edition } = ctx;
+  const { graph, runs, verdicts, edition } = ctx;
   // A run's finding sits on its first conductor and names the others as related: every segment shows it.
   const findingIdsBySubject = new Map<string, string[]>();
   const add = (id: string, findingId: string) => {
@@ -28,11 +28,19 @@ export function conductorReports(ctx: FixedContext & { findings: readonly Findin
   const shared = verdicts.map((v) => runShared(graph, v, edition));
   const conductors: ConductorReport[] = new Array(graph.conductors.length);
   for (let ci = 0; ci < graph.conductors.length; ci++) {
-    const c = graph.conductors[ci]!;
-    const r = runs.runOf[ci]!;
-    const v = verdicts[r]!;
-    const s = shared[r]!;
-    conductors[ci] = {
+    conductors[ci] = conductorReport(ctx, ci, findingIdsBySubject.get(graph.conductors[ci]!.id), shared[runs.runOf[ci]!]);
+  }
+  return conductors;
+}
+
+/** The report line of conductor `ci`, given the ids of its findings and (when known) what its run's lines share. */
+export function conductorReport(ctx: FixedContext, ci: number, findingIds: string[] | undefined, shared?: RunShared): ConductorReport {
+  const { graph, runs, verdicts, ampacities, edition } = ctx;
+  const c = graph.conductors[ci]!;
+  const r = runs.runOf[ci]!;
+  const v = verdicts[r]!;
+  const s = shared ?? runShared(graph, v, edition);
+  return {
       id: c.id,
       label: c.label ?? c.id,
       from: c.from,
@@ -54,10 +62,8 @@ export function conductorReports(ctx: FixedContext & { findings: readonly Findin
       load: s.load,
       tried: v.tried,
       fixes: ctx.fixes[r]!,
-      findingIds: findingIdsBySubject.get(c.id) ?? NONE,
+      findingIds: findingIds ?? NONE,
     };
-  }
-  return conductors;
 }
 
 interface RunShared {

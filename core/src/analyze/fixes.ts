@@ -18,13 +18,17 @@ const NO_FIXES: Fix[] = Object.freeze([]) as unknown as Fix[];
 
 /** Stage: the fixes of every run that no rule makes acceptable, by run. */
 export function runFixes(ctx: VerdictContext): Fix[][] {
+  return ctx.verdicts.map((_, r) => fixesOfRun(ctx, r));
+}
+
+/** The fixes of run `r`. */
+export function fixesOfRun(ctx: VerdictContext, r: number): Fix[] {
   const { graph, runs, edition } = ctx;
-  return ctx.verdicts.map((v, r) => {
-    if (v.verdict !== 'unprotected' && v.verdict !== 'tap-from-tap') return NO_FIXES;
-    // Each segment at the count its ampacity was adjusted for (its circuit's 310.15(E) count), whatever size it is tried at.
-    const members = runs.members[r]!.map((ci) => ({ ...graph.conductors[ci]!, currentCarrying: ctx.circuits[ci]!.currentCarrying.adjustmentCount }));
-    return suggestFixes(v.facts, members, v.verdict === 'tap-from-tap' ? [] : v.candidates, v.tried, edition);
-  });
+  const v = ctx.verdicts[r]!;
+  if (v.verdict !== 'unprotected' && v.verdict !== 'tap-from-tap') return NO_FIXES;
+  // Each segment at the count its ampacity was adjusted for (its circuit's 310.15(E) count), whatever size it is tried at.
+  const members = runs.members[r]!.map((ci) => ({ ...graph.conductors[ci]!, currentCarrying: ctx.circuits[ci]!.currentCarrying.adjustmentCount }));
+  return suggestFixes(v.facts, members, v.verdict === 'tap-from-tap' ? [] : v.candidates, v.tried, edition);
 }
 
 /**

@@ -12,99 +12,106 @@ const RACEWAYS: ReadonlySet<Conductor['wiring']> = new Set(['steel-conduit', 'al
  * transformer, the upstream run) are filled in by the classifier.
  */
 export function baseRunFacts(ctx: AnalysisContext): RunFacts[] {
-  const { project, graph: g, runs, loads, ampacities, edition } = ctx;
-  const site = {
+  const site = siteFacts(ctx.project);
+  const out: RunFacts[] = new Array(ctx.runs.members.length);
+  for (let r = 0; r < out.length; r++) out[r] = runFactsOf(ctx, r, site);
+  return out;
+}
+
+/** The project settings every run's facts share (one object for all). */
+export function siteFacts(project: AnalysisContext['project']): RunFacts['site'] {
+  return {
     qualifiedMaintenance: project.project.qualifiedMaintenance,
     industrialInstallation: project.project.industrialInstallation,
     manufacturingWallHeightFt: project.project.manufacturingWallHeightFt ?? null,
     terminationDefault: project.project.terminationDefault,
   };
-  const out: RunFacts[] = new Array(runs.members.length);
-  for (let r = 0; r < runs.members.length; r++) {
-    const members = runs.members[r]!;
-    // The weakest segment names the run: size, material and sets of the lowest ampacity (the first on a tie or when unknown).
-    let weakest = g.conductors[members[0]!]!;
-    let lengthFt: number | null = 0;
-    let ampacityA: number | null = Number.POSITIVE_INFINITY;
-    let uncorrectedA: number | null = Number.POSITIVE_INFINITY;
-    let small: number | null = null;
-    let inRaceway = true;
-    let damage: RunFacts['damageProtection'] = 'raceway';
-    let outdoors = true;
-    let leaves: boolean | null = false;
-    let beyond = false;
-    let cord = false;
-    let highBay: RunFacts['highBay'] = null;
-    for (const ci of members) {
-      const c = g.conductors[ci]!;
-      lengthFt = lengthFt === null || c.lengthFt === undefined ? null : lengthFt + c.lengthFt;
-      const w = ampacities[ci]!.working;
-      if (w === null) ampacityA = uncorrectedA = null;
-      else if (ampacityA !== null && uncorrectedA !== null) {
-        if (w.ampacityA < ampacityA) {
-          ampacityA = w.ampacityA;
-          weakest = c;
-        }
-        const before = Math.round(w.terminalLimitA * w.parallelSets * 100) / 100;
-        if (before < uncorrectedA) uncorrectedA = before;
-      }
-      if (w?.smallConductorMaxOcpdA != null) small = small === null ? w.smallConductorMaxOcpdA : Math.min(small, w.smallConductorMaxOcpdA);
-      const conduit = RACEWAYS.has(c.wiring);
-      if (!conduit) inRaceway = false;
-      // "Protected by a raceway" needs the run to be in one: a cable or open run so marked is not protected.
-      if (c.damageProtection === 'none' || (c.damageProtection === 'raceway' && !conduit)) damage = 'none';
-      else if (c.damageProtection === 'other-approved-means' && damage === 'raceway') damage = 'other-approved-means';
-      if (!c.outdoors) outdoors = false;
-      // One segment that leaves makes the run leave; otherwise one unstated segment leaves it unstated.
-      if (c.leavesEnclosure === true) leaves = true;
-      else if (c.leavesEnclosure === undefined && leaves === false) leaves = null;
-      beyond ||= c.extendsBeyondEquipment;
-      cord ||= c.multioutletCordAndPlug;
-      if (highBay === null && c.highBay !== undefined) highBay = c.highBay;
-    }
-    const lastIndex = members[members.length - 1]!;
-    const toNode = g.conductorTo[lastIndex]!;
-    const load = conductorLoadA(loads, g.conductorFrom[members[0]!]!, toNode);
-    // The one load the run serves (for a branch circuit: through no OCPD), when it is a motor or HVAC unit.
-    const only = toNode >= 0 ? loads.onlyLoad[toNode]! : -1;
-    const circuit = only >= 0 ? loads.loadCircuits[only] ?? null : null;
-    out[r] = {
-      edition,
-      conductorIds: members.map((ci) => g.conductors[ci]!.id),
-      material: weakest.material,
-      size: weakest.size,
-      parallelSets: weakest.parallelSets,
-      lengthFt: lengthFt === null ? null : Math.round(lengthFt * 100) / 100,
-      ampacityA,
-      ampacityUncorrectedA: uncorrectedA,
-      smallConductorMaxOcpdA: small,
-      supplyOcpdA: null,
-      supplyOcpdId: null,
-      supplyOcpdKind: null,
-      supplyDeviceType: null,
-      termination: terminationOf(g, toNode),
-      loadA: load?.flowingA ?? null,
-      calculatedLoadA: load?.calculatedA ?? null,
-      inRaceway,
-      damageProtection: damage,
-      outdoors,
-      leavesEnclosure: leaves,
-      extendsBeyondEquipment: beyond,
-      multioutletCordAndPlug: cord,
-      hasSplices: members.length > 1,
-      highBay,
-      site,
-      transformer: null,
-      secondaries: [],
-      generator: null,
-      motor: circuit?.motor ? { fullLoadA: circuit.motor.fullLoadA, source: circuit.motor.source, motorType: circuit.motor.motorType } : null,
-      hvac: circuit?.hvac ?? null,
-      suppliedFrom: null,
-    };
-  }
-  return out;
 }
 
+/** The base facts of run `r`. */
+export function runFactsOf(ctx: AnalysisContext, r: number, site: RunFacts['site']): RunFacts {
+  const { graph: g, runs, loads, ampacities, edition } = ctx;
+  const members = runs.members[r]!;
+  // The weakest segment names the run: size, material and sets of the lowest ampacity (the first on a tie or when unknown).
+  let weakest = g.conductors[members[0]!]!;
+  let lengthFt: number | null = 0;
+  let ampacityA: number | null = Number.POSITIVE_INFINITY;
+  let uncorrectedA: number | null = Number.POSITIVE_INFINITY;
+  let small: number | null = null;
+  let inRaceway = true;
+  let damage: RunFacts['damageProtection'] = 'raceway';
+  let outdoors = true;
+  let leaves: boolean | null = false;
+  let beyond = false;
+  let cord = false;
+  let highBay: RunFacts['highBay'] = null;
+  for (const ci of members) {
+    const c = g.conductors[ci]!;
+    lengthFt = lengthFt === null || c.lengthFt === undefined ? null : lengthFt + c.lengthFt;
+    const w = ampacities[ci]!.working;
+    if (w === null) ampacityA = uncorrectedA = null;
+    else if (ampacityA !== null && uncorrectedA !== null) {
+      if (w.ampacityA < ampacityA) {
+        ampacityA = w.ampacityA;
+        weakest = c;
+      }
+      const before = Math.round(w.terminalLimitA * w.parallelSets * 100) / 100;
+      if (before < uncorrectedA) uncorrectedA = before;
+    }
+    if (w?.smallConductorMaxOcpdA != null) small = small === null ? w.smallConductorMaxOcpdA : Math.min(small, w.smallConductorMaxOcpdA);
+    const conduit = RACEWAYS.has(c.wiring);
+    if (!conduit) inRaceway = false;
+    // "Protected by a raceway" needs the run to be in one: a cable or open run so marked is not protected.
+    if (c.damageProtection === 'none' || (c.damageProtection === 'raceway' && !conduit)) damage = 'none';
+    else if (c.damageProtection === 'other-approved-means' && damage === 'raceway') damage = 'other-approved-means';
+    if (!c.outdoors) outdoors = false;
+    // One segment that leaves makes the run leave; otherwise one unstated segment leaves it unstated.
+    if (c.leavesEnclosure === true) leaves = true;
+    else if (c.leavesEnclosure === undefined && leaves === false) leaves = null;
+    beyond ||= c.extendsBeyondEquipment;
+    cord ||= c.multioutletCordAndPlug;
+    if (highBay === null && c.highBay !== undefined) highBay = c.highBay;
+  }
+  const lastIndex = members[members.length - 1]!;
+  const toNode = g.conductorTo[lastIndex]!;
+  const load = conductorLoadA(loads, g.conductorFrom[members[0]!]!, toNode);
+  // The one load the run serves (for a branch circuit: through no OCPD), when it is a motor or HVAC unit.
+  const only = toNode >= 0 ? loads.onlyLoad[toNode]! : -1;
+  const circuit = only >= 0 ? loads.loadCircuits[only] ?? null : null;
+  return {
+    edition,
+    conductorIds: members.map((ci) => g.conductors[ci]!.id),
+    material: weakest.material,
+    size: weakest.size,
+    parallelSets: weakest.parallelSets,
+    lengthFt: lengthFt === null ? null : Math.round(lengthFt * 100) / 100,
+    ampacityA,
+    ampacityUncorrectedA: uncorrectedA,
+    smallConductorMaxOcpdA: small,
+    supplyOcpdA: null,
+    supplyOcpdId: null,
+    supplyOcpdKind: null,
+    supplyDeviceType: null,
+    termination: terminationOf(g, toNode),
+    loadA: load?.flowingA ?? null,
+    calculatedLoadA: load?.calculatedA ?? null,
+    inRaceway,
+    damageProtection: damage,
+    outdoors,
+    leavesEnclosure: leaves,
+    extendsBeyondEquipment: beyond,
+    multioutletCordAndPlug: cord,
+    hasSplices: members.length > 1,
+    highBay,
+    site,
+    transformer: null,
+    secondaries: [],
+    generator: null,
+    motor: circuit?.motor ? { fullLoadA: circuit.motor.fullLoadA, source: circuit.motor.source, motorType: circuit.motor.motorType } : null,
+    hvac: circuit?.hvac ?? null,
+    suppliedFrom: null,
+  };
+}
 
 /**
  * One run made of two joined at a splice or tap box with no branch (the

@@ -1,6 +1,6 @@
 import type { AnalysisContext, VerdictContext } from '../analyze/context';
 import type { Finding, Severity } from '../analyze/types';
-import { CONDUCTOR_SIZES, type ConductorSize, type EquipmentNode, type Material, type NodeId, type Project } from '../model/schema';
+import { CONDUCTOR_SIZES, type CodeEdition, type ConductorSize, type EquipmentNode, type Material, type NodeId, type Project } from '../model/schema';
 import type { Check, Rule } from '../rules/define';
 import { conductorWithstand } from '../rules/conductor-withstand';
 import { equipmentSccr } from '../rules/equipment-sccr';
@@ -15,7 +15,7 @@ import { SIZE_INDEX_14 } from '../tables/sizes';
 import type { Graph } from '../topology/graph';
 import { studyFaultCurrent, type FaultStudy } from './faultCurrent/faultCurrent';
 import type { ConductorDrop, NodeFault, ServiceMarking, StudiesReport, WithstandResult } from './types';
-import { studyVoltageDrop, type VoltageDropStudy } from './voltageDrop/voltageDrop';
+import { studyVoltageDrop, type VoltageDropInputs, type VoltageDropStudy } from './voltageDrop/voltageDrop';
 
 export type * from './types';
 
@@ -58,7 +58,12 @@ export type StudiedNetwork = Pick<AnalysisContext, 'project' | 'graph' | 'order'
 
 /** The voltage-drop study on the supply tree and conductor impedances the fault study already read. */
 export function studyVoltageDropAfterFault(net: Omit<StudiedNetwork, 'project'>, fault: FaultStudy): VoltageDropStudy {
-  return studyVoltageDrop(net.graph, {
+  return studyVoltageDrop(net.graph, voltageDropInputs(net, fault));
+}
+
+/** What the voltage-drop study reads: the network's and what the fault study found (supply tree, voltages, Table 9 values). */
+export function voltageDropInputs(net: Omit<StudiedNetwork, 'project'>, fault: FaultStudy): VoltageDropInputs {
+  return {
     order: net.order,
     count: net.count,
     voltsLL: fault.voltsLL,
@@ -68,7 +73,7 @@ export function studyVoltageDropAfterFault(net: Omit<StudiedNetwork, 'project'>,
     xOhmPerKft: fault.xOhmPerKft,
     parent: fault.parent,
     parentEdge: fault.parentEdge,
-  });
+  };
 }
 
 /** The studies over a network and the tap and secondary runs the classifier accepted. */
@@ -79,22 +84,8 @@ export function studyNetwork(net: StudiedNetwork, taps: readonly TapRun[]): Stud
   const drop = studyVoltageDropAfterFault(net, fault);
   const findings: Finding[] = [];
   const push = (rule: Rule<string, never>, severity: Severity, subject: Finding['subject'], checks: readonly Check[], related: Finding['related'] = [], data: Finding['data'] = {}) => {
-    const failed = checks.filter((c) => c.status === 'fail');
-    if (failed.length === 0) return;
-    for (const c of failed) c.template = rule.messages[c.id as keyof typeof rule.messages] ?? c.id;
-    const subjectId = subject.kind === 'project' ? 'project' : subject.id;
-    findings.push({
-      id: `${rule.id}:${subjectId}:${failed[0]!.id}`,
-      ruleId: rule.id,
-      messageId: failed[0]!.id,
-      severity,
-      cites: { code: 'NEC', edition, section: rule.section },
-      subject,
-      related,
-      message: `${failed.map((c) => c.text.replace(/\.$/, '')).join('; ')} (${rule.section}).`,
-      data: { ...failed[0]!.data, ...data },
-      fixes: [],
-    });
+    const f = studyFinding(edition, rule, severity, subject, checks, related, data);
+    if (f) findings.push(f);
   };
   const kAt = (v: number): number | null => (Number.isNaN(fault.kA[v]!) ? null : fault.kA[v]!);
 
@@ -162,27 +153,16 @@ export function studyNetwork(net: StudiedNetwork, taps: readonly TapRun[]): Stud
   }
 
   // Voltage drop: each circuit at its end, each load's total.
-  const circuitLimit = project.project.voltageDropCircuitPct ?? DEFAULT_VD_CIRCUIT_PCT;
-  const totalLimit = project.project.voltageDropTotalPct ?? DEFAULT_VD_TOTAL_PCT;
-  // Only a drop above its limit can fail the rule (pct ≤ limit holds), so the others build no checks.
-  const over = (pct: number, limit: number) => pct > limit + 1e-9;
+  const { circuitLimit, totalLimit } = dropLimits(project);
   const conductorsDrop: ConductorDrop[] = new Array(g.conductors.length);
   for (let c = 0; c < g.conductors.length; c++) {
-    const cond = g.conductors[c]!;
-    const to = g.conductorTo[c]!;
-    const onTree = to >= 0 && fault.parentEdge[to] === c;
-    const circuitPct = onTree ? num(drop.circuitPct[to]!) : null;
-    conductorsDrop[c] = { conductorId: cond.id, currentA: num(drop.currentA[c]!), powerFactor: num(drop.powerFactor[c]!), pct: num(drop.pct[c]!), circuitPct, totalPct: onTree ? num(drop.totalPct[to]!) : null };
-    if (circuitPct !== null && over(circuitPct, circuitLimit) && endsCircuit(g, to)) {
-      const checks = voltageDropRule.check({ edition, scope: 'circuit', subject: `Conductor ${cond.label ? `${cond.label} (${cond.id})` : cond.id}`, pct: circuitPct, limitPct: circuitLimit });
-      push(voltageDropRule, 'warning', { kind: 'conductor', id: cond.id }, checks);
-    }
+    conductorsDrop[c] = conductorDropRow(g, fault, drop, c);
+    const f = circuitDropFinding(edition, g, fault, drop, c, circuitLimit);
+    if (f) findings.push(f);
   }
   for (let v = 0; v < g.nodes.length; v++) {
-    const node = g.nodes[v]!;
-    const total = drop.totalPct[v]!;
-    if (node.kind !== 'load' || !over(total, totalLimit)) continue;
-    push(voltageDropRule, 'warning', { kind: 'node', id: node.id }, voltageDropRule.check({ edition, scope: 'total', subject: `Load ${label(node)}`, pct: total, limitPct: totalLimit }));
+    const f = totalDropFinding(edition, g, drop, v, totalLimit);
+    if (f) findings.push(f);
   }
 
   const faults: NodeFault[] = new Array(g.nodes.length);
@@ -224,6 +204,73 @@ export function nodeFault(g: Graph, fault: FaultStudy, v: number): NodeFault {
   };
   if (fault.unknownWhy[v]) row.unknownWhy = fault.unknownWhy[v];
   return row;
+}
+
+/** A study rule's finding from its checks, or null when none failed. */
+function studyFinding(edition: CodeEdition, rule: Rule<string, never>, severity: Severity, subject: Finding['subject'], checks: readonly Check[], related: Finding['related'] = [], data: Finding['data'] = {}): Finding | null {
+  const failed = checks.filter((c) => c.status === 'fail');
+  if (failed.length === 0) return null;
+  for (const c of failed) c.template = rule.messages[c.id as keyof typeof rule.messages] ?? c.id;
+  const subjectId = subject.kind === 'project' ? 'project' : subject.id;
+  return {
+    id: `${rule.id}:${subjectId}:${failed[0]!.id}`,
+    ruleId: rule.id,
+    messageId: failed[0]!.id,
+    severity,
+    cites: { code: 'NEC', edition, section: rule.section },
+    subject,
+    related,
+    message: `${failed.map((c) => c.text.replace(/\.$/, '')).join('; ')} (${rule.section}).`,
+    data: { ...failed[0]!.data, ...data },
+    fixes: [],
+  };
+}
+
+function dropLimits(project: Project): { circuitLimit: number; totalLimit: number } {
+  return { circuitLimit: project.project.voltageDropCircuitPct ?? DEFAULT_VD_CIRCUIT_PCT, totalLimit: project.project.voltageDropTotalPct ?? DEFAULT_VD_TOTAL_PCT };
+}
+
+/** Only a drop above its limit can fail the rule (pct ≤ limit holds), so the others build no checks. */
+const over = (pct: number, limit: number) => pct > limit + 1e-9;
+
+/** Conductor `c`'s row of the voltage-drop table: its own drop, and the sums at its load end when it is what supplies that end. */
+export function conductorDropRow(g: Graph, fault: FaultStudy, drop: VoltageDropStudy, c: number): ConductorDrop {
+  const to = g.conductorTo[c]!;
+  const onTree = to >= 0 && fault.parentEdge[to] === c;
+  return {
+    conductorId: g.conductors[c]!.id,
+    currentA: num(drop.currentA[c]!),
+    powerFactor: num(drop.powerFactor[c]!),
+    pct: num(drop.pct[c]!),
+    circuitPct: onTree ? num(drop.circuitPct[to]!) : null,
+    totalPct: onTree ? num(drop.totalPct[to]!) : null,
+  };
+}
+
+/** The 3 % warning of the circuit conductor `c` ends (null when it passes or ends none). */
+function circuitDropFinding(edition: CodeEdition, g: Graph, fault: FaultStudy, drop: VoltageDropStudy, c: number, limitPct: number): Finding | null {
+  const to = g.conductorTo[c]!;
+  if (to < 0 || fault.parentEdge[to] !== c) return null;
+  const circuitPct = num(drop.circuitPct[to]!);
+  if (circuitPct === null || !over(circuitPct, limitPct) || !endsCircuit(g, to)) return null;
+  const cond = g.conductors[c]!;
+  const checks = voltageDropRule.check({ edition, scope: 'circuit', subject: `Conductor ${cond.label ? `${cond.label} (${cond.id})` : cond.id}`, pct: circuitPct, limitPct });
+  return studyFinding(edition, voltageDropRule, 'warning', { kind: 'conductor', id: cond.id }, checks);
+}
+
+/** The 5 % warning of load node `v` (null when it passes, is not a load or has no figure). */
+function totalDropFinding(edition: CodeEdition, g: Graph, drop: VoltageDropStudy, v: number, limitPct: number): Finding | null {
+  const node = g.nodes[v]!;
+  const total = drop.totalPct[v]!;
+  if (node.kind !== 'load' || !over(total, limitPct)) return null;
+  return studyFinding(edition, voltageDropRule, 'warning', { kind: 'node', id: node.id }, voltageDropRule.check({ edition, scope: 'total', subject: `Load ${label(node)}`, pct: total, limitPct }));
+}
+
+/** The voltage-drop findings of conductor `c` (its circuit) and of load node `load` (its total), for an incremental re-check. */
+export function dropFindings(project: Project, g: Graph, fault: FaultStudy, drop: VoltageDropStudy, c: number, load: number): { circuit: Finding | null; total: Finding | null } {
+  const edition = project.project.codeEdition;
+  const { circuitLimit, totalLimit } = dropLimits(project);
+  return { circuit: circuitDropFinding(edition, g, fault, drop, c, circuitLimit), total: totalDropFinding(edition, g, drop, load, totalLimit) };
 }
 
 function label(node: EquipmentNode): string {

@@ -1,4 +1,4 @@
-import type { EquipmentNode } from '../../model/schema';
+import type { Conductor, EquipmentNode } from '../../model/schema';
 import { racewayColumn, table9ROhmPerKft, table9XOhmPerKft } from '../../tables/chapter9Table9';
 import {
   TYPICAL_GENERATOR_XDPP_PU,
@@ -62,6 +62,8 @@ export interface FaultStudy {
   stepX: Float64Array;
   /** The source or transformer whose zone the node lies in (-1 when none). */
   zone: Int32Array;
+  /** Motor contribution of each source or transformer zone (indexed by its node), A: summed once, added everywhere in the zone. */
+  zoneMotorA: Float64Array;
   /** Per conductor that supplies a node: Chapter 9 Table 9 R and X of one conductor, Ω/1000 ft; NaN when not read or not known. */
   rOhmPerKft: Float64Array;
   xOhmPerKft: Float64Array;
@@ -127,31 +129,22 @@ export function studyFaultCurrent(g: Graph, order: Int32Array, count: number): F
     infinite[v] = infinite[u]!;
     unknownWhy[v] = unknownWhy[u]!;
     atTerminals[v] = e < 0 ? atTerminals[u]! : 0;
-    let ru = r[u]!;
-    let xu = x[u]!;
-    let isLoop = loop[u]!;
-    // A single-phase transformer or load on a three-phase system sees the line-to-line loop.
-    if ((node.kind === 'transformer' || node.kind === 'load') && node.phases === 1 && !isLoop) {
-      ru *= 2;
-      xu *= 2;
-      isLoop = 1;
-    }
+    const isLoop = loopAt(node, loop[u]!);
+    let ru = seenFrom(r[u]!, isLoop, loop[u]!);
+    let xu = seenFrom(x[u]!, isLoop, loop[u]!);
     loop[v] = isLoop;
     voltsLL[v] = voltsLL[u]!;
     let dr = 0;
     let dx = 0;
     if (e >= 0) {
       const c = g.conductors[e]!;
-      const column = racewayColumn(c.wiring);
-      const rc = (rOhmPerKft[e] = table9ROhmPerKft(c.material, c.size, column));
-      const xc = (xOhmPerKft[e] = table9XOhmPerKft(c.size, column));
-      if (Number.isNaN(rc) || c.lengthFt === undefined) {
+      if (!readConductor(c, e, rOhmPerKft, xOhmPerKft)) {
         upperBound[v] = 1;
         notes.add('A conductor without a length or a Chapter 9 Table 9 value counts as zero impedance: the fault current below it is an upper bound ("at most").');
       } else {
-        const factor = ((isLoop ? 2 : 1) * c.lengthFt) / 1000 / c.parallelSets;
-        dr = rc * factor;
-        dx = xc * factor;
+        const factor = stepFactor(c, isLoop);
+        dr = rOhmPerKft[e]! * factor;
+        dx = xOhmPerKft[e]! * factor;
       }
     }
     if (node.kind === 'transformer') {
@@ -195,25 +188,79 @@ export function studyFaultCurrent(g: Graph, order: Int32Array, count: number): F
   const xOverR = new Float64Array(n).fill(Number.NaN);
   const motorKA = new Float64Array(n);
   const lineToGroundKA = new Float64Array(n).fill(Number.NaN);
+  const study: FaultStudy = { kA, xOverR, r, x, loop, voltsLL, motorKA, lineToGroundKA, upperBound, unknownWhy, parent, parentEdge, stepR, stepX, zone, zoneMotorA, rOhmPerKft, xOhmPerKft, notes: [] };
   for (let v = 0; v < n; v++) {
     if (!unknownWhy[v] && infinite[v]) unknownWhy[v] = `the source ahead of ${g.nodes[v]!.id} has no available fault current (infinite bus) and no transformer limits it; enter availableFaultKA`;
     if (!unknownWhy[v] && Number.isNaN(r[v]!)) unknownWhy[v] = `${g.nodes[v]!.id} is not reached from a source`;
-    if (unknownWhy[v]) continue;
-    const z = Math.hypot(r[v]!, x[v]!);
-    const sym = voltsLL[v]! / ((loop[v] ? 1 : SQRT3) * z);
-    const m = zone[v]! >= 0 ? zoneMotorA[zone[v]!]! : 0;
-    motorKA[v] = m / 1000;
-    kA[v] = (sym + m) / 1000;
-    xOverR[v] = r[v]! > 0 ? x[v]! / r[v]! : Number.POSITIVE_INFINITY;
-    if (atTerminals[v] && zone[v]! >= 0) {
-      const t = g.nodes[zone[v]!]!;
-      const lg = t.kind !== 'transformer' ? 0 : t.connection === 'delta-wye' ? 1 : t.connection === 'single-phase-3w' ? 1.5 : 0;
-      if (lg > 0) lineToGroundKA[v] = (lg * sym) / 1000;
-    }
+    if (!unknownWhy[v]) figuresAt(g, study, v, atTerminals[v] === 1);
   }
   if (lineToGroundKA.some((a) => !Number.isNaN(a)))
     notes.add('Line-to-ground: computed only at the terminals of a grounded-wye transformer secondary (delta primary: zero-sequence impedance taken equal to positive-sequence, so I_LG = I_3φ) and of a center-tapped single-phase secondary (line to neutral about 1.5 × line to line), common practice; elsewhere the return path is not in the drawing.');
-  return { kA, xOverR, r, x, loop, voltsLL, motorKA, lineToGroundKA, upperBound, unknownWhy, parent, parentEdge, stepR, stepX, zone, rOhmPerKft, xOhmPerKft, notes: [...notes] };
+  study.notes = [...notes];
+  return study;
+}
+
+/** kA, X/R, motor contribution and (at a transformer's terminals) line-to-ground at node `v`, from its R and X. */
+function figuresAt(g: Graph, f: FaultStudy, v: number, atTerminals: boolean): void {
+  const zone = f.zone[v]!;
+  const z = Math.hypot(f.r[v]!, f.x[v]!);
+  const sym = f.voltsLL[v]! / ((f.loop[v] ? 1 : SQRT3) * z);
+  const m = zone >= 0 ? f.zoneMotorA[zone]! : 0;
+  f.motorKA[v] = m / 1000;
+  f.kA[v] = (sym + m) / 1000;
+  f.xOverR[v] = f.r[v]! > 0 ? f.x[v]! / f.r[v]! : Number.POSITIVE_INFINITY;
+  if (atTerminals && zone >= 0) {
+    const t = g.nodes[zone]!;
+    const lg = t.kind !== 'transformer' ? 0 : t.connection === 'delta-wye' ? 1 : t.connection === 'single-phase-3w' ? 1.5 : 0;
+    if (lg > 0) f.lineToGroundKA[v] = (lg * sym) / 1000;
+  }
+}
+
+/** 1 where the circuit arriving at a node is single phase: a single-phase transformer or load on a three-phase system sees the line-to-line loop. */
+function loopAt(node: EquipmentNode, parentLoop: number): number {
+  return (node.kind === 'transformer' || node.kind === 'load') && node.phases === 1 ? 1 : parentLoop;
+}
+
+/** The supply side's R or X as a node sees it: doubled where a single-phase loop starts on a three-phase system. */
+function seenFrom(ohms: number, isLoop: number, parentLoop: number): number {
+  return isLoop && !parentLoop ? ohms * 2 : ohms;
+}
+
+/** Reads conductor `e`'s Table 9 R and X into the study; true when it has them and a length (else it counts as zero impedance). */
+function readConductor(c: Conductor, e: number, rOhmPerKft: Float64Array, xOhmPerKft: Float64Array): boolean {
+  const column = racewayColumn(c.wiring);
+  const rc = (rOhmPerKft[e] = table9ROhmPerKft(c.material, c.size, column));
+  xOhmPerKft[e] = table9XOhmPerKft(c.size, column);
+  return !Number.isNaN(rc) && c.lengthFt !== undefined;
+}
+
+/** True when a conductor has a length and a Chapter 9 Table 9 value (one without counts as zero impedance and adds a note). */
+export function hasImpedance(c: Conductor): boolean {
+  return c.lengthFt !== undefined && !Number.isNaN(table9ROhmPerKft(c.material, c.size, racewayColumn(c.wiring)));
+}
+
+/** What multiplies the per-1000 ft impedance: the length (twice for a single-phase loop) over the sets. */
+function stepFactor(c: Conductor, isLoop: number): number {
+  return ((isLoop ? 2 : 1) * c.lengthFt!) / 1000 / c.parallelSets;
+}
+
+/**
+ * Node `v` again after the conductor reaching it changed (length, size, material, sets or wiring,
+ * with an impedance before and after): its R and X and its figures. Only for a node with nothing
+ * below it that is not a transformer, so nothing else moves (see analyze/incremental.ts).
+ */
+export function restepThroughConductor(g: Graph, f: FaultStudy, v: number): void {
+  const u = f.parent[v]!;
+  const e = f.parentEdge[v]!;
+  const c = g.conductors[e]!;
+  const isLoop = f.loop[v]!;
+  readConductor(c, e, f.rOhmPerKft, f.xOhmPerKft);
+  const factor = stepFactor(c, isLoop);
+  f.stepR[v] = f.rOhmPerKft[e]! * factor;
+  f.stepX[v] = f.xOhmPerKft[e]! * factor;
+  f.r[v] = seenFrom(f.r[u]!, isLoop, f.loop[u]!) + f.stepR[v]!;
+  f.x[v] = seenFrom(f.x[u]!, isLoop, f.loop[u]!) + f.stepX[v]!;
+  if (!f.unknownWhy[v]) figuresAt(g, f, v, false);
 }
 
 /** Transformer R and X on the secondary, ohms (phase or single-phase loop), or null without %Z. */

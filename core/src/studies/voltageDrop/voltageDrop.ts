@@ -61,11 +61,65 @@ export interface VoltageDropInputs {
 
 const SQRT3 = Math.sqrt(3);
 
+/**
+ * Each conductor on its own circuit: three-phase √3 over V_LL; a 2-wire line-to-neutral circuit 2 over V_LN
+ * (the grounded conductor carries the return); a 2-wire system's circuit 2 over its voltage; a line-to-line
+ * or 3-wire single-phase circuit 2 over V_LL (balanced: the neutral carries no current).
+ */
+function isThreePhase(inp: Pick<VoltageDropInputs, 'circuits'>, c: number): boolean {
+  const kind = inp.circuits[c]!.makeup.kind;
+  return kind === 'three-phase-4w' || kind === 'three-phase-3w';
+}
+
+function circuitVolts(inp: Pick<VoltageDropInputs, 'circuits' | 'voltsLL' | 'loads'>, c: number, from: number, three: boolean): number {
+  const circuit = inp.circuits[c]!;
+  return three ? inp.voltsLL[from]! : circuit.makeup.kind === 'two-wire' && circuit.system.arrangement !== 'single-2w' ? inp.loads.voltsLN[from]! : inp.voltsLL[from]!;
+}
+
+/** Conductor `c`'s own drop, % of its circuit's `volts`, carrying `amps` at power factor `pf`; NaN without a length or Table 9 value. */
+function dropPct(g: Graph, inp: Pick<VoltageDropInputs, 'rOhmPerKft' | 'xOhmPerKft'>, c: number, amps: number, pf: number, three: boolean, volts: number): number {
+  const r = inp.rOhmPerKft[c]!;
+  const lengthFt = g.conductors[c]!.lengthFt;
+  if (Number.isNaN(r) || lengthFt === undefined) return Number.NaN;
+  const zEff = r * pf + inp.xOhmPerKft[c]! * Math.sqrt(1 - pf * pf);
+  const vd = ((three ? SQRT3 : 2) * amps * zEff * lengthFt) / 1000 / g.conductors[c]!.parallelSets;
+  return (100 * vd) / volts;
+}
+
+/** The sums at node `v`: what arrives adds its drop; what leaves a source or transformer starts the total again, and a circuit also starts at a device. */
+function arriveAt(g: Graph, inp: Pick<VoltageDropInputs, 'parent' | 'parentEdge'>, pct: Float64Array, totalPct: Float64Array, circuitPct: Float64Array, v: number): void {
+  const u = inp.parent[v]!;
+  if (u < 0) {
+    const kind = g.nodes[v]!.kind;
+    if (kind === 'utility' || kind === 'generator') totalPct[v] = circuitPct[v] = 0;
+    return;
+  }
+  const e = inp.parentEdge[v]!;
+  const d = e >= 0 ? pct[e]! : 0;
+  const up = g.nodes[u]!.kind;
+  const newSystem = up === 'utility' || up === 'generator' || up === 'transformer';
+  totalPct[v] = (newSystem ? 0 : totalPct[u]!) + d;
+  circuitPct[v] = (newSystem || up === 'breaker' || up === 'fuse' ? 0 : circuitPct[u]!) + d;
+}
+
+/**
+ * Conductor `c` again after its length, size, material, sets or wiring changed (its circuit and current
+ * do not): its drop and the sums at its load end, which has nothing below it (see analyze/incremental.ts).
+ * The fault study has re-read its Table 9 values into `inp.rOhmPerKft`/`xOhmPerKft` first.
+ */
+export function redropConductor(g: Graph, drop: VoltageDropStudy, inp: VoltageDropInputs, c: number): void {
+  const three = drop.singlePhase[c] === 0;
+  const volts = circuitVolts(inp, c, g.conductorFrom[c]!, three);
+  if (!(volts > 0)) return;
+  drop.pct[c] = dropPct(g, inp, c, drop.currentA[c]!, drop.powerFactor[c]!, three, volts);
+  arriveAt(g, inp, drop.pct, drop.totalPct, drop.circuitPct, g.conductorTo[c]!);
+}
+
 export function studyVoltageDrop(g: Graph, inp: VoltageDropInputs): VoltageDropStudy {
   const n = g.nodes.length;
   const m = g.conductors.length;
-  const { order, count, voltsLL, parent, parentEdge } = inp;
-  const { loadCircuits, voltsLN } = inp.loads;
+  const { order, count, parent, parentEdge } = inp;
+  const { loadCircuits } = inp.loads;
   // Real and reactive power at and below each node, one pass load to source along the supply tree.
   const p = new Float64Array(n);
   const q = new Float64Array(n);
@@ -99,10 +153,9 @@ export function studyVoltageDrop(g: Graph, inp: VoltageDropInputs): VoltageDropS
     // Each conductor on its own circuit: three-phase √3 over V_LL; a 2-wire line-to-neutral circuit 2 over V_LN
     // (the grounded conductor carries the return); a 2-wire system's circuit 2 over its voltage; a line-to-line
     // or 3-wire single-phase circuit 2 over V_LL (balanced: the neutral carries no current).
-    const circuit = inp.circuits[c]!;
-    const three = circuit.makeup.kind === 'three-phase-4w' || circuit.makeup.kind === 'three-phase-3w';
+    const three = isThreePhase(inp, c);
     singlePhase[c] = three ? 0 : 1;
-    const volts = three ? voltsLL[from]! : circuit.makeup.kind === 'two-wire' && circuit.system.arrangement !== 'single-2w' ? voltsLN[from]! : voltsLL[from]!;
+    const volts = circuitVolts(inp, c, from, three);
     if (!(volts > 0)) continue;
     const pt = p[to]!;
     const qt = q[to]!;
@@ -111,32 +164,12 @@ export function studyVoltageDrop(g: Graph, inp: VoltageDropInputs): VoltageDropS
     const pf = s > 0 ? pt / s : 1;
     currentA[c] = amps;
     powerFactor[c] = pf;
-    const r = inp.rOhmPerKft[c]!;
-    const lengthFt = g.conductors[c]!.lengthFt;
-    if (Number.isNaN(r) || lengthFt === undefined) continue;
-    const zEff = r * pf + inp.xOhmPerKft[c]! * Math.sqrt(1 - pf * pf);
-    const vd = ((three ? SQRT3 : 2) * amps * zEff * lengthFt) / 1000 / g.conductors[c]!.parallelSets;
-    pct[c] = (100 * vd) / volts;
+    pct[c] = dropPct(g, inp, c, amps, pf, three, volts);
   }
 
   const totalPct = new Float64Array(n).fill(Number.NaN);
   const circuitPct = new Float64Array(n).fill(Number.NaN);
-  for (let k = 0; k < count; k++) {
-    const v = order[k]!;
-    const u = parent[v]!;
-    if (u < 0) {
-      const kind = g.nodes[v]!.kind;
-      if (kind === 'utility' || kind === 'generator') totalPct[v] = circuitPct[v] = 0;
-      continue;
-    }
-    const e = parentEdge[v]!;
-    const d = e >= 0 ? pct[e]! : 0;
-    // Values arrive at v; what leaves a source or transformer starts again, and a circuit also starts at a device.
-    const up = g.nodes[u]!.kind;
-    const newSystem = up === 'utility' || up === 'generator' || up === 'transformer';
-    totalPct[v] = (newSystem ? 0 : totalPct[u]!) + d;
-    circuitPct[v] = (newSystem || up === 'breaker' || up === 'fuse' ? 0 : circuitPct[u]!) + d;
-  }
+  for (let k = 0; k < count; k++) arriveAt(g, inp, pct, totalPct, circuitPct, order[k]!);
   const notes = [
     "Voltage drop: Chapter 9 Table 9 effective impedance R·cos θ + X·sin θ at the power factor of the loads served (lagging), conductors at 75 °C; each conductor on its own circuit: three-phase √3·I·Z·L/1000 over the line-to-line voltage, a line-to-neutral circuit 2·I·Z·L/1000 over the line-to-neutral voltage, a line-to-line or single-phase 3-wire circuit 2·I·Z·L/1000 over the line-to-line voltage (balanced). Totals count from the source or transformer secondary; transformer regulation is not included.",
   ];

@@ -1,0 +1,148 @@
+/**
+ * The incremental analysis (core/src/analyze/incremental.ts) against the whole one: after every edit
+ * of a random sequence, `session.update(next)` must equal `analyze(next)` deeply. Networks are the
+ * benchmark's synthetic campus (many branch circuits, the edit the session re-checks on its own) and
+ * random radial trees (test/helpers/networks.ts); edits keep the objects they do not touch, as an
+ * immer edit in the editor does. Seeded like the other property tests (FC_SEED, FC_PATH, FC_RUNS).
+ */
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { CONDUCTOR_SIZES, MATERIALS, WIRING_METHODS, analyze, createAnalysis, loadProject, type Conductor, type Project, type ProjectInput } from '@linewright/core';
+import { generateProject } from '../../core/bench/generateProject';
+import { treeNetwork } from '../helpers/networks';
+
+const runs = (n: number) => Number(process.env.FC_RUNS ?? n);
+const DEFAULT_SEED = 20261202;
+const seed = process.env.FC_SEED ? Number(process.env.FC_SEED) : process.env.FC_RUNS ? undefined : DEFAULT_SEED;
+const settings = (numRuns: number): fc.Parameters<unknown> => ({
+  numRuns: runs(numRuns),
+  ...(seed === undefined ? {} : { seed }),
+  ...(process.env.FC_PATH ? { path: process.env.FC_PATH } : {}),
+});
+const LIMIT_MS = process.env.FC_RUNS ? 3_600_000 : 120_000;
+
+function load(input: ProjectInput): Project {
+  const loaded = loadProject(JSON.parse(JSON.stringify(input)));
+  if (!loaded.ok) throw new Error(`generated network refused: ${JSON.stringify(loaded.errors.slice(0, 5))}`);
+  return loaded.project;
+}
+
+/** One edit: which element (an index taken modulo the count) and the new value. */
+type Edit =
+  | { kind: 'length'; at: number; lengthFt: number | undefined }
+  | { kind: 'size'; at: number; size: number }
+  | { kind: 'material'; at: number; material: number }
+  | { kind: 'sets'; at: number; sets: number }
+  | { kind: 'wiring'; at: number; wiring: number }
+  | { kind: 'rating'; at: number; ratingA: number }
+  | { kind: 'load'; at: number; kva: number }
+  | { kind: 'add'; at: number }
+  | { kind: 'delete'; at: number };
+
+const at = fc.nat({ max: 1_000_000 });
+const editArb: fc.Arbitrary<Edit> = fc.oneof(
+  { weight: 6, arbitrary: fc.record({ kind: fc.constant('length' as const), at, lengthFt: fc.option(fc.integer({ min: 1, max: 600 }), { nil: undefined, freq: 8 }) }) },
+  { weight: 4, arbitrary: fc.record({ kind: fc.constant('size' as const), at, size: fc.nat({ max: CONDUCTOR_SIZES.length - 1 }) }) },
+  { weight: 1, arbitrary: fc.record({ kind: fc.constant('material' as const), at, material: fc.nat({ max: MATERIALS.length - 1 }) }) },
+  { weight: 1, arbitrary: fc.record({ kind: fc.constant('sets' as const), at, sets: fc.integer({ min: 1, max: 4 }) }) },
+  { weight: 1, arbitrary: fc.record({ kind: fc.constant('wiring' as const), at, wiring: fc.nat({ max: WIRING_METHODS.length - 1 }) }) },
+  { weight: 2, arbitrary: fc.record({ kind: fc.constant('rating' as const), at, ratingA: fc.constantFrom(15, 20, 30, 60, 100, 225, 400, 800) }) },
+  { weight: 2, arbitrary: fc.record({ kind: fc.constant('load' as const), at, kva: fc.integer({ min: 1, max: 500 }) }) },
+  { weight: 1, arbitrary: fc.record({ kind: fc.constant('add' as const), at }) },
+  { weight: 1, arbitrary: fc.record({ kind: fc.constant('delete' as const), at }) },
+);
+
+/** The project after one edit; every element the edit does not touch is the same object as before. */
+function applyEdit(p: Project, e: Edit, step: number): Project {
+  const withConductor = (i: number, c: Conductor): Project => ({ ...p, conductors: p.conductors.map((x, k) => (k === i ? c : x)) });
+  const n = p.conductors.length;
+  if (n === 0) return p;
+  const i = e.at % n;
+  const c = p.conductors[i]!;
+  switch (e.kind) {
+    case 'length': {
+      const { lengthFt: _, ...rest } = c;
+      return withConductor(i, e.lengthFt === undefined ? (rest as Conductor) : { ...c, lengthFt: e.lengthFt });
+    }
+    case 'size':
+      return withConductor(i, { ...c, size: CONDUCTOR_SIZES[e.size]! });
+    case 'material':
+      return withConductor(i, { ...c, material: MATERIALS[e.material]! });
+    case 'sets':
+      return withConductor(i, { ...c, parallelSets: e.sets });
+    case 'wiring':
+      return withConductor(i, { ...c, wiring: WIRING_METHODS[e.wiring]! });
+    case 'add':
+      return { ...p, conductors: [...p.conductors, { ...c, id: `${c.id}-X${step}` as Conductor['id'] }] };
+    case 'delete':
+      return { ...p, conductors: p.conductors.filter((_, k) => k !== i) };
+    case 'rating':
+    case 'load': {
+      const kinds = e.kind === 'rating' ? ['breaker', 'fuse'] : ['load'];
+      const candidates = p.nodes.flatMap((node, k) => (kinds.includes(node.kind) ? [k] : []));
+      if (candidates.length === 0) return p;
+      const k = candidates[e.at % candidates.length]!;
+      const node = p.nodes[k]!;
+      const next = node.kind === 'load' ? (e.kind === 'load' && node.kva !== undefined ? { ...node, kva: e.kva } : node) : e.kind === 'rating' ? { ...node, ratingA: e.ratingA } : node;
+      return next === node ? p : { ...p, nodes: p.nodes.map((x, j) => (j === k ? next : x)) };
+    }
+  }
+}
+
+/** Runs the edits through a session, checking each result against a whole analysis; returns how many were incremental. */
+function checkSequence(start: Project, edits: readonly Edit[]): number {
+  const session = createAnalysis(start);
+  expect(session.report).toEqual(analyze(start));
+  let project = start;
+  let incremental = 0;
+  edits.forEach((e, step) => {
+    project = applyEdit(project, e, step);
+    const report = session.update(project);
+    expect(report).toEqual(analyze(project));
+    if (session.last.mode === 'incremental') incremental++;
+  });
+  return incremental;
+}
+
+describe('incremental analysis equals a whole analysis after every edit', () => {
+  it(
+    'synthetic campus networks (100–240 conductors), random edit sequences',
+    () => {
+      let incremental = 0;
+      fc.assert(
+        fc.property(fc.integer({ min: 100, max: 240 }), fc.integer({ min: 1, max: 1000 }), fc.array(editArb, { minLength: 1, maxLength: 10 }), (conductors, networkSeed, edits) => {
+          incremental += checkSequence(load(generateProject({ conductors, seed: networkSeed })), edits);
+        }),
+        settings(12),
+      );
+      // The point of the session: most of these edits are re-checked on their own.
+      expect(incremental).toBeGreaterThan(0);
+    },
+    LIMIT_MS,
+  );
+
+  it(
+    'random radial networks (every schema field drawn), random edit sequences',
+    () => {
+      fc.assert(
+        fc.property(treeNetwork(), fc.array(editArb, { minLength: 1, maxLength: 10 }), (input, edits) => {
+          checkSequence(load(input), edits);
+        }),
+        settings(40),
+      );
+    },
+    LIMIT_MS,
+  );
+
+  it('a branch-circuit length edit is re-checked on its own; a load edit runs the whole analysis', () => {
+    const project = load(generateProject({ conductors: 200, seed: 3 }));
+    const session = createAnalysis(project);
+    const branch = project.conductors.findIndex((c) => session.report.conductors.find((r) => r.id === c.id)?.role === 'branch' && c.lengthFt !== undefined);
+    const edited = applyEdit(project, { kind: 'length', at: branch, lengthFt: 250 }, 0);
+    expect(session.update(edited)).toEqual(analyze(edited));
+    expect(session.last).toEqual({ mode: 'incremental', conductorId: project.conductors[branch]!.id });
+    const loadEdit = applyEdit(edited, { kind: 'load', at: 0, kva: 40 }, 1);
+    expect(session.update(loadEdit)).toEqual(analyze(loadEdit));
+    expect(session.last.mode).toBe('full');
+  });
+});
