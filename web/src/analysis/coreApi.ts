@@ -7,6 +7,7 @@ import type * as PermitPdf from '@linewright/core/pdf';
 
 export {
   analyze as coreAnalyze,
+  createAnalysis as coreCreateAnalysis,
   applyFix as coreApplyFix,
   loadProject as coreLoadProject,
   CAUTION,

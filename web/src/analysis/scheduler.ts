@@ -1,6 +1,6 @@
-import type { AnalysisReport, Project } from '@linewright/core';
+import type { AnalysisReport, AnalysisSession, Project } from '@linewright/core';
 import type { EditorStore, EditorState } from '../editor/store';
-import { coreAnalyze } from './coreApi';
+import { coreCreateAnalysis } from './coreApi';
 
 /**
  * A check expected to take less than this runs inside the commit: the edit and
@@ -18,10 +18,13 @@ const INLINE_BUDGET_MS = 60;
  */
 export function startAnalysis(store: EditorStore, debounceMs = 8): () => void {
   let timer: ReturnType<typeof setTimeout> | null = null;
+  // One session for the editor's life: an edit of one branch circuit is re-checked on its own and
+  // every other conductor keeps its report object (core/src/analyze/incremental.ts).
+  let session: AnalysisSession | null = null;
   const check = (doc: Project): { report: AnalysisReport | null; error: string | null } => {
     const t0 = performance.now();
     try {
-      const report = coreAnalyze(doc);
+      const report = session ? session.update(doc) : (session = coreCreateAnalysis(doc)).report;
       stats.lastMs = performance.now() - t0;
       // A smoothed figure, so one slow run (a GC pause) does not flip the mode.
       stats.typicalMs = stats.runs === 0 ? stats.lastMs : 0.7 * stats.typicalMs + 0.3 * stats.lastMs;
@@ -29,6 +32,7 @@ export function startAnalysis(store: EditorStore, debounceMs = 8): () => void {
       return { report, error: null };
     } catch (e) {
       // A crash in the analyzer must not cost the user the drawing: keep editing, say why.
+      session = null;
       stats.lastMs = performance.now() - t0;
       return { report: null, error: `The check failed: ${(e as Error).message}` };
     }
