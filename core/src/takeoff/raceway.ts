@@ -1,6 +1,6 @@
 import type { Conductor, ConductorSize, Insulation, RacewayKind } from '../model/schema';
 import { maxFillFraction } from '../tables/chapter9Table1';
-import { allowedFillIn2, CHAPTER9_TABLE4, TRADE_SIZES, tradeSizeLabel } from '../tables/chapter9Table4';
+import { allowedFillIn2, CHAPTER9_TABLE4, tradeSizeLabel } from '../tables/chapter9Table4';
 import { insulatedAreaIn2 } from '../tables/chapter9Table5';
 import { sizeLabel } from '../tables/sizes';
 import type { RacewayFill } from './types';
@@ -72,12 +72,13 @@ export function sizeRaceway(kind: RacewayKind | null, contents: readonly Raceway
       };
     }
   }
-  const largest = CHAPTER9_TABLE4[kind][TRADE_SIZES.length - 1]!;
+  const rows = CHAPTER9_TABLE4[kind];
+  const largest = rows[rows.length - 1]!;
   return {
     ...empty,
     count: raceways,
     conductorAreaIn2: area,
     maxFillFraction: fraction,
-    problem: `fill ${area} in² exceeds the ${Math.round(fraction * 100)} % allowed in ${tradeSizeLabel(largest.tradeSize)} ${kind} (${Math.round(allowedFillIn2(largest, fraction) * 1000) / 1000} in², the largest trade size transcribed): use more parallel sets or another raceway`,
+    problem: `fill ${area} in² exceeds the ${Math.round(fraction * 100)} % allowed in ${tradeSizeLabel(largest.tradeSize)} ${kind} (${Math.round(allowedFillIn2(largest, fraction) * 1000) / 1000} in², the largest trade size of that kind): use more parallel sets or another raceway`,
   };
 }

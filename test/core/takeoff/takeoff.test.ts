@@ -110,19 +110,27 @@ describe('Chapter 9 raceway fill', () => {
     expect(run.raceway.fillPct).toBeCloseTo((100 * fill) / circleArea(3.356), 0);
   });
 
-  it('flags a run whose fill exceeds the largest trade size: 4 × 1000 kcmil THHN + 3/0 EGC = 5.659 in² > 4.503 in² (4 in PVC Schedule 80 at 40 %)', () => {
+  it('flags a run whose fill exceeds the largest trade size of its kind: 4 × 1000 kcmil THHN + 3/0 EGC = 5.659 in² > 5.452 in² (4 in IMC at 40 %, the largest 342.20(B) permits)', () => {
     const t = takeoffOf(
-      diagram().utility(480).breaker(1200).conductor({ size: '1000', lengthFt: 50, neutral: 'yes', egcSize: '3/0', raceway: 'PVC-80' }).switchboard(1200).build(),
+      diagram().utility(480).breaker(1200).conductor({ size: '1000', lengthFt: 50, neutral: 'yes', egcSize: '3/0', raceway: 'IMC' }).switchboard(1200).build(),
     );
     const rw = t.runs[0]!.raceway;
-    expect(4 * circleArea(1.31) + circleArea(0.584)).toBeGreaterThan(0.4 * circleArea(3.786));
+    expect(4 * circleArea(1.31) + circleArea(0.584)).toBeGreaterThan(0.4 * circleArea(4.166));
     expect(rw.tradeSize).toBeNull();
     expect(rw.problem).toMatch(/exceeds/);
     expect(t.runs[0]!.flags.some((f) => f.includes('exceeds'))).toBe(true);
   });
 
+  it('the same contents in PVC Schedule 80 go to trade size 5: 5.659 in² > 4.503 (4 in) and ≤ 7.142 in² (5 in, 40 %)', () => {
+    const t = takeoffOf(
+      diagram().utility(480).breaker(1200).conductor({ size: '1000', lengthFt: 50, neutral: 'yes', egcSize: '3/0', raceway: 'PVC-80' }).switchboard(1200).build(),
+    );
+    expect(4 * circleArea(1.31) + circleArea(0.584)).toBeLessThan(0.4 * circleArea(4.768));
+    expect(t.runs[0]!.raceway).toMatchObject({ tradeSize: '5', problem: null });
+  });
+
   it('an insulation without transcribed Table 5 rows is not sized, and says why', () => {
-    const t = takeoffOf(diagram().utility(480).breaker(100).conductor({ size: '3', insulation: 'THW', lengthFt: 50 }).load({ currentA: 80, phases: 3 }).build());
+    const t = takeoffOf(diagram().utility(480).breaker(100).conductor({ size: '3', insulation: 'RHW', lengthFt: 50 }).load({ currentA: 80, phases: 3 }).build());
     expect(t.runs[0]!.raceway.tradeSize).toBeNull();
     expect(t.runs[0]!.raceway.problem).toMatch(/Table 5/);
   });
