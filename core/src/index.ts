@@ -17,3 +17,4 @@ export { renderTakeoffText } from './report/takeoffText';
 export { toTakeoffJson, type TakeoffJson } from './report/takeoffJson';
 export * from './review/index';
 export type * from './studies/types';
+export * from './sizing/index';

@@ -128,7 +128,7 @@ export function conductorFindingsOf(ctx: FixedContext, ci: number, out: Finding[
     if (rest.length > 0) push({ ruleId: t.ruleId, messageId: 'fails', severity: 'violation', cites: t.cites, subject: { kind: 'conductor', id: c.id }, message: `${describeRun(c, f)}: ${rest.join(' ')} Fails ${t.cites.section}.` });
   }
   // 210.19(A)(1), 215.2(A)(1), 230.42(A): both halves; a motor or HVAC circuit is sized by its own article (430.22, 440.35).
-  if (c.id === f.conductorIds[0] && !(v.family === 'fed-by-ocpd' && (f.motor || f.hvac) && v.role === 'branch')) {
+  if (c.id === f.conductorIds[0] && sizedByCalculatedLoad(v)) {
     const t = runRule(calculatedLoad, f);
     const section = v.role === 'branch' ? '210.19(A)(1)' : v.role === 'service' ? '230.42(A)' : '215.2(A)(1)';
     for (const cond of t.conditions) {
@@ -145,6 +145,11 @@ export function conductorFindingsOf(ctx: FixedContext, ci: number, out: Finding[
       });
     }
   }
+}
+
+/** 210.19(A)(1), 215.2(A)(1), 230.42(A) apply to the run: all but a motor or HVAC branch circuit (sized by 430.22, 440.35). */
+export function sizedByCalculatedLoad(v: Pick<RunVerdict, 'family' | 'role' | 'facts'>): boolean {
+  return !(v.family === 'fed-by-ocpd' && (v.facts.motor || v.facts.hvac) && v.role === 'branch');
 }
 
 /** The run as a finding names it: the conductor, or for a run of several segments all of them and the weakest size. */

@@ -1,14 +1,17 @@
-import type { Conductor, CodeEdition, ConductorSize } from '../model/schema';
+import type { Conductor, CodeEdition } from '../model/schema';
 import { CONDUCTOR_SIZES } from '../model/schema';
-import { outcomeOf, type Rule } from '../rules/define';
+import { conductorName, outcomeOf, type Rule } from '../rules/define';
 import { RULES_BY_ID } from '../rules/index';
 import { motorDeviceLimit } from '../rules/motor-device';
-
-const PROTECTION_IDS: ReadonlySet<string> = new Set(['protected', 'protected-next-size']);
 import type { RunFacts } from '../rules/facts';
+import { configsByCost, MAX_PARALLEL_SETS } from '../sizing/configs';
+import { costPerFt } from '../sizing/cost';
+import type { RunUnderTest } from '../sizing/screen';
+import { changedSegments, trialAmpacity, trialFacts, type SizingConfig } from '../sizing/trial';
 import { sizeIndexOf, sizeLabel, materialLabel } from '../tables/sizes';
 import { isStandardRating, largestStandardRatingAtMost, nextStandardRatingAbove } from '../tables/standardRatings';
-import { conductorAmpacity } from './ampacities';
+
+const PROTECTION_IDS: ReadonlySet<string> = new Set(['protected', 'protected-next-size']);
 import type { VerdictContext } from './context';
 import type { Fix, RuleTrial } from './types';
 
@@ -47,35 +50,23 @@ export function suggestFixes(
   if (facts.motor || facts.hvac) return ownArticleFixes(facts, members, edition);
   const fixes: Fix[] = [];
   const ids = facts.conductorIds;
-  const resized = new Map<string, ConductorSize>();
-  const start = sizeIndexOf(facts.size) + 1;
-  for (let i = start; i < CONDUCTOR_SIZES.length && resized.size < rules.length; i++) {
-    const size = CONDUCTOR_SIZES[i]!;
-    const at = runAmpacityAt(members, size, edition, facts);
-    if (at === null) continue;
-    const trial: RunFacts = { ...facts, size, ampacityA: at.ampacityA, smallConductorMaxOcpdA: at.small };
-    for (const rule of rules) {
-      if (resized.has(rule.id)) continue;
-      if (outcomeOf(rule.check(trial)) === 'holds') resized.set(rule.id, size);
-    }
-    // Once the run is protected outright, no larger size says anything new.
-    if (resized.has('protected') || resized.has('protected-next-size')) break;
-  }
-  const seen = new Set<ConductorSize>();
-  const bySize = [...resized.entries()].sort((a, b) => sizeIndexOf(a[1]) - sizeIndexOf(b[1]));
-  for (const [ruleId, size] of bySize) {
-    if (seen.has(size)) continue;
-    seen.add(size);
+  const run: RunUnderTest = { facts, members, rules, loadRule: false, edition, terminationDefault: facts.site.terminationDefault, mode: 'upsize' };
+  const resized = cheapestPerRule(run);
+  const seen = new Set<string>();
+  const byCost = [...resized.entries()].sort((a, b) => costPerFt(a[1]) - costPerFt(b[1]));
+  for (const [ruleId, config] of byCost) {
+    const key = `${config.size}/${config.parallelSets}`;
+    if (seen.has(key)) continue;
+    seen.add(key);
     const rule = rules.find((r) => r.id === ruleId)!;
-    const sets = facts.parallelSets > 1 ? `${facts.parallelSets} sets of ` : '';
     fixes.push({
       kind: 'resize',
-      conductorIds: smallerThan(members, size, facts),
-      size,
-      material: facts.material,
-      parallelSets: facts.parallelSets,
+      conductorIds: changedSegments(members, config, 'upsize'),
+      size: config.size,
+      material: config.material,
+      parallelSets: config.parallelSets,
       forRule: ruleId,
-      label: `Upsize to ${sets}${sizeLabel(size)} ${materialLabel(facts.material)}: meets ${rule.section} (${rule.title.toLowerCase()}).`,
+      label: `${resizeWords(facts, config)}: meets ${rule.section} (${rule.title.toLowerCase()}).`,
     });
   }
   const shorten: Fix[] = [];
@@ -113,19 +104,35 @@ export function suggestFixes(
   return [...tapResizes, ...longest, ...addOcpd, ...protectionResizes];
 }
 
-/** The run's ampacity (lowest segment) and 240.4(D) limit were every segment of `size`; null when a segment has none. */
-function runAmpacityAt(members: readonly Conductor[], size: ConductorSize, edition: CodeEdition, facts: RunFacts): { ampacityA: number; small: number | null } | null {
-  let ampacityA = Number.POSITIVE_INFINITY;
-  let small: number | null = null;
-  for (const c of members) {
-    // A segment already larger than the trial size keeps its size (a run may change size at a splice).
-    const keep = sizeIndexOf(c.size) >= sizeIndexOf(size) && c.material === facts.material;
-    const w = conductorAmpacity(keep ? c : { ...c, size }, edition, facts.site.terminationDefault).working;
-    if (w === null) return null;
-    ampacityA = Math.min(ampacityA, w.ampacityA);
-    if (w.smallConductorMaxOcpdA !== null) small = small === null ? w.smallConductorMaxOcpdA : Math.min(small, w.smallConductorMaxOcpdA);
+/**
+ * The cheapest configuration of the run's own material (by the sizing cost proxy) under which
+ * each rule holds, among those that raise its ampacity: one conductor per phase or 2 to 8
+ * sets in parallel from 1/0 AWG (310.10(G)). Where one very large conductor is the only
+ * single-size answer, parallel sets of a moderate size usually cost less.
+ */
+function cheapestPerRule(run: RunUnderTest): Map<string, SizingConfig> {
+  const { facts, rules } = run;
+  const found = new Map<string, SizingConfig>();
+  for (const config of configsByCost([facts.material], Math.max(MAX_PARALLEL_SETS, facts.parallelSets))) {
+    if (found.size >= rules.length) break;
+    const at = trialAmpacity(run.members, config, run.edition, run.terminationDefault, run.mode);
+    if (at === null || (facts.ampacityA !== null && at.ampacityA <= facts.ampacityA)) continue;
+    const trial = trialFacts(facts, config, at);
+    for (const rule of rules) {
+      if (!found.has(rule.id) && outcomeOf(rule.check(trial)) === 'holds') found.set(rule.id, config);
+    }
+    // Once the run is protected outright, nothing costlier says anything new.
+    if (found.has('protected') || found.has('protected-next-size')) break;
   }
-  return { ampacityA, small };
+  return found;
+}
+
+/** "Upsize to 400 kcmil Cu", or "Use 2 sets of 250 kcmil Cu in parallel (…)" when the number of sets changes. */
+function resizeWords(facts: Pick<RunFacts, 'parallelSets'>, config: SizingConfig): string {
+  const name = conductorName(config);
+  if (config.parallelSets === facts.parallelSets) return `Upsize to ${name}`;
+  if (config.parallelSets === 1) return `Use one ${name} per phase instead of ${facts.parallelSets} sets`;
+  return `Use ${name} in parallel (310.10(G): equal sets, each in a raceway of its own)`;
 }
 
 /**
@@ -142,7 +149,7 @@ function ownArticleFixes(facts: RunFacts, members: readonly Conductor[], edition
   if (facts.ampacityA !== null && facts.ampacityA < minA) {
     for (let i = sizeIndexOf(facts.size) + 1; i < CONDUCTOR_SIZES.length; i++) {
       const size = CONDUCTOR_SIZES[i]!;
-      const at = runAmpacityAt(members, size, edition, facts);
+      const at = trialAmpacity(members, { size, material: facts.material, parallelSets: facts.parallelSets }, edition, facts.site.terminationDefault);
       if (at === null || at.ampacityA < minA) continue;
       const sets = facts.parallelSets > 1 ? `${facts.parallelSets} sets of ` : '';
       const why = motor ? `at least 125 % of the ${motor.fullLoadA} A full-load current, ${minA} A (430.22)` : `at least the nameplate MCA of ${minA} A (440.35)`;
@@ -193,9 +200,4 @@ export function largestProtectingRatingA(facts: Pick<RunFacts, 'ampacityA' | 'sm
 function articleFor(n: number): 'a' | 'an' {
   const s = String(n);
   return s.startsWith('8') || s === '11' || s === '18' || /^1[18]\d{2}$/.test(s) ? 'an' : 'a';
-}
-
-/** The segments a resize changes: those smaller than the new size, or of another material or number of sets. */
-function smallerThan(members: readonly Conductor[], size: ConductorSize, f: Pick<RunFacts, 'material' | 'parallelSets'>): Conductor['id'][] {
-  return members.filter((c) => sizeIndexOf(c.size) < sizeIndexOf(size) || c.material !== f.material || c.parallelSets !== f.parallelSets).map((c) => c.id);
 }

@@ -277,6 +277,9 @@ export const projectSettings = z.strictObject({
   industrialInstallation: z.boolean().default(false).describe('240.21(C)(3): an industrial installation.'),
   voltageDropCircuitPct: z.number().positive().max(20).optional().describe('Largest voltage drop of one feeder or branch circuit, % (210.19, 215.2 informational notes: 3 %). Default 3.'),
   voltageDropTotalPct: z.number().positive().max(20).optional().describe('Largest voltage drop from the source or transformer secondary to a load, % (informational notes: 5 %). Default 5.'),
+  sizingMaterials: z.array(material).min(1).max(3).optional().describe(
+    'Conductor materials the sizing assistant may choose, at every size (cu, al, cu-clad-al). Not stated: copper at every size, aluminum at 1/0 AWG and larger (common practice of project specifications), and each run\'s own material.',
+  ),
   faultStudyDate: z.string().min(1).max(40).optional().describe('110.24(A): date the available fault current was calculated (e.g. 2026-12-02); marked on service equipment.'),
   /**
    * 110.14(C)(1): the termination rating of a conductor that does not state its own.
