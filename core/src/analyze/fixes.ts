@@ -26,12 +26,15 @@ export function runFixes(ctx: VerdictContext): Fix[][] {
 
 /** The fixes of run `r`. */
 export function fixesOfRun(ctx: VerdictContext, r: number): Fix[] {
-  const { graph, runs, edition } = ctx;
+  const { runs, edition } = ctx;
   const v = ctx.verdicts[r]!;
   if (v.verdict !== 'unprotected' && v.verdict !== 'tap-from-tap') return NO_FIXES;
-  // Each segment at the count its ampacity was adjusted for (its circuit's 310.15(E) count), whatever size it is tried at.
-  const members = runs.members[r]!.map((ci) => ({ ...graph.conductors[ci]!, currentCarrying: ctx.circuits[ci]!.currentCarrying.adjustmentCount }));
-  return suggestFixes(v.facts, members, v.verdict === 'tap-from-tap' ? [] : v.candidates, v.tried, edition);
+  return suggestFixes(v.facts, segmentsAsAdjusted(ctx, runs.members[r]!), v.verdict === 'tap-from-tap' ? [] : v.candidates, v.tried, edition);
+}
+
+/** Each segment at the count its ampacity was adjusted for (its circuit's 310.15(E) count), whatever size it is tried at. */
+export function segmentsAsAdjusted(ctx: Pick<VerdictContext, 'graph' | 'circuits'>, conductorIndices: readonly number[]): Conductor[] {
+  return conductorIndices.map((ci) => ({ ...ctx.graph.conductors[ci]!, currentCarrying: ctx.circuits[ci]!.currentCarrying.adjustmentCount }));
 }
 
 /**

@@ -5,6 +5,7 @@ import { classifyRuns, type RunVerdict } from '../analyze/classify';
 import { sizedByCalculatedLoad } from '../analyze/conductorFindings';
 import { prepareContext } from '../analyze/context';
 import { effectiveRatingA } from '../analyze/equipment';
+import { segmentsAsAdjusted } from '../analyze/fixes';
 import { baseRunFacts } from '../analyze/runFacts';
 import { failedTexts, nearestTrial } from '../analyze/summary';
 import { FAILING_VERDICTS, VERDICT_LABELS, type AnalysisReport, type Finding, type Fix, type Verdict } from '../analyze/types';
@@ -109,8 +110,8 @@ export function sizeConductor(project: Project, conductorId: string, options: Si
   const ci = g.conductors.findIndex((c) => c.id === conductorId);
   if (ci < 0) throw new Error(`There is no conductor "${conductorId}" in the drawing; give the id of a conductor.`);
   const v = verdicts[runs.runOf[ci]!]!;
-  const byId = new Map(project.conductors.map((c) => [c.id, c]));
-  const members = v.facts.conductorIds.map((id) => byId.get(id)!);
+  const index = new Map(g.conductors.map((c, i) => [c.id as string, i]));
+  const members = segmentsAsAdjusted(prepared, v.facts.conductorIds.map((id) => index.get(id)!));
   const baseline = analyze(project);
   const run: RunUnderTest = {
     facts: v.facts,
