@@ -3,6 +3,7 @@ import type { CodeEdition } from '../model/schema';
 import { JSON_DETAILS, type JsonDetail } from '../report/json';
 import { wrap } from '../report/text';
 import { DIFF_USAGE, toDiffCommand, type DiffCommand } from './diff';
+import { SIZE_USAGE, toSizeCommand, type SizeCommand } from './size';
 
 /** Pure argument parsing for the `linewright` command: no I/O here, so every case is a unit test. */
 
@@ -47,6 +48,7 @@ export type ParsedArgs =
   | CheckCommand
   | TakeoffCommand
   | DiffCommand
+  | SizeCommand
   | { command: 'help' }
   | { command: 'version' }
   | { command: 'error'; message: string };
@@ -54,6 +56,7 @@ export type ParsedArgs =
 export const USAGE_SHORT = `Usage: linewright check FILE [--format text|json|sarif|csv] [--out FILE] [--pdf FILE] [--sheet ansi-b|ansi-d|arch-d] [--edition 2020|2023] [--detail summary|full] [--color] [--fail-on-ahj]
        linewright takeoff FILE [--format text|csv|xlsx|json] [--out FILE] [--edition 2020|2023]
        linewright diff OLD NEW [--format text|json]
+       linewright size FILE --conductor ID [--format text|json]
        linewright --help | --version
 `;
 
@@ -86,7 +89,7 @@ checked drawing: EGC by Table 250.122, raceway by Chapter 9):
   -V, --version                  show the version
 
 Other commands:
-${DIFF_USAGE}
+${DIFF_USAGE}${SIZE_USAGE}
 Exit status of check:
   0  no violations found
   1  violations found (see the report)
@@ -100,7 +103,7 @@ function error(message: string): ParsedArgs {
   return { command: 'error', message };
 }
 
-const VALUE_FLAGS = new Set(['--format', '--out', '--pdf', '--sheet', '--edition', '--detail']);
+const VALUE_FLAGS = new Set(['--format', '--out', '--pdf', '--sheet', '--edition', '--detail', '--conductor']);
 
 /** Parses `argv` (without node and the script). Flags may be written `--flag value` or `--flag=value`. */
 export function parseArgs(argv: readonly string[]): ParsedArgs {
@@ -145,7 +148,9 @@ export function parseArgs(argv: readonly string[]): ParsedArgs {
   if (command === undefined) return error('no command given; expected "check FILE"');
   if (command === 'takeoff') return parseTakeoff(file, rest, values, color);
   if (command === 'diff') return failOnAhj || color ? error('options --color and --fail-on-ahj apply to check, not diff') : toDiffCommand(positional.slice(1), values);
-  if (command !== 'check') return error(`unknown command "${command}"; expected "check FILE", "takeoff FILE" or "diff OLD NEW"`);
+  if (command === 'size') return failOnAhj || color ? error('options --color and --fail-on-ahj apply to check, not size') : toSizeCommand(positional.slice(1), values);
+  if (values.has('--conductor')) return error('option --conductor belongs to size: linewright size FILE --conductor ID');
+  if (command !== 'check') return error(`unknown command "${command}"; expected "check FILE", "takeoff FILE", "diff OLD NEW" or "size FILE --conductor ID"`);
   if (file === undefined) return error('check needs a project file: linewright check FILE');
   if (rest.length > 0) return error(`unexpected argument "${rest[0]}"; check takes one file`);
 

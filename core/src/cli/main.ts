@@ -139,8 +139,10 @@ export async function main(argv: readonly string[]): Promise<number> {
     case 'check':
     case 'takeoff':
     case 'diff':
+    case 'size':
       try {
         if (args.command === 'takeoff') return await (await import('./takeoff')).takeoff(args);
+        if (args.command === 'size') return await (await import('./size')).runSize(args);
         return await (args.command === 'check' ? check(args) : diff(args));
       } catch (e) {
         // A bug of ours, not bad input: name it plainly; the stack only when asked for.
