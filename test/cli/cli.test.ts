@@ -1,40 +1,20 @@
-import { spawn } from 'node:child_process';
 import { mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync, existsSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
+import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { CAUTION, PROJECT_VERSION } from '@linewright/core';
 import { fixtureInput } from '../core/report/fixture';
-import { CLI_ENTRY } from '../../scripts/build-cli.mjs';
+import { cli, ROOT, run } from '../helpers/cli';
 
 /**
  * End to end: the CLI as a user runs it, in a child process, on temporary files. The exit codes
  * and messages are Linewright's own documented contract (linewright --help).
  */
-const ROOT = resolve(import.meta.dirname, '../..');
 const dir = mkdtempSync(join(tmpdir(), 'lw-cli-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-/**
- * Runs the CLI from the repository root; async so the cases run side by side. Most cases run the
- * built command (core/dist/cli/linewright.mjs, rebuilt from the current source by test/globalSetup.ts)
- * with node directly, one process instead of npx's three; the `npx tsx` and `npx linewright` forms a
- * user types are each run once below.
- */
-function run(command: string, prefix: string[], args: string[], input?: string): Promise<{ code: number | null; stdout: string; stderr: string }> {
-  return new Promise((done, fail) => {
-    const child = spawn(command, [...prefix, ...args], { cwd: ROOT, stdio: ['pipe', 'pipe', 'pipe'] });
-    let stdout = '';
-    let stderr = '';
-    child.stdout.setEncoding('utf8').on('data', (d: string) => (stdout += d));
-    child.stderr.setEncoding('utf8').on('data', (d: string) => (stderr += d));
-    child.on('error', fail);
-    child.on('close', (code) => done({ code, stdout, stderr }));
-    child.stdin.end(input ?? '');
-  });
-}
-
-const cli = (args: string[], input?: string) => run(process.execPath, [CLI_ENTRY], args, input);
+// Most cases run the built command with node directly (one process instead of npx's three); the
+// `npx tsx` and `npx linewright` forms a user types are each run once below.
 
 function temp(name: string, content: string): string {
   const path = join(dir, name);

@@ -1,24 +1,9 @@
-import { spawn } from 'node:child_process';
-import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { CAUTION } from '@linewright/core';
 import { parseArgs } from '../../core/src/cli/args';
+import { cli } from '../helpers/cli';
 
 /** `linewright size`, as a user runs it (child process); the contract is our own design. */
-const ROOT = resolve(import.meta.dirname, '../..');
-
-function cli(args: string[]): Promise<{ code: number | null; stdout: string; stderr: string }> {
-  return new Promise((done, fail) => {
-    const child = spawn(process.execPath, ['--import', 'tsx', 'core/src/cli/main.ts', ...args], { cwd: ROOT, stdio: ['ignore', 'pipe', 'pipe'] });
-    let stdout = '';
-    let stderr = '';
-    child.stdout.setEncoding('utf8').on('data', (d: string) => (stdout += d));
-    child.stderr.setEncoding('utf8').on('data', (d: string) => (stderr += d));
-    child.on('error', fail);
-    child.on('close', (code) => done({ code, stdout, stderr }));
-  });
-}
-
 describe('parseArgs: size', () => {
   it('size FILE --conductor ID defaults to text', () => {
     expect(parseArgs(['size', 'a.json', '--conductor', 'F-1'])).toEqual({ command: 'size', file: 'a.json', conductor: 'F-1', format: 'text', edition: null });
