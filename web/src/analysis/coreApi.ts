@@ -9,6 +9,7 @@ export {
   analyze as coreAnalyze,
   createAnalysis as coreCreateAnalysis,
   applyFix as coreApplyFix,
+  sizeConductor as coreSizeConductor,
   loadProject as coreLoadProject,
   CAUTION,
   CAUTION_SHORT,

@@ -1,4 +1,5 @@
 import { DropWorkingPanel, FaultWorkingPanel } from '../studies/StudyWorking';
+import { SizingAssistant } from '../sizing/SizingAssistant';
 import { indexReport } from '../analysis/reportIndex';
 import { connect, deleteSelection } from '../editor/commands';
 import { kindSpec } from '../editor/equipment';
@@ -99,6 +100,7 @@ export function DetailsPanel() {
         <VerdictSummary conductorId={c.id} />
         <ElementForm key={`c:${c.id}`} target={{ kind: 'conductor', id: c.id }} value={c} fields={CONDUCTOR_FIELDS} />
         <ConductorTools key={`t:${c.id}:${c.lengthFt ?? ''}`} c={c} />
+        <SizingAssistant conductorId={c.id} />
         <WorkingPanel conductorId={c.id} />
         <DropWorkingPanel conductorId={c.id} />
       </div>
