@@ -11,8 +11,8 @@ test('the takeoff view shows grouped, sortable tables with totals and downloads 
   await expect(view).toBeVisible();
   await expect(view.getByTestId('takeoff-table-wire')).toBeVisible();
   await expect(view.getByTestId('takeoff-caution')).toContainText('qualified person');
-  // Wire totals: 4753 ft for the demo (phase 2829 + neutral 849 + EGC 1075; see `linewright takeoff samples/demo-clinic.json`).
-  await expect(view.getByTestId('takeoff-total-wire-totalFt')).toHaveText('4753');
+  // Wire totals: 4931 ft for the demo (phase 3294 + neutral 384 + EGC and supply-side bonding jumpers 1253; see `linewright takeoff samples/demo-clinic.json`).
+  await expect(view.getByTestId('takeoff-total-wire-totalFt')).toHaveText('4931');
   await shot(page, info, 'takeoff');
 
   // Sorting by total feet, descending on the second click: 12 AWG (1395 ft) comes first.
