@@ -49,6 +49,22 @@ export function pdfSafe(text: string): string {
     .replace(/[^\n\x20-\x7e\u00a0-\u00ff]/g, (ch) => (WIN_ANSI_EXTRA.includes(ch) ? ch : '?'));
 }
 
+/**
+ * jsPDF passes every text through its Arabic shaping and bidi reordering plugins, character by
+ * character. Every text printed here has been through pdfSafe (WinAnsi, no right-to-left or Arabic
+ * letters), so both leave it as it is; they cost about a third of the text time of a large set
+ * (4 000 conductors), so this document unsubscribes them. Other text hooks stay.
+ */
+function dropNoOpTextHooks(doc: jsPDF): void {
+  const events = doc.internal.events;
+  const topics = events.getTopics();
+  for (const topic of ['preProcessText', 'postProcessText']) {
+    for (const [token, [hook]] of Object.entries(topics[topic] ?? {})) {
+      if (hook === doc.processArabic || String(hook).includes('doBidiReorder')) events.unsubscribe(token);
+    }
+  }
+}
+
 export class Sheet {
   readonly doc: jsPDF;
   readonly size: SheetSize;
@@ -57,6 +73,7 @@ export class Sheet {
   readonly h: number;
   readonly bodyBottom: number;
   y = M;
+  private readonly wrapped = new Map<string, string[]>();
 
   constructor(size: SheetSize = 'ansi-b') {
     this.size = size;
@@ -65,6 +82,7 @@ export class Sheet {
     this.bodyBottom = this.h - M - FOOTER_H;
     this.doc = new jsPDF({ orientation: 'landscape', unit: 'pt', format: [this.w, this.h], compress: true });
     this.doc.setFont(FONT, 'normal');
+    dropNoOpTextHooks(this.doc);
   }
 
   stroke(color: Rgb, width: number, dash: number[] = []): void {
@@ -87,8 +105,38 @@ export class Sheet {
     this.doc.text(Array.isArray(s) ? s.map(pdfSafe) : pdfSafe(s), x, y, { baseline: opts.baseline ?? 'alphabetic', align: opts.align ?? 'left' });
   }
 
+  /**
+   * `s` wrapped to `width` in the current font. Remembered by font, size, width and text: schedules
+   * repeat the same cells (sizes, ratings, verdict words) thousands of times, and jsPDF measures each
+   * character anew on every call.
+   */
   split(s: string, width: number): string[] {
-    return this.doc.splitTextToSize(pdfSafe(s), width) as string[];
+    const font = this.doc.getFont();
+    const key = `${font.fontName}\u0000${font.fontStyle}\u0000${this.doc.getFontSize()}\u0000${width}\u0000${s}`;
+    let lines = this.wrapped.get(key);
+    if (!lines) {
+      if (this.wrapped.size >= 20_000) this.wrapped.clear();
+      lines = this.doc.splitTextToSize(pdfSafe(s), width) as string[];
+      this.wrapped.set(key, lines);
+    }
+    return [...lines];
+  }
+
+  /**
+   * Prints `lines` one under another from `y`, `lineH` apart, each needing `need` points above the
+   * footer, in the current font; breaks to new pages as needed. One text call per page rather than
+   * per line: jsPDF's cost is per call as much as per character, and working pages run to thousands
+   * of lines.
+   */
+  flow(lines: readonly string[], x: number, o: { lineH: number; need: number; ascent: number }): void {
+    for (let i = 0; i < lines.length; ) {
+      this.need(o.need);
+      const room = Math.max(1, Math.floor((this.bodyBottom - this.y - o.need) / o.lineH) + 1);
+      const chunk = lines.slice(i, i + room);
+      this.doc.text(chunk.map(pdfSafe), x, this.y + o.ascent, { baseline: 'alphabetic', lineHeightFactor: o.lineH / this.doc.getFontSize() });
+      this.y += chunk.length * o.lineH;
+      i += chunk.length;
+    }
   }
 
   newPage(): void {
