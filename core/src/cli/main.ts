@@ -66,7 +66,8 @@ async function check(cmd: CheckCommand): Promise<number> {
   const output = await render(cmd, report, text, project);
   // Everything is rendered before anything is written: a renderer that fails is our bug (exit 3, below in
   // main), never reported as a file that cannot be written.
-  const pdf = cmd.pdf === null ? null : (await import('../report/pdf')).renderPermitPdf(project, report, { sheet: cmd.sheet });
+  const pdfModule = cmd.pdf === null ? null : await import('../report/pdf');
+  const pdf = pdfModule === null ? null : pdfModule.renderPermitPdf(project, report, { sheet: cmd.sheet });
 
   const written: string[] = [];
   try {
@@ -84,6 +85,8 @@ async function check(cmd: CheckCommand): Promise<number> {
   }
   if (cmd.out === null) process.stdout.write(output);
   for (const w of written) say(`linewright: wrote ${w}`);
+  const unprintable = pdfModule?.unprintableNote(project) ?? null;
+  if (unprintable !== null) say(`linewright: permit-set PDF: ${unprintable}`);
   // The text report ends with the caution; the other formats carry it inside, and CSV cannot, so say it here.
   if (cmd.format !== 'text' || cmd.out !== null) say(`Caution: ${report.caution || CAUTION}`);
   if (hasViolations(report)) return EXIT_VIOLATIONS;

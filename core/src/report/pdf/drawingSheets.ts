@@ -4,6 +4,7 @@ import { drawLegend } from './legend';
 import { drawSummary, drawTitleBlock, titleBlockHeights } from './titleBlock';
 import type { PdfContext } from './context';
 import { printPositions } from './positions';
+import { unprintableNote } from './unprintable';
 import { drawCommentPins, drawRevisionBlock } from './review';
 
 /**
@@ -28,9 +29,10 @@ export function drawingSheets(sh: Sheet, ctx: PdfContext): void {
   sh.stroke(GREY, 0.6);
   sh.doc.rect(box.x, box.y, box.w, box.h, 'S');
   drawOneLine(sh, project, report, box, numbers, positions, overview);
-  if (note) {
+  const notes = [note, unprintableNote(project)].filter((n) => n !== null);
+  if (notes.length > 0) {
     sh.font(7, 'italic', GREY);
-    sh.text(sh.split(note, box.w - 12), box.x + 6, box.y + 10);
+    sh.text(sh.split(notes.join(' '), box.w - 12), box.x + 6, box.y + 10);
   }
   // On a key plan the pins go on the detail sheets, where they print beside legible text.
   if (details.length === 0) drawCommentPins(sh, ctx, positions, overview);

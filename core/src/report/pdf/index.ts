@@ -15,6 +15,7 @@ import { footers } from './footers';
 import { reviewPages } from './review';
 
 export { pdfSafe, SHEET_SIZES, SHEET_SIZE_IDS, type SheetSize } from './sheet';
+export { unprintableNote, unprintableTexts } from './unprintable';
 export { renderResponseLetterPdf, type LetterOptions } from './letter';
 export type { PdfContext, SheetPart } from './context';
 

@@ -38,15 +38,42 @@ export const AHJ: Rgb = [230, 159, 0];
 /** Characters of WinAnsiEncoding beyond Latin-1 (0x80–0x9F), which jsPDF's standard fonts print. */
 export const WIN_ANSI_EXTRA = '€‚ƒ„…†‡ˆ‰Š‹ŒŽ‘’“”•–—˜™š›œžŸ';
 
-/** jsPDF's standard fonts are WinAnsi only: spell out what they cannot print (≥, √, Ω...). */
+/** Symbols of our own messages that WinAnsi lacks, spelled out in words. */
+const SPELLED: readonly [RegExp, string][] = [
+  [/ ?≥ ?/g, ' at least '],
+  [/ ?≤ ?/g, ' at most '],
+  [/√/g, 'sqrt '],
+  [/ ?Ω/g, ' ohm'],
+  [/ ?→ ?/g, ' -> '],
+];
+const PRINTABLE = `\n\x20-\x7e\u00a0-\u00ff${WIN_ANSI_EXTRA}`;
+/** A character the standard fonts cannot print and pdfSafe does not spell out. */
+const UNPRINTABLE = new RegExp(`[^${PRINTABLE}≥≤√Ω→]`, 'u');
+const PLAIN = /^[\x20-\x7e]*$/;
+const segmenter = new Intl.Segmenter('en', { granularity: 'grapheme' });
+
+/**
+ * True when the standard PDF fonts cannot show some character of `text` (CJK, emoji, Cyrillic, a
+ * control character...): pdfSafe prints each such character as "?".
+ */
+export function hasUnprintable(text: string): boolean {
+  return !PLAIN.test(text) && UNPRINTABLE.test(text.normalize('NFC'));
+}
+
+/**
+ * jsPDF's standard fonts are WinAnsi only: spell out what they cannot print (≥, √, Ω...), compose
+ * accents written as separate marks (e + ◌́ prints as é), and print every other character they cannot
+ * show as one "?" per character as a reader sees it (an emoji, a flag, a family of emoji joined into one
+ * is one "?", never one per code unit).
+ */
 export function pdfSafe(text: string): string {
-  return text
-    .replace(/ ?≥ ?/g, ' at least ')
-    .replace(/ ?≤ ?/g, ' at most ')
-    .replace(/√/g, 'sqrt ')
-    .replace(/ ?Ω/g, ' ohm')
-    .replace(/ ?→ ?/g, ' -> ')
-    .replace(/[^\n\x20-\x7e\u00a0-\u00ff]/g, (ch) => (WIN_ANSI_EXTRA.includes(ch) ? ch : '?'));
+  if (PLAIN.test(text)) return text;
+  let t = text.normalize('NFC');
+  for (const [re, words] of SPELLED) t = t.replace(re, words);
+  if (!UNPRINTABLE.test(t)) return t;
+  let out = '';
+  for (const { segment } of segmenter.segment(t)) out += UNPRINTABLE.test(segment) ? '?' : segment;
+  return out;
 }
 
 /**
