@@ -18,3 +18,4 @@ export { toTakeoffJson, type TakeoffJson } from './report/takeoffJson';
 export * from './review/index';
 export type * from './studies/types';
 export * from './sizing/index';
+export * from './import/index';

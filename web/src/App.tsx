@@ -16,11 +16,14 @@ import { Toolbar, openFile } from './panels/Toolbar';
 import { TakeoffView } from './panels/TakeoffView';
 import { ReviewOverlay } from './review/ReviewOverlay';
 import { ReviewPanel } from './review/ReviewPanel';
+import { ImportDialog } from './import/ImportDialog';
+import { Schedules } from './schedules/Schedules';
 
 function isTyping(t: EventTarget | null): boolean {
   const el = t as HTMLElement | null;
   if (!el || !el.tagName) return false;
-  return el.tagName === 'INPUT' || el.tagName === 'TEXTAREA' || el.tagName === 'SELECT' || el.isContentEditable;
+  // A schedule handles its own keys (arrows, Enter, typing, paste) like a spreadsheet.
+  return el.tagName === 'INPUT' || el.tagName === 'TEXTAREA' || el.tagName === 'SELECT' || el.isContentEditable || el.closest?.('[data-schedule]') != null;
 }
 
 /** A digit key: insert into the one selected conductor when the kind can sit in a run, else add (and connect). */
@@ -170,8 +173,11 @@ export function App({ ctx, savedAt }: { ctx: CommandContext; savedAt: string | n
             )}
           </aside>
           <main className="lw-main">
-            <Canvas />
-            <ReviewOverlay />
+            <div className="lw-drawing-area">
+              <Canvas />
+              <ReviewOverlay />
+            </div>
+            <Schedules />
           </main>
           <aside className="lw-right" aria-label="Details">
             <SideToggle open={rightOpen} onToggle={toggleRight} side="right" what="details" />
@@ -185,6 +191,7 @@ export function App({ ctx, savedAt }: { ctx: CommandContext; savedAt: string | n
         <CautionDialog />
         <LoadErrorsDialog />
         <TakeoffView />
+        <ImportDialog />
       </ReactFlowProvider>
     </EditorContext.Provider>
   );
