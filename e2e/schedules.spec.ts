@@ -143,3 +143,31 @@ test('at 1440 px the study layer switches do not cover the canvas hint bar', asy
   expect(overlap).toBe(false);
   await shot(page, info, 'hint-bar-1440');
 });
+
+test('several conductors selected: the details panel edits the fields they share in one undoable step, mixed values shown as such', async ({ page }, info) => {
+  await openApp(page);
+  await checked(page);
+  await page.evaluate(() => window.__linewright!.select({ conductors: ['F-R2', 'F-R3', 'TAP-L1'] }));
+  const form = page.getByTestId('multi-form');
+  await expect(form).toBeVisible();
+  // F-R2 and F-R3 are 350 kcmil, TAP-L1 is 1/0: the size is mixed; all three are copper.
+  await expect(page.getByTestId('multi-size')).toHaveValue('\u0000mixed');
+  await expect(page.getByTestId('multi-material')).toHaveValue('cu');
+  await expect(page.getByTestId('multi-lengthFt')).toHaveAttribute('placeholder', 'mixed');
+  await page.getByTestId('multi-ambientC').fill('40');
+  await page.getByTestId('multi-ambientC').press('Enter');
+  await expect(page.getByTestId('history-hint')).toContainText('Set ambient of 3 conductors');
+  await checked(page);
+  const after = await doc(page);
+  expect(['F-R2', 'F-R3', 'TAP-L1'].map((id) => after.conductors.find((c) => c.id === id)!.ambientC)).toEqual([40, 40, 40]);
+  await shot(page, info, 'multi-edit');
+  // A value one of them cannot take changes none of them, and says which.
+  await page.getByTestId('multi-parallelSets').fill('0');
+  await page.getByTestId('multi-parallelSets').press('Enter');
+  await expect(page.getByTestId('error-multi-parallelSets')).toContainText('F-R2');
+  await page.getByTestId('cmd-undo').click();
+  await expect(page.getByTestId('history-hint')).not.toContainText('Set ambient');
+  await checked(page);
+  const back = await doc(page);
+  expect(['F-R2', 'F-R3', 'TAP-L1'].map((id) => back.conductors.find((c) => c.id === id)!.ambientC)).toEqual([30, 30, 30]);
+});

@@ -6,6 +6,7 @@ import { kindSpec } from '../editor/equipment';
 import { useCommandContext, useEditorState } from '../editor/useEditor';
 import { BusLinkTools, ConductorTools } from './ConnectionTools';
 import { ElementForm } from './ElementForm';
+import { MultiForm, sharedFields } from './MultiForm';
 import { count as plural } from '../words';
 import { BUS_LINK_FIELDS, CONDUCTOR_FIELDS, NODE_FIELDS, PROJECT_FIELDS } from './fields';
 import { FindingCard } from './FindingItem';
@@ -60,6 +61,29 @@ export function DetailsPanel() {
             </button>
           </div>
         )}
+        {sel.conductors.length === count && (
+          <>
+            <h4>Fields the {count} conductors share</h4>
+            <MultiForm
+              what="conductors"
+              items={sel.conductors.flatMap((id) => doc.conductors.filter((c) => c.id === id)).map((c) => ({ target: { kind: 'conductor' as const, id: c.id }, value: c }))}
+              fields={sharedFields([CONDUCTOR_FIELDS])}
+            />
+          </>
+        )}
+        {sel.nodes.length === count && (() => {
+          const nodes = sel.nodes.flatMap((id) => doc.nodes.filter((n) => n.id === id));
+          return (
+            <>
+              <h4>Fields the {count} pieces of equipment share</h4>
+              <MultiForm
+                what="pieces of equipment"
+                items={nodes.map((n) => ({ target: { kind: 'node' as const, id: n.id }, value: n }))}
+                fields={sharedFields(nodes.map((n) => NODE_FIELDS[n.kind]))}
+              />
+            </>
+          );
+        })()}
         <p>
           <button type="button" onClick={() => deleteSelection.run(ctx)}>Delete selected</button>
         </p>

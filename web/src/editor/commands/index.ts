@@ -19,3 +19,4 @@ export { selectAll } from './selectAll';
 export { toggleSnap } from './toggleSnap';
 export { undo } from './undo';
 export { zoomToFit } from './zoomToFit';
+export { replaceElements, replaceManyProblem } from './replaceElements';
