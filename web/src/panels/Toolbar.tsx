@@ -99,8 +99,8 @@ export function DrawingTools() {
   const snap = useEditorState((s) => s.view.snapToGrid);
   return (
     <div className="lw-drawing-tools" role="group" aria-label="Drawing tools">
-      <span className="lw-tool-caption" title="A bus and a device in the same equipment get a bus link; anything else a conductor. Change it in the details panel.">
-        Drag a bottom port to a top port to connect · keys 1–9 add equipment under the selected piece
+      <span className="lw-tool-caption" title="Drag from a bottom port (load side) to a top port (line side) to connect: a bus and a device in the same equipment get a bus link, anything else a conductor (change it in the details panel). Keys 1–9 add equipment under the selected piece, connected.">
+        Drag port to port to connect · keys 1–9 add below the selection
       </span>
       <span className="lw-sep" aria-hidden="true" />
       <label className="lw-toggle" title="Snap moved equipment to a 20-unit grid">
