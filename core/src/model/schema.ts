@@ -250,6 +250,7 @@ export const conductor = z.strictObject({
   nonlinearLoad: z.boolean().optional().describe('310.15(E)(3): the major portion of the load is nonlinear, so the neutral of a 3-phase 4-wire wye circuit counts as current-carrying.'),
   raceway: racewayKind.optional().describe('Takeoff: raceway kind for Chapter 9 fill (EMT, IMC, RMC, PVC-40, PVC-80); when absent, steel conduit is taken as EMT, aluminum conduit as RMC, PVC conduit as PVC-40.'),
   egcSize: conductorSize.optional().describe('Takeoff: size of the wire-type equipment grounding conductor (or supply-side bonding jumper) when the designer chose one; a size below the Table 250.122 minimum is flagged.'),
+  egcBare: z.boolean().optional().describe('Takeoff: the EGC (or supply-side bonding jumper) is bare; its Chapter 9 Table 8 area counts in the raceway fill (Note 8) instead of a Table 5 insulated area.'),
 });
 export type Conductor = z.infer<typeof conductor>;
 

@@ -2,6 +2,7 @@ import type { Conductor, ConductorSize, Insulation, RacewayKind } from '../model
 import { maxFillFraction } from '../tables/chapter9Table1';
 import { allowedFillIn2, CHAPTER9_TABLE4, tradeSizeLabel } from '../tables/chapter9Table4';
 import { insulatedAreaIn2 } from '../tables/chapter9Table5';
+import { bareAreaIn2 } from '../tables/conductorProperties';
 import { sizeLabel } from '../tables/sizes';
 import type { RacewayFill } from './types';
 
@@ -20,16 +21,16 @@ export function racewayKindOf(c: Pick<Conductor, 'raceway' | 'wiring'>): Raceway
   }
 }
 
-/** One conductor of a raceway's contents: its size, insulation and how many. */
+/** One conductor of a raceway's contents: its size, insulation ('bare' for a bare EGC) and how many. */
 export interface RacewayContent {
   size: ConductorSize;
-  insulation: Insulation;
+  insulation: Insulation | 'bare';
   count: number;
 }
 
 /**
  * Chapter 9 raceway sizing for one raceway's contents: the Table 5 areas
- * summed (Note 6; EGCs count, Note 3), the Table 1 percentage for the number
+ * summed (Note 6; EGCs count, Note 3; a bare one at its Table 8 area, Note 8), the Table 1 percentage for the number
  * of conductors, and the smallest Table 4 trade size of that kind whose
  * allowed area holds them. Flags contents that need more than the largest
  * transcribed trade size.
@@ -50,7 +51,8 @@ export function sizeRaceway(kind: RacewayKind | null, contents: readonly Raceway
   if (kind === null) return empty;
   let area = 0;
   for (const x of contents) {
-    const a = insulatedAreaIn2(x.insulation, x.size);
+    // Note 8: a bare conductor counts at its Table 8 area.
+    const a = x.insulation === 'bare' ? bareAreaIn2(x.size) : insulatedAreaIn2(x.insulation, x.size);
     if (a === null) {
       return { ...empty, count: raceways, problem: `Chapter 9 Table 5 has no area transcribed for ${sizeLabel(x.size)} ${x.insulation}: raceway not sized` };
     }

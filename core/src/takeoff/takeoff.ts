@@ -45,7 +45,7 @@ export function buildTakeoff(project: Project, report: AnalysisReport): Takeoff 
     const neutralConductors = makeup.hasNeutral ? sets : 0;
     const contents: RacewayContent[] = [{ size: c.size, insulation: c.insulation, count: makeup.ungroundedPerSet }];
     if (neutralSize !== null) contents.push({ size: neutralSize, insulation: c.insulation, count: 1 });
-    if (egc.size !== null && egc.count > 0) contents.push({ size: egc.size, insulation: c.insulation, count: 1 });
+    if (egc.size !== null && egc.count > 0) contents.push({ size: egc.size, insulation: c.egcBare ? 'bare' : c.insulation, count: 1 });
     const raceway = sizeRaceway(racewayKindOf(c), contents, sets);
     if (raceway.problem) flags.push(raceway.problem);
     if (c.lengthFt === undefined) flags.push('length missing: no feet counted');
@@ -73,6 +73,7 @@ export function buildTakeoff(project: Project, report: AnalysisReport): Takeoff 
       neutralConductors,
       neutralSize,
       egc,
+      egcBare: c.egcBare ?? false,
       raceway,
       phaseFt: feet(perConductorFt, phaseConductors),
       neutralFt: feet(perConductorFt, neutralConductors),
@@ -166,7 +167,7 @@ function takeoffAssumptions(makeupFt: number): string[] {
     'Each parallel set runs in its own raceway with its own neutral and a full-size EGC (310.10(G), 250.122(F)).',
     'A 3-phase source is taken as a 4-wire wye and a single-phase source as 3-wire (common practice); a transformer secondary follows its connection.',
     "Neutral 'auto' (common practice): carried where the supply has one and the run is the service or serves distribution equipment or a load connected line to neutral (the load's own connection, as the load calculation takes it); a run serving only single-phase loads is taken as their own circuit.",
-    'Neutral and EGC are insulated, of the phase conductors\' material and insulation, and count in the fill (Chapter 9 Table 1 Note 3).',
+    'Neutral and EGC are of the phase conductors\' material; the neutral and an EGC not marked bare are of their insulation (Table 5 area), a bare EGC counts at its Table 8 area (Chapter 9 Notes 3 and 8).',
     'Raceway kind: as stated on the run, else steel conduit as EMT, aluminum conduit as RMC, PVC conduit as PVC Schedule 40; cable, cable tray and open wiring get no raceway.',
     'Terminations: every conductor end is one termination (lug or device terminal).',
   ];

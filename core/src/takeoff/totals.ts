@@ -7,7 +7,8 @@ import type { Takeoff } from './types';
 export interface WireTotal {
   size: ConductorSize;
   material: Material;
-  insulation: Insulation;
+  /** Insulation type, or 'bare' for bare EGCs. */
+  insulation: Insulation | 'bare';
   phaseFt: number;
   neutralFt: number;
   egcFt: number;
@@ -88,7 +89,7 @@ export function takeoffTotals(t: Takeoff): TakeoffTotals {
   const wire = new Map<string, WireTotal>();
   const raceway = new Map<string, RacewayTotal>();
   const terminations = new Map<string, TerminationTotal>();
-  const addWire = (size: ConductorSize, material: Material, insulation: Insulation, use: 'phaseFt' | 'neutralFt' | 'egcFt', ft: number | null) => {
+  const addWire = (size: ConductorSize, material: Material, insulation: Insulation | 'bare', use: 'phaseFt' | 'neutralFt' | 'egcFt', ft: number | null) => {
     if (ft === null || ft === 0) return;
     groupInto(wire, `${size}|${material}|${insulation}`, () => ({ size, material, insulation, phaseFt: 0, neutralFt: 0, egcFt: 0, totalFt: 0 }), (w) => {
       w[use] = r2(w[use] + ft);
@@ -111,7 +112,7 @@ export function takeoffTotals(t: Takeoff): TakeoffTotals {
       addEnds(run.neutralSize, run.material, run.neutralConductors);
     }
     if (run.egc.size !== null && run.egc.count > 0) {
-      addWire(run.egc.size, run.egc.material, run.insulation, 'egcFt', run.egcFt);
+      addWire(run.egc.size, run.egc.material, run.egcBare ? 'bare' : run.insulation, 'egcFt', run.egcFt);
       addEnds(run.egc.size, run.egc.material, run.egc.count);
     }
     const rw = run.raceway;

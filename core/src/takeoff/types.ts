@@ -65,6 +65,8 @@ export interface TakeoffRun {
   neutralConductors: number;
   neutralSize: ConductorSize | null;
   egc: EgcSizing;
+  /** The EGC is bare (Table 8 area in the fill; 'bare' in the wire totals). */
+  egcBare: boolean;
   raceway: RacewayFill;
   /** Conductor feet with the makeup allowance; null when the length is missing. */
   phaseFt: number | null;

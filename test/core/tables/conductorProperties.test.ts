@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { CONDUCTOR_SIZES, type ConductorSize } from '../../../core/src/model/schema';
-import { CHAPTER9_TABLE8, conductorAreaCmil, dcResistanceOhmPerKft } from '../../../core/src/tables/conductorProperties';
+import { bareAreaIn2, CHAPTER9_TABLE8, conductorAreaCmil, dcResistanceOhmPerKft } from '../../../core/src/tables/conductorProperties';
 import { isKcmilSize } from '../../../core/src/tables/sizes';
 
 /** AWG gauge number: 1/0 → 0, 2/0 → −1, 3/0 → −2, 4/0 → −3. */
@@ -34,6 +34,16 @@ describe('Chapter 9 Table 8 (NFPA 70-2023 / 2020, from memory), conductor proper
 
   it('4/0 AWG is exactly 0.460 in across: 460² = 211 600 cmil (ASTM B258 anchor)', () => {
     expect(conductorAreaCmil('4/0')).toBe(211_600);
+  });
+
+  it('bare stranded overall diameters (from memory) are 1.13–1.16 × the solid diameter of the same area, √cmil / 1000 in (concentric class B stranding, common practice); 1000 kcmil: 1.152 in, π/4 × 1.152² = 1.042 in²', () => {
+    for (const r of CHAPTER9_TABLE8) {
+      const ratio = r.strandedDiameterIn / (Math.sqrt(r.areaCmil) / 1000);
+      expect(ratio, r.size).toBeGreaterThanOrEqual(1.13);
+      expect(ratio, r.size).toBeLessThanOrEqual(1.16);
+    }
+    expect(bareAreaIn2('1000')).toBeCloseTo(1.0423, 4);
+    expect(bareAreaIn2('4')).toBeCloseTo(0.0423, 4);
   });
 
   it('kcmil sizes are the size × 1000 cmil', () => {

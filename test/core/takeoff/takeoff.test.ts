@@ -129,6 +129,15 @@ describe('Chapter 9 raceway fill', () => {
     expect(t.runs[0]!.raceway).toMatchObject({ tradeSize: '5', problem: null });
   });
 
+  it('a bare EGC counts at its Chapter 9 Table 8 area (Note 8): 3 × 3/0 THHN + 4 AWG bare = 3 × 0.2679 + π/4 × 0.232² = 0.8460 in²; insulated 4 AWG THHN would be 0.8861; the wire totals list it as bare', () => {
+    const build = (egcBare: boolean) => diagram().utility(480).breaker(200).conductor({ size: '3/0', lengthFt: 100, egcSize: '4', egcBare }).load({ currentA: 150, phases: 3 }).build();
+    const bare = takeoffOf(build(true));
+    const insulated = takeoffOf(build(false));
+    expect(bare.runs[0]!.raceway.conductorAreaIn2).toBeCloseTo(3 * 0.2679 + Math.round(circleArea(0.232) * 10_000) / 10_000, 4);
+    expect(insulated.runs[0]!.raceway.conductorAreaIn2).toBeCloseTo(3 * 0.2679 + 0.0824, 4);
+    expect(takeoffTotals(bare).wire.find((w) => w.egcFt > 0)).toMatchObject({ size: '4', insulation: 'bare' });
+  });
+
   it('an insulation without transcribed Table 5 rows is not sized, and says why', () => {
     const t = takeoffOf(diagram().utility(480).breaker(100).conductor({ size: '3', insulation: 'RHW', lengthFt: 50 }).load({ currentA: 80, phases: 3 }).build());
     expect(t.runs[0]!.raceway.tradeSize).toBeNull();
