@@ -129,6 +129,34 @@ describe.concurrent('linewright CLI', { timeout: 60_000 }, () => {
     expect(csv.stderr).toContain(CAUTION);
   });
 
+  it('a conductor without a size: exit 0 (no violation), that conductor incomplete and asking for its size in every format; the others as with the size', async () => {
+    // Issue 6, item 13. F2 (3/0 Cu, 200 A ≥ 120 A load, NFPA 70-2023 Table 310.16) with its size left out.
+    const unsized = structuredClone(clean) as { conductors: Record<string, unknown>[] };
+    delete unsized.conductors[2]!.size;
+    const file = temp('unsized.json', JSON.stringify(unsized));
+    const base = JSON.parse((await cli(['check', temp('clean-again.json', JSON.stringify(clean)), '--format', 'json'])).stdout) as { conductors: { id: string; verdict: string }[] };
+    const json = await cli(['check', file, '--format', 'json']);
+    expect(json.code).toBe(0);
+    const report = JSON.parse(json.stdout) as { conductors: { id: string; verdict: string; size: string | null; ampacityA: number | null; findingIds: string[] }[]; findings: { id: string; severity: string; message: string }[] };
+    const f2 = report.conductors.find((c) => c.id === 'F2')!;
+    expect(f2).toMatchObject({ verdict: 'incomplete', size: null, ampacityA: null });
+    expect(report.findings.filter((f) => f2.findingIds.includes(f.id)).map((f) => f.message).join(' ')).toMatch(/needs the size.*field size/);
+    expect(report.findings.filter((f) => f.severity === 'violation')).toEqual([]);
+    for (const c of report.conductors) if (c.id !== 'F2') expect(c.verdict, c.id).toBe(base.conductors.find((b) => b.id === c.id)!.verdict);
+    const text = await cli(['check', file]);
+    expect(text.code).toBe(0);
+    expect(text.stdout).toContain('size unknown');
+    expect(text.stdout).not.toMatch(/NaN|undefined/);
+    const sarif = JSON.parse((await cli(['check', file, '--format', 'sarif'])).stdout);
+    expect(JSON.stringify(sarif.runs[0].results)).toContain('needs the size');
+    const csv = await cli(['check', file, '--format', 'csv']);
+    expect(csv.stdout.split('\r\n').find((l) => l.startsWith('F2,'))).toContain('size unknown');
+    const sub = mkdtempSync(join(dir, 'unsized-'));
+    const pdf = await cli(['check', file, '--pdf', join(sub, 'permit.pdf')]);
+    expect(pdf.code).toBe(0);
+    expect(readFileSync(join(sub, 'permit.pdf')).subarray(0, 5).toString('latin1')).toBe('%PDF-');
+  });
+
   it('writes only what is asked: --out replaces stdout, --pdf adds a PDF', async () => {
     const sub = mkdtempSync(join(dir, 'out-'));
     const file = join(sub, 'c.json');

@@ -41,6 +41,8 @@ export const conductorSpecArb: fc.Arbitrary<ConductorSpec> = fc
       outdoors: rarely(4),
       damageProtection: sometimes(fc.constantFrom(...DAMAGE_PROTECTION)),
       multioutletCordAndPlug: rarely(5),
+      // Now and then a conductor drawn without a size: its verdict is incomplete, never an exception.
+      unsized: rarely(12),
       highBay: fc.option(
         fc.record({
           horizontalFt: fc.integer({ min: 0, max: 40 }),
@@ -56,7 +58,7 @@ export const conductorSpecArb: fc.Arbitrary<ConductorSpec> = fc
     const size = CONDUCTOR_SIZES[r.sizeIndex ?? 10]!;
     // 310.10(G): parallel sets only for 1/0 and larger.
     const parallelSets = (r.sizeIndex ?? 0) >= PARALLEL_OK ? (r.sets ?? 1) : 1;
-    const spec: ConductorSpec = { size, parallelSets };
+    const spec: ConductorSpec = r.unsized ? { parallelSets } : { size, parallelSets };
     for (const key of ['material', 'insulation', 'wiring', 'ambientC', 'currentCarrying', 'terminalTempC', 'leavesEnclosure',
       'extendsBeyondEquipment', 'outdoors', 'damageProtection', 'multioutletCordAndPlug'] as const) {
       if (r[key] !== undefined) (spec as Record<string, unknown>)[key] = r[key];

@@ -138,8 +138,9 @@ describe('analyze on random radial networks', () => {
         fc.pre(protectedIds.length > 0);
         const id = protectedIds[pick % protectedIds.length]!;
         const original = input.conductors.find((c) => c.id === id)!;
-        const from = CONDUCTOR_SIZES.indexOf(original.size);
-        fc.pre(from < CONDUCTOR_SIZES.length - 1);
+        // A protected conductor has a size: without one its verdict is incomplete.
+        const from = original.size === undefined ? -1 : CONDUCTOR_SIZES.indexOf(original.size);
+        fc.pre(from >= 0 && from < CONDUCTOR_SIZES.length - 1);
         const size = CONDUCTOR_SIZES[from + 1 + (grow % (CONDUCTOR_SIZES.length - 1 - from))]!;
         const bigger: ProjectInput = { ...input, conductors: input.conductors.map((c) => (c.id === id ? { ...c, size } : c)) };
         const after = analyze(load(bigger)).conductors.find((c) => c.id === id)!;

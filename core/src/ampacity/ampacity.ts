@@ -11,7 +11,8 @@ import { materialIndexOf, materialLabel, materialName, SIZE_INDEX_1_0, SIZE_INDE
 /** What the ampacity of one conductor run depends on (fields as in the project schema). */
 export interface AmpacityInput {
   material: Material;
-  size: ConductorSize;
+  /** Undefined when the drawing does not give it: no ampacity, and the failure names the field. */
+  size: ConductorSize | undefined;
   insulation: Insulation;
   /** Conductors in parallel per phase (310.10(G)); 1 for a single conductor. */
   parallelSets: number;
@@ -204,6 +205,10 @@ function fail(field: AmpacityInputField, message: string): AmpacityResult {
   return { ok: false, field, message };
 }
 
+/** The message of a conductor drawn without a size: what is unknown and the fix. */
+export const NEEDS_SIZE_MESSAGE =
+  'needs the size: no conductor size is given (field size), so its ampacity and every verdict that depends on it are unknown. Enter the size, e.g. "3/0" or "500".';
+
 /**
  * Ampacity of one conductor run with every step kept: Table 310.16 base in
  * the insulation's column, ambient correction, adjustment for more than three
@@ -213,6 +218,7 @@ function fail(field: AmpacityInputField, message: string): AmpacityResult {
 export function computeAmpacity(input: AmpacityInput): AmpacityResult {
   const { material, size, insulation, parallelSets, ambientC, currentCarrying, terminalTempC, edition } = input;
 
+  if (size === undefined) return fail('size', NEEDS_SIZE_MESSAGE);
   const mi = materialIndexOf(material);
   if (mi < 0) return fail('material', `Unknown conductor material '${String(material)}'; use cu, al or cu-clad-al.`);
   const si = sizeIndexOf(size);

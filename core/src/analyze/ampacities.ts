@@ -1,5 +1,5 @@
-import { computeAmpacity } from '../ampacity/ampacity';
-import { INSULATIONS, type CodeEdition, type Conductor, type ProjectSettings } from '../model/schema';
+import { computeAmpacity, NEEDS_SIZE_MESSAGE } from '../ampacity/ampacity';
+import { INSULATIONS, type CodeEdition, type Conductor, type ConductorSize, type ProjectSettings } from '../model/schema';
 import { materialIndexOf, SIZE_INDEX_1_0, sizeIndexOf } from '../tables/sizes';
 import type { Graph } from '../topology/graph';
 import type { ConductorCircuit } from './circuits';
@@ -40,12 +40,12 @@ const INSULATION_INDEX = new Map<string, number>(INSULATIONS.map((x, i) => [x, i
  * memo needs no string per conductor; NaN when an input falls outside the
  * packing (an ambient with more than two decimals), which skips the memo.
  */
-function ampacityKey(c: Conductor, edition: CodeEdition, terminalTempC: 60 | 75 | 90, currentCarrying: number): number {
+function ampacityKey(c: Conductor, size: ConductorSize, edition: CodeEdition, terminalTempC: 60 | 75 | 90, currentCarrying: number): number {
   const ambient = Math.round(c.ambientC * 100);
   if (ambient !== c.ambientC * 100) return Number.NaN;
   const term = terminalTempC === 60 ? 0 : terminalTempC === 75 ? 1 : 2;
   let k = materialIndexOf(c.material);
-  k = k * 30 + sizeIndexOf(c.size);
+  k = k * 30 + sizeIndexOf(size);
   k = k * 14 + (INSULATION_INDEX.get(c.insulation) ?? 0);
   k = k * 21 + c.parallelSets;
   k = k * 13_001 + (ambient + 4000);
@@ -53,13 +53,17 @@ function ampacityKey(c: Conductor, edition: CodeEdition, terminalTempC: 60 | 75 
   return (k * 3 + term) * 2 + (edition === 2020 ? 0 : 1);
 }
 
+/** A conductor drawn without a size has no ampacity; the problem names the field and the fix. */
+const NO_SIZE: ConductorAmpacity = Object.freeze({ working: null, problem: Object.freeze({ field: 'size', message: NEEDS_SIZE_MESSAGE }) });
+
 /**
  * `currentCarrying` is the count Table 310.15(C)(1) adjusts for: the circuit's 310.15(E) count
  * from analyze/circuits.ts (the takeoff reports the same), or the run's stated count alone.
  */
 export function conductorAmpacity(c: Conductor, edition: CodeEdition, terminationDefault: TerminationDefault = 'listed-75', currentCarrying = c.currentCarrying): ConductorAmpacity {
+  if (c.size === undefined) return NO_SIZE;
   const terminalTempC = terminalTempOf(c, terminationDefault);
-  const key = ampacityKey(c, edition, terminalTempC, currentCarrying);
+  const key = ampacityKey(c, c.size, edition, terminalTempC, currentCarrying);
   let hit = ampacityMemo.get(key);
   if (hit) return hit;
   const r = computeAmpacity({

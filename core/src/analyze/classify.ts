@@ -174,6 +174,9 @@ function onRun(j: RunToJudge, up: RunVerdict): RunVerdict {
   if (joined) return joined;
   if (up.family === 'service') return service(j);
   if (up.family === 'generator') return generator(j, up.generatorNode);
+  // A conductor whose only unknown is its own size stays incomplete itself; what is supplied through it (at
+  // equipment, not a pass-through joint) is judged against the device ahead of it, so every other verdict comes out.
+  if (up.verdict === 'incomplete' && isUnsizedOnOcpd(up) && !isJoint(j.walk.ctx.graph, j.walk.ctx.graph.conductorFrom[j.walk.ctx.runs.members[j.run]![0]!]!)) return fedByOcpd(j, up.deviceNode);
   if (up.verdict === 'incomplete') return incomplete(j);
   if (up.verdict === 'protected' || up.verdict === 'protected-next-size' || up.verdict === 'motor-circuit' || up.verdict === 'hvac-circuit') return fedByOcpd(j, up.deviceNode);
   facts.suppliedFrom = { conductorIds: up.facts.conductorIds, verdict: up.verdict };
@@ -209,6 +212,11 @@ function continuedRun(j: RunToJudge, up: RunVerdict): RunVerdict | null {
   return v;
 }
 
+/** A run fed through a known OCPD that is incomplete because a segment has no size (so no ampacity). */
+function isUnsizedOnOcpd(v: RunVerdict): boolean {
+  return v.family === 'fed-by-ocpd' && v.facts.size === null && v.deviceNode >= 0 && v.facts.supplyOcpdA !== null;
+}
+
 function service(j: RunToJudge): RunVerdict {
   return single(j, serviceRule, { verdict: 'service', family: 'service', role: 'service', deviceNode: -1, generatorNode: -1 });
 }
@@ -218,9 +226,13 @@ function generator(j: RunToJudge, gen: number): RunVerdict {
   return single(j, generatorRule, { verdict: 'generator', family: 'generator', role: 'generator', deviceNode: -1, generatorNode: gen });
 }
 
-/** A run judged by one rule that always names its verdict (service and generator conductors). */
+/**
+ * A run judged by one rule that names its verdict (service and generator conductors); without a size it is
+ * incomplete, and its trial is kept so a condition that fails whatever the size is still reported.
+ */
 function single(j: RunToJudge, rule: Rule, v: Pick<RunVerdict, 'verdict' | 'family' | 'role' | 'deviceNode' | 'generatorNode'>): RunVerdict {
-  return { ...v, rule, supply: j.supply, facts: j.facts, tried: [runRule(rule, j.facts)], candidates: [] };
+  const verdict = j.facts.size === null ? 'incomplete' : v.verdict;
+  return { ...v, verdict, rule: verdict === 'incomplete' ? null : rule, supply: j.supply, facts: j.facts, tried: [runRule(rule, j.facts)], candidates: [] };
 }
 
 function incomplete(j: RunToJudge): RunVerdict {
@@ -289,7 +301,8 @@ function secondary(j: RunToJudge, tx: number): RunVerdict {
     return single(j, generatorRule, { verdict: 'generator', family: 'generator', role: 'generator', deviceNode: -1, generatorNode: primary.generator });
   }
   const base = { family: 'secondary' as Family, role: 'transformer-secondary' as ConductorRole, supply: j.supply, deviceNode: primary.device, generatorNode: -1, facts };
-  if (primary.run) {
+  // A primary incomplete only for want of its size is judged on as if protected (its own verdict says incomplete).
+  if (primary.run && !isUnsizedOnOcpd(primary.run)) {
     const pv = primary.run.verdict;
     if (pv === 'incomplete') return { ...base, verdict: 'incomplete', rule: null, tried: [], candidates: [] };
     if (pv !== 'protected' && pv !== 'protected-next-size') {

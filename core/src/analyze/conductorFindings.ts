@@ -88,8 +88,10 @@ export function conductorFindingsOf(ctx: FixedContext, ci: number, out: Finding[
       });
       break;
     case 'incomplete':
-      if (v.supply.kind === 'run' || v.supply.kind === 'ocpd' || v.supply.kind === 'transformer') {
-        push({ ruleId: 'incomplete', messageId: 'missing-data', severity: 'warning', cites: null, subject: { kind: 'conductor', id: c.id }, related: deviceRefs(g, v), message: `${describeRun(c, f)}: no verdict yet; ${incompleteReason(v)}.` });
+      if (v.supply.kind === 'run' || v.supply.kind === 'ocpd' || v.supply.kind === 'transformer' || v.supply.kind === 'utility' || v.supply.kind === 'generator') {
+        // Fed through a known device but without a size: what it supplies at equipment is judged on as if it were protected.
+        const note = v.family === 'fed-by-ocpd' && f.size === null && v.deviceNode >= 0 ? ' What it supplies through equipment is judged against the device ahead of it, as if it were protected.' : '';
+        push({ ruleId: 'incomplete', messageId: 'missing-data', severity: 'warning', cites: null, subject: { kind: 'conductor', id: c.id }, related: deviceRefs(g, v), message: `${describeRun(c, f)}: no verdict yet; ${incompleteReason(v)}.${note}` });
       }
       break;
     case 'protected-next-size':
@@ -119,7 +121,8 @@ export function conductorFindingsOf(ctx: FixedContext, ci: number, out: Finding[
       });
     }
   }
-  if ((v.verdict === 'service' || v.verdict === 'generator') && v.tried[0]?.outcome === 'fails') {
+  // By family: a service without a size is incomplete, yet a condition that fails whatever the size is still reported.
+  if ((v.family === 'service' || v.family === 'generator') && v.tried[0]?.outcome === 'fails') {
     const t = v.tried[0];
     // More than six service disconnects is a finding of its own (230.71), apart from the conductors' protection.
     const tooMany = t.conditions.find((x) => x.id === 'disconnects' && x.status === 'fail');
@@ -159,7 +162,7 @@ function describeRun(c: Graph['conductors'][number], f: RunFacts): string {
 }
 
 export function describeConductor(c: Graph['conductors'][number], sets: number): string {
-  const name = conductorName({ size: c.size, material: c.material, parallelSets: sets });
+  const name = conductorName({ size: c.size ?? null, material: c.material, parallelSets: sets });
   // A label that already says the size ("500 kcmil Cu") is not followed by it again.
   if (c.label && c.label.includes(name.replace(/ AWG| kcmil/, ''))) return `Conductor ${c.label} (${c.id})`;
   return `Conductor ${c.label ? `${c.label} (${c.id})` : c.id}, ${name}`;

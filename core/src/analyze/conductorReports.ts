@@ -50,7 +50,7 @@ export function conductorReport(ctx: FixedContext, ci: number, findingIds: strin
       cites: s.cites,
       role: v.role,
       summary: s.summary,
-      size: c.size,
+      size: c.size ?? null,
       material: c.material,
       parallelSets: c.parallelSets,
       lengthFt: c.lengthFt ?? null,

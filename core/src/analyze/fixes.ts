@@ -150,7 +150,7 @@ function ownArticleFixes(facts: RunFacts, members: readonly Conductor[], edition
   const motor = facts.motor;
   const minA = motor ? Math.round(motor.fullLoadA * 125) / 100 : facts.hvac!.mcaA;
   if (facts.ampacityA !== null && facts.ampacityA < minA) {
-    for (let i = sizeIndexOf(facts.size) + 1; i < CONDUCTOR_SIZES.length; i++) {
+    for (let i = facts.size === null ? 0 : sizeIndexOf(facts.size) + 1; i < CONDUCTOR_SIZES.length; i++) {
       const size = CONDUCTOR_SIZES[i]!;
       const at = trialAmpacity(members, { size, material: facts.material, parallelSets: facts.parallelSets }, edition, facts.site.terminationDefault);
       if (at === null || at.ampacityA < minA) continue;

@@ -45,6 +45,7 @@ export function runFactsOf(ctx: AnalysisContext, r: number, site: RunFacts['site
   let beyond = false;
   let cord = false;
   let highBay: RunFacts['highBay'] = null;
+  let sized = true;
   for (const ci of members) {
     const c = g.conductors[ci]!;
     lengthFt = lengthFt === null || c.lengthFt === undefined ? null : lengthFt + c.lengthFt;
@@ -68,6 +69,7 @@ export function runFactsOf(ctx: AnalysisContext, r: number, site: RunFacts['site
     // One segment that leaves makes the run leave; otherwise one unstated segment leaves it unstated.
     if (c.leavesEnclosure === true) leaves = true;
     else if (c.leavesEnclosure === undefined && leaves === false) leaves = null;
+    if (c.size === undefined) sized = false;
     beyond ||= c.extendsBeyondEquipment;
     cord ||= c.multioutletCordAndPlug;
     if (highBay === null && c.highBay !== undefined) highBay = c.highBay;
@@ -82,7 +84,7 @@ export function runFactsOf(ctx: AnalysisContext, r: number, site: RunFacts['site
     edition,
     conductorIds: members.map((ci) => g.conductors[ci]!.id),
     material: weakest.material,
-    size: weakest.size,
+    size: sized ? weakest.size! : null,
     parallelSets: weakest.parallelSets,
     lengthFt: lengthFt === null ? null : Math.round(lengthFt * 100) / 100,
     ampacityA,
@@ -127,7 +129,7 @@ export function joinFacts(a: RunFacts, b: RunFacts): RunFacts {
     ...b,
     conductorIds: [...a.conductorIds, ...b.conductorIds],
     material: weaker.material,
-    size: weaker.size,
+    size: a.size === null || b.size === null ? null : weaker.size,
     parallelSets: weaker.parallelSets,
     lengthFt: a.lengthFt === null || b.lengthFt === null ? null : Math.round((a.lengthFt + b.lengthFt) * 100) / 100,
     ampacityA: a.ampacityA === null || b.ampacityA === null ? null : weaker.ampacityA,

@@ -50,13 +50,15 @@ export function incompleteReason(v: RunVerdict): string {
   // Only rules that nothing else rules out: a missing fact matters where it alone decides.
   const unknown = v.tried.filter((t) => t.outcome === 'unknown').flatMap((t) => t.conditions.filter((c) => c.status === 'unknown').map((c) => c.id));
   const missing = new Set<string>();
-  if (v.facts.ampacityA === null) missing.add('an ampacity (check size, material, ambient and parallel sets)');
+  if (v.facts.size === null) missing.add('the size (enter the conductor size)');
+  else if (v.facts.ampacityA === null) missing.add('an ampacity (check size, material, ambient and parallel sets)');
   if (v.facts.supplyOcpdA === null && v.family === 'fed-by-ocpd') missing.add('the rating of the device ahead');
   if (v.family === 'secondary' && v.facts.transformer?.primaryOcpdA == null) missing.add('the rating of the primary device');
   for (const id of unknown) {
     if (id === 'length' || id === 'total') missing.add('the length (lengthFt)');
     else if (id === 'device' && (v.facts.motor || v.facts.hvac)) missing.add(v.facts.supplyOcpdA === null ? 'the rating of the device ahead' : 'the fuse type ahead (time-delay or not, Table 430.52)');
-    else if (id === 'termination' || id === 'device') missing.add('the rating of the device or equipment it ends in');
+    // Without an ampacity these compare nothing: only a missing rating at the end is worth asking for.
+    else if ((id === 'termination' || id === 'device') && (v.facts.ampacityA !== null || v.facts.termination.ratingA === null)) missing.add('the rating of the device or equipment it ends in');
     else if (id === 'horizontal' || id === 'height' || id === 'noPenetration') missing.add('the high-bay facts (horizontal run, tap height, penetrations)');
     else if (id === 'accessible') missing.add('where the disconnecting means is');
     else if (id === 'load') missing.add('the system voltage for the load');

@@ -19,7 +19,7 @@ export function protectionTrial(rule: Rule, f: RunFacts): RuleTrial {
   // Two exact integers instead of a string: the facts the 240.4 rules read, packed.
   const r100 = R === null ? -1 : Math.round(R * 100);
   const a100 = A === null ? -1 : Math.round(A * 100);
-  if (R === null || A === null || r100 !== R * 100 || a100 !== A * 100 || r100 >= 1e7 || a100 >= 1e7) return runRule(rule, f);
+  if (R === null || A === null || f.size === null || r100 !== R * 100 || a100 !== A * 100 || r100 >= 1e7 || a100 >= 1e7) return runRule(rule, f);
   const kind = f.supplyOcpdKind === 'fuse' ? 1 : f.supplyOcpdKind === 'breaker' ? 0 : 2;
   const outer =
     ((((rule === PROTECTION_RULES[0] ? 0 : 1) * 2 + (f.edition === 2020 ? 0 : 1)) * 3 + kind) * 2 + (f.multioutletCordAndPlug ? 1 : 0)) * 30 * 100 +

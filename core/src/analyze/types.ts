@@ -186,7 +186,8 @@ export interface ConductorReport {
   role: ConductorRole;
   /** Short text: why this verdict, for tables and tooltips. */
   summary: string;
-  size: ConductorSize;
+  /** Null when the drawing gives no size (the verdict is then incomplete). */
+  size: ConductorSize | null;
   material: Material;
   parallelSets: number;
   lengthFt: number | null;

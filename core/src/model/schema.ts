@@ -218,7 +218,8 @@ export const conductor = z.strictObject({
   label: label.optional(),
   notes: z.string().max(4000).optional(),
   material: material.default('cu').describe('cu, al or cu-clad-al.'),
-  size: conductorSize.describe('AWG (18–4/0) or kcmil (250–2000), as a string: "3/0", "500".'),
+  /** Not stated: the size is unknown, the conductor's verdict is incomplete ("needs the size") and every other verdict still comes out. */
+  size: conductorSize.optional().describe('AWG (18–4/0) or kcmil (250–2000), as a string: "3/0", "500". Not stated: the size is unknown and this conductor is judged incomplete (needs the size); every other verdict still comes out.'),
   parallelSets: z.number().int().min(1).max(20).default(1).describe('Conductors in parallel per phase (310.10(G): 1/0 and larger).'),
   insulation: insulation.default('THHN').describe('Insulation type; sets the temperature column (Table 310.4(1)).'),
   /** Conductor length from its supply point to its termination; a raceway length is not a tap length. */

@@ -93,12 +93,13 @@ export const ROLE_WORDS: Record<ConductorRole, string> = {
 
 export const MATERIAL_WORDS: Readonly<Record<Material, string>> = { cu: materialLabel('cu'), al: materialLabel('al'), 'cu-clad-al': materialLabel('cu-clad-al') };
 
-/** '4/0 AWG', '500 kcmil' (Table 310.16 names sizes of 250 and up in kcmil). */
-export const sizeText: (size: ConductorSize) => string = sizeLabel;
+/** '4/0 AWG', '500 kcmil' (Table 310.16 names sizes of 250 and up in kcmil); 'size unknown' when not entered. */
+export const sizeText: (size: ConductorSize | null | undefined) => string = sizeLabel;
 
 /** '2×500 kcmil Cu' or '3/0 AWG Al' (sets shown only when more than one). */
 export function conductorText(c: Pick<ConductorReport, 'parallelSets' | 'size' | 'material'>): string {
   const sets = c.parallelSets > 1 ? `${c.parallelSets}×` : '';
+  if (c.size === null) return `${sets}${MATERIAL_WORDS[c.material]}, ${sizeText(null)}`;
   return `${sets}${sizeText(c.size)} ${MATERIAL_WORDS[c.material]}`;
 }
 

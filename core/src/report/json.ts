@@ -70,7 +70,8 @@ export interface JsonConductor {
   /** Same as tapLengthFt: the name the CLI contract uses. */
   tapLength: number | null;
   lengthFt: number | null;
-  size: string;
+  /** Null when the drawing gives no size. */
+  size: string | null;
   material: string;
   parallelSets: number;
   load: { flowingA: number; calculatedA: number } | null;

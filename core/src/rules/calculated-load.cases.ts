@@ -1,4 +1,4 @@
-import { runFacts, type RuleCases, type RunFactsOverrides } from './testing';
+import { runFacts, withoutSize, type RuleCases, type RunFactsOverrides } from './testing';
 
 const S = 'NFPA 70-2023 215.2(A)(1)(a) and (b), 210.19(A)(1)(a) and (b), 230.42(A)';
 const T = 'NFPA 70-2023 Table 310.16';
@@ -57,3 +57,6 @@ export const cases: RuleCases = {
     },
   ],
 };
+
+// Issue 6, item 13: the first meeting case drawn without a size is unknown, never a failure.
+cases.unknown = [...(cases.unknown ?? []), withoutSize(cases.meets[0]!, ['continuous', 'conditions'], S)];

@@ -36,5 +36,9 @@ export const cases: RuleCases<WithstandFacts> = {
     { name: '1/0 Cu at 20 kA behind a power breaker on a 0.3 s short-time band (0.35 s): 0.0781 s is not enough; 250 kcmil withstands', facts: tap({ clearingTimeS: 0.35, clearingBasis: 'entered', smallestSize: '250' }), expect: ['withstand'], source: S },
     { name: '12 AWG Cu (6530 cmil) at 10 kA survives 0.0012 s; only a current-limiting device in its range protects it', facts: tap({ size: '12', areaCmil: 6530, faultKA: 10, smallestSize: '3' }), expect: ['withstand'], source: S },
   ],
-  unknown: [{ name: 'fault current unknown', facts: tap({ faultKA: null, smallestSize: null }), expect: ['withstand'], source: S }],
+  unknown: [
+    { name: 'fault current unknown', facts: tap({ faultKA: null, smallestSize: null }), expect: ['withstand'], source: S },
+    // Issue 6, item 13: without a size there is no area (Chapter 9 Table 8), so the time it withstands is unknown.
+    { name: 'drawn without a size (needs the size): 20 kA known, no conductor area, so unknown, never failed', facts: tap({ size: null, areaCmil: null }), expect: ['withstand'], source: `${S}; common practice (an unknown fact is asked for, not judged)` },
+  ],
 };

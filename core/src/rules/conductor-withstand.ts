@@ -22,7 +22,7 @@ export const conductorWithstand = defineRule({
   },
   check(f: WithstandFacts) {
     const k = withstandConstant(f.material, f.initialC, f.finalC);
-    const allowed = f.faultKA === null ? null : withstandTimeS(f.faultKA * 1000, f.areaCmil * f.parallelSets, k);
+    const allowed = f.faultKA === null || f.areaCmil === null ? null : withstandTimeS(f.faultKA * 1000, f.areaCmil * f.parallelSets, k);
     return [
       when('withstand', allowed === null ? null : allowed >= f.clearingTimeS, {
         conductor: `${f.parallelSets > 1 ? `${f.parallelSets} sets of ` : ''}${sizeLabel(f.size)} ${f.material === 'cu' ? 'Cu' : 'Al'}`,

@@ -151,7 +151,9 @@ export function toSecondaryA(primaryA: number | null, t: { primaryVoltsLL: numbe
   return primaryA === null || t === null ? null : (primaryA * t.primaryVoltsLL) / t.secondaryVoltsLL;
 }
 
-/** '10 AWG Al', '2 sets of 500 kcmil Cu': how a message names the run's conductors. */
+/** '10 AWG Al', '2 sets of 500 kcmil Cu', 'Cu, size unknown': how a message names the run's conductors. */
 export function conductorName(f: Pick<RunFacts, 'size' | 'material' | 'parallelSets'>): string {
-  return `${f.parallelSets > 1 ? `${f.parallelSets} sets of ` : ''}${sizeLabel(f.size)} ${materialLabel(f.material)}`;
+  const sets = f.parallelSets > 1 ? `${f.parallelSets} sets of ` : '';
+  if (f.size === null) return `${sets}${materialLabel(f.material)}, ${sizeLabel(null)}`;
+  return `${sets}${sizeLabel(f.size)} ${materialLabel(f.material)}`;
 }

@@ -68,7 +68,8 @@ export interface RunFacts {
   edition: CodeEdition;
   conductorIds: ConductorId[];
   material: Material;
-  size: ConductorSize;
+  /** Size of the weakest segment; null when any segment of the run has no size (then the ampacity is unknown too). */
+  size: ConductorSize | null;
   parallelSets: number;
   /** Sum of the run's conductor lengths; null when any is missing. */
   lengthFt: number | null;

@@ -1,4 +1,4 @@
-import { generatorFacts, runFacts, type RuleCases, type RunFactsOverrides } from './testing';
+import { generatorFacts, runFacts, withoutSize, type RuleCases, type RunFactsOverrides } from './testing';
 
 const S = 'NFPA 70-2023 445.13(A)';
 const T = 'NFPA 70-2023 Table 310.16';
@@ -60,3 +60,6 @@ export const cases: RuleCases = {
     },
   ],
 };
+
+// Issue 6, item 13: the first meeting case drawn without a size is unknown, never a failure.
+cases.unknown = [...(cases.unknown ?? []), withoutSize(cases.meets[0]!, ['ampacity'], S)];

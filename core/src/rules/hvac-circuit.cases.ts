@@ -1,4 +1,4 @@
-import { hvacRunFacts, type RuleCases } from './testing';
+import { hvacRunFacts, withoutSize, type RuleCases } from './testing';
 
 const S = 'NFPA 70-2023 240.4(G), 440.35, 440.22(C)';
 const T = 'NFPA 70-2023 Table 310.16';
@@ -34,3 +34,6 @@ export const cases: RuleCases = {
     { name: 'no ampacity (size not given)', facts: hvacRunFacts({ ampacityA: null }), expect: ['mca'], source: S },
   ],
 };
+
+// Issue 6, item 13: the first meeting case drawn without a size is unknown, never a failure.
+cases.unknown = [...(cases.unknown ?? []), withoutSize(cases.meets[0]!, ['mca'], S)];

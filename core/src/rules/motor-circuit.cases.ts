@@ -1,4 +1,4 @@
-import { motorRunFacts, type RuleCases } from './testing';
+import { motorRunFacts, withoutSize, type RuleCases } from './testing';
 
 const S = 'NFPA 70-2023 240.4(G), 430.22, 430.52(C)(1)';
 const T = 'NFPA 70-2023 Table 310.16';
@@ -28,3 +28,6 @@ export const cases: RuleCases = {
     },
   ],
 };
+
+// Issue 6, item 13: the first meeting case drawn without a size is unknown, never a failure.
+cases.unknown = [...(cases.unknown ?? []), withoutSize(cases.meets[0]!, ['ampacity'], S)];

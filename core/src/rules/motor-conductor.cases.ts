@@ -1,4 +1,4 @@
-import { motorRunFacts, type RuleCases } from './testing';
+import { motorRunFacts, withoutSize, type RuleCases } from './testing';
 
 const S = 'NFPA 70-2023 430.22';
 const T = 'NFPA 70-2023 Table 310.16';
@@ -40,3 +40,6 @@ export const cases: RuleCases = {
     },
   ],
 };
+
+// Issue 6, item 13: the first meeting case drawn without a size is unknown, never a failure.
+cases.unknown = [...(cases.unknown ?? []), withoutSize(cases.meets[0]!, ['ampacity'], S)];

@@ -1,4 +1,4 @@
-import { runFacts, type RuleCases } from './testing';
+import { runFacts, withoutSize, type RuleCases } from './testing';
 
 const B = 'NFPA 70-2023 240.4(B)';
 const T = 'NFPA 70-2023 Table 310.16';
@@ -96,3 +96,6 @@ export const cases: RuleCases = {
     },
   ],
 };
+
+// Issue 6, item 13: the first meeting case drawn without a size is unknown, never a failure.
+cases.unknown = [...(cases.unknown ?? []), withoutSize(cases.meets[0]!, ['notStandard', 'nextSize'], B)];

@@ -1,4 +1,4 @@
-import { runFacts, type RuleCases } from './testing';
+import { runFacts, withoutSize, type RuleCases } from './testing';
 
 const S = 'NFPA 70-2023 240.4';
 const D = 'NFPA 70-2023 240.4(D)';
@@ -90,3 +90,6 @@ export const cases: RuleCases = {
     },
   ],
 };
+
+// Issue 6, item 13: the first meeting case drawn without a size is unknown, never a failure.
+cases.unknown = [...(cases.unknown ?? []), withoutSize(cases.meets[0]!, ['rating'], S)];

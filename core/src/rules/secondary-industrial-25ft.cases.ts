@@ -1,4 +1,4 @@
-import { secondaryRunFacts, terminationAt, transformerFacts, type RuleCases, type RunFactsOverrides } from './testing';
+import { secondaryRunFacts, terminationAt, transformerFacts, withoutSize, type RuleCases, type RunFactsOverrides } from './testing';
 
 const S = 'NFPA 70-2023 240.21(C)(3)';
 const T = 'NFPA 70-2023 Table 310.16';
@@ -107,3 +107,6 @@ export const cases: RuleCases = {
     },
   ],
 };
+
+// Issue 6, item 13: the first meeting case drawn without a size is unknown, never a failure.
+cases.unknown = [...(cases.unknown ?? []), withoutSize(cases.meets[0]!, ['rated', 'grouped'], S)];

@@ -1,4 +1,4 @@
-import { secondaryRunFacts, terminationAt, type RuleCases, type RunFactsOverrides } from './testing';
+import { secondaryRunFacts, terminationAt, withoutSize, type RuleCases, type RunFactsOverrides } from './testing';
 
 const S = 'NFPA 70-2023 240.21(C)(4)';
 const T = 'NFPA 70-2023 Table 310.16';
@@ -110,3 +110,6 @@ export const cases: RuleCases = {
     },
   ],
 };
+
+// Issue 6, item 13: the first meeting case drawn without a size is unknown, never a failure.
+cases.unknown = [...(cases.unknown ?? []), withoutSize(cases.meets[0]!, ['load', 'device'], S)];

@@ -1,4 +1,4 @@
-import { secondaryRunFacts, terminationAt, transformerFacts, type RuleCases, type RunFactsOverrides } from './testing';
+import { secondaryRunFacts, terminationAt, transformerFacts, withoutSize, type RuleCases, type RunFactsOverrides } from './testing';
 import type { TransformerFacts } from './facts';
 
 const S = 'NFPA 70-2023 240.21(C)(1)';
@@ -122,3 +122,6 @@ export const cases: RuleCases = {
     },
   ],
 };
+
+// Issue 6, item 13: the first meeting case drawn without a size is unknown, never a failure.
+cases.unknown = [...(cases.unknown ?? []), withoutSize(cases.meets[0]!, ['ratio'], S)];

@@ -36,10 +36,11 @@ export interface WithstandFacts extends FaultAt {
   edition: CodeEdition;
   conductorIds: ConductorId[];
   material: Material;
-  size: ConductorSize;
+  /** Null when the drawing gives no size: the withstand is then unknown. */
+  size: ConductorSize | null;
   parallelSets: number;
-  /** Area of one conductor, cmil (Chapter 9 Table 8). */
-  areaCmil: number;
+  /** Area of one conductor, cmil (Chapter 9 Table 8); null when the size is unknown. */
+  areaCmil: number | null;
   initialC: number;
   finalC: number;
   thermalClass: ThermalClass;

@@ -1,4 +1,4 @@
-import { runFacts, terminationAt, type RuleCases } from './testing';
+import { runFacts, terminationAt, withoutSize, type RuleCases } from './testing';
 
 const S = 'NFPA 70-2023 240.21(B)(2)';
 const T = 'NFPA 70-2023 Table 310.16';
@@ -113,3 +113,6 @@ export const cases: RuleCases = {
     },
   ],
 };
+
+// Issue 6, item 13: the first meeting case drawn without a size is unknown, never a failure.
+cases.unknown = [...(cases.unknown ?? []), withoutSize(cases.meets[0]!, ['third', 'load', 'device'], S)];

@@ -1,4 +1,4 @@
-import { runFacts, terminationAt, type RuleCases, type RunFactsOverrides } from './testing';
+import { runFacts, terminationAt, withoutSize, type RuleCases, type RunFactsOverrides } from './testing';
 
 const S = 'NFPA 70-2023 240.21(B)(4)';
 const T = 'NFPA 70-2023 Table 310.16';
@@ -151,3 +151,6 @@ export const cases: RuleCases = {
     },
   ],
 };
+
+// Issue 6, item 13: the first meeting case drawn without a size is unknown, never a failure.
+cases.unknown = [...(cases.unknown ?? []), withoutSize(cases.meets[0]!, ['third', 'load', 'device', 'minSize'], S)];

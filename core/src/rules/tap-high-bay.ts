@@ -38,7 +38,7 @@ export const tapHighBay = defineRule({
       deviceLimitCheck(f),
       damageCheck(f),
       when('noSplices', !f.hasSplices),
-      when('minSize', sizeIndexOf(f.size) >= minSize, { size: f.size, material: f.material }),
+      when('minSize', f.size === null ? null : sizeIndexOf(f.size) >= minSize, { size: f.size ?? '?', material: f.material }),
       when('noPenetration', hb ? !hb.penetratesWallFloorCeiling : null),
       when('height', hb ? hb.tapHeightAboveFloorFt >= 30 : null, { heightFt: hb?.tapHeightAboveFloorFt ?? '?' }),
     ];

@@ -1,4 +1,4 @@
-import { runFacts, terminationAt, transformerFacts, type RuleCases, type RunFactsOverrides } from './testing';
+import { runFacts, terminationAt, transformerFacts, withoutSize, type RuleCases, type RunFactsOverrides } from './testing';
 import type { ConductorId } from '../model/schema';
 
 const S = 'NFPA 70-2023 240.21(B)(3)';
@@ -151,3 +151,6 @@ export const cases: RuleCases = {
     },
   ],
 };
+
+// Issue 6, item 13: the first meeting case drawn without a size is unknown, never a failure.
+cases.unknown = [...(cases.unknown ?? []), withoutSize(cases.meets[0]!, ['primaryThird'], S)];

@@ -145,7 +145,7 @@ export function runFacts(overrides: RunFactsOverrides = {}): RunFacts {
   };
   const facts: RunFacts = { ...base, ...rest, site: { ...base.site, ...site } };
   if (!('ampacityUncorrectedA' in rest)) facts.ampacityUncorrectedA = facts.ampacityA;
-  if (!('smallConductorMaxOcpdA' in rest)) facts.smallConductorMaxOcpdA = smallConductorMaxOcpdA(facts.material, facts.size, facts.edition);
+  if (!('smallConductorMaxOcpdA' in rest)) facts.smallConductorMaxOcpdA = facts.size === null ? null : smallConductorMaxOcpdA(facts.material, facts.size, facts.edition);
   return facts;
 }
 
@@ -153,6 +153,24 @@ export function runFacts(overrides: RunFactsOverrides = {}): RunFacts {
  * Facts of a transformer secondary run: supplied by the transformer (no OCPD
  * ahead of it on the secondary side), the transformer from `transformerFacts`.
  */
+/**
+ * The same run drawn without a size (issue 6, item 13): no size, so no ampacity (before or after
+ * correction) and no 240.4(D) limit. Every condition that needs one is unknown, never failed.
+ */
+export function unsized(facts: RunFacts): RunFacts {
+  return { ...facts, size: null, ampacityA: null, ampacityUncorrectedA: null, smallConductorMaxOcpdA: null };
+}
+
+/** A case drawn without a size: `base` (a meeting case) unsized, expected unknown on exactly `unknownIds`. */
+export function withoutSize(base: Case, unknownIds: string[], source: string): Case {
+  return {
+    name: `drawn without a size (needs the size): ${base.name}; no ampacity, so unknown, never failed`,
+    facts: unsized(base.facts),
+    expect: unknownIds,
+    source: `${source}; common practice (an unknown fact is asked for, not judged)`,
+  };
+}
+
 export function secondaryRunFacts(overrides: RunFactsOverrides = {}): RunFacts {
   return runFacts({
     conductorIds: [id<ConductorId>('C-SEC-1')],

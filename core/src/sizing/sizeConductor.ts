@@ -122,6 +122,7 @@ export function sizeConductor(project: Project, conductorId: string, options: Si
     terminationDefault: project.project.terminationDefault,
     mode: 'whole',
   };
+  if (v.facts.size === null) throw new Error(`Conductor "${conductorId}" has no size yet (field size): choose one in its details first; the assistant compares against the size drawn.`);
   const presentConfig: SizingConfig = { size: v.facts.size, material: v.facts.material, parallelSets: v.facts.parallelSets };
   const device = adjustableDevice(project, prepared.graph, v, members[0]!);
   const notes = [

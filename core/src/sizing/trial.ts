@@ -26,7 +26,8 @@ export type BuildMode = 'upsize' | 'whole';
 
 /** The segment keeps its own conductors under the build mode. */
 export function keepsSegment(c: Pick<Conductor, 'size' | 'material' | 'parallelSets'>, config: SizingConfig, mode: BuildMode): boolean {
-  if (c.material !== config.material || c.parallelSets !== config.parallelSets) return false;
+  // A segment drawn without a size never keeps it: the configuration's size is what gets built.
+  if (c.size === undefined || c.material !== config.material || c.parallelSets !== config.parallelSets) return false;
   return mode === 'upsize' ? sizeIndexOf(c.size) >= sizeIndexOf(config.size) : c.size === config.size;
 }
 
@@ -72,6 +73,6 @@ export function trialFacts(facts: RunFacts, config: SizingConfig, at: TrialAmpac
 /** Relative cost of the whole run after the change: each segment's length (1 ft when not given) × its cost per foot. */
 export function runCost(members: readonly Conductor[], config: SizingConfig, mode: BuildMode): number {
   let sum = 0;
-  for (const c of members) sum += (c.lengthFt ?? 1) * costPerFt(keepsSegment(c, config, mode) ? c : config);
+  for (const c of members) sum += (c.lengthFt ?? 1) * costPerFt(keepsSegment(c, config, mode) && c.size !== undefined ? { ...c, size: c.size } : config);
   return Math.round(sum * 10) / 10;
 }

@@ -142,7 +142,7 @@ export function studyNetwork(net: StudiedNetwork, taps: readonly TapRun[]): Stud
     const facts = withstandFacts(edition, g, t, device, supply >= 0 ? kAt(supply) : null, supply >= 0 && fault.upperBound[supply] === 1);
     const checks = conductorWithstand.check(facts);
     const k = withstandConstant(c.material, facts.initialC, facts.finalC);
-    const allowed = facts.faultKA === null ? null : withstandTimeS(facts.faultKA * 1000, facts.areaCmil * facts.parallelSets, k);
+    const allowed = facts.faultKA === null || facts.areaCmil === null ? null : withstandTimeS(facts.faultKA * 1000, facts.areaCmil * facts.parallelSets, k);
     withstand.push({ conductorIds: facts.conductorIds, faultKA: facts.faultKA, clearingTimeS: facts.clearingTimeS, clearingBasis: facts.clearingBasis, allowedS: allowed, withstands: allowed === null ? null : allowed >= facts.clearingTimeS });
     if (!checks.some((x) => x.status === 'fail')) continue;
     const extra = {
@@ -305,9 +305,9 @@ function withstandFacts(edition: Project['project']['codeEdition'], g: Graph, t:
     edition,
     conductorIds: t.conductors.map((i) => g.conductors[i]!.id),
     material: c.material,
-    size: c.size,
+    size: c.size ?? null,
     parallelSets: c.parallelSets,
-    areaCmil: conductorAreaCmil(c.size),
+    areaCmil: c.size === undefined ? null : conductorAreaCmil(c.size),
     initialC,
     finalC,
     thermalClass: rating.thermalClass,

@@ -31,8 +31,12 @@ export function isKcmilSize(size: ConductorSize): boolean {
 
 const SIZE_LABELS: readonly string[] = CONDUCTOR_SIZES.map((s, i) => (i >= SIZE_INDEX_250 ? `${s} kcmil` : `${s} AWG`));
 
-/** Trade label for a size: '12 AWG', '4/0 AWG', '500 kcmil'. */
-export function sizeLabel(size: ConductorSize): string {
+/** What a label says where the size is not given (the schema lets it be unknown, like a length). */
+export const UNKNOWN_SIZE_LABEL = 'size unknown';
+
+/** Trade label for a size: '12 AWG', '4/0 AWG', '500 kcmil'; 'size unknown' when none is given. */
+export function sizeLabel(size: ConductorSize | null | undefined): string {
+  if (size === null || size === undefined) return UNKNOWN_SIZE_LABEL;
   return SIZE_LABELS[sizeIndexOf(size)] ?? String(size);
 }
 

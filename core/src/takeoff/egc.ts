@@ -101,25 +101,28 @@ export function sizeEgc(
   let size: ConductorSize = tableSize;
   let minimum: ConductorSize | null = null;
   let ratio = 1;
+  const phase = c.size;
   if (TAP_VERDICTS.has(report.verdict)) {
     cites.push('250.122(G)');
     notes.push('feeder tap: from the feeder OCPD (250.122(G))');
+  } else if (phase === undefined) {
+    notes.push('phase conductor size unknown: 250.122(A) and (B) not checked');
   } else {
     minimum = minimumPhaseSize(c, ocpdA, report.load?.calculatedA ?? null, currentCarrying, edition);
-    if (minimum !== null && sizeIndexOf(c.size) > sizeIndexOf(minimum)) {
-      const p = proportionalEgcSize(tableSize, minimum, c.size);
+    if (minimum !== null && sizeIndexOf(phase) > sizeIndexOf(minimum)) {
+      const p = proportionalEgcSize(tableSize, minimum, phase);
       ratio = p.ratio;
       if (p.size !== null) size = p.size;
       cites.push('250.122(B)');
       notes.push(
-        `phase conductors ${sizeLabel(c.size)} where ${sizeLabel(minimum)} would do: × ${ratio.toFixed(3)} = ${Math.round(p.neededCmil)} cmil → ${sizeLabel(size)} (250.122(B))`,
+        `phase conductors ${sizeLabel(phase)} where ${sizeLabel(minimum)} would do: × ${ratio.toFixed(3)} = ${Math.round(p.neededCmil)} cmil → ${sizeLabel(size)} (250.122(B))`,
       );
     }
   }
-  if (sizeIndexOf(size) > sizeIndexOf(c.size)) {
-    size = c.size;
+  if (phase !== undefined && sizeIndexOf(size) > sizeIndexOf(phase)) {
+    size = phase;
     cites.push('250.122(A)');
-    notes.push(`not larger than the phase conductors: ${sizeLabel(c.size)} (250.122(A))`);
+    notes.push(`not larger than the phase conductors: ${sizeLabel(phase)} (250.122(A))`);
   }
   if (sets > 1) {
     cites.push('250.122(F)');

@@ -23,7 +23,8 @@ export function racewayKindOf(c: Pick<Conductor, 'raceway' | 'wiring'>): Raceway
 
 /** One conductor of a raceway's contents: its size, insulation ('bare' for a bare EGC) and how many. */
 export interface RacewayContent {
-  size: ConductorSize;
+  /** Null when the drawing gives no size: the raceway cannot be sized. */
+  size: ConductorSize | null;
   insulation: Insulation | 'bare';
   count: number;
 }
@@ -51,6 +52,7 @@ export function sizeRaceway(kind: RacewayKind | null, contents: readonly Raceway
   if (kind === null) return empty;
   let area = 0;
   for (const x of contents) {
+    if (x.size === null) return { ...empty, count: raceways, problem: 'conductor size unknown: raceway not sized' };
     // Note 8: a bare conductor counts at its Table 8 area.
     const a = x.insulation === 'bare' ? bareAreaIn2(x.size) : insulatedAreaIn2(x.insulation, x.size);
     if (a === null) {

@@ -106,7 +106,7 @@ export function takeoffTables(t: Takeoff, totals: TakeoffTotals = takeoffTotals(
       ],
       t.runs.map((r) => [
         r.conductorId, r.label, r.from, r.to, r.role, r.verdict, systemText(r.system), r.parallelSets, r.phaseConductors, sizeLabel(r.size),
-        materialLabel(r.material), r.insulation, r.neutralConductors, size(r.neutralSize), r.egc.count, size(r.egc.size), r.egc.reason,
+        materialLabel(r.material), r.insulation, r.neutralConductors, r.neutralConductors > 0 ? sizeLabel(r.neutralSize) : null, r.egc.count, size(r.egc.size), r.egc.reason,
         r.currentCarrying.count, r.raceway.kind, r.raceway.tradeSize === null ? null : tradeSizeLabel(r.raceway.tradeSize), r.raceway.count,
         r.raceway.fillPct, r.lengthFt, r.phaseFt, r.neutralFt, r.egcFt, r.racewayFt, r.flags.join('; ') || null,
       ]),

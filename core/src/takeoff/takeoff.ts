@@ -41,13 +41,14 @@ export function buildTakeoff(project: Project, report: AnalysisReport): Takeoff 
     if (system.arrangement === 'unknown') flags.push('supply system unknown: taken as 3-phase without a neutral');
     const egc = sizeEgc(c, r, ccc.adjustmentCount, edition);
     if (egc.problem) flags.push(egc.problem);
-    const neutralSize = makeup.hasNeutral ? (c.neutralSize ?? c.size) : null;
+    const neutralSize = makeup.hasNeutral ? (c.neutralSize ?? c.size ?? null) : null;
     const neutralConductors = makeup.hasNeutral ? sets : 0;
-    const contents: RacewayContent[] = [{ size: c.size, insulation: c.insulation, count: makeup.ungroundedPerSet }];
-    if (neutralSize !== null) contents.push({ size: neutralSize, insulation: c.insulation, count: 1 });
+    const contents: RacewayContent[] = [{ size: c.size ?? null, insulation: c.insulation, count: makeup.ungroundedPerSet }];
+    if (neutralConductors > 0) contents.push({ size: neutralSize, insulation: c.insulation, count: 1 });
     if (egc.size !== null && egc.count > 0) contents.push({ size: egc.size, insulation: c.egcBare ? 'bare' : c.insulation, count: 1 });
     const raceway = sizeRaceway(racewayKindOf(c), contents, sets);
     if (raceway.problem) flags.push(raceway.problem);
+    if (c.size === undefined) flags.push('size unknown: enter the conductor size; its feet are totalled under "size unknown"');
     if (c.lengthFt === undefined) flags.push('length missing: no feet counted');
     if (r.verdict === 'unprotected' || r.verdict === 'tap-from-tap') flags.push(`verdict ${r.verdict}: the design may change before it is built`);
 
@@ -67,7 +68,7 @@ export function buildTakeoff(project: Project, report: AnalysisReport): Takeoff 
       lengthFt: L ?? null,
       material: c.material,
       insulation: c.insulation,
-      size: c.size,
+      size: c.size ?? null,
       parallelSets: sets,
       phaseConductors,
       neutralConductors,

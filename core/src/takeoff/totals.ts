@@ -5,7 +5,8 @@ import type { Takeoff } from './types';
 
 /** Feet of one wire size × material × insulation, split by use. */
 export interface WireTotal {
-  size: ConductorSize;
+  /** Null: conductors drawn without a size, listed as "size unknown" (after every size), never counted as a size. */
+  size: ConductorSize | null;
   material: Material;
   /** Insulation type, or 'bare' for bare EGCs. */
   insulation: Insulation | 'bare';
@@ -54,7 +55,8 @@ export interface DisconnectTotal {
 }
 
 export interface TerminationTotal {
-  size: ConductorSize;
+  /** Null: conductors drawn without a size. */
+  size: ConductorSize | null;
   material: Material;
   terminations: number;
 }
@@ -80,8 +82,10 @@ function groupInto<T>(map: Map<string, T>, key: string, make: () => T, add: (t: 
 
 const r2 = (x: number): number => Math.round(x * 100) / 100;
 const MATERIAL_ORDER: Readonly<Record<Material, number>> = { cu: 0, al: 1, 'cu-clad-al': 2 };
-const bySizeThenMaterial = (a: { size: ConductorSize; material: Material }, b: { size: ConductorSize; material: Material }) =>
-  MATERIAL_ORDER[a.material] - MATERIAL_ORDER[b.material] || sizeIndexOf(a.size) - sizeIndexOf(b.size);
+/** Unknown size sorts after every size. */
+const sizeOrder = (s: ConductorSize | null): number => (s === null ? Number.MAX_SAFE_INTEGER : sizeIndexOf(s));
+const bySizeThenMaterial = (a: { size: ConductorSize | null; material: Material }, b: { size: ConductorSize | null; material: Material }) =>
+  MATERIAL_ORDER[a.material] - MATERIAL_ORDER[b.material] || sizeOrder(a.size) - sizeOrder(b.size);
 const nullsLast = (a: number | null, b: number | null) => (a ?? Number.POSITIVE_INFINITY) - (b ?? Number.POSITIVE_INFINITY);
 
 /** Every total of the takeoff, each the plain sum of its rows (the property tests hold it to that). */
@@ -89,16 +93,16 @@ export function takeoffTotals(t: Takeoff): TakeoffTotals {
   const wire = new Map<string, WireTotal>();
   const raceway = new Map<string, RacewayTotal>();
   const terminations = new Map<string, TerminationTotal>();
-  const addWire = (size: ConductorSize, material: Material, insulation: Insulation | 'bare', use: 'phaseFt' | 'neutralFt' | 'egcFt', ft: number | null) => {
+  const addWire = (size: ConductorSize | null, material: Material, insulation: Insulation | 'bare', use: 'phaseFt' | 'neutralFt' | 'egcFt', ft: number | null) => {
     if (ft === null || ft === 0) return;
-    groupInto(wire, `${size}|${material}|${insulation}`, () => ({ size, material, insulation, phaseFt: 0, neutralFt: 0, egcFt: 0, totalFt: 0 }), (w) => {
+    groupInto(wire, `${size ?? '?'}|${material}|${insulation}`, () => ({ size, material, insulation, phaseFt: 0, neutralFt: 0, egcFt: 0, totalFt: 0 }), (w) => {
       w[use] = r2(w[use] + ft);
       w.totalFt = r2(w.totalFt + ft);
     });
   };
-  const addEnds = (size: ConductorSize, material: Material, conductors: number) => {
+  const addEnds = (size: ConductorSize | null, material: Material, conductors: number) => {
     if (conductors === 0) return;
-    groupInto(terminations, `${size}|${material}`, () => ({ size, material, terminations: 0 }), (x) => {
+    groupInto(terminations, `${size ?? '?'}|${material}`, () => ({ size, material, terminations: 0 }), (x) => {
       x.terminations += 2 * conductors;
     });
   };
@@ -107,7 +111,8 @@ export function takeoffTotals(t: Takeoff): TakeoffTotals {
     if (run.flags.length > 0) flaggedRuns++;
     addWire(run.size, run.material, run.insulation, 'phaseFt', run.phaseFt);
     addEnds(run.size, run.material, run.phaseConductors);
-    if (run.neutralSize !== null) {
+    // A neutral of unknown size (the phase size is unknown) still has feet: they go under "size unknown".
+    if (run.neutralConductors > 0) {
       addWire(run.neutralSize, run.material, run.insulation, 'neutralFt', run.neutralFt);
       addEnds(run.neutralSize, run.material, run.neutralConductors);
     }

@@ -58,11 +58,13 @@ export interface TakeoffRun {
   lengthFt: number | null;
   material: Material;
   insulation: Insulation;
-  size: ConductorSize;
+  /** Null when the drawing gives no size: the run's feet are totalled under "size unknown", never under a size. */
+  size: ConductorSize | null;
   parallelSets: number;
   /** sets × ungrounded per set. */
   phaseConductors: number;
   neutralConductors: number;
+  /** Null when the run has no neutral, or when it has one (neutralConductors > 0) of unknown size. */
   neutralSize: ConductorSize | null;
   egc: EgcSizing;
   /** The EGC is bare (Table 8 area in the fill; 'bare' in the wire totals). */

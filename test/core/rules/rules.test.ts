@@ -104,8 +104,9 @@ describe.each(ALL_RULES.map((rule) => [rule.id, rule] as const))('%s', (_id, rul
     for (const c of allCases(cases)) {
       if (/310\.15/.test(c.source)) continue;
       for (const f of runsOf(c.facts)) {
-        if (f.ampacityA === null) continue;
-        const columns = ([60, 75, 90] as const).map((t) => (baseAmpacityA(f.material, f.size, t) ?? Number.NaN) * f.parallelSets);
+        const size = f.size;
+        if (f.ampacityA === null || size === null) continue;
+        const columns = ([60, 75, 90] as const).map((t) => (baseAmpacityA(f.material, size, t) ?? Number.NaN) * f.parallelSets);
         expect(columns, `${c.name}: ${f.parallelSets} × ${f.size} ${f.material} = ${f.ampacityA} A`).toContain(f.ampacityA);
       }
     }

@@ -135,8 +135,9 @@ export function materialShort(m: Conductor['material']): string {
   return MAT[m];
 }
 
-/** Trade shorthand for a size: '3/0', '500 kcmil', '12 AWG' for AWG numbers. */
-export function sizeShort(size: Conductor['size']): string {
+/** Trade shorthand for a size: '3/0', '500 kcmil', '12 AWG' for AWG numbers; 'size?' when none is entered yet. */
+export function sizeShort(size: Conductor['size'] | null): string {
+  if (size === undefined || size === null) return 'size?';
   if (size.includes('/')) return size;
   return Number(size) >= 250 ? `${size} kcmil` : `#${size}`;
 }

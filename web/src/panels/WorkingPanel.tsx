@@ -58,7 +58,7 @@ export function WorkingPanel({ conductorId }: { conductorId: string }) {
       <h3>How the check decided</h3>
       <dl className="lw-facts">
         <dt>Run</dt>
-        <dd>{conductorLine({ parallelSets: r.parallelSets, size: r.size, material: r.material, lengthFt: r.lengthFt ?? undefined })}</dd>
+        <dd>{conductorLine({ parallelSets: r.parallelSets, size: r.size ?? undefined, material: r.material, lengthFt: r.lengthFt ?? undefined })}</dd>
         <dt>Role</dt>
         <dd>{ROLE_TEXT[r.role]}</dd>
         <dt>Supplied by</dt>

@@ -140,7 +140,8 @@ export function studyFaultCurrent(g: Graph, order: Int32Array, count: number): F
       const c = g.conductors[e]!;
       if (!readConductor(c, e, rOhmPerKft, xOhmPerKft)) {
         upperBound[v] = 1;
-        notes.add('A conductor without a length or a Chapter 9 Table 9 value counts as zero impedance: the fault current below it is an upper bound ("at most").');
+        if (c.size === undefined) notes.add('A conductor without a size has no known impedance and counts as zero: the fault current below it is an upper bound ("at most"); enter the size for the value.');
+        else notes.add('A conductor without a length or a Chapter 9 Table 9 value counts as zero impedance: the fault current below it is an upper bound ("at most").');
       } else {
         const factor = stepFactor(c, isLoop);
         dr = rOhmPerKft[e]! * factor;
@@ -229,14 +230,15 @@ function seenFrom(ohms: number, isLoop: number, parentLoop: number): number {
 /** Reads conductor `e`'s Table 9 R and X into the study; true when it has them and a length (else it counts as zero impedance). */
 function readConductor(c: Conductor, e: number, rOhmPerKft: Float64Array, xOhmPerKft: Float64Array): boolean {
   const column = racewayColumn(c.wiring);
-  const rc = (rOhmPerKft[e] = table9ROhmPerKft(c.material, c.size, column));
-  xOhmPerKft[e] = table9XOhmPerKft(c.size, column);
+  // No size: no Table 9 row, like a size the table lacks (NaN); the voltage-drop study reads the same NaN as unknown.
+  const rc = (rOhmPerKft[e] = c.size === undefined ? Number.NaN : table9ROhmPerKft(c.material, c.size, column));
+  xOhmPerKft[e] = c.size === undefined ? Number.NaN : table9XOhmPerKft(c.size, column);
   return !Number.isNaN(rc) && c.lengthFt !== undefined;
 }
 
 /** True when a conductor has a length and a Chapter 9 Table 9 value (one without counts as zero impedance and adds a note). */
 export function hasImpedance(c: Conductor): boolean {
-  return c.lengthFt !== undefined && !Number.isNaN(table9ROhmPerKft(c.material, c.size, racewayColumn(c.wiring)));
+  return c.lengthFt !== undefined && c.size !== undefined && !Number.isNaN(table9ROhmPerKft(c.material, c.size, racewayColumn(c.wiring)));
 }
 
 /** What multiplies the per-1000 ft impedance: the length (twice for a single-phase loop) over the sets. */
