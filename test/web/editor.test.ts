@@ -54,8 +54,8 @@ describe('commands', () => {
 
   // Defaults for a new conductor: copper, THHN (90 °C), terminations at the project's default (110.14(C)(1);
   // 75 °C for equipment listed for it, common practice for equipment marked 60/75 °C), 30 °C ambient and three current-carrying conductors (the basis of NFPA 70-2023
-  // Table 310.16), in raceway. Length is left empty so the check reports it missing instead of guessing.
-  it('a drawn conductor takes the trade defaults and no length', () => {
+  // Table 310.16), in raceway. Length and size are left empty so the check asks for them instead of guessing.
+  it('a drawn conductor takes the trade defaults and no length or size', () => {
     const h = harness();
     addEquipment.run(h.ctx, { kind: 'breaker' });
     addEquipment.run(h.ctx, { kind: 'load' });
@@ -64,8 +64,14 @@ describe('commands', () => {
     const c = h.doc().conductors[0]!;
     expect(c).toMatchObject({ from: b, to: l, material: 'cu', insulation: 'THHN', ambientC: 30, currentCarrying: 3, damageProtection: 'raceway', parallelSets: 1 });
     expect(c.lengthFt).toBeUndefined();
+    expect(c.size).toBeUndefined();
     expect(c.terminalTempC).toBeUndefined();
-    // 1/0 Cu at 75 °C = 150 A (NFPA 70-2023 Table 310.16) ≥ the 100 A default breaker: 240.4 needs no length.
+    // No size, no ampacity: 240.4 cannot be decided, so the conductor waits for its size (common practice: ask, never guess).
+    const r = h.report().conductors[0]!;
+    expect(r.verdict).toBe('incomplete');
+    expect(r.summary).toMatch(/needs the size/);
+    // Once a size is chosen, 1/0 Cu at 75 °C = 150 A (NFPA 70-2023 Table 310.16) ≥ the 100 A default breaker: 240.4 needs no length.
+    replaceElement.run(h.ctx, { target: { kind: 'conductor', id: c.id }, value: { ...c, size: '1/0' }, label: 'Size' });
     expect(h.report().conductors[0]!.verdict).toBe('protected');
   });
 

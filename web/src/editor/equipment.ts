@@ -84,7 +84,6 @@ export function kindSpec(kind: EquipmentKind): KindSpec {
 export function newConductorFields(): Omit<Conductor, 'id' | 'from' | 'to'> {
   return {
     material: 'cu',
-    size: '1/0',
     parallelSets: 1,
     insulation: 'THHN',
     wiring: 'steel-conduit',

@@ -149,8 +149,9 @@ function FieldRow({ field, target, element }: { field: Field; target: ElementTar
 
   if (field.type === 'select') {
     const shown = current === undefined ? '' : String(current);
+    const needed = field.needed !== undefined && current === undefined;
     return (
-      <div className="lw-field">
+      <div className={`lw-field${needed ? ' is-needed' : ''}`}>
         <label htmlFor={domId}>{field.label}</label>
         <select
           id={domId}
@@ -173,6 +174,7 @@ function FieldRow({ field, target, element }: { field: Field; target: ElementTar
             </option>
           ))}
         </select>
+        {needed && <div className="lw-field-needed" data-testid={`${testId}-needed`}>{field.needed}</div>}
         {field.help && <div className="lw-field-help">{field.help}</div>}
         {error && <div className="lw-field-error" id={errorId} role="alert">{error}</div>}
       </div>

@@ -10,7 +10,9 @@ export type Field =
   | { type: 'number'; key: string; label: string; unit?: string; optional?: boolean; integer?: boolean; help?: string }
   | { type: 'select'; key: string; label: string; options: readonly (string | number | boolean)[]; optionLabels?: Record<string, string>; optional?: boolean; help?: string;
       /** Text of the empty choice of an optional select (default '— not given —'). */
-      emptyLabel?: string }
+      emptyLabel?: string;
+      /** Asked for while empty: the field is marked as needed, with this text (the check cannot judge without it). */
+      needed?: string }
   | { type: 'checkbox'; key: string; label: string; help?: string }
   /** Adds or removes an optional sub-object; its fields follow, shown only when present. */
   | { type: 'group'; key: string; label: string; make: () => Record<string, unknown>; fields: Field[]; help?: string };
@@ -114,7 +116,10 @@ const WIRING_LABELS = {
 export const CONDUCTOR_FIELDS: Field[] = [
   { type: 'text', key: 'label', label: 'Name on drawing', optional: true },
   { type: 'number', key: 'parallelSets', label: 'Parallel sets', integer: true, help: '310.10(G): 1/0 and larger only' },
-  { type: 'select', key: 'size', label: 'Size (AWG / kcmil)', options: CONDUCTOR_SIZES },
+  {
+    type: 'select', key: 'size', label: 'Size (AWG / kcmil)', options: CONDUCTOR_SIZES, optional: true, emptyLabel: '— choose a size —',
+    needed: 'Needed: choose the size. Until then this conductor has no verdict (incomplete).',
+  },
   { type: 'select', key: 'material', label: 'Material', options: MATERIALS, optionLabels: MAT_LABELS },
   { type: 'number', key: 'lengthFt', label: 'Length', unit: 'ft', optional: true, help: 'Conductor length, supply point to termination' },
   { type: 'select', key: 'insulation', label: 'Insulation', options: INSULATIONS },
