@@ -78,7 +78,7 @@ function fieldChanges(a: object, b: object): FieldChange[] {
 function describeElement(list: ElementList, e: Record<string, unknown>): string {
   if (list === 'conductors') {
     const sets = typeof e.parallelSets === 'number' && e.parallelSets > 1 ? `${e.parallelSets} sets ` : '';
-    return `${ELEMENT_WORDS[list]}, ${sets}${String(e.size)} ${String(e.material ?? 'cu')}, ${String(e.from)} → ${String(e.to)}`;
+    return `${ELEMENT_WORDS[list]}, ${sets}${typeof e.size === 'string' ? e.size : 'size unknown'} ${String(e.material ?? 'cu')}, ${String(e.from)} → ${String(e.to)}`;
   }
   if (list === 'busLinks') return `${ELEMENT_WORDS[list]}, ${String(e.from)} → ${String(e.to)}`;
   return `${String(e.kind)}${e.label ? ` "${String(e.label)}"` : ''}`;

@@ -1,7 +1,7 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { analyze, buildTakeoff, loadProject, takeoffTotals, type AnalysisReport, type ProjectInput } from '@linewright/core';
+import { analyze, buildTakeoff, diffDrawings, loadProject, snapshotOf, takeoffTotals, type AnalysisReport, type ProjectInput } from '@linewright/core';
 import { diagram } from '../../helpers/builder';
 import { conductor, run } from '../../helpers/analyzeInput';
 
@@ -291,5 +291,24 @@ describe('takeoff with a conductor of unknown size', () => {
     // The EGC of F1 still comes from Table 250.122 (200 A → 6 AWG Cu), so all the feet are there.
     expect(all(totals)).toBe(all(sizedTotals));
     expect(totals.wire.at(-1)!.size).toBeNull();
+  });
+});
+
+describe('review rounds with a conductor of unknown size', () => {
+  it('a conductor added without a size reads "size unknown" in the list of changes, then its size when given', () => {
+    const load = (input: ProjectInput) => {
+      const r = loadProject(input);
+      if (!r.ok) throw new Error(JSON.stringify(r.errors));
+      return snapshotOf(r.project);
+    };
+    const before = load(diagram().utility(480, { id: 'U' }).conductor({ id: 'SVC', size: '3/0', lengthFt: 20 }).breaker(200, { id: 'CB' }).build());
+    const added = load(diagram().utility(480, { id: 'U' }).conductor({ id: 'SVC', size: '3/0', lengthFt: 20 }).breaker(200, { id: 'CB' }).conductor({ id: 'F1', lengthFt: 40 }).load({ id: 'L', currentA: 50 }).build());
+    const sized = load(diagram().utility(480, { id: 'U' }).conductor({ id: 'SVC', size: '3/0', lengthFt: 20 }).breaker(200, { id: 'CB' }).conductor({ id: 'F1', size: '6', lengthFt: 40 }).load({ id: 'L', currentA: 50 }).build());
+    const first = JSON.stringify(diffDrawings(before, added));
+    expect(first).toContain('size unknown');
+    expect(first).not.toContain('undefined');
+    const second = diffDrawings(added, sized);
+    expect(second.find((c) => c.id === 'F1')).toBeDefined();
+    expect(JSON.stringify(second)).not.toContain('undefined');
   });
 });

@@ -1,6 +1,6 @@
 import type { EquipmentNode, Project } from '../../model/schema';
 import type { AnalysisReport } from '../../analyze/types';
-import { type VerdictClass, conductorText, displayClass, labelStatesRating, lengthText, num, verdictText } from '../format';
+import { type VerdictClass, conductorText, displayClass, labelStatesRating, lengthText, num, sizeText, verdictText } from '../format';
 import type { Point } from '../layout';
 import { BLACK, GREY, MIN_TEXT_PT, STYLE, VIOLATION, type DrawBox, type Rect, type Sheet } from './sheet';
 import { callout, drawSymbol, polyline, route, type Route } from './symbols';
@@ -203,7 +203,7 @@ export function drawOneLine(sh: Sheet, project: Project, report: AnalysisReport,
     const callouts = marksBySubject.get(`conductor:${c.id}`) ?? [];
     const label = measure(sh, {
       lines: [
-        { text: `${c.id}: ${cr ? conductorText(cr) : c.size}, ${lengthText(c.lengthFt ?? null)}`, style: 'normal', color: BLACK, size: labelFont },
+        { text: `${c.id}: ${cr ? conductorText(cr) : sizeText(c.size)}, ${lengthText(c.lengthFt ?? null)}`, style: 'normal', color: BLACK, size: labelFont },
         { text: cr ? verdictText(cr) : 'not analyzed', style: cls === 'failing' ? 'bold' : 'italic', color: cls === 'failing' ? VIOLATION : BLACK, size: labelFont },
       ],
       callouts,
