@@ -150,6 +150,14 @@ export function sizeEgc(
  */
 function sizeSupplySideJumper(c: EgcConductor, role: ConductorReport['role'], edition: CodeEdition): EgcSizing {
   const sets = c.parallelSets;
+  if (c.size === undefined) {
+    // The table reads the ungrounded conductors' size: unknown, so the jumper is counted only as stated.
+    const stated = c.egcSize ?? null;
+    const reason = `${role} conductors have no OCPD at their supply end: a supply-side bonding jumper sized by the ungrounded conductors (Table 250.102(C)(1)), whose size is unknown`;
+    const base = { material: c.material, tableSize: null, minimumPhaseSize: null, increaseRatio: 1, ocpdA: null, cites: ['Table 250.102(C)(1)'] };
+    if (stated !== null) return { ...base, size: stated, count: sets, reason: `stated ${sizeLabel(stated)}; minimum unknown: ${reason}`, problem: null };
+    return { ...base, size: null, count: 0, reason, problem: 'supply-side bonding jumper not counted: enter the conductor size' };
+  }
   const j = supplySideBondingJumper(c.size, c.material, edition);
   const cites = ['Table 250.102(C)(1)'];
   if (j.basis === 'percent') cites.push('250.102(C)(1)');

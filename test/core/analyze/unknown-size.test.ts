@@ -188,7 +188,7 @@ describe('a conductor without a size, by role', () => {
     expect(conductor(report, 'RISER').verdict).toBe('incomplete');
     expect(conductor(report, 'TAP').verdict).toBe('tap-10ft');
     const f = report.findings.find((x) => x.subject.kind === 'conductor' && x.subject.id === 'RISER' && x.messageId === 'missing-data')!;
-    expect(f.message).toContain('TAP, TAP2, supplied through it, are judged against the device ahead of it');
+    expect(f.message).toContain('What it supplies through equipment is judged against the device ahead of it, as if it were protected.');
   });
 
   it('a 10 ft tap spliced to an unsized segment with no branch: one run, so both parts are incomplete (never judged on the known part alone)', () => {
@@ -291,6 +291,18 @@ describe('takeoff with a conductor of unknown size', () => {
     // The EGC of F1 still comes from Table 250.122 (200 A → 6 AWG Cu), so all the feet are there.
     expect(all(totals)).toBe(all(sizedTotals));
     expect(totals.wire.at(-1)!.size).toBeNull();
+  });
+});
+
+describe('takeoff of service conductors of unknown size', () => {
+  it('the supply-side bonding jumper (Table 250.102(C)(1) reads the ungrounded conductors\' size) is not guessed: not counted, and the run says to enter the size', () => {
+    const r = loadProject(diagram().utility(480, { id: 'U' }).conductor({ id: 'SVC', lengthFt: 20 }).breaker(400, { id: 'MAIN' }).build());
+    if (!r.ok) throw new Error(JSON.stringify(r.errors));
+    const svc = buildTakeoff(r.project, analyze(r.project)).runs.find((x) => x.conductorId === 'SVC')!;
+    expect(svc.egc.size).toBeNull();
+    expect(svc.egc.count).toBe(0);
+    expect(svc.egc.problem).toMatch(/enter the conductor size/);
+    expect(svc.flags.join(' ')).toMatch(/size unknown/);
   });
 });
 

@@ -8,8 +8,9 @@ import { lengthText } from '../format';
 import { M, type Sheet } from './sheet';
 import { table, type TableColumn } from './table';
 
+/** '-' when there are none; a count of conductors drawn without a size reads 'size unknown' (the EGC passes 0 when not sized). */
 function conductors(count: number, size: TakeoffRun['size'] | null, material: TakeoffRun['material'], insulation: string): string {
-  return count === 0 || size === null ? '-' : `${count} × ${sizeLabel(size)} ${materialLabel(material)} ${insulation}`;
+  return count === 0 ? '-' : `${count} × ${sizeLabel(size)} ${materialLabel(material)} ${insulation}`;
 }
 
 /**
