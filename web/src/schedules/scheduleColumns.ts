@@ -77,8 +77,9 @@ export const CONDUCTOR_COLUMNS: Column<ConductorRow>[] = [
   { key: 'from', head: 'From', width: 110, grow: 1, text: (r) => name(r.from, r.c.from) },
   { key: 'to', head: 'To', width: 110, grow: 1, text: (r) => name(r.to, r.c.to) },
   {
-    key: 'size', head: 'Size', width: 56, text: (r) => r.c.size,
-    sort: (r) => CONDUCTOR_SIZES.indexOf(r.c.size),
+    // Not entered yet: 'size?' (the check says incomplete until it is), sorted after every size.
+    key: 'size', head: 'Size', width: 56, text: (r) => r.c.size ?? 'size?',
+    sort: (r) => (r.c.size === undefined ? CONDUCTOR_SIZES.length : CONDUCTOR_SIZES.indexOf(r.c.size)),
     edit: (r, raw) => conductorEdit(r, 'size', normaliseSize(raw), 'size'),
   },
   {
