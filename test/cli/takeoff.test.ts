@@ -1,27 +1,14 @@
-import { spawn } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
+import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { CAUTION } from '@linewright/core';
 import { parseArgs } from '../../core/src/cli/args';
+import { cli } from '../helpers/cli';
 
 /** `linewright takeoff`, as a user runs it (child process, temporary files); the contract is our own design. */
-const ROOT = resolve(import.meta.dirname, '../..');
 const dir = mkdtempSync(join(tmpdir(), 'lw-takeoff-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
-
-function cli(args: string[]): Promise<{ code: number | null; stdout: string; stderr: string }> {
-  return new Promise((done, fail) => {
-    const child = spawn(process.execPath, ['--import', 'tsx', 'core/src/cli/main.ts', ...args], { cwd: ROOT, stdio: ['ignore', 'pipe', 'pipe'] });
-    let stdout = '';
-    let stderr = '';
-    child.stdout.setEncoding('utf8').on('data', (d: string) => (stdout += d));
-    child.stderr.setEncoding('utf8').on('data', (d: string) => (stderr += d));
-    child.on('error', fail);
-    child.on('close', (code) => done({ code, stdout, stderr }));
-  });
-}
 
 describe('parseArgs: takeoff', () => {
   it('takeoff FILE defaults to text on stdout', () => {

@@ -1,11 +1,10 @@
-import { spawn } from 'node:child_process';
 import { readFileSync, readdirSync } from 'node:fs';
-import { join, resolve } from 'node:path';
+import { join } from 'node:path';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { analyze, loadProject, type ProjectInput } from '@linewright/core';
 import { toSarif } from '../../../core/src/report/sarif';
-import { CLI_ENTRY } from '../../../scripts/build-cli.mjs';
+import { cli, ROOT } from '../../helpers/cli';
 import { checkOne, fuzzBases } from '../../fuzz/checkOne';
 import { HOSTILE_TEXT, inputAt } from '../../fuzz/mutate';
 import { oddNetwork, treeNetwork } from '../../helpers/networks';
@@ -18,7 +17,6 @@ import { cleanReport, fixtureReport } from './fixture';
  * fixture reports, seeded random networks and fuzz mutations with hostile labels. The fuzz harness
  * (test/fuzz/checkOne.ts) validates the log of every accepted input the same way.
  */
-const ROOT = resolve(import.meta.dirname, '../../..');
 
 function sarifOf(input: ProjectInput | string, uri: string): unknown {
   const text = typeof input === 'string' ? input : JSON.stringify(input, null, 2);
@@ -27,16 +25,8 @@ function sarifOf(input: ProjectInput | string, uri: string): unknown {
   return toSarif(analyze(loaded.project), { artifactUri: uri, sourceText: text });
 }
 
-function cliSarif(file: string): Promise<{ code: number | null; stdout: string; stderr: string }> {
-  return new Promise((done, fail) => {
-    const child = spawn(process.execPath, [CLI_ENTRY, 'check', file, '--format', 'sarif'], { cwd: ROOT, stdio: ['ignore', 'pipe', 'pipe'] });
-    let stdout = '';
-    let stderr = '';
-    child.stdout.setEncoding('utf8').on('data', (d: string) => (stdout += d));
-    child.stderr.setEncoding('utf8').on('data', (d: string) => (stderr += d));
-    child.on('error', fail);
-    child.on('close', (code) => done({ code, stdout, stderr }));
-  });
+function cliSarif(file: string): ReturnType<typeof cli> {
+  return cli(['check', file, '--format', 'sarif']);
 }
 
 const sampleFiles = [
