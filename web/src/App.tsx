@@ -13,7 +13,7 @@ import { FindingsPanel } from './panels/FindingsPanel';
 import { Footer } from './panels/Footer';
 import { Legend, Palette } from './panels/Palette';
 import { Toolbar, openFile } from './panels/Toolbar';
-import { TakeoffView } from './panels/TakeoffView';
+import { TakeoffHost } from './panels/takeoffOpen';
 import { ReviewOverlay } from './review/ReviewOverlay';
 import { ReviewPanel } from './review/ReviewPanel';
 import { ImportDialog } from './import/ImportDialog';
@@ -190,7 +190,7 @@ export function App({ ctx, savedAt }: { ctx: CommandContext; savedAt: string | n
         <Notices />
         <CautionDialog />
         <LoadErrorsDialog />
-        <TakeoffView />
+        <TakeoffHost />
         <ImportDialog />
       </ReactFlowProvider>
     </EditorContext.Provider>

@@ -1,39 +1,19 @@
 import './takeoff.css';
-import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { buildTakeoff, takeoffTables, takeoffTotals, toTakeoffCsv, takeoffTableCsv, type TakeoffCell, type TakeoffTable } from '@linewright/core';
 import { CAUTION } from '../analysis/coreApi';
 import { fileBaseName } from '../editor/commands/saveJson';
 import { useCommandContext, useEditorState } from '../editor/useEditor';
+import { setOpen, useOpen } from './takeoffOpen';
 
 /*
  * The estimator's takeoff of the checked drawing: totals grouped by what is
  * bought (wire, raceway, devices, equipment, lugs), then the run schedule;
  * every table sorts by any column and shows its totals row; the whole takeoff
  * downloads as an XLSX workbook (exceljs, loaded only on that click) or CSV.
- * Open state is this view's own (not document state, not in undo history).
+ * Open state is in takeoffOpen.ts (not document state, not in undo history); this
+ * module loads on the first opening (App.tsx), so the editor's first paint never waits for it.
  */
-let open = false;
-const listeners = new Set<() => void>();
-function setOpen(v: boolean): void {
-  open = v;
-  for (const l of listeners) l();
-}
-const subscribe = (l: () => void) => {
-  listeners.add(l);
-  return () => listeners.delete(l);
-};
-const useOpen = () => useSyncExternalStore(subscribe, () => open);
-
-/** Toolbar button that opens the takeoff. */
-export function TakeoffButton() {
-  const report = useEditorState((s) => s.report);
-  return (
-    <button type="button" data-testid="cmd-takeoff" disabled={report === null} onClick={() => setOpen(true)} title="Takeoff: wire, raceway, devices and equipment counted from the checked drawing">
-      Takeoff
-    </button>
-  );
-}
-
 type Sort = { col: number; dir: 1 | -1 } | null;
 
 function compareCells(a: TakeoffCell, b: TakeoffCell): number {

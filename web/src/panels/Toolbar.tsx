@@ -5,7 +5,7 @@ import {
   type Command,
 } from '../editor/commands';
 import { useCommandContext, useEditorState } from '../editor/useEditor';
-import { TakeoffButton } from './TakeoffView';
+import { TakeoffButton } from './takeoffOpen';
 import { ReviewSwitch } from '../review/ReviewSwitch';
 
 function CmdButton({ cmd, testId, children, what }: { cmd: Command; testId: string; children?: React.ReactNode; what?: string | null }) {
