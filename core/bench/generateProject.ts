@@ -27,8 +27,8 @@ export interface GenerateOptions {
   seed?: number;
 }
 
-/** mulberry32: small, fast, deterministic; statistical quality is not the point here. */
-function prng(seed: number): () => number {
+/** mulberry32: small, fast, deterministic; statistical quality is not the point here. Also the fuzz harness's generator. */
+export function prng(seed: number): () => number {
   let a = seed >>> 0;
   return () => {
     a = (a + 0x6d2b79f5) >>> 0;

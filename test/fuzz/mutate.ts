@@ -6,17 +6,10 @@
  * overrides, CJK and emoji, very long names) and plain damage to the JSON text.
  */
 
-/** mulberry32: a small, fast, well-mixed 32-bit generator (public domain), enough for test inputs. */
-export function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** The seeded generator of the benchmark's networks (mulberry32), so one seed means one input everywhere. */
+import { prng as rng } from '../../core/bench/generateProject';
+
+export { rng };
 
 type Json = null | boolean | number | string | Json[] | { [k: string]: Json };
 type Rand = () => number;
