@@ -1,9 +1,12 @@
 /**
  * Deterministic synthetic one-line diagrams for the benchmarks (core and web).
  *
- * Shape, top to bottom: utility → service conductors → main breaker → main
- * switchboard → 800 A feeders to distribution switchboards → feeder units on
- * each distribution board. A feeder unit is one of
+ * Shape, top to bottom: a campus of buildings, each with its own service:
+ * utility → service conductors → 4000 A main breaker → main switchgear → 800 A
+ * feeders to twelve distribution switchboards → feeder units on each
+ * distribution board (twelve boards keep the service's calculated load under its
+ * 4000 A main, so a large campus is many services, not one overloaded service
+ * whose voltage drop flags every load). A feeder unit is one of
  *   - a 600 A riser to a tap box with a 10 ft tap and a 25 ft tap to panelboards,
  *   - a 125 A feeder to a 75 kVA 480–208Y/120 V transformer, 18 ft secondary to a panel,
  *   - a 225 A feeder to a panelboard without a main,
@@ -41,7 +44,9 @@ export function prng(seed: number): () => number {
 
 const COLUMN_PX = 140;
 const ROW_PX = 100;
-/** Feeder units per distribution board, and distribution boards per band of rows. */
+/** Rows of a building's service: utility, main, switchgear. */
+const SERVICE_ROWS = 3;
+/** Feeder units per distribution board, and distribution boards per band of rows (one building, one service). */
 const UNITS_PER_BOARD = 8;
 const BOARDS_PER_BAND = 12;
 /** Columns one feeder unit spans: two panels of up to six branch circuits, half a column apart. */
@@ -72,12 +77,16 @@ export function generateProject({ conductors, seed = 1 }: GenerateOptions): Proj
   };
   const link = (from: string, to: string) => links.push({ id: `BL${++linkSeq}`, from, to });
 
-  // Service: the first conductor.
-  node({ id: 'U', kind: 'utility', label: 'Utility 480Y/277 V', voltsLL: 480, phases: 3, availableFaultKA: 50, position: at(0, 0) });
-  node({ id: 'MAIN', kind: 'breaker', label: 'Main 4000 A', ratingA: 4000, position: at(0, 1) });
-  node({ id: 'MSB', kind: 'bus', busType: 'switchgear', label: 'Main switchgear', busRatingA: 4000, position: at(0, 2) });
-  wire({ id: 'SVC', from: 'U', to: 'MAIN', size: '600', parallelSets: 11, lengthFt: 40 });
-  link('MAIN', 'MSB');
+  /** A building's service, three rows at `top`: utility, service conductors (one conductor), main, switchgear. */
+  const service = (building: number, top: number) => {
+    const n = building + 1;
+    node({ id: `U${n}`, kind: 'utility', label: `Utility 480Y/277 V, building ${n}`, voltsLL: 480, phases: 3, availableFaultKA: 50, position: at(0, top) });
+    node({ id: `MAIN${n}`, kind: 'breaker', label: `Main 4000 A, building ${n}`, ratingA: 4000, position: at(0, top + 1) });
+    const msb = node({ id: `MSB${n}`, kind: 'bus', busType: 'switchgear', label: `Main switchgear, building ${n}`, busRatingA: 4000, position: at(0, top + 2) });
+    wire({ id: `SVC${n}`, from: `U${n}`, to: `MAIN${n}`, size: '600', parallelSets: 11, lengthFt: 40 });
+    link(`MAIN${n}`, msb);
+    return msb;
+  };
 
   /** Branch circuits off a panel bus: breaker, 12 AWG, load. One conductor each. */
   const branches = (panel: string, count: number, col: number, row: number) => {
@@ -102,13 +111,20 @@ export function generateProject({ conductors, seed = 1 }: GenerateOptions): Proj
   };
 
   let board = 0;
+  let msb = '';
   while (budget > 0) {
+    // A band of boards is one building: its service sits above the band's first board.
     const band = Math.floor(board / BOARDS_PER_BAND);
+    const bandTop = band * (SERVICE_ROWS + ROWS_PER_BAND);
+    if (board % BOARDS_PER_BAND === 0) {
+      msb = service(band, bandTop);
+      if (budget === 0) break;
+    }
     const bandCol = (board % BOARDS_PER_BAND) * (UNITS_PER_BOARD * UNIT_COLUMNS);
-    const top = 3 + band * ROWS_PER_BAND;
+    const top = bandTop + SERVICE_ROWS;
     const dsb = `DSB${board + 1}`;
-    const fb = node({ id: `MSB-${board + 1}`, kind: 'breaker', ratingA: 800, position: at(bandCol, top) });
-    link('MSB', fb);
+    const fb = node({ id: `${msb}-${board + 1}`, kind: 'breaker', ratingA: 800, position: at(bandCol, top) });
+    link(msb, fb);
     node({ id: dsb, kind: 'bus', busType: 'switchboard', label: `Distribution board ${board + 1}`, busRatingA: 800, position: at(bandCol, top + 1) });
     // 2 sets 500 kcmil Cu = 760 A on 800 A: 240.4(B) next size up.
     wire({ id: `${dsb}-F`, from: fb, to: dsb, size: '500', parallelSets: 2, lengthFt: pick(50, 300) });
