@@ -21,10 +21,10 @@
  * and report alive and samples heapUsed after each stage; the largest sample minus the baseline is
  * reported as "peak heap". It is a lower bound of the true peak (garbage made between samples is
  * not seen); the process's peak RSS (resourceUsage().maxRSS, whole run, all sizes) is printed too.
- * Re-check: a session (createAnalysis) on the 10 000-conductor network, then one-conductor edits of
- * branch circuits (a length changed by a foot, each a new project sharing every other object, as
- * an editor's immer edit does), each timed through session.update(); median and 95th percentile,
- * and how many the session re-checked on their own. One load edit (which it re-checks whole) too.
+ * Re-check: a session (createAnalysis) on the 10 000-conductor network, then edits of one kind at a
+ * time (a branch circuit's length changed by a foot; a load's amperes by one), each a new project
+ * sharing every other object, as an editor's immer edit does, each timed through session.update();
+ * per kind the median and 95th percentile, and how many ran the whole analysis.
  * CLI: the command is built from the current source first (scripts/build-cli.mjs), then
  * `node core/bin/linewright.mjs check samples/demo-clinic.json --format json` runs as a child
  * process; the median wall time of the runs is reported.
@@ -234,34 +234,53 @@ function measure({ conductors, warmup, runs }: (typeof SIZES)[number]): SizeResu
   };
 }
 
-/** One-conductor edits through an incremental session at 10 000 conductors (see the header). */
-function measureRecheck(conductors = 10_000, edits = 60): { conductors: number; edits: number; incremental: number; medianMs: number; p95Ms: number; loadEditMs: number } {
+/** One edit of `project`: the `k`th of its kind, a new project sharing every object it does not touch (an immer edit). */
+type BenchEdit = (project: Project, session: ReturnType<typeof createAnalysis>, k: number) => Project;
+
+const RECHECK_EDITS: { kind: string; edit: BenchEdit }[] = [
+  {
+    kind: 'branch-circuit length',
+    edit: (project, session, k) => {
+      const branches = session.report.conductors.flatMap((c, i) => (c.role === 'branch' && c.lengthFt !== null ? [i] : []));
+      const i = branches[(k * 7919) % branches.length]!;
+      const c = project.conductors[i]!;
+      return { ...project, conductors: project.conductors.map((x, j) => (j === i ? { ...c, lengthFt: (c.lengthFt ?? 0) + (k % 2 ? -1 : 1) } : x)) };
+    },
+  },
+  {
+    kind: 'load amperes',
+    edit: (project, _session, k) => {
+      const loads = project.nodes.flatMap((n, i) => (n.kind === 'load' && n.currentA !== undefined ? [i] : []));
+      const i = loads[(k * 7919) % loads.length]!;
+      const n = project.nodes[i]!;
+      return { ...project, nodes: project.nodes.map((x, j) => (j === i && n.kind === 'load' ? { ...n, currentA: n.currentA! + (k % 2 ? -1 : 1) } : x)) };
+    },
+  },
+];
+
+/** Edits of each kind through an incremental session at 10 000 conductors (see the header): median, p95, how many ran the whole analysis. */
+function measureRecheck(conductors = 10_000, edits = 60): { conductors: number; edits: number; kinds: { kind: string; medianMs: number; p95Ms: number; full: number }[] } {
   const loaded = loadProject(generateProject({ conductors, seed: 1 }));
   if (!loaded.ok) throw new Error('synthetic project refused');
-  let project = loaded.project;
-  const session = createAnalysis(project);
-  const branches = session.report.conductors.flatMap((c, i) => (c.role === 'branch' && c.lengthFt !== null ? [i] : []));
-  const times: number[] = [];
-  let incremental = 0;
-  for (let k = 0; k < edits + 5; k++) {
-    const i = branches[(k * 7919) % branches.length]!;
-    const c = project.conductors[i]!;
-    const next: Project = { ...project, conductors: project.conductors.map((x, j) => (j === i ? { ...c, lengthFt: (c.lengthFt ?? 0) + (k % 2 ? -1 : 1) } : x)) };
-    const t0 = process.hrtime.bigint();
-    session.update(next);
-    const t = ms(t0, process.hrtime.bigint());
-    project = next;
-    if (k < 5) continue;
-    times.push(t);
-    if (session.last.mode === 'incremental') incremental++;
-  }
-  const loadAt = project.nodes.findIndex((n) => n.kind === 'load' && n.kva !== undefined);
-  const withLoad: Project = { ...project, nodes: project.nodes.map((n, j) => (j === loadAt && n.kind === 'load' ? { ...n, kva: (n.kva ?? 1) + 1 } : n)) };
-  const t0 = process.hrtime.bigint();
-  session.update(withLoad);
-  const loadEditMs = ms(t0, process.hrtime.bigint());
-  const sorted = [...times].sort((a, b) => a - b);
-  return { conductors, edits, incremental, medianMs: round(median(times), 3), p95Ms: round(sorted[Math.ceil(sorted.length * 0.95) - 1]!, 3), loadEditMs: round(loadEditMs, 1) };
+  const kinds = RECHECK_EDITS.map(({ kind, edit }) => {
+    let project = loaded.project;
+    const session = createAnalysis(project);
+    const times: number[] = [];
+    let full = 0;
+    for (let k = 0; k < edits + 5; k++) {
+      const next = edit(project, session, k);
+      const t0 = process.hrtime.bigint();
+      session.update(next);
+      const t = ms(t0, process.hrtime.bigint());
+      project = next;
+      if (k < 5) continue;
+      times.push(t);
+      if (session.last.mode === 'full') full++;
+    }
+    const sorted = [...times].sort((a, b) => a - b);
+    return { kind, medianMs: round(median(times), 3), p95Ms: round(sorted[Math.ceil(sorted.length * 0.95) - 1]!, 3), full };
+  });
+  return { conductors, edits, kinds };
 }
 
 /** Whole-process time of the command on a sample, as a user runs it (median wall time, ms). */
@@ -303,7 +322,7 @@ const maxRssMB = round(process.resourceUsage().maxRSS / 1024, 0);
 console.log(`growth 10k -> 100k conductors: analyze x${analyzeGrowth10kTo100k}, pipeline x${pipelineGrowth10kTo100k} (x10 is linear); process peak RSS ${maxRssMB} MB`);
 for (const r of results) console.log(`verdicts at ${r.conductors}: ${JSON.stringify(r.verdicts)}`);
 const recheck = measureRecheck();
-console.log(`re-check after one-conductor edit @${recheck.conductors / 1000}k: median ${recheck.medianMs} ms, p95 ${recheck.p95Ms} ms over ${recheck.edits} branch-circuit length edits (${recheck.incremental} re-checked on their own); a load edit (whole re-run) ${recheck.loadEditMs} ms`);
+for (const k of recheck.kinds) console.log(`re-check after one ${k.kind} edit @${recheck.conductors / 1000}k: median ${k.medianMs} ms, p95 ${k.p95Ms} ms over ${recheck.edits} edits (${k.full} ran the whole analysis)`);
 const cli = await measureCli();
 console.log(`linewright check ${cli.sample} --format json, whole process: ${cli.medianMs} ms median of ${cli.runs} (exit ${cli.exitCode})`);
 console.log(

@@ -36,8 +36,48 @@ type Edit =
   | { kind: 'wiring'; at: number; wiring: number }
   | { kind: 'rating'; at: number; ratingA: number }
   | { kind: 'load'; at: number; kva: number }
+  | { kind: 'loadData'; at: number; change: LoadChange }
+  | { kind: 'move'; at: number; dx: number }
   | { kind: 'add'; at: number }
   | { kind: 'delete'; at: number };
+
+/** A change of a load's own data: what the roll-up, the motor and HVAC rules and the voltage drop read. */
+type LoadChange =
+  | { field: 'currentA'; value: number }
+  | { field: 'continuous' }
+  | { field: 'powerFactor'; value: number }
+  | { field: 'motor'; hp: number | undefined }
+  | { field: 'hvac'; mcaA: number | undefined };
+
+const loadChangeArb: fc.Arbitrary<LoadChange> = fc.oneof(
+  fc.record({ field: fc.constant('currentA' as const), value: fc.integer({ min: 1, max: 400 }) }),
+  fc.record({ field: fc.constant('continuous' as const) }),
+  fc.record({ field: fc.constant('powerFactor' as const), value: fc.constantFrom(0.7, 0.8, 0.85, 0.9, 0.95, 1) }),
+  fc.record({ field: fc.constant('motor' as const), hp: fc.option(fc.constantFrom(0.5, 1, 5, 10, 25, 50), { nil: undefined }) }),
+  fc.record({ field: fc.constant('hvac' as const), mcaA: fc.option(fc.constantFrom(12, 28, 45, 90), { nil: undefined }) }),
+);
+
+type LoadNode = Extract<Project['nodes'][number], { kind: 'load' }>;
+
+/** The load after one change of its data; the same object when the change does not apply to it. */
+function changeLoad(node: LoadNode, change: LoadChange): LoadNode {
+  switch (change.field) {
+    case 'currentA':
+      return node.currentA === undefined ? node : { ...node, currentA: change.value };
+    case 'continuous':
+      return { ...node, continuous: !node.continuous };
+    case 'powerFactor':
+      return { ...node, powerFactor: change.value };
+    case 'motor': {
+      const { motor: _, ...rest } = node;
+      return change.hp === undefined ? rest : { ...node, motor: { hp: change.hp } };
+    }
+    case 'hvac': {
+      const { hvac: _, ...rest } = node;
+      return change.mcaA === undefined ? rest : { ...node, hvac: { mcaA: change.mcaA, mopA: change.mcaA * 2 } };
+    }
+  }
+}
 
 const at = fc.nat({ max: 1_000_000 });
 const editArb: fc.Arbitrary<Edit> = fc.oneof(
@@ -48,6 +88,8 @@ const editArb: fc.Arbitrary<Edit> = fc.oneof(
   { weight: 1, arbitrary: fc.record({ kind: fc.constant('wiring' as const), at, wiring: fc.nat({ max: WIRING_METHODS.length - 1 }) }) },
   { weight: 2, arbitrary: fc.record({ kind: fc.constant('rating' as const), at, ratingA: fc.constantFrom(15, 20, 30, 60, 100, 225, 400, 800) }) },
   { weight: 2, arbitrary: fc.record({ kind: fc.constant('load' as const), at, kva: fc.integer({ min: 1, max: 500 }) }) },
+  { weight: 3, arbitrary: fc.record({ kind: fc.constant('loadData' as const), at, change: loadChangeArb }) },
+  { weight: 1, arbitrary: fc.record({ kind: fc.constant('move' as const), at, dx: fc.integer({ min: -200, max: 200 }) }) },
   { weight: 1, arbitrary: fc.record({ kind: fc.constant('add' as const), at }) },
   { weight: 1, arbitrary: fc.record({ kind: fc.constant('delete' as const), at }) },
 );
@@ -76,6 +118,19 @@ function applyEdit(p: Project, e: Edit, step: number): Project {
       return { ...p, conductors: [...p.conductors, { ...c, id: `${c.id}-X${step}` as Conductor['id'] }] };
     case 'delete':
       return { ...p, conductors: p.conductors.filter((_, k) => k !== i) };
+    case 'move': {
+      const k = e.at % p.nodes.length;
+      const node = p.nodes[k]!;
+      const position = { x: (node.position?.x ?? 0) + e.dx, y: node.position?.y ?? 0 };
+      return { ...p, nodes: p.nodes.map((x, j) => (j === k ? { ...node, position } : x)) };
+    }
+    case 'loadData': {
+      const loads = p.nodes.flatMap((node, k) => (node.kind === 'load' ? [k] : []));
+      if (loads.length === 0) return p;
+      const k = loads[e.at % loads.length]!;
+      const next = changeLoad(p.nodes[k] as LoadNode, e.change);
+      return next === p.nodes[k] ? p : { ...p, nodes: p.nodes.map((x, j) => (j === k ? next : x)) };
+    }
     case 'rating':
     case 'load': {
       const kinds = e.kind === 'rating' ? ['breaker', 'fuse'] : ['load'];
@@ -134,15 +189,22 @@ describe('incremental analysis equals a whole analysis after every edit', () => 
     LIMIT_MS,
   );
 
-  it('a branch-circuit length edit is re-checked on its own; a load edit runs the whole analysis', () => {
+  it('a branch-circuit length edit, a load edit and a move are re-checked on their own; a breaker rating edit runs the whole analysis', () => {
     const project = load(generateProject({ conductors: 200, seed: 3 }));
     const session = createAnalysis(project);
     const branch = project.conductors.findIndex((c) => session.report.conductors.find((r) => r.id === c.id)?.role === 'branch' && c.lengthFt !== undefined);
     const edited = applyEdit(project, { kind: 'length', at: branch, lengthFt: 250 }, 0);
     expect(session.update(edited)).toEqual(analyze(edited));
     expect(session.last).toEqual({ mode: 'incremental', conductorId: project.conductors[branch]!.id });
-    const loadEdit = applyEdit(edited, { kind: 'load', at: 0, kva: 40 }, 1);
+    const loadAt = edited.nodes.findIndex((n) => n.kind === 'load');
+    const loadEdit = applyEdit(edited, { kind: 'loadData', at: 0, change: { field: 'currentA', value: 13 } }, 1);
     expect(session.update(loadEdit)).toEqual(analyze(loadEdit));
+    expect(session.last).toEqual({ mode: 'incremental', nodeId: edited.nodes[loadAt]!.id, edit: 'load' });
+    const moved = applyEdit(loadEdit, { kind: 'move', at: 5, dx: 40 }, 2);
+    expect(session.update(moved)).toEqual(analyze(moved));
+    expect(session.last).toEqual({ mode: 'incremental', nodeId: moved.nodes[5]!.id, edit: 'layout' });
+    const rated = applyEdit(moved, { kind: 'rating', at: 0, ratingA: 30 }, 3);
+    expect(session.update(rated)).toEqual(analyze(rated));
     expect(session.last.mode).toBe('full');
   });
 });

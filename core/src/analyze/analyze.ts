@@ -1,6 +1,6 @@
 import { CAUTION } from '../caution';
 import type { Project } from '../model/schema';
-import { classifyRuns } from './classify';
+import { classifyRunsKeeping, type KeptWalk } from './classify';
 import { conductorReports } from './conductorReports';
 import { prepareContext, type FixedContext } from './context';
 import { collectFindings } from './findings';
@@ -24,6 +24,8 @@ export function analyze(project: Project): AnalysisReport {
 export interface AnalysisState {
   readonly ctx: FixedContext;
   readonly studies: StudiesResult;
+  /** What the classifier learned about the network besides the verdicts. */
+  readonly walk: KeptWalk;
   /** Conductor ci's findings are report.findings[start[ci] .. start[ci + 1]); start[conductors] ends them. */
   readonly conductorFindingStart: Int32Array;
   /** Where the studies' findings begin in report.findings (they come last). */
@@ -34,7 +36,7 @@ export interface AnalysisState {
 /** `analyze()`, keeping each stage's result. */
 export function runAnalysis(project: Project): AnalysisState {
   const prepared = prepareContext(project);
-  const verdicts = classifyRuns({ ...prepared, facts: baseRunFacts(prepared) });
+  const { verdicts, walk } = classifyRunsKeeping({ ...prepared, facts: baseRunFacts(prepared) });
   const judged = { ...prepared, verdicts };
   const fixed = { ...judged, fixes: runFixes(judged) };
   // Fault current and voltage drop: their findings join the rest; withstand is judged on the taps that passed 240.21.
@@ -55,7 +57,7 @@ export function runAnalysis(project: Project): AnalysisState {
     studies: studies.report,
     counts: countsOf(conductors, findings),
   };
-  return { ctx: fixed, studies, conductorFindingStart, studyFindingStart: collected.length, report };
+  return { ctx: fixed, studies, walk, conductorFindingStart, studyFindingStart: collected.length, report };
 }
 
 /** The report's totals: conductors by verdict, findings by severity (every key, zeros included). */

@@ -67,6 +67,19 @@ interface RunToJudge {
  * the run it may be tapped from is always judged first.
  */
 export function classifyRuns(ctx: FactsContext): RunVerdict[] {
+  return classifyRunsKeeping(ctx).verdicts;
+}
+
+/** What a classification pass learned about the network besides the verdicts, kept for re-judging runs (`rejudgeRuns`). */
+export interface KeptWalk {
+  readonly nodeSupply: readonly Supply[];
+  /** Base facts of each transformer's secondary runs, by transformer node. */
+  readonly secondariesOf: ReadonlyMap<number, RunFacts[]>;
+  readonly below: Uint8Array;
+}
+
+/** `classifyRuns`, also returning what the walk learned (see KeptWalk). */
+export function classifyRunsKeeping(ctx: FactsContext): { verdicts: RunVerdict[]; walk: KeptWalk } {
   const { graph: g, runs, order, count } = ctx;
   const walk: Walk = {
     ctx,
@@ -97,7 +110,17 @@ export function classifyRuns(ctx: FactsContext): RunVerdict[] {
     const from = g.conductorFrom[runs.members[r]![0]!]!;
     walk.results[r] = incomplete({ walk, run: r, supply: { kind: 'cycle', node: from }, facts: ctx.facts[r]!, role: 'unknown' });
   }
-  return walk.results as RunVerdict[];
+  return { verdicts: walk.results as RunVerdict[], walk: { nodeSupply: walk.nodeSupply, secondariesOf: walk.secondariesOf, below: walk.below } };
+}
+
+/**
+ * Judges runs `rs` again, in supply-to-load order, after their base facts (`ctx.facts[r]`) changed and
+ * nothing else did: each is judged as the whole pass would, reading the verdicts of the runs it is
+ * supplied from out of `verdicts`, where its own new verdict is written (see incremental.ts).
+ */
+export function rejudgeRuns(ctx: FactsContext, kept: KeptWalk, verdicts: RunVerdict[], rs: readonly number[]): void {
+  const walk: Walk = { ctx, nodeSupply: kept.nodeSupply as Supply[], results: verdicts, secondariesOf: kept.secondariesOf, below: kept.below, joined: new Map() };
+  for (const r of rs) verdicts[r] = judgeRun(toJudge(walk, r, supplyAt(walk, ctx.graph.conductorFrom[ctx.runs.members[r]![0]!]!)));
 }
 
 /**

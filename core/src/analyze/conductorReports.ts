@@ -10,6 +10,22 @@ import type { Citation, ConductorReport, DeviceRef, Finding } from './types';
 /** Stage: one report line per conductor, in file order; what a run's conductors share is built once per run. */
 export function conductorReports(ctx: FixedContext & { findings: readonly Finding[] }): ConductorReport[] {
   const { graph, runs, verdicts, edition } = ctx;
+  const chains = new Map<string, readonly string[]>();
+  for (const v of verdicts) if (v.facts.conductorIds.length > 1) chains.set(v.facts.conductorIds[0]!, v.facts.conductorIds);
+  const findingIdsBySubject = findingIdsByConductor(ctx.findings, (id) => chains.get(id));
+  const shared = verdicts.map((v) => runShared(graph, v, edition));
+  const conductors: ConductorReport[] = new Array(graph.conductors.length);
+  for (let ci = 0; ci < graph.conductors.length; ci++) {
+    conductors[ci] = conductorReport(ctx, ci, findingIdsBySubject.get(graph.conductors[ci]!.id), shared[runs.runOf[ci]!]);
+  }
+  return conductors;
+}
+
+/**
+ * The ids of the findings each conductor's report line lists, by conductor id. `chainOf(id)` gives
+ * the conductors judged as one run whose first conductor is `id` (undefined for none or a run of one).
+ */
+export function findingIdsByConductor(findings: readonly Finding[], chainOf: (id: string) => readonly string[] | undefined): Map<string, string[]> {
   // A run's finding sits on its first conductor and names the others as related: every segment shows it.
   const findingIdsBySubject = new Map<string, string[]>();
   const add = (id: string, findingId: string) => {
@@ -17,20 +33,13 @@ export function conductorReports(ctx: FixedContext & { findings: readonly Findin
     list.push(findingId);
     findingIdsBySubject.set(id, list);
   };
-  const chainOf = new Map<string, readonly string[]>();
-  for (const v of verdicts) if (v.facts.conductorIds.length > 1) chainOf.set(v.facts.conductorIds[0]!, v.facts.conductorIds);
-  for (const f of ctx.findings) {
+  for (const f of findings) {
     if (f.subject.kind !== 'conductor') continue;
     add(f.subject.id, f.id);
-    const chain = chainOf.get(f.subject.id);
+    const chain = chainOf(f.subject.id);
     if (chain) for (const r of f.related) if (r.kind === 'conductor' && r.id !== f.subject.id && chain.includes(r.id)) add(r.id, f.id);
   }
-  const shared = verdicts.map((v) => runShared(graph, v, edition));
-  const conductors: ConductorReport[] = new Array(graph.conductors.length);
-  for (let ci = 0; ci < graph.conductors.length; ci++) {
-    conductors[ci] = conductorReport(ctx, ci, findingIdsBySubject.get(graph.conductors[ci]!.id), shared[runs.runOf[ci]!]);
-  }
-  return conductors;
+  return findingIdsBySubject;
 }
 
 /** The report line of conductor `ci`, given the ids of its findings and (when known) what its run's lines share. */

@@ -1,19 +1,27 @@
-import type { Conductor, Project } from '../model/schema';
-import { conductorReport } from './conductorReports';
+import type { Conductor, EquipmentNode, NodeOfKind, Project } from '../model/schema';
+import { conductorReport, findingIdsByConductor } from './conductorReports';
 import { conductorFindingsOf } from './conductorFindings';
 import { conductorAmpacity, terminalTempOf } from './ampacities';
-import { judgeFedByOcpd } from './classify';
+import { judgeFedByOcpd, rejudgeRuns, type KeptWalk, type RunVerdict } from './classify';
 import { fixesOfRun } from './fixes';
+import { loadCircuit, loadConnection, rollUpAt } from './loads';
 import { runFactsOf } from './runFacts';
 import { assumptionsFor, countsOf, runAnalysis, type AnalysisState } from './analyze';
 import type { FixedContext } from './context';
 import type { AnalysisReport, Finding } from './types';
+import type { RunFacts } from '../rules/facts';
 import { hasImpedance, restepThroughConductor } from '../studies/faultCurrent/faultCurrent';
-import { redropConductor } from '../studies/voltageDrop/voltageDrop';
-import { conductorDropRow, dropFindings, nodeFault, voltageDropInputs } from '../studies/index';
+import { redropConductor, redropPath } from '../studies/voltageDrop/voltageDrop';
+import { conductorDropRow, nodeFault, redoDropFindings, voltageDropInputs } from '../studies/index';
+import type { Graph } from '../topology/graph';
 
 /** How the last re-check was done: only what the edit can change, or the whole analysis (and why). */
-export type UpdateMode = { mode: 'incremental'; conductorId: string } | { mode: 'full'; reason: string };
+export type UpdateMode =
+  | { mode: 'incremental'; conductorId: string }
+  | { mode: 'incremental'; nodeId: string; edit: 'load' | 'layout' }
+  | { mode: 'full'; reason: string }
+  /** `update` was given the project it already had. */
+  | { mode: 'unchanged' };
 
 /** An analysis kept between edits: `update` returns what `analyze(next)` would, re-checking only what the edit can change. */
 export interface AnalysisSession {
@@ -28,11 +36,16 @@ export interface AnalysisSession {
 }
 
 /**
- * An incremental analysis. A one-conductor edit of a branch circuit (an OCPD to one load, nothing
- * below it: the most common edit by far) re-checks that conductor's run, its load's fault current
- * and voltage drop and its findings, and reuses everything else; any other edit, and any edit whose
- * reach it cannot bound (a change of topology, of a node, of the project settings, of a conductor
- * that feeds anything, or one that adds or removes a study note) runs the whole analysis.
+ * An incremental analysis. Three edits are re-checked without the whole analysis:
+ * - one conductor of a branch circuit (an OCPD to one load, nothing below it: the most common edit
+ *   by far): that conductor's run, its load's fault current and voltage drop and its findings;
+ * - one load's data (its VA or amperes, continuous, motor, HVAC, power factor) with its connection
+ *   unchanged: the load roll-up along its supply path, the runs on that path (facts, verdicts,
+ *   fixes, findings, report lines) and the voltage drops below the path;
+ * - a node moved or its notes edited: nothing the analysis reads.
+ * Any other edit, and any edit whose reach it cannot bound (a change of topology, of the project
+ * settings, of a conductor that feeds anything, of a verdict on the supply path, or one that adds
+ * or removes a study note), runs the whole analysis.
  * The property test (test/property/incremental.property.test.ts) holds it equal to `analyze()`.
  */
 export function createAnalysis(project: Project): AnalysisSession {
@@ -47,14 +60,17 @@ export function createAnalysis(project: Project): AnalysisSession {
       return last;
     },
     update(next: Project): AnalysisReport {
-      const edit = singleConductorEdit(current, next);
-      const why = typeof edit === 'string' ? edit : leafBlocker(state, edit.index, edit.before, edit.after);
-      if (why === null && typeof edit !== 'string') {
-        state = recheckLeaf(state, next, edit.index);
-        last = { mode: 'incremental', conductorId: edit.after.id };
-      } else {
+      if (next === current) {
+        last = { mode: 'unchanged' };
+        return state.report;
+      }
+      const result = recheck(state, current, next);
+      if (typeof result === 'string') {
         state = runAnalysis(next);
-        last = { mode: 'full', reason: why ?? 'unknown' };
+        last = { mode: 'full', reason: result };
+      } else {
+        state = result.state;
+        last = result.mode;
       }
       current = next;
       return state.report;
@@ -62,26 +78,63 @@ export function createAnalysis(project: Project): AnalysisSession {
   };
 }
 
-/** The one conductor an edit changed, or why the edit is something else. Compares by identity only. */
-function singleConductorEdit(prev: Project, next: Project): { index: number; before: Conductor; after: Conductor } | string {
-  if (prev === next) return 'nothing changed';
+/** The state after the edit from `prev` to `next` re-checked on its own, or why it cannot be. */
+function recheck(state: AnalysisState, prev: Project, next: Project): { state: AnalysisState; mode: UpdateMode } | string {
+  let conductorsChanged = false;
+  let nodesChanged = false;
   for (const key of new Set([...Object.keys(prev), ...Object.keys(next)]) as Set<keyof Project>) {
-    if (key !== 'conductors' && prev[key] !== next[key]) return `${key} changed`;
+    if (prev[key] === next[key]) continue;
+    if (key === 'conductors') conductorsChanged = true;
+    else if (key === 'nodes') nodesChanged = true;
+    else return `${key} changed`;
   }
-  const a = prev.conductors;
-  const b = next.conductors;
-  if (a.length !== b.length) return 'a conductor was added or removed';
+  if (conductorsChanged && nodesChanged) return 'conductors and nodes changed';
+  if (conductorsChanged) {
+    const edit = singleEdit(prev.conductors, next.conductors);
+    if (typeof edit === 'string') return edit.replace('element', 'conductor');
+    const { index, before, after } = edit;
+    if (before.id !== after.id || before.from !== after.from || before.to !== after.to) return 'a conductor was reconnected';
+    const why = leafBlocker(state, index, before, after);
+    if (why !== null) return why;
+    return { state: recheckLeaf(state, next, index), mode: { mode: 'incremental', conductorId: after.id } };
+  }
+  const edit = singleEdit(prev.nodes, next.nodes);
+  if (typeof edit === 'string') return edit.replace('element', 'node');
+  const { index, before, after } = edit;
+  if (before.id !== after.id || before.kind !== after.kind) return 'a node was replaced';
+  if (onlyLayout(before, after)) return { state: relayout(state, next), mode: { mode: 'incremental', nodeId: after.id, edit: 'layout' } };
+  if (before.kind !== 'load' || after.kind !== 'load') return `a ${before.kind} node changed`;
+  const result = recheckLoad(state, next, index, before, after);
+  return typeof result === 'string' ? result : { state: result, mode: { mode: 'incremental', nodeId: after.id, edit: 'load' } };
+}
+
+/** The one element of a list an edit changed, or why the edit is something else. Compares by identity only. */
+function singleEdit<T>(a: readonly T[], b: readonly T[]): { index: number; before: T; after: T } | string {
+  if (a.length !== b.length) return 'an element was added or removed';
   let index = -1;
   for (let i = 0; i < a.length; i++) {
     if (a[i] === b[i]) continue;
-    if (index >= 0) return 'more than one conductor changed';
+    if (index >= 0) return 'more than one element changed';
     index = i;
   }
   if (index < 0) return 'nothing changed';
-  const before = a[index]!;
-  const after = b[index]!;
-  if (before.id !== after.id || before.from !== after.from || before.to !== after.to) return 'a conductor was reconnected';
-  return { index, before, after };
+  return { index, before: a[index]!, after: b[index]! };
+}
+
+/** Fields of a node no stage of the analysis reads: where it is drawn and the designer's notes. */
+const LAYOUT_FIELDS: ReadonlySet<string> = new Set(['position', 'notes']);
+
+function onlyLayout(before: EquipmentNode, after: EquipmentNode): boolean {
+  const a = before as Record<string, unknown>;
+  const b = after as Record<string, unknown>;
+  for (const key of new Set([...Object.keys(a), ...Object.keys(b)])) if (!LAYOUT_FIELDS.has(key) && a[key] !== b[key]) return false;
+  return true;
+}
+
+/** A node moved or its notes changed: the same report, over the new project. */
+function relayout(state: AnalysisState, next: Project): AnalysisState {
+  const graph: Graph = { ...state.ctx.graph, nodes: next.nodes };
+  return { ...state, ctx: { ...state.ctx, project: next, graph } };
 }
 
 /** Why the edit of conductor `ci` cannot be re-checked on its own, or null when it can. */
@@ -135,24 +188,16 @@ function recheckLeaf(state: AnalysisState, next: Project, ci: number): AnalysisS
   dropRows[ci] = conductorDropRow(graph, fault, drop, ci);
   const studies = { ...oldStudies, faults, voltageDrop: { ...oldStudies.voltageDrop, conductors: dropRows } };
 
-  // Findings: the conductor's own section, then its voltage-drop warnings among the study findings.
-  const start = state.conductorFindingStart;
-  const own: Finding[] = [];
-  conductorFindingsOf(ctx, ci, own);
-  const from = start[ci]!;
-  const to = start[ci + 1]!;
-  const delta = own.length - (to - from);
-  const m = graph.conductors.length;
-  const conductorFindingStart = delta === 0 ? start : start.slice();
-  if (delta !== 0) for (let k = ci + 1; k <= m; k++) conductorFindingStart[k] = start[k]! + delta;
-  const studyStart = state.studyFindingStart + delta;
-  const studyFindings = replaceDropFindings(ctx, state, ci, load, old.findings.slice(state.studyFindingStart));
-  const findings = [...old.findings.slice(0, from), ...own, ...old.findings.slice(to, state.studyFindingStart), ...studyFindings];
-
+  const conductorMoved = new Uint8Array(graph.conductors.length);
+  const nodeMoved = new Uint8Array(graph.nodes.length);
+  conductorMoved[ci] = 1;
+  nodeMoved[load] = 1;
+  const own = new Map<number, Finding[]>([[ci, []]]);
+  conductorFindingsOf(ctx, ci, own.get(ci)!);
+  const { findings, conductorFindingStart, studyFindingStart } = spliceFindings(state, ctx, own, conductorMoved, nodeMoved);
   const conductors = old.conductors.slice();
-  const ids: string[] = [];
-  for (const f of findings) if (f.subject.kind === 'conductor' && f.subject.id === conductor.id) ids.push(f.id);
-  conductors[ci] = conductorReport(ctx, ci, ids);
+  conductors[ci] = conductorReport(ctx, ci, findingIdsByConductor(findings, chainLookup(state, verdicts)).get(conductor.id));
+
   const before = state.ctx.graph.conductors[ci]!;
   const setting = next.project.terminationDefault;
   // The assumptions name the termination ratings in use and count the conductors that state none.
@@ -168,30 +213,174 @@ function recheckLeaf(state: AnalysisState, next: Project, ci: number): AnalysisS
     studies,
     counts: { conductors: conductors.length, byVerdict, bySeverity: countsOf([], findings).bySeverity },
   };
-  return { ctx, studies: { ...state.studies, report: studies }, conductorFindingStart, studyFindingStart: studyStart, report };
+  return { ...state, ctx, studies: { ...state.studies, report: studies }, conductorFindingStart, studyFindingStart, report };
 }
 
-/** The study findings with the voltage-drop warnings of conductor `ci` and of its load re-judged, in the order a full run writes them. */
-function replaceDropFindings(ctx: FixedContext, state: AnalysisState, ci: number, load: number, list: readonly Finding[]): Finding[] {
-  const g = ctx.graph;
-  const cid = g.conductors[ci]!.id;
-  const lid = g.nodes[load]!.id;
-  const isCircuit = (f: Finding) => f.ruleId === 'voltage-drop' && f.subject.kind === 'conductor';
-  const isTotal = (f: Finding) => f.ruleId === 'voltage-drop' && f.subject.kind === 'node';
-  const kept = list.filter((f) => !(isCircuit(f) && f.subject.kind === 'conductor' && f.subject.id === cid) && !(isTotal(f) && f.subject.kind === 'node' && f.subject.id === lid));
-  const { circuit, total } = dropFindings(ctx.project, g, state.studies.fault, state.studies.drop, ci, load);
-  const conductorIndex = conductorIndexOf(state);
-  if (circuit) {
-    let at = kept.findIndex((f) => isTotal(f) || (isCircuit(f) && f.subject.kind === 'conductor' && conductorIndex.get(f.subject.id)! > ci));
-    if (at < 0) at = kept.length;
-    kept.splice(at, 0, circuit);
+/**
+ * Re-checks the network after one load's data changed (its volt-amperes or current, continuous,
+ * motor, HVAC, power factor) with its connection and what the fault study reads of it unchanged:
+ * the load roll-up along its supply path, every run on that path (facts, verdict, fixes, findings,
+ * report line) and the voltage drops at and below the path. The fault current, the circuits, the
+ * ampacities and every other verdict stay. Returns why it cannot when the edit reaches further: a
+ * load with several supplies or anything below it, a spliced run on the path, a verdict on the path
+ * that changes (what is supplied through it would be judged again), or a study note that changes.
+ */
+function recheckLoad(state: AnalysisState, next: Project, v: number, before: NodeOfKind<'load'>, after: NodeOfKind<'load'>): AnalysisState | string {
+  const prev = state.ctx;
+  const g0 = prev.graph;
+  const { loads, runs } = prev;
+  if (before.label !== after.label) return 'the load was renamed';
+  // The fault study reads a load's phases (the loop it sees) and, for a motor contribution, its full-load current.
+  if (before.phases !== after.phases) return "the load's phases changed";
+  if ((before.faultContributionXFlc !== undefined || after.faultContributionXFlc !== undefined) && (before.faultContributionXFlc !== after.faultContributionXFlc || before.currentA !== after.currentA || before.kva !== after.kva)) return "the load's motor contribution changed";
+  // The circuit makeup of every run above it (analyze/circuits.ts) reads the load's connection.
+  const sys = [loads.voltsLL[v]!, loads.phases[v]!, loads.voltsLN[v]!] as const;
+  const onBefore = loadConnection(before, ...sys);
+  const onAfter = loadConnection(after, ...sys);
+  if ((onBefore === null) !== (onAfter === null) || (onBefore !== null ? onBefore.connection !== onAfter!.connection : before.connection !== after.connection)) return "the load's connection changed";
+  // A load without a known current adds a note to the voltage-drop study.
+  if ((loads.loadCircuits[v] === null) !== (loadCircuit(after, ...sys) === null)) return "whether the load's current is known changed";
+  if (prev.onCycle[v] || g0.outEdges[v]!.length !== 0) return 'the load supplies something';
+
+  // The supply path, load first: every node on it supplied once, so the roll-up changes along it alone.
+  const path: number[] = [];
+  const pathRuns: number[] = [];
+  for (let w = v; ; ) {
+    path.push(w);
+    const ins = g0.inEdges[w]!;
+    if (ins.length === 0) break;
+    if (ins.length > 1) return 'a node on the supply path has several supplies';
+    if (path.length > g0.nodes.length) return 'the supply path loops';
+    const e = ins[0]!;
+    if (e >= 0) {
+      const r = runs.runOf[e]!;
+      if (runs.members[r]!.length !== 1 || prev.verdicts[r]!.facts.conductorIds.length !== 1) return 'a spliced run lies on the supply path';
+      pathRuns.push(r);
+    }
+    w = e >= 0 ? g0.conductorFrom[e]! : g0.linkFrom[-e - 1]!;
+    if (w < 0) break;
   }
-  if (total) {
-    let at = kept.findIndex((f) => isTotal(f) && f.subject.kind === 'node' && g.nodeIndex.get(f.subject.id)! > load);
-    if (at < 0) at = kept.length;
-    kept.splice(at, 0, total);
+  pathRuns.reverse();
+
+  const graph: Graph = { ...g0, nodes: next.nodes };
+  // The session owns the analysis' arrays: the roll-up and the studies are updated in place.
+  for (const w of path) rollUpAt(graph, loads, w);
+  const base = { ...prev, project: next, graph };
+  const facts: RunFacts[] = [];
+  let secondariesOf = state.walk.secondariesOf;
+  for (const r of pathRuns) {
+    const old = prev.verdicts[r]!.facts;
+    facts[r] = runFactsOf(base, r, old.site);
+    const from = graph.conductorFrom[runs.members[r]![0]!]!;
+    const list = secondariesOf.get(from);
+    if (list) {
+      // A transformer's primary reads the facts of its secondaries (240.21(B)(3)).
+      const at = list.indexOf(old);
+      if (at < 0) return 'a secondary run is judged with another';
+      if (secondariesOf === state.walk.secondariesOf) secondariesOf = new Map(secondariesOf);
+      (secondariesOf as Map<number, RunFacts[]>).set(from, list.map((f, k) => (k === at ? facts[r]! : f)));
+    }
   }
-  return kept;
+  const walk: KeptWalk = { ...state.walk, secondariesOf };
+  const verdicts = prev.verdicts.slice();
+  rejudgeRuns({ ...base, facts }, walk, verdicts, pathRuns);
+  for (const r of pathRuns) {
+    const why = verdictMoved(graph, prev.verdicts[r]!, verdicts[r]!);
+    if (why) return why;
+  }
+  const fixes = prev.fixes.slice();
+  const ctx: FixedContext = { ...base, verdicts, fixes };
+  for (const r of pathRuns) fixes[r] = fixesOfRun(ctx, r);
+
+  // Voltage drop: the power along the path, then the sums below it.
+  const { fault, drop } = state.studies;
+  const conductorMoved = new Uint8Array(graph.conductors.length);
+  const nodeMoved = new Uint8Array(graph.nodes.length);
+  redropPath(graph, drop, voltageDropInputs(ctx, fault), path, conductorMoved, nodeMoved);
+  const old = state.report;
+  const oldStudies = old.studies!;
+  const dropRows = oldStudies.voltageDrop.conductors.slice();
+  for (let c = 0; c < conductorMoved.length; c++) if (conductorMoved[c]) dropRows[c] = conductorDropRow(graph, fault, drop, c);
+  const studies = { ...oldStudies, voltageDrop: { ...oldStudies.voltageDrop, conductors: dropRows } };
+
+  const own = new Map<number, Finding[]>();
+  for (const r of pathRuns) {
+    const ci = runs.members[r]![0]!;
+    own.set(ci, []);
+    conductorFindingsOf(ctx, ci, own.get(ci)!);
+  }
+  const { findings, conductorFindingStart, studyFindingStart } = spliceFindings(state, ctx, own, conductorMoved, nodeMoved);
+
+  // Report lines: the path's, and those whose voltage-drop warning came or went.
+  const lines = new Set(own.keys());
+  const index = conductorIndexOf(state);
+  for (const list of [old.findings, findings]) {
+    for (let k = list === old.findings ? state.studyFindingStart : studyFindingStart; k < list.length; k++) {
+      const f = list[k]!;
+      if (f.ruleId === 'voltage-drop' && f.subject.kind === 'conductor') lines.add(index.get(f.subject.id)!);
+    }
+  }
+  const ids = findingIdsByConductor(findings, chainLookup(state, verdicts));
+  const conductors = old.conductors.slice();
+  for (const ci of lines) conductors[ci] = conductorReport(ctx, ci, ids.get(graph.conductors[ci]!.id));
+  const report: AnalysisReport = {
+    ...old,
+    conductors,
+    findings,
+    studies,
+    counts: { ...old.counts, bySeverity: countsOf([], findings).bySeverity },
+  };
+  return { ctx, studies: { ...state.studies, report: studies }, walk, conductorFindingStart, studyFindingStart, report };
+}
+
+/** Why a new verdict of a run on the supply path reaches beyond it (what is supplied through the run reads these), or null. */
+function verdictMoved(g: Graph, before: RunVerdict, after: RunVerdict): string | null {
+  if (before.verdict !== after.verdict || before.rule !== after.rule || before.family !== after.family || before.deviceNode !== after.deviceNode || before.generatorNode !== after.generatorNode) return `the verdict of ${before.facts.conductorIds[0]} changed`;
+  // The secondaries of a transformer whose primary is a tap are judged on the primary's 240.21(B)(3) trial.
+  const end = after.facts.termination.nodeId === null ? -1 : g.nodeIndex.get(after.facts.termination.nodeId) ?? -1;
+  if (end >= 0 && g.nodes[end]!.kind === 'transformer' && after.verdict !== 'protected' && after.verdict !== 'protected-next-size') return 'a transformer on the supply path is fed by a tap';
+  return null;
+}
+
+/**
+ * The report's findings with the sections of the conductors in `own` (conductor index → its findings,
+ * as conductorFindingsOf writes them) replaced and the voltage-drop warnings of the conductors and
+ * nodes marked as moved judged again; where each conductor's section and the studies' findings now start.
+ */
+function spliceFindings(state: AnalysisState, ctx: FixedContext, own: ReadonlyMap<number, Finding[]>, conductorMoved: Uint8Array, nodeMoved: Uint8Array): Pick<AnalysisState, 'conductorFindingStart' | 'studyFindingStart'> & { findings: Finding[] } {
+  const old = state.report.findings;
+  const start = state.conductorFindingStart;
+  const m = ctx.graph.conductors.length;
+  const findings: Finding[] = [];
+  let from = 0;
+  let conductorFindingStart = start;
+  const order = [...own.keys()].sort((a, b) => a - b);
+  for (const ci of order) {
+    for (let k = from; k < start[ci]!; k++) findings.push(old[k]!);
+    for (const f of own.get(ci)!) findings.push(f);
+    from = start[ci + 1]!;
+    const delta = findings.length - from;
+    if (delta !== conductorFindingStart[ci + 1]! - start[ci + 1]!) {
+      if (conductorFindingStart === start) conductorFindingStart = start.slice();
+      for (let k = ci + 1; k <= m; k++) conductorFindingStart[k] = start[k]! + delta;
+    }
+  }
+  for (let k = from; k < state.studyFindingStart; k++) findings.push(old[k]!);
+  const studyFindingStart = findings.length;
+  const { fault, drop } = state.studies;
+  const studyFindings = redoDropFindings(ctx.project, ctx.graph, fault, drop, old.slice(state.studyFindingStart), conductorMoved, nodeMoved, conductorIndexOf(state));
+  for (const f of studyFindings) findings.push(f);
+  return { findings, conductorFindingStart, studyFindingStart };
+}
+
+/** The conductors judged as one run whose first conductor is `id` (as conductorReports finds them), from the run of that conductor. */
+function chainLookup(state: AnalysisState, verdicts: readonly RunVerdict[]): (id: string) => readonly string[] | undefined {
+  const index = conductorIndexOf(state);
+  const { runOf } = state.ctx.runs;
+  return (id) => {
+    const chain = verdicts[runOf[index.get(id)!]!]!.facts.conductorIds;
+    return chain.length > 1 && chain[0] === id ? chain : undefined;
+  };
 }
 
 /** Conductor index by id, built once per topology (the graph's typed arrays are kept while the topology is). */

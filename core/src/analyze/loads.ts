@@ -103,56 +103,75 @@ export function rollUpLoads(g: Graph, order: Int32Array, count: number): SystemL
   const onlyLoad = new Int32Array(n).fill(-1);
   const loadCount = new Uint32Array(n);
   const loadCircuits: (LoadCircuit | null)[] = new Array(n).fill(null);
+  const s: SystemLoads = { voltsLL, phases, voltsLN, vaNoncontinuous, vaContinuous, largestMotorVA, singleA, singleCalcA, unknown, onlyLoad, loadCircuits };
   for (let k = count - 1; k >= 0; k--) {
     const v = order[k]!;
-    const node = g.nodes[v]!;
-    if (node.kind === 'load') {
+    if (g.nodes[v]!.kind === 'load') {
       loadCount[v] = 1;
       onlyLoad[v] = v;
-      const c = loadCircuit(node, voltsLL[v]!, phases[v]!, voltsLN[v]!);
-      loadCircuits[v] = c;
-      if (c === null) unknown[v] = 1;
-      else {
-        if (c.continuous) vaContinuous[v] = c.va;
-        else vaNoncontinuous[v] = c.va;
-        if (c.motor) largestMotorVA[v] = c.va;
-        singleA[v] = c.lineA;
-        singleCalcA[v] = c.lineA * (c.continuous || c.motor ? 1.25 : 1);
-      }
     }
     for (const e of g.outEdges[v]!) {
       const w = edgeTo(g, e);
-      vaNoncontinuous[v] = vaNoncontinuous[v]! + vaNoncontinuous[w]!;
-      vaContinuous[v] = vaContinuous[v]! + vaContinuous[w]!;
-      if (largestMotorVA[w]! > largestMotorVA[v]!) largestMotorVA[v] = largestMotorVA[w]!;
-      if (singleA[w]! > singleA[v]!) singleA[v] = singleA[w]!;
-      if (singleCalcA[w]! > singleCalcA[v]!) singleCalcA[v] = singleCalcA[w]!;
-      unknown[v] = unknown[v]! | unknown[w]!;
       loadCount[v] = loadCount[v]! + loadCount[w]!;
       if (loadCount[w] === 1 && loadCount[v] === 1) onlyLoad[v] = onlyLoad[w]!;
     }
     if (loadCount[v] !== 1) onlyLoad[v] = -1;
-    if (node.kind === 'transformer') toPrimary(node, v);
+    rollUpAt(g, s, v);
   }
-  return { voltsLL, phases, voltsLN, vaNoncontinuous, vaContinuous, largestMotorVA, singleA, singleCalcA, unknown, onlyLoad, loadCircuits };
+  return s;
+}
 
-  /**
-   * The largest-single-load currents at a transformer, seen from its primary.
-   * A single-phase transformer is itself one load on its primary: VA / Vp.
-   * Through a three-phase transformer a single-phase secondary load of S VA
-   * draws at least S / Vp_LL on a primary line (a line-to-neutral load of a
-   * delta-wye unit exactly that), so the secondary current scales by
-   * Vs_LN / Vp_LL, taken as Vs / (√3·Vp): never more than flows.
-   */
-  function toPrimary(t: NodeOfKind<'transformer'>, v: number): void {
-    if (t.phases === 1) {
-      singleA[v] = (vaNoncontinuous[v]! + vaContinuous[v]!) / t.primaryVoltsLL;
-      singleCalcA[v] = (vaNoncontinuous[v]! + 1.25 * vaContinuous[v]! + 0.25 * largestMotorVA[v]!) / t.primaryVoltsLL;
-    } else {
-      const ratio = t.secondaryVoltsLL / (Math.sqrt(3) * t.primaryVoltsLL);
-      singleA[v] = singleA[v]! * ratio;
-      singleCalcA[v] = singleCalcA[v]! * ratio;
+/**
+ * Node `v`'s totals from its own load and the totals of what it supplies (one step of the roll-up,
+ * load to source; what `v` supplies is rolled up first). Also how an incremental re-check
+ * (analyze/incremental.ts) re-rolls the supply path of an edited load: the same sums in the same order.
+ */
+export function rollUpAt(g: Graph, s: SystemLoads, v: number): void {
+  const { vaNoncontinuous, vaContinuous, largestMotorVA, singleA, singleCalcA, unknown } = s;
+  const node = g.nodes[v]!;
+  vaNoncontinuous[v] = vaContinuous[v] = largestMotorVA[v] = singleA[v] = singleCalcA[v] = 0;
+  unknown[v] = 0;
+  if (node.kind === 'load') {
+    const c = loadCircuit(node, s.voltsLL[v]!, s.phases[v]!, s.voltsLN[v]!);
+    s.loadCircuits[v] = c;
+    if (c === null) unknown[v] = 1;
+    else {
+      if (c.continuous) vaContinuous[v] = c.va;
+      else vaNoncontinuous[v] = c.va;
+      if (c.motor) largestMotorVA[v] = c.va;
+      singleA[v] = c.lineA;
+      singleCalcA[v] = c.lineA * (c.continuous || c.motor ? 1.25 : 1);
     }
+  }
+  for (const e of g.outEdges[v]!) {
+    const w = edgeTo(g, e);
+    vaNoncontinuous[v] = vaNoncontinuous[v]! + vaNoncontinuous[w]!;
+    vaContinuous[v] = vaContinuous[v]! + vaContinuous[w]!;
+    if (largestMotorVA[w]! > largestMotorVA[v]!) largestMotorVA[v] = largestMotorVA[w]!;
+    if (singleA[w]! > singleA[v]!) singleA[v] = singleA[w]!;
+    if (singleCalcA[w]! > singleCalcA[v]!) singleCalcA[v] = singleCalcA[w]!;
+    unknown[v] = unknown[v]! | unknown[w]!;
+  }
+  if (node.kind === 'transformer') toPrimary(s, node, v);
+}
+
+/**
+ * The largest-single-load currents at a transformer, seen from its primary.
+ * A single-phase transformer is itself one load on its primary: VA / Vp.
+ * Through a three-phase transformer a single-phase secondary load of S VA
+ * draws at least S / Vp_LL on a primary line (a line-to-neutral load of a
+ * delta-wye unit exactly that), so the secondary current scales by
+ * Vs_LN / Vp_LL, taken as Vs / (√3·Vp): never more than flows.
+ */
+function toPrimary(s: SystemLoads, t: NodeOfKind<'transformer'>, v: number): void {
+  const { vaNoncontinuous, vaContinuous, largestMotorVA, singleA, singleCalcA } = s;
+  if (t.phases === 1) {
+    singleA[v] = (vaNoncontinuous[v]! + vaContinuous[v]!) / t.primaryVoltsLL;
+    singleCalcA[v] = (vaNoncontinuous[v]! + 1.25 * vaContinuous[v]! + 0.25 * largestMotorVA[v]!) / t.primaryVoltsLL;
+  } else {
+    const ratio = t.secondaryVoltsLL / (Math.sqrt(3) * t.primaryVoltsLL);
+    singleA[v] = singleA[v]! * ratio;
+    singleCalcA[v] = singleCalcA[v]! * ratio;
   }
 }
 

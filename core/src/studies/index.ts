@@ -266,11 +266,51 @@ function totalDropFinding(edition: CodeEdition, g: Graph, drop: VoltageDropStudy
   return studyFinding(edition, voltageDropRule, 'warning', { kind: 'node', id: node.id }, voltageDropRule.check({ edition, scope: 'total', subject: `Load ${label(node)}`, pct: total, limitPct }));
 }
 
-/** The voltage-drop findings of conductor `c` (its circuit) and of load node `load` (its total), for an incremental re-check. */
-export function dropFindings(project: Project, g: Graph, fault: FaultStudy, drop: VoltageDropStudy, c: number, load: number): { circuit: Finding | null; total: Finding | null } {
+/**
+ * The study findings again after the drops of some conductors and nodes moved (an incremental
+ * re-check, analyze/incremental.ts): the voltage-drop warnings of the conductors marked in
+ * `conductorMoved` and of the nodes marked in `nodeMoved` judged again, every other finding kept, in
+ * the order a full run writes them (the voltage-drop warnings come last: circuits by conductor, then
+ * totals by node). `conductorIndex` gives a conductor's index by id.
+ */
+export function redoDropFindings(
+  project: Project,
+  g: Graph,
+  fault: FaultStudy,
+  drop: VoltageDropStudy,
+  findings: readonly Finding[],
+  conductorMoved: Uint8Array,
+  nodeMoved: Uint8Array,
+  conductorIndex: ReadonlyMap<string, number>,
+): Finding[] {
   const edition = project.project.codeEdition;
   const { circuitLimit, totalLimit } = dropLimits(project);
-  return { circuit: circuitDropFinding(edition, g, fault, drop, c, circuitLimit), total: totalDropFinding(edition, g, drop, load, totalLimit) };
+  let first = findings.findIndex((f) => f.ruleId === voltageDropRule.id);
+  if (first < 0) first = findings.length;
+  const circuits: [number, Finding][] = [];
+  const totals: [number, Finding][] = [];
+  for (let k = first; k < findings.length; k++) {
+    const f = findings[k]!;
+    if (f.subject.kind === 'conductor') {
+      const c = conductorIndex.get(f.subject.id)!;
+      if (!conductorMoved[c]) circuits.push([c, f]);
+    } else if (f.subject.kind === 'node') {
+      const v = g.nodeIndex.get(f.subject.id)!;
+      if (!nodeMoved[v]) totals.push([v, f]);
+    }
+  }
+  for (let c = 0; c < conductorMoved.length; c++) {
+    if (!conductorMoved[c]) continue;
+    const f = circuitDropFinding(edition, g, fault, drop, c, circuitLimit);
+    if (f) circuits.push([c, f]);
+  }
+  for (let v = 0; v < nodeMoved.length; v++) {
+    if (!nodeMoved[v]) continue;
+    const f = totalDropFinding(edition, g, drop, v, totalLimit);
+    if (f) totals.push([v, f]);
+  }
+  const byIndex = (a: [number, Finding], b: [number, Finding]) => a[0] - b[0];
+  return [...findings.slice(0, first), ...circuits.sort(byIndex).map((x) => x[1]), ...totals.sort(byIndex).map((x) => x[1])];
 }
 
 function label(node: EquipmentNode): string {

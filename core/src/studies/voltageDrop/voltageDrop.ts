@@ -38,6 +38,9 @@ export interface VoltageDropStudy {
   totalPct: Float64Array;
   /** Per node: drop from the last overcurrent device, source or transformer, %. */
   circuitPct: Float64Array;
+  /** Per node: real and reactive power at and below it along the supply tree, W and var (what the currents come from). */
+  p: Float64Array;
+  q: Float64Array;
   notes: string[];
 }
 
@@ -126,15 +129,7 @@ export function studyVoltageDrop(g: Graph, inp: VoltageDropInputs): VoltageDropS
   let unknownLoad = false;
   for (let k = count - 1; k >= 0; k--) {
     const v = order[k]!;
-    const node = g.nodes[v]!;
-    if (node.kind === 'load') {
-      const lc = loadCircuits[v];
-      if (lc) {
-        const pf = node.powerFactor;
-        p[v] = p[v]! + lc.va * pf;
-        q[v] = q[v]! + lc.va * Math.sqrt(1 - pf * pf);
-      } else unknownLoad = true;
-    }
+    if (!addOwnPower(g, loadCircuits, p, q, v)) unknownLoad = true;
     const u = parent[v]!;
     if (u >= 0) {
       p[u] = p[u]! + p[v]!;
@@ -146,33 +141,109 @@ export function studyVoltageDrop(g: Graph, inp: VoltageDropInputs): VoltageDropS
   const powerFactor = new Float64Array(m).fill(Number.NaN);
   const pct = new Float64Array(m).fill(Number.NaN);
   const singlePhase = new Uint8Array(m);
+  const study = { currentA, powerFactor, pct, singlePhase, totalPct: new Float64Array(n).fill(Number.NaN), circuitPct: new Float64Array(n).fill(Number.NaN), p, q, notes: [] as string[] };
   for (let c = 0; c < m; c++) {
     const to = g.conductorTo[c]!;
-    const from = g.conductorFrom[c]!;
-    if (to < 0 || from < 0 || parentEdge[to] !== c) continue;
+    if (to < 0 || g.conductorFrom[c]! < 0 || parentEdge[to] !== c) continue;
     // Each conductor on its own circuit: three-phase √3 over V_LL; a 2-wire line-to-neutral circuit 2 over V_LN
     // (the grounded conductor carries the return); a 2-wire system's circuit 2 over its voltage; a line-to-line
     // or 3-wire single-phase circuit 2 over V_LL (balanced: the neutral carries no current).
-    const three = isThreePhase(inp, c);
-    singlePhase[c] = three ? 0 : 1;
-    const volts = circuitVolts(inp, c, from, three);
-    if (!(volts > 0)) continue;
-    const pt = p[to]!;
-    const qt = q[to]!;
-    const s = Math.sqrt(pt * pt + qt * qt);
-    const amps = s / ((three ? SQRT3 : 1) * volts);
-    const pf = s > 0 ? pt / s : 1;
-    currentA[c] = amps;
-    powerFactor[c] = pf;
-    pct[c] = dropPct(g, inp, c, amps, pf, three, volts);
+    singlePhase[c] = isThreePhase(inp, c) ? 0 : 1;
+    dropOf(g, inp, study, c);
   }
 
-  const totalPct = new Float64Array(n).fill(Number.NaN);
-  const circuitPct = new Float64Array(n).fill(Number.NaN);
+  const { totalPct, circuitPct } = study;
   for (let k = 0; k < count; k++) arriveAt(g, inp, pct, totalPct, circuitPct, order[k]!);
   const notes = [
     "Voltage drop: Chapter 9 Table 9 effective impedance R·cos θ + X·sin θ at the power factor of the loads served (lagging), conductors at 75 °C; each conductor on its own circuit: three-phase √3·I·Z·L/1000 over the line-to-line voltage, a line-to-neutral circuit 2·I·Z·L/1000 over the line-to-neutral voltage, a line-to-line or single-phase 3-wire circuit 2·I·Z·L/1000 over the line-to-line voltage (balanced). Totals count from the source or transformer secondary; transformer regulation is not included.",
   ];
   if (unknownLoad) notes.push('A load without a known voltage adds nothing to the currents above it.');
-  return { currentA, powerFactor, pct, singlePhase, totalPct, circuitPct, notes };
+  study.notes = notes;
+  return study;
+}
+
+/** A load node's own real and reactive power added at `v`; false for a load without a known circuit. */
+function addOwnPower(g: Graph, loadCircuits: VoltageDropInputs['loads']['loadCircuits'], p: Float64Array, q: Float64Array, v: number): boolean {
+  const node = g.nodes[v]!;
+  if (node.kind !== 'load') return true;
+  const lc = loadCircuits[v];
+  if (!lc) return false;
+  const pf = node.powerFactor;
+  p[v] = p[v]! + lc.va * pf;
+  q[v] = q[v]! + lc.va * Math.sqrt(1 - pf * pf);
+  return true;
+}
+
+/** Conductor `c` on the supply tree: its current and power factor from what its load end draws, and its own drop. */
+function dropOf(g: Graph, inp: VoltageDropInputs, drop: VoltageDropStudy, c: number): void {
+  const three = drop.singlePhase[c] === 0;
+  const volts = circuitVolts(inp, c, g.conductorFrom[c]!, three);
+  if (!(volts > 0)) return;
+  const to = g.conductorTo[c]!;
+  const pt = drop.p[to]!;
+  const qt = drop.q[to]!;
+  const s = Math.sqrt(pt * pt + qt * qt);
+  const amps = s / ((three ? SQRT3 : 1) * volts);
+  const pf = s > 0 ? pt / s : 1;
+  drop.currentA[c] = amps;
+  drop.powerFactor[c] = pf;
+  drop.pct[c] = dropPct(g, inp, c, amps, pf, three, volts);
+}
+
+/** Position of each node in the supply-to-load order, built once per order. */
+const positions = new WeakMap<Int32Array, Int32Array>();
+function positionsOf(order: Int32Array, count: number): Int32Array {
+  let pos = positions.get(order);
+  if (!pos) {
+    pos = new Int32Array(order.length).fill(-1);
+    for (let k = 0; k < count; k++) pos[order[k]!] = k;
+    positions.set(order, pos);
+  }
+  return pos;
+}
+
+/**
+ * The drops again after the loads at and below the nodes of `path` changed (a supply path, load end
+ * first, every node on the supply tree; see analyze/incremental.ts): the power at each of its nodes
+ * summed as the whole study sums it (what a node supplies in reverse supply-to-load order, then its
+ * own load), the current and drop of the conductor into each, then the sums at every node below whose
+ * figures moved. Marks in `conductorMoved` each conductor whose row changed and in `nodeMoved` each
+ * node whose sums changed (and every node of the path).
+ */
+export function redropPath(g: Graph, drop: VoltageDropStudy, inp: VoltageDropInputs, path: readonly number[], conductorMoved: Uint8Array, nodeMoved: Uint8Array): void {
+  const { parent, parentEdge, order, count } = inp;
+  const pos = positionsOf(order, count);
+  const { p, q, totalPct, circuitPct } = drop;
+  for (const v of path) {
+    const below: number[] = [];
+    for (const e of g.outEdges[v]!) {
+      const w = e >= 0 ? g.conductorTo[e]! : g.linkTo[-e - 1]!;
+      if (w >= 0 && parent[w] === v && parentEdge[w] === e) below.push(w);
+    }
+    if (below.length > 1) below.sort((a, b) => pos[b]! - pos[a]!);
+    p[v] = q[v] = 0;
+    for (const w of below) {
+      p[v] = p[v]! + p[w]!;
+      q[v] = q[v]! + q[w]!;
+    }
+    addOwnPower(g, inp.loads.loadCircuits, p, q, v);
+    nodeMoved[v] = 1;
+    const e = parentEdge[v]!;
+    if (parent[v]! >= 0 && e >= 0) {
+      dropOf(g, inp, drop, e);
+      conductorMoved[e] = 1;
+    }
+  }
+  for (let k = pos[path[path.length - 1]!]!; k < count; k++) {
+    const v = order[k]!;
+    const u = parent[v]!;
+    const onPath = nodeMoved[v] === 1;
+    if (!onPath && (u < 0 || nodeMoved[u] !== 1)) continue;
+    const t = totalPct[v]!;
+    const cp = circuitPct[v]!;
+    arriveAt(g, inp, drop.pct, totalPct, circuitPct, v);
+    if (!onPath && Object.is(t, totalPct[v]) && Object.is(cp, circuitPct[v])) continue;
+    nodeMoved[v] = 1;
+    if (u >= 0 && parentEdge[v]! >= 0) conductorMoved[parentEdge[v]!] = 1;
+  }
 }
