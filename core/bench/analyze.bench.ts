@@ -4,6 +4,12 @@
  * whole-process time of the `linewright` command on a sample. Prints figures only: nothing here
  * passes or fails on time.
  *
+ * Compiled as shipped: `npm run bench` (scripts/bench.mjs) bundles this file and the core it
+ * imports with esbuild and no keepNames, as the CLI and the web build bundle core, then runs the
+ * bundle. Run directly under tsx (`npx tsx core/bench/analyze.bench.ts`) it times core as tsx
+ * compiles it (keepNames: every function made at run time is also named by a call), slower; the
+ * first printed line and the JSON's `compiledBy` say which.
+ *
  * Per size: warm-up runs, then timed runs; medians are reported.
  *   parse     = JSON.parse of the file text
  *   load      = loadProject (schema, defaults, references) of the parsed file
@@ -42,12 +48,22 @@ import { printStudiesBench } from './studies';
 setFlagsFromString('--expose-gc');
 const gc = runInNewContext('gc') as (() => void) | undefined;
 
-const SIZES = [
+/**
+ * `npm run bench -- --sizes=10000` times only the sizes named (growth is then printed only when both
+ * 10 000 and 100 000 ran); `--analyze-only` also leaves out the re-check, the CLI and the studies.
+ * The default runs everything.
+ */
+const sizesArg = process.argv.find((a) => a.startsWith('--sizes='))?.slice('--sizes='.length);
+const ANALYZE_ONLY = process.argv.includes('--analyze-only');
+const ALL_SIZES = [
   { conductors: 1_000, warmup: 5, runs: 25 },
   { conductors: 10_000, warmup: 3, runs: 15 },
   { conductors: 100_000, warmup: 1, runs: 5 },
 ];
+const SIZES = sizesArg ? ALL_SIZES.filter((x) => sizesArg.split(',').map(Number).includes(x.conductors)) : ALL_SIZES;
 const CLI_RUNS = 9;
+/** Set by scripts/bench.mjs when it bundles the bench; absent when a TypeScript loader runs it. */
+const COMPILED_BY = process.env.LINEWRIGHT_BENCH_BUNDLED === 'esbuild' ? 'esbuild bundle, no keepNames (as shipped)' : 'TypeScript loader (tsx, keepNames)';
 
 const median = (xs: number[]) => {
   const s = [...xs].sort((a, b) => a - b);
@@ -305,7 +321,7 @@ const load = () => loadavg().map((x) => round(x, 1));
 const COLUMNS = ['conductors', 'nodes', 'file MB', 'runs', 'parse', 'load', 'analyze', 'pipeline', 'floor', 'analyze/floor', 'JSON B/cond', 'peak heap MB'];
 const WIDTHS = [10, 8, 8, 5, 8, 8, 9, 9, 8, 14, 12, 13];
 const row = (cells: (string | number)[]) => cells.map((v, i) => pad(v, WIDTHS[i]!)).join(' ');
-console.log(`Linewright core benchmark, node ${process.version}, ${cpus().length} CPUs, load average ${load().join(' ')} at start, ${gc ? 'gc exposed' : 'gc NOT exposed: heap figures are rough'}`);
+console.log(`Linewright core benchmark, node ${process.version}, ${cpus().length} CPUs, load average ${load().join(' ')} at start, ${gc ? 'gc exposed' : 'gc NOT exposed: heap figures are rough'}; core compiled by ${COMPILED_BY}`);
 console.log('a load average above the CPU count means other work shares the machine: figures are then upper bounds; read ratios');
 console.log('medians of timed runs after warm-up; times in ms; pipeline = parse + load + analyze; floor = one field-reading pass over prebuilt typed adjacency');
 console.log(row(COLUMNS));
@@ -315,22 +331,30 @@ for (const size of SIZES) {
   results.push(r);
   console.log(row([r.conductors, r.nodes, r.fileMB, r.runs, r.parseMs, r.loadMs, r.analyzeMs, r.pipelineMs, r.floorMs, r.analyzeToFloor, r.jsonBytesPerConductor, r.peakHeapMB]));
 }
-const at = (n: number) => results.find((r) => r.conductors === n)!;
-const analyzeGrowth10kTo100k = round(at(100_000).analyzeMs / at(10_000).analyzeMs, 1);
-const pipelineGrowth10kTo100k = round(at(100_000).pipelineMs / at(10_000).pipelineMs, 1);
+const at = (n: number) => results.find((r) => r.conductors === n);
+const growth = (pick: (r: SizeResult) => number) => {
+  const small = at(10_000);
+  const large = at(100_000);
+  return small && large ? round(pick(large) / pick(small), 1) : null;
+};
+const analyzeGrowth10kTo100k = growth((r) => r.analyzeMs);
+const pipelineGrowth10kTo100k = growth((r) => r.pipelineMs);
 const maxRssMB = round(process.resourceUsage().maxRSS / 1024, 0);
-console.log(`growth 10k -> 100k conductors: analyze x${analyzeGrowth10kTo100k}, pipeline x${pipelineGrowth10kTo100k} (x10 is linear); process peak RSS ${maxRssMB} MB`);
+console.log(`growth 10k -> 100k conductors: analyze x${analyzeGrowth10kTo100k ?? '? (not both run)'}, pipeline x${pipelineGrowth10kTo100k ?? '?'} (x10 is linear); process peak RSS ${maxRssMB} MB`);
 for (const r of results) console.log(`verdicts at ${r.conductors}: ${JSON.stringify(r.verdicts)}`);
-const recheck = measureRecheck();
-for (const k of recheck.kinds) console.log(`re-check after one ${k.kind} edit @${recheck.conductors / 1000}k: median ${k.medianMs} ms, p95 ${k.p95Ms} ms over ${recheck.edits} edits (${k.full} ran the whole analysis)`);
-const cli = await measureCli();
-console.log(`linewright check ${cli.sample} --format json, whole process: ${cli.medianMs} ms median of ${cli.runs} (exit ${cli.exitCode})`);
+const recheck = ANALYZE_ONLY ? null : measureRecheck();
+if (recheck) for (const k of recheck.kinds) console.log(`re-check after one ${k.kind} edit @${recheck.conductors / 1000}k: median ${k.medianMs} ms, p95 ${k.p95Ms} ms over ${recheck.edits} edits (${k.full} ran the whole analysis)`);
+const cli = ANALYZE_ONLY ? null : await measureCli();
+if (cli) console.log(`linewright check ${cli.sample} --format json, whole process: ${cli.medianMs} ms median of ${cli.runs} (exit ${cli.exitCode})`);
+// The studies' own figures come before the JSON, which stays the last line.
+if (!ANALYZE_ONLY) printStudiesBench();
 console.log(
   JSON.stringify({
     node: process.version,
     cpus: cpus().length,
     loadAverageAtEnd: load(),
     gcExposed: Boolean(gc),
+    compiledBy: COMPILED_BY,
     sizes: results,
     analyzeGrowth10kTo100k,
     pipelineGrowth10kTo100k,
@@ -339,4 +363,3 @@ console.log(
     cli,
   }),
 );
-printStudiesBench();

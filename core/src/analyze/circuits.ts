@@ -151,12 +151,15 @@ export function networkSystems(g: Graph, order: Int32Array, count: number, loads
     }
     if (node.kind === 'load') bits[v]! |= loadBits(node, loads.voltsLL[v]!, loads.phases[v]!, loads.voltsLN[v]!, at[v]!);
     else if (node.kind === 'bus') bits[v]! |= DISTRIBUTION;
-    for (const e of g.outEdges[v]!) {
+    const outs = g.outEdges[v]!;
+    for (let i = 0; i < outs.length; i++) {
+      const e = outs[i]!;
       const w = edgeTo(g, e);
       if (w >= 0) bits[v]! |= bits[w]!;
     }
   }
-  const serves: Serves[] = Array.from(bits, (b) => SERVES_BY_BITS[b]!);
+  const serves: Serves[] = new Array<Serves>(n);
+  for (let v = 0; v < n; v++) serves[v] = SERVES_BY_BITS[bits[v]!]!;
   return { at, serves, service };
 }
 
@@ -285,7 +288,7 @@ function ownCount(makeup: Pick<CircuitMakeup, 'ungroundedPerSet' | 'hasNeutral' 
  * result: a riser repeats a handful of them thousands of times.
  */
 export function conductorCircuits(g: Graph, systems: NetworkSystems): ConductorCircuit[] {
-  const memo = new Map<string, ConductorCircuit>();
+  const memo = new Map<number, ConductorCircuit>();
   const systemIds = new Map<SystemAt, number>();
   const out: ConductorCircuit[] = new Array<ConductorCircuit>(g.conductors.length);
   for (let ci = 0; ci < g.conductors.length; ci++) {
@@ -299,14 +302,26 @@ export function conductorCircuits(g: Graph, systems: NetworkSystems): ConductorC
     // The system object is shared by every node of one source or transformer, so its identity is part of the key.
     let sid = systemIds.get(system);
     if (sid === undefined) systemIds.set(system, (sid = systemIds.size));
-    const key = `${sid}|${SERVES_BY_BITS.indexOf(serves)}|${service ? 1 : 0}|${c.neutral ?? 'auto'}|${nonlinear ? 1 : 0}|${c.currentCarrying}`;
+    const key = circuitKey(sid, SERVES_BY_BITS.indexOf(serves), service, c.neutral, nonlinear, c.currentCarrying);
     let hit = memo.get(key);
     if (!hit) {
       const makeup = circuitMakeup(c, service, system, serves);
       hit = Object.freeze({ system, serves, service, makeup: Object.freeze(makeup), currentCarrying: Object.freeze(countCurrentCarrying(makeup, nonlinear, c.currentCarrying)) });
-      memo.set(key, hit);
+      if (!Number.isNaN(key)) memo.set(key, hit);
     }
     out[ci] = hit;
   }
   return out;
+}
+
+const NEUTRAL_INDEX: Readonly<Record<string, number>> = { auto: 0, yes: 1, no: 2 };
+
+/**
+ * What decides a conductor's circuit, packed into one small integer (mixed radix) so the memo
+ * needs no string per conductor; NaN (no memo) for a value outside the packing.
+ */
+function circuitKey(system: number, servesBits: number, service: boolean, neutral: Conductor['neutral'], nonlinear: boolean, stated: number): number {
+  const n = NEUTRAL_INDEX[neutral ?? 'auto'];
+  if (n === undefined || !Number.isInteger(stated) || stated < 0 || stated > 255) return Number.NaN;
+  return ((((system * 16 + servesBits) * 2 + (service ? 1 : 0)) * 3 + n) * 2 + (nonlinear ? 1 : 0)) * 256 + stated;
 }

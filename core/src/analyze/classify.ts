@@ -47,6 +47,9 @@ interface Walk {
   readonly below: Uint8Array;
   /** Runs judged as one (a tap or secondary continued through a joint), by their shared verdict. */
   readonly joined: Map<RunVerdict, number[]>;
+  /** One read-only Supply per source node and per run, made when first asked for (not one per conductor). */
+  readonly sources: (Supply | undefined)[];
+  readonly onRuns: (Supply | undefined)[];
 }
 
 /** One run about to be judged: the one input of every judge below. */
@@ -88,6 +91,8 @@ export function classifyRunsKeeping(ctx: FactsContext): { verdicts: RunVerdict[]
     secondariesOf: secondariesByTransformer(ctx),
     below: ocpdBelow(g, order, count),
     joined: new Map(),
+    sources: new Array(g.nodes.length),
+    onRuns: new Array(runs.members.length),
   };
   for (let k = 0; k < count; k++) {
     const v = order[k]!;
@@ -96,9 +101,11 @@ export function classifyRunsKeeping(ctx: FactsContext): { verdicts: RunVerdict[]
     else if (ins.length > 1) walk.nodeSupply[v] = { kind: 'several', node: v };
     else {
       const e = ins[0]!;
-      walk.nodeSupply[v] = e >= 0 ? { kind: 'run', run: runs.runOf[e]! } : supplyAt(walk, edgeFrom(g, e));
+      walk.nodeSupply[v] = e >= 0 ? pointOnRun(walk, runs.runOf[e]!) : supplyAt(walk, edgeFrom(g, e));
     }
-    for (const e of g.outEdges[v]!) {
+    const outs = g.outEdges[v]!;
+    for (let i = 0; i < outs.length; i++) {
+      const e = outs[i]!;
       if (e < 0) continue;
       const r = runs.runOf[e]!;
       if (runs.members[r]![0] !== e) continue;
@@ -119,7 +126,7 @@ export function classifyRunsKeeping(ctx: FactsContext): { verdicts: RunVerdict[]
  * supplied from out of `verdicts`, where its own new verdict is written (see incremental.ts).
  */
 export function rejudgeRuns(ctx: FactsContext, kept: KeptWalk, verdicts: RunVerdict[], rs: readonly number[]): void {
-  const walk: Walk = { ctx, nodeSupply: kept.nodeSupply as Supply[], results: verdicts, secondariesOf: kept.secondariesOf, below: kept.below, joined: new Map() };
+  const walk: Walk = { ctx, nodeSupply: kept.nodeSupply as Supply[], results: verdicts, secondariesOf: kept.secondariesOf, below: kept.below, joined: new Map(), sources: [], onRuns: [] };
   for (const r of rs) verdicts[r] = judgeRun(toJudge(walk, r, supplyAt(walk, ctx.graph.conductorFrom[ctx.runs.members[r]![0]!]!)));
 }
 
@@ -128,7 +135,7 @@ export function rejudgeRuns(ctx: FactsContext, kept: KeptWalk, verdicts: RunVerd
  * OCPD (`supply`), whose verdict depends on nothing upstream but the device (see incremental.ts).
  */
 export function judgeFedByOcpd(ctx: FactsContext, r: number, supply: Supply, device: number, facts: RunFacts): RunVerdict {
-  const walk: Walk = { ctx, nodeSupply: [], results: [], secondariesOf: new Map(), below: new Uint8Array(0), joined: new Map() };
+  const walk: Walk = { ctx, nodeSupply: [], results: [], secondariesOf: new Map(), below: new Uint8Array(0), joined: new Map(), sources: [], onRuns: [] };
   return fedByOcpd({ walk, run: r, supply, facts, role: 'branch' }, device);
 }
 
@@ -149,9 +156,14 @@ function secondariesByTransformer(ctx: FactsContext): Map<number, RunFacts[]> {
 function supplyAt(walk: Walk, v: number): Supply {
   const kind = walk.ctx.graph.nodes[v]!.kind;
   if (SOURCE_KINDS.has(kind)) {
-    return { kind: kind === 'breaker' || kind === 'fuse' ? 'ocpd' : (kind as 'utility' | 'generator' | 'transformer'), node: v };
+    return (walk.sources[v] ??= { kind: kind === 'breaker' || kind === 'fuse' ? 'ocpd' : (kind as 'utility' | 'generator' | 'transformer'), node: v });
   }
   return walk.nodeSupply[v]!;
+}
+
+/** A point on run `r`. */
+function pointOnRun(walk: Walk, r: number): Supply {
+  return (walk.onRuns[r] ??= { kind: 'run', run: r });
 }
 
 /** The run's facts with what its load end says about it: the role it plays and the transformer it feeds. */
@@ -365,7 +377,9 @@ function ocpdBelow(g: Graph, order: Int32Array, count: number): Uint8Array {
   const below = new Uint8Array(g.nodes.length);
   for (let k = count - 1; k >= 0; k--) {
     const v = order[k]!;
-    for (const e of g.outEdges[v]!) {
+    const outs = g.outEdges[v]!;
+    for (let i = 0; i < outs.length; i++) {
+      const e = outs[i]!;
       const w = e >= 0 ? g.conductorTo[e]! : g.linkTo[-e - 1]!;
       const n = g.nodes[w]!;
       if (below[w] || isOcpd(n) || n.kind === 'transformer') {

@@ -1,6 +1,6 @@
-import { VERDICT_LABELS, type Citation, type ElementRef, type Finding } from './types';
-import { conductorName, formatNumber, runRule } from '../rules/define';
-import { calculatedLoad } from '../rules/calculated-load';
+import { VERDICT_LABELS, type Citation, type ElementRef, type Finding, type Fix, type RuleTrial } from './types';
+import { conductorName, formatNumber } from '../rules/define';
+import { calculatedLoadTrial } from './trials';
 import type { Graph } from '../topology/graph';
 import type { RunVerdict } from './classify';
 import type { RunFacts } from '../rules/facts';
@@ -27,32 +27,44 @@ export function conductorFindings(ctx: FixedContext, start?: Int32Array): Findin
 /** The findings of conductor `ci`, appended to `out`: its ampacity, then (on a run's first conductor) the run's. */
 export function conductorFindingsOf(ctx: FixedContext, ci: number, out: Finding[]): void {
   const { graph: g, runs, verdicts, ampacities, edition } = ctx;
-  const runFixes = ctx.fixes;
-  const cites = (section: string): Citation => ({ code: 'NEC', edition, section });
-  const pushOne = (f: NewFinding) => out.push(finding(f));
   const c = g.conductors[ci]!;
   const v = verdicts[runs.runOf[ci]!]!;
   const f = v.facts;
-  const fixes = runFixes[runs.runOf[ci]!]!;
   const amp = ampacities[ci]!;
   if (amp.problem) {
     // The code says "shall" for parallel sets (310.10(G)) and for the insulation's temperature (310.14(A)(3)): violations; a missing fact is a warning.
     const field = amp.problem.field;
     const shall = field === 'parallelSets' ? '310.10(G)' : field === 'ambientC' ? '310.14(A)(3)' : null;
-    pushOne({ ruleId: 'ampacity', messageId: `no-ampacity-${field}`, severity: shall ? 'violation' : 'warning', cites: cites(shall ?? '310.16'), subject: { kind: 'conductor', id: c.id }, message: `${describeConductor(c, c.parallelSets)}: ${amp.problem.message}` });
+    out.push(finding({ ruleId: 'ampacity', messageId: `no-ampacity-${field}`, severity: shall ? 'violation' : 'warning', cites: citeIn(edition, shall ?? '310.16'), subject: { kind: 'conductor', id: c.id }, message: `${describeConductor(c, c.parallelSets)}: ${amp.problem.message}` }));
   }
   // The run's own findings once, on its first conductor.
   if (f.conductorIds[0] !== c.id) return;
-  const others: ElementRef[] = f.conductorIds.slice(1).map((id): ElementRef => ({ kind: 'conductor', id }));
-  const push = (x: NewFinding) => pushOne({ ...x, related: [...others, ...(x.related ?? [])] });
+  runFindings(ctx, c, v, ctx.fixes[runs.runOf[ci]!]!, out);
+}
+
+function citeIn(edition: FixedContext['edition'], section: string): Citation {
+  return { code: 'NEC', edition, section };
+}
+
+/** A run's finding: on its first conductor, naming the run's other segments first among the related elements. */
+function pushRunFinding(out: Finding[], f: RunFacts, x: NewFinding): void {
+  const others: ElementRef[] = [];
+  for (let i = 1; i < f.conductorIds.length; i++) others.push({ kind: 'conductor', id: f.conductorIds[i]! });
+  out.push(finding({ ...x, related: [...others, ...(x.related ?? [])] }));
+}
+
+/** The findings of run verdict `v`, on its first conductor `c`. No closure is made per run: this runs once per run of a large drawing. */
+function runFindings(ctx: FixedContext, c: Graph['conductors'][number], v: RunVerdict, fixes: Fix[], out: Finding[]): void {
+  const { graph: g, edition } = ctx;
+  const f = v.facts;
   switch (v.verdict) {
     case 'unprotected': {
       if (f.suppliedFrom) {
-        push({
+        pushRunFinding(out, f, {
           ruleId: 'tap-from-tap',
           messageId: 'fed-from-unprotected',
           severity: 'violation',
-          cites: cites('240.21'),
+          cites: citeIn(edition, '240.21'),
           subject: { kind: 'conductor', id: c.id },
           related: [...f.suppliedFrom.conductorIds.map((id): ElementRef => ({ kind: 'conductor', id })), ...deviceRefs(g, v)],
           fixes,
@@ -62,11 +74,11 @@ export function conductorFindingsOf(ctx: FixedContext, ci: number, out: Finding[
       }
       const n = nearestTrial(v.tried);
       const R = f.supplyOcpdA === null ? '' : `, fed by the ${formatNumber(f.supplyOcpdA)} A device ahead`;
-      push({
+      pushRunFinding(out, f, {
         ruleId: n?.ruleId ?? 'protected',
         messageId: 'no-rule-fits',
         severity: 'violation',
-        cites: n?.cites ?? cites('240.4'),
+        cites: n?.cites ?? citeIn(edition, '240.4'),
         subject: { kind: 'conductor', id: c.id },
         related: deviceRefs(g, v),
         fixes,
@@ -76,11 +88,11 @@ export function conductorFindingsOf(ctx: FixedContext, ci: number, out: Finding[
       break;
     }
     case 'tap-from-tap':
-      push({
+      pushRunFinding(out, f, {
         ruleId: 'tap-from-tap',
         messageId: 'supply',
         severity: 'violation',
-        cites: cites('240.21'),
+        cites: citeIn(edition, '240.21'),
         subject: { kind: 'conductor', id: c.id },
         related: [...(f.suppliedFrom?.conductorIds ?? []).map((id): ElementRef => ({ kind: 'conductor', id })), ...deviceRefs(g, v)],
         fixes,
@@ -91,15 +103,15 @@ export function conductorFindingsOf(ctx: FixedContext, ci: number, out: Finding[
       if (v.supply.kind === 'run' || v.supply.kind === 'ocpd' || v.supply.kind === 'transformer' || v.supply.kind === 'utility' || v.supply.kind === 'generator') {
         // Fed through a known device but without a size: what it supplies at equipment is judged on as if it were protected.
         const note = v.family === 'fed-by-ocpd' && f.size === null && v.deviceNode >= 0 ? ' What it supplies through equipment is judged against the device ahead of it, as if it were protected.' : '';
-        push({ ruleId: 'incomplete', messageId: 'missing-data', severity: 'warning', cites: null, subject: { kind: 'conductor', id: c.id }, related: deviceRefs(g, v), message: `${describeRun(c, f)}: no verdict yet; ${incompleteReason(v)}.${note}` });
+        pushRunFinding(out, f, { ruleId: 'incomplete', messageId: 'missing-data', severity: 'warning', cites: null, subject: { kind: 'conductor', id: c.id }, related: deviceRefs(g, v), message: `${describeRun(c, f)}: no verdict yet; ${incompleteReason(v)}.${note}` });
       }
       break;
     case 'protected-next-size':
-      push({
+      pushRunFinding(out, f, {
         ruleId: 'protected-next-size',
         messageId: 'round-up-used',
         severity: 'info',
-        cites: cites('240.4(B)'),
+        cites: citeIn(edition, '240.4(B)'),
         subject: { kind: 'conductor', id: c.id },
         related: deviceRefs(g, v),
         message: `${describeRun(c, f)}: the ${formatNumber(f.supplyOcpdA ?? 0)} A device is the next standard rating above its ${formatNumber(f.ampacityA ?? 0)} A ampacity (240.4(B)); confirm the circuit is not a multioutlet branch circuit for cord-and-plug loads.`,
@@ -108,10 +120,11 @@ export function conductorFindingsOf(ctx: FixedContext, ci: number, out: Finding[
     default:
       break;
   }
-  for (const t of v.tried) {
+  for (let i = 0; i < v.tried.length; i++) {
+    const t = v.tried[i]!;
     if (t.outcome !== 'holds' || t.ruleId !== v.rule?.id) continue;
-    if (t.conditions.some((cond) => cond.needsAhj)) {
-      push({
+    if (hasNeedsAhj(t)) {
+      pushRunFinding(out, f, {
         ruleId: t.ruleId,
         messageId: 'other-approved-means',
         severity: 'needs-ahj',
@@ -126,28 +139,33 @@ export function conductorFindingsOf(ctx: FixedContext, ci: number, out: Finding[
     const t = v.tried[0];
     // More than six service disconnects is a finding of its own (230.71), apart from the conductors' protection.
     const tooMany = t.conditions.find((x) => x.id === 'disconnects' && x.status === 'fail');
-    if (tooMany) push({ ruleId: t.ruleId, messageId: 'too-many-disconnects', severity: 'violation', cites: cites('230.71'), subject: { kind: 'conductor', id: c.id }, message: `${describeRun(c, f)}: ${tooMany.text} Fails 230.71.` });
+    if (tooMany) pushRunFinding(out, f, { ruleId: t.ruleId, messageId: 'too-many-disconnects', severity: 'violation', cites: citeIn(edition, '230.71'), subject: { kind: 'conductor', id: c.id }, message: `${describeRun(c, f)}: ${tooMany.text} Fails 230.71.` });
     const rest = t.conditions.filter((x) => x.status === 'fail' && x !== tooMany).map((x) => x.text);
-    if (rest.length > 0) push({ ruleId: t.ruleId, messageId: 'fails', severity: 'violation', cites: t.cites, subject: { kind: 'conductor', id: c.id }, message: `${describeRun(c, f)}: ${rest.join(' ')} Fails ${t.cites.section}.` });
+    if (rest.length > 0) pushRunFinding(out, f, { ruleId: t.ruleId, messageId: 'fails', severity: 'violation', cites: t.cites, subject: { kind: 'conductor', id: c.id }, message: `${describeRun(c, f)}: ${rest.join(' ')} Fails ${t.cites.section}.` });
   }
   // 210.19(A)(1), 215.2(A)(1), 230.42(A): both halves; a motor or HVAC circuit is sized by its own article (430.22, 440.35).
   if (c.id === f.conductorIds[0] && sizedByCalculatedLoad(v)) {
-    const t = runRule(calculatedLoad, f);
+    const t = calculatedLoadTrial(f);
     const section = v.role === 'branch' ? '210.19(A)(1)' : v.role === 'service' ? '230.42(A)' : '215.2(A)(1)';
     for (const cond of t.conditions) {
       if (cond.status !== 'fail') continue;
       const part = `${section}(${cond.id === 'continuous' ? 'a' : 'b'})`;
-      push({
+      pushRunFinding(out, f, {
         ruleId: 'calculated-load',
         messageId: cond.id === 'continuous' ? 'below-calculated-load' : 'below-load',
         severity: 'violation',
-        cites: cites(part),
+        cites: citeIn(edition, part),
         subject: { kind: 'conductor', id: c.id },
         data: cond.data,
         message: `${describeRun(c, f)}: ${cond.text.replace(/\.$/, '')} (${part}).`,
       });
     }
   }
+}
+
+function hasNeedsAhj(t: RuleTrial): boolean {
+  for (const cond of t.conditions) if (cond.needsAhj) return true;
+  return false;
 }
 
 /** 210.19(A)(1), 215.2(A)(1), 230.42(A) apply to the run: all but a motor or HVAC branch circuit (sized by 430.22, 440.35). */

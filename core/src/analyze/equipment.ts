@@ -49,7 +49,9 @@ export function terminationOf(g: Graph, v: number): Termination {
       let sum = 0;
       let devices = 0;
       let onlyOcpds = true;
-      for (const e of g.outEdges[v]!) {
+      const outs = g.outEdges[v]!;
+      for (let i = 0; i < outs.length; i++) {
+        const e = outs[i]!;
         const w = e < 0 ? g.linkTo[-e - 1]! : -1;
         if (w < 0 || !isOcpd(g.nodes[w]!)) {
           onlyOcpds = false;

@@ -77,7 +77,9 @@ export function rollUpLoads(g: Graph, order: Int32Array, count: number): SystemL
     } else {
       // Several supplies that agree on the system give it; supplies that disagree leave it unknown.
       let first = true;
-      for (const e of g.inEdges[v]!) {
+      const ins = g.inEdges[v]!;
+      for (let i = 0; i < ins.length; i++) {
+        const e = ins[i]!;
         const u = edgeFrom(g, e);
         const ok = u >= 0 && voltsLL[u]! > 0;
         if (first && ok) {
@@ -110,7 +112,9 @@ export function rollUpLoads(g: Graph, order: Int32Array, count: number): SystemL
       loadCount[v] = 1;
       onlyLoad[v] = v;
     }
-    for (const e of g.outEdges[v]!) {
+    const outs = g.outEdges[v]!;
+    for (let i = 0; i < outs.length; i++) {
+      const e = outs[i]!;
       const w = edgeTo(g, e);
       loadCount[v] = loadCount[v]! + loadCount[w]!;
       if (loadCount[w] === 1 && loadCount[v] === 1) onlyLoad[v] = onlyLoad[w]!;

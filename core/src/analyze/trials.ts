@@ -1,6 +1,6 @@
 import { runRule, type Rule } from '../rules/define';
 import type { RunFacts } from '../rules/facts';
-import { PROTECTION_RULES } from '../rules/index';
+import { calculatedLoad, PROTECTION_RULES } from '../rules/index';
 import { sizeIndexOf } from '../tables/sizes';
 import type { RuleTrial, Verdict } from './types';
 
@@ -54,3 +54,37 @@ export function firstHolding(rules: readonly Rule[], facts: RunFacts, tried: Rul
   return { verdict: unknown ? 'incomplete' : 'unprotected', rule: null };
 }
 
+
+/**
+ * The 210.19(A)(1) / 215.2(A)(1) / 230.42(A) trial of a run (rules/calculated-load.ts), which reads the
+ * edition and four numbers only: equal trials are shared, as the protection trials are (a riser repeats
+ * the same loads on the same sizes). Trials are read-only.
+ */
+type TrialTree = Map<number, TrialTree | RuleTrial>;
+const loadTrials: TrialTree = new Map();
+let sharedLoadTrials = 0;
+
+export function calculatedLoadTrial(f: RunFacts): RuleTrial {
+  const keys = [f.edition, f.ampacityUncorrectedA, f.calculatedLoadA, f.ampacityA, f.loadA];
+  // A null fact is keyed as NaN; a NaN fact (never expected) would share that key but not the text, so it is not shared.
+  for (const k of keys) if (k !== null && Number.isNaN(k)) return runRule(calculatedLoad, f);
+  if (sharedLoadTrials >= MAX_SHARED_TRIALS) {
+    loadTrials.clear();
+    sharedLoadTrials = 0;
+  }
+  let node = loadTrials;
+  for (let i = 0; i < keys.length - 1; i++) {
+    const k = keys[i] ?? Number.NaN;
+    let next = node.get(k) as TrialTree | undefined;
+    if (!next) node.set(k, (next = new Map()));
+    node = next;
+  }
+  const last = keys[keys.length - 1] ?? Number.NaN;
+  let t = node.get(last) as RuleTrial | undefined;
+  if (!t) {
+    t = runRule(calculatedLoad, f);
+    sharedLoadTrials++;
+    node.set(last, t);
+  }
+  return t;
+}

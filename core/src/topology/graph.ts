@@ -24,35 +24,47 @@ export function buildGraph(project: Project): Graph {
   const { nodes, conductors, busLinks: links } = project;
   const nodeIndex = new Map<string, number>();
   for (let i = 0; i < nodes.length; i++) nodeIndex.set(nodes[i]!.id, i);
-  const inEdges: number[][] = new Array(nodes.length);
-  const outEdges: number[][] = new Array(nodes.length);
-  for (let i = 0; i < nodes.length; i++) {
-    inEdges[i] = [];
-    outEdges[i] = [];
-  }
   const conductorFrom = new Int32Array(conductors.length);
   const conductorTo = new Int32Array(conductors.length);
   for (let i = 0; i < conductors.length; i++) {
     const c = conductors[i]!;
-    const f = nodeIndex.get(c.from) ?? -1;
-    const t = nodeIndex.get(c.to) ?? -1;
-    conductorFrom[i] = f;
-    conductorTo[i] = t;
-    if (f >= 0) outEdges[f]!.push(i);
-    if (t >= 0) inEdges[t]!.push(i);
+    conductorFrom[i] = nodeIndex.get(c.from) ?? -1;
+    conductorTo[i] = nodeIndex.get(c.to) ?? -1;
   }
   const linkFrom = new Int32Array(links.length);
   const linkTo = new Int32Array(links.length);
   for (let j = 0; j < links.length; j++) {
     const l = links[j]!;
-    const f = nodeIndex.get(l.from) ?? -1;
-    const t = nodeIndex.get(l.to) ?? -1;
-    linkFrom[j] = f;
-    linkTo[j] = t;
-    if (f >= 0) outEdges[f]!.push(-(j + 1));
-    if (t >= 0) inEdges[t]!.push(-(j + 1));
+    linkFrom[j] = nodeIndex.get(l.from) ?? -1;
+    linkTo[j] = nodeIndex.get(l.to) ?? -1;
   }
+  // Every node has a list each way, but most lists are empty (a load feeds nothing, a source is fed by
+  // nothing): those share one empty list (read-only, like the whole graph), so a large drawing makes
+  // about one list per edge, not two per node.
+  const inEdges = edgeLists(nodes.length, conductorTo, linkTo);
+  const outEdges = edgeLists(nodes.length, conductorFrom, linkFrom);
   return { nodes, conductors, links, nodeIndex, inEdges, outEdges, conductorFrom, conductorTo, linkFrom, linkTo };
+}
+
+/** Not frozen: a frozen array has another shape, and every loop over the lists would then see two. */
+const NO_EDGES: readonly number[] = [];
+
+/** Per node, the edges whose end (`conductorEnd`, `linkEnd`) is that node: conductors first, then bus links, each in file order. */
+function edgeLists(n: number, conductorEnd: Int32Array, linkEnd: Int32Array): number[][] {
+  const lists = new Array<number[]>(n).fill(NO_EDGES as number[]);
+  for (let i = 0; i < conductorEnd.length; i++) {
+    const v = conductorEnd[i]!;
+    if (v < 0) continue;
+    if (lists[v] === NO_EDGES) lists[v] = [i];
+    else lists[v]!.push(i);
+  }
+  for (let j = 0; j < linkEnd.length; j++) {
+    const v = linkEnd[j]!;
+    if (v < 0) continue;
+    if (lists[v] === NO_EDGES) lists[v] = [-(j + 1)];
+    else lists[v]!.push(-(j + 1));
+  }
+  return lists;
 }
 
 export function edgeFrom(g: Graph, e: number): number {
@@ -77,7 +89,9 @@ export function topologicalOrder(g: Graph): { order: Int32Array; count: number; 
   for (let i = 0; i < n; i++) if (indegree[i] === 0) order[tail++] = i;
   while (head < tail) {
     const v = order[head++]!;
-    for (const e of g.outEdges[v]!) {
+    const outs = g.outEdges[v]!;
+    for (let i = 0; i < outs.length; i++) {
+      const e = outs[i]!;
       const w = edgeTo(g, e);
       if (--indegree[w]! === 0) order[tail++] = w;
     }
