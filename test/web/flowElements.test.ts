@@ -1,11 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { analyze } from '@linewright/core';
 import { FlowDeriver, conductorEdgeId } from '../../web/src/canvas/flowElements';
+import { conductorLook, nodeLook } from '../../web/src/canvas/looks';
 import { replaceElement } from '../../web/src/editor/commands';
 import { drawTap, harness } from './harness';
 
-// The canvas re-renders only elements whose object changed (memoized components, React Flow lookups by
-// identity), so the deriver must keep every untouched node and edge object across edits and reports.
+// React Flow rebuilds its lookups over every edge when the edges array changes and re-renders an element
+// whose object changed, so the deriver keeps every node and edge object across reports and across edits
+// that move nothing; what a check decides is read by id through the looks instead.
 describe('React Flow elements derived from the document', () => {
   function setup() {
     const h = harness();
@@ -14,6 +16,10 @@ describe('React Flow elements derived from the document', () => {
     const d = new FlowDeriver();
     return { h, ids, d };
   }
+  const setLength = (h: ReturnType<typeof harness>, id: string, lengthFt: number) => {
+    const c = h.doc().conductors.find((x) => x.id === id)!;
+    replaceElement.run(h.ctx, { target: { kind: 'conductor', id }, value: { ...c, lengthFt }, label: 'Set length' });
+  };
 
   it('nothing changed: the same arrays', () => {
     const { h, d } = setup();
@@ -26,31 +32,66 @@ describe('React Flow elements derived from the document', () => {
     expect(e1).toHaveLength(3);
   });
 
-  it('one conductor edited: only its edge is a new object, the nodes array is kept', () => {
+  it('a length edit that moves no line keeps every node and edge object, and the arrays', () => {
     const { h, ids, d } = setup();
     const n1 = d.nodes(h.store.getState());
     const e1 = d.edges(h.store.getState());
-    const c = h.doc().conductors.find((x) => x.id === ids.tapId)!;
-    replaceElement.run(h.ctx, { target: { kind: 'conductor', id: c.id }, value: { ...c, lengthFt: 20 }, label: 'Set length' });
-    const e2 = d.edges(h.store.getState());
+    setLength(h, ids.tapId, 20);
     expect(d.nodes(h.store.getState())).toBe(n1);
-    for (let i = 0; i < e1.length; i++) {
-      if (e1[i]!.id === conductorEdgeId(ids.tapId)) expect(e2[i]).not.toBe(e1[i]);
-      else expect(e2[i]).toBe(e1[i]);
-    }
-    expect(e2.find((e) => e.id === conductorEdgeId(ids.tapId))!.data).toMatchObject({ line: '1× 3/0 Cu · 20 ft' });
+    expect(d.edges(h.store.getState())).toBe(e1);
+    expect(conductorLook(h.store.getState(), ids.tapId)).toMatchObject({ line: '1× 3/0 Cu · 20 ft' });
   });
 
-  it('a new report that moves one verdict changes that edge only', () => {
+  it('a new report changes no node or edge object; the edited conductor’s look carries the new verdict', () => {
     const { h, ids, d } = setup();
-    const c = h.doc().conductors.find((x) => x.id === ids.tapId)!;
-    replaceElement.run(h.ctx, { target: { kind: 'conductor', id: c.id }, value: { ...c, lengthFt: 20 }, label: 'Set length' });
-    const before = d.edges(h.store.getState());
+    setLength(h, ids.tapId, 20);
+    const nodes = d.nodes(h.store.getState());
+    const edges = d.edges(h.store.getState());
+    const looks = h.doc().conductors.map((c) => conductorLook(h.store.getState(), c.id));
     h.store.setReport(analyze(h.doc()), h.store.getState().docVersion);
-    const after = d.edges(h.store.getState());
-    const tap = conductorEdgeId(ids.tapId);
+    const s = h.store.getState();
+    expect(d.nodes(s)).toBe(nodes);
+    expect(d.edges(s)).toBe(edges);
     // 20 ft of 3/0 Cu from 600 A into a 200 A breaker: NFPA 70-2023 240.21(B)(2), 200 A ≥ 600/3 A.
-    expect(after.find((e) => e.id === tap)!.data).toMatchObject({ verdict: 'tap-25ft', verdictText: '25-ft tap rule' });
-    for (let i = 0; i < after.length; i++) if (after[i]!.id !== tap) expect(after[i]).toBe(before[i]);
+    expect(conductorLook(s, ids.tapId)).toMatchObject({ verdict: 'tap-25ft', verdictText: '25-ft tap rule', spoken: 'Conductor 1× 3/0 Cu · 20 ft, 25-ft tap rule' });
+    // A look is kept while what it shows is the same, so the components of the other conductors do not re-render.
+    h.doc().conductors.forEach((c, i) => {
+      const look = conductorLook(s, c.id);
+      if (c.id === ids.tapId || look?.verdict !== looks[i]?.verdict) return;
+      expect(look).toBe(looks[i]);
+    });
+  });
+
+  it('a look says "checking…" before the first check and "not checked" for a conductor a report leaves out', () => {
+    const h = harness();
+    const ids = drawTap(h, { lengthFt: 8 });
+    expect(conductorLook(h.store.getState(), ids.tapId)).toMatchObject({ verdict: null, verdictText: 'checking…', family: 'pending' });
+    const r = analyze(h.doc());
+    h.store.setReport({ ...r, conductors: r.conductors.filter((c) => c.id !== ids.tapId) }, h.store.getState().docVersion);
+    expect(conductorLook(h.store.getState(), ids.tapId)).toMatchObject({ verdict: null, verdictText: 'not checked', family: 'pending' });
+    expect(conductorLook(h.store.getState(), 'no such conductor')).toBeNull();
+  });
+
+  it('a node’s finding flag comes from the report by id', () => {
+    const { h, ids } = setup();
+    const s = h.store.getState();
+    const flagged = s.report!.findings.find((f) => f.subject.kind === 'node');
+    const id = flagged?.subject.kind === 'node' ? flagged.subject.id : ids.m;
+    const look = nodeLook(s, id)!;
+    const count = s.report!.findings.filter((f) => [f.subject, ...f.related].some((r) => r.kind !== 'project' && r.id === id)).length;
+    expect(look.findingCount).toBe(count);
+    expect(look.worst === null).toBe(!flagged);
+    expect(nodeLook(s, id)).toBe(look);
+  });
+
+  it('a selection change makes a new object of the selected edge only', () => {
+    const { h, ids, d } = setup();
+    const e1 = d.edges(h.store.getState());
+    h.store.setSelection({ nodes: [], conductors: [ids.tapId], busLinks: [] });
+    const e2 = d.edges(h.store.getState());
+    for (let i = 0; i < e1.length; i++) {
+      if (e1[i]!.id === conductorEdgeId(ids.tapId)) expect(e2[i]).toMatchObject({ selected: true });
+      else expect(e2[i]).toBe(e1[i]);
+    }
   });
 });

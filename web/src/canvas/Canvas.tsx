@@ -1,4 +1,4 @@
-import { useCallback, useEffect, useMemo, useRef } from 'react';
+import { memo, useCallback, useEffect, useMemo, useRef } from 'react';
 import {
   Background, BackgroundVariant, ConnectionLineType, Controls, MiniMap, Panel, ReactFlow, useReactFlow, useStore, useStoreApi,
   type Connection, type EdgeChange, type IsValidConnection, type NodeChange,
@@ -29,8 +29,12 @@ const isFar = (s: { transform: [number, number, number] }) => s.transform[2] < F
 /** Above this many elements only what is on screen is rendered. */
 const CULL_FROM = 300;
 const GRID = 20;
+// Module constants: React Flow copies a prop into its store (and every subscriber re-reads) when its identity changes.
+const SNAP_GRID: [number, number] = [GRID, GRID];
+const FIT_VIEW_OPTIONS = { padding: 0.12, maxZoom: 1.2 };
 
-export function Canvas() {
+/** The drawing. Memoized: it has no props, so an autosave notice re-rendering the app passes it by. */
+export const Canvas = memo(function Canvas() {
   const ctx = useCommandContext();
   const { store } = ctx;
   const deriver = useMemo(() => new FlowDeriver(), []);
@@ -88,7 +92,7 @@ export function Canvas() {
         // Wait a frame so React Flow holds the newly committed nodes.
         requestAnimationFrame(() => {
           if (rf.getNodes().length === 0) void rf.setViewport({ x: 0, y: 0, zoom: 1 });
-          else void rf.fitView({ padding: 0.12, maxZoom: 1.2, duration: 0 });
+          else void rf.fitView({ ...FIT_VIEW_OPTIONS, duration: 0 });
         });
       },
     };
@@ -202,7 +206,7 @@ export function Canvas() {
         isValidConnection={isValidConnection}
         connectionLineType={ConnectionLineType.SmoothStep}
         snapToGrid={snap}
-        snapGrid={[GRID, GRID]}
+        snapGrid={SNAP_GRID}
         deleteKeyCode={null}
         multiSelectionKeyCode={['Control', 'Meta']}
         selectionKeyCode="Shift"
@@ -210,7 +214,7 @@ export function Canvas() {
         minZoom={0.03}
         maxZoom={3}
         fitView
-        fitViewOptions={{ padding: 0.12, maxZoom: 1.2 }}
+        fitViewOptions={FIT_VIEW_OPTIONS}
         elevateEdgesOnSelect
         nodesDraggable={!readOnly}
         nodesConnectable={!readOnly}
@@ -230,7 +234,7 @@ export function Canvas() {
       </ReactFlow>
     </div>
   );
-}
+});
 
 function moveNodesChanged(nodes: readonly { id: string; position?: { x: number; y: number } }[], moved: Map<string, { x: number; y: number }>): boolean {
   for (const n of nodes) {

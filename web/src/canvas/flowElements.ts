@@ -1,11 +1,10 @@
 import type { Edge, Node } from '@xyflow/react';
-import type { AnalysisReport, BusLink, Conductor, EquipmentNode, Project } from '@linewright/core';
-import { indexReport, type ReportIndex } from '../analysis/reportIndex';
-import { FAMILY_LOOK, VERDICT_TEXT, conductorFamily, verdictFamily } from '../analysis/verdicts';
-import { conductorLine, kindSpec, nodeFacts } from '../editor/equipment';
+import type { BusLink, Conductor, EquipmentNode, Project } from '@linewright/core';
+import { conductorLine, kindSpec } from '../editor/equipment';
 import type { EditorState, Selection } from '../editor/store';
 import type { BusLinkEdgeData, ConductorEdgeData, EquipmentNodeData } from './flowTypes';
-import { drawingGeometry, type Bar, type BusLinkGeometry, type ConductorGeometry, type Pt } from './geometry';
+import { drawingGeometry, labelWidth, type Bar, type BusLinkGeometry, type ConductorGeometry, type Pt } from './geometry';
+import { spokenNameId } from './looks';
 
 export type FlowNode = Node<EquipmentNodeData>;
 export type FlowEdge = Edge<ConductorEdgeData> | Edge<BusLinkEdgeData>;
@@ -18,8 +17,6 @@ interface NodeEntry {
   selected: boolean;
   x: number;
   y: number;
-  worst: EquipmentNodeData['worst'];
-  count: number;
   out: FlowNode;
 }
 interface EdgeEntry {
@@ -30,12 +27,14 @@ interface EdgeEntry {
 }
 
 /**
- * Derives React Flow nodes and edges from the document, the selection, an
- * in-flight drag and the report, so they are never stored twice. Each element
- * keeps its previous object while nothing it shows changed: immer's structural
- * sharing makes that an identity check, and React Flow then re-renders only
- * the elements that did change (after an edit, usually one node and the few
- * conductors whose verdict moved).
+ * Derives React Flow nodes and edges from the document, the selection and an
+ * in-flight drag, so they are never stored twice. The report is not an input:
+ * verdicts, colours and finding flags are read by id inside the components
+ * (canvas/looks.ts), so a check never changes a node or edge object. Each
+ * element keeps its previous object while its ends, place, geometry and
+ * selection stay: after a length edit every object is kept and React Flow
+ * neither rebuilds its lookups nor re-renders a wrapper; only the edited
+ * conductor's own component, subscribed to its look, draws again.
  */
 export class FlowDeriver {
   private nodeCache = new Map<string, NodeEntry>();
@@ -49,9 +48,8 @@ export class FlowDeriver {
   private posById = new Map<string, Pt>();
 
   nodes(s: EditorState): FlowNode[] {
-    const key = [s.doc.nodes, s.view.selection, s.view.dragPositions, s.report];
+    const key = [s.doc.nodes, s.view.selection, s.view.dragPositions];
     if (sameKey(key, this.lastNodesKey)) return this.lastNodes;
-    const idx = indexReport(s.report);
     const sel = new Set(s.view.selection.nodes);
     const drag = s.view.dragPositions;
     const next = new Map<string, NodeEntry>();
@@ -60,20 +58,17 @@ export class FlowDeriver {
     for (const n of s.doc.nodes) {
       const p = drag?.get(n.id) ?? n.position ?? { x: 0, y: 0 };
       const selected = sel.has(n.id);
-      const worst = idx.worstByElement.get(n.id) ?? null;
-      const count = idx.findingsByElement.get(n.id)?.length ?? 0;
       const prev = this.nodeCache.get(n.id);
       let e: NodeEntry;
-      if (prev && prev.src === n && prev.selected === selected && prev.x === p.x && prev.y === p.y && prev.worst === worst && prev.count === count) e = prev;
+      if (prev && prev.src === n && prev.selected === selected && prev.x === p.x && prev.y === p.y) e = prev;
       else {
         const spec = kindSpec(n.kind);
-        const data: EquipmentNodeData =
-          prev && prev.src === n && prev.worst === worst && prev.count === count ? prev.out.data : { node: n, worst, findingCount: count };
+        const data: EquipmentNodeData = prev && prev.src === n ? prev.out.data : { node: n };
         e = {
-          src: n, selected, x: p.x, y: p.y, worst, count,
+          src: n, selected, x: p.x, y: p.y,
           out: {
             id: n.id, type: n.kind, position: { x: p.x, y: p.y }, data, selected, width: spec.width, height: spec.height,
-            ariaLabel: `${spec.title} ${n.label || n.id}, ${nodeFacts(n)}${count ? `, ${count} finding${count === 1 ? '' : 's'}` : ''}`,
+            domAttributes: { 'aria-labelledby': spokenNameId('node', n.id) },
           },
         };
       }
@@ -88,9 +83,12 @@ export class FlowDeriver {
   }
 
   edges(s: EditorState): FlowEdge[] {
-    const key = [s.doc.conductors, s.doc.busLinks, s.doc.nodes, s.view.selection, s.view.dragPositions, s.report];
+    const key = [s.doc.conductors, s.doc.busLinks, s.doc.nodes, s.view.selection, s.view.dragPositions];
     if (sameKey(key, this.lastEdgesKey)) return this.lastEdges;
-    const idx = indexReport(s.report);
+    if (this.onlyFactsChanged(key)) {
+      this.lastEdgesKey = key;
+      return this.lastEdges;
+    }
     const kinds = this.kinds(s.doc.nodes);
     const drag = s.view.dragPositions;
     const pos = this.positions(s.doc.nodes);
@@ -101,7 +99,7 @@ export class FlowDeriver {
     const out: FlowEdge[] = [];
     for (const c of s.doc.conductors) {
       const g = geo.conductors.get(c.id);
-      const e = g ? this.conductorEdge(c, g, selC.has(c.id), idx, kinds, s.report) : null;
+      const e = g ? this.conductorEdge(c, g, selC.has(c.id), kinds) : null;
       if (e) {
         next.set(e.out.id, e);
         out.push(e.out);
@@ -121,6 +119,26 @@ export class FlowDeriver {
     return this.lastEdges;
   }
 
+  /**
+   * True when only conductors changed since the last derivation, in place, each keeping its ends and
+   * the width of its label (the geometry's only input from a conductor): the usual edit of a length,
+   * size or material, answered in one pass of identity checks instead of the whole geometry.
+   */
+  private onlyFactsChanged(key: unknown[]): boolean {
+    const last = this.lastEdgesKey;
+    if (last.length === 0 || key[0] === last[0] || !key.slice(1).every((x, i) => x === last[i + 1])) return false;
+    const now = key[0] as Project['conductors'];
+    const before = last[0] as Project['conductors'];
+    if (now.length !== before.length) return false;
+    for (let i = 0; i < now.length; i++) {
+      const a = before[i]!;
+      const b = now[i]!;
+      if (a === b) continue;
+      if (a.id !== b.id || a.from !== b.from || a.to !== b.to || labelWidth(conductorLine(a)) !== labelWidth(conductorLine(b))) return false;
+    }
+    return true;
+  }
+
   private kinds(nodes: Project['nodes']): Map<string, EquipmentNode['kind']> {
     if (this.kindFor !== nodes) {
       this.kindById = new Map(nodes.map((n) => [n.id, n.kind]));
@@ -135,34 +153,21 @@ export class FlowDeriver {
     return this.posById;
   }
 
-  private conductorEdge(c: Conductor, g: ConductorGeometry, selected: boolean, idx: ReportIndex, kinds: Map<string, EquipmentNode['kind']>, report: AnalysisReport | null): EdgeEntry | null {
-    const checked = report !== null;
+  private conductorEdge(c: Conductor, g: ConductorGeometry, selected: boolean, kinds: Map<string, EquipmentNode['kind']>): EdgeEntry | null {
     const fk = kinds.get(c.from);
     const tk = kinds.get(c.to);
     if (!fk || !tk) return null;
     const id = conductorEdgeId(c.id);
-    const r = idx.conductor.get(c.id);
-    const verdict = r?.verdict ?? null;
-    // One core answer for the alarm: a violation on the conductor shows whatever its verdict.
-    const family = report && r ? conductorFamily(report, r) : checked ? verdictFamily(verdict) : 'pending';
-    const verdictText = verdict ? VERDICT_TEXT[verdict] : checked ? 'not checked' : 'checking…';
-    // The drawing shows the facts (sets × size, material, length); the conductor's own name is in the
-    // details panel and the tooltip, so labels stay narrow enough to sit between columns of equipment.
-    const line = conductorLine(c);
-    const key = `${verdict}|${family}|${line}|${fk}|${tk}|${c.label ?? ''}|${geometryKey(g.points, g.bar)}|${g.label.x},${g.label.y}`;
+    const key = `${c.from}|${c.to}|${fk}|${tk}|${geometryKey(g.points, g.bar)}|${g.label.x},${g.label.y},${g.label.w}`;
     const prev = this.edgeCache.get(id);
-    if (prev && prev.src === c && prev.selected === selected && prev.key === key) return prev;
-    const data: ConductorEdgeData =
-      prev && prev.key === key && prev.out.type === 'conductor'
-        ? (prev.out.data as ConductorEdgeData)
-        : { conductorId: c.id, name: c.label ?? null, line, verdict, verdictText, family, geometry: g };
+    if (prev && prev.selected === selected && prev.key === key) return prev.src === c ? prev : { ...prev, src: c };
+    const data: ConductorEdgeData = prev && prev.key === key && prev.out.type === 'conductor' ? (prev.out.data as ConductorEdgeData) : { conductorId: c.id, geometry: g };
     return {
       src: c, selected, key,
       out: {
         id, type: 'conductor', source: c.from, target: c.to,
         sourceHandle: kindSpec(fk).ports.out, targetHandle: kindSpec(tk).ports.in,
-        selected, data: data.name === (c.label ?? null) ? data : { ...data, name: c.label ?? null }, ariaLabel: `Conductor ${c.label ? `${c.label}: ` : ''}${line}, ${verdictText}`,
-        style: { color: FAMILY_LOOK[family].colour },
+        selected, data, domAttributes: { 'aria-labelledby': spokenNameId('conductor', c.id) },
       },
     };
   }

@@ -1,25 +1,14 @@
-import type { EquipmentNode, Severity, Verdict } from '@linewright/core';
-import type { VerdictFamily } from '../analysis/verdicts';
+import type { EquipmentNode } from '@linewright/core';
 import type { BusLinkGeometry, ConductorGeometry } from './geometry';
 
-/** What an equipment node component receives. */
+/** What an equipment node component receives; what the check says about it is read by id (canvas/looks.ts). */
 export interface EquipmentNodeData extends Record<string, unknown> {
   node: EquipmentNode;
-  /** Most serious finding about this equipment, or null. */
-  worst: Severity | null;
-  findingCount: number;
 }
 
-/** What a conductor edge component receives. */
+/** What a conductor edge component receives; its facts line and verdict are read by id (canvas/looks.ts). */
 export interface ConductorEdgeData extends Record<string, unknown> {
   conductorId: string;
-  /** The user's name for the conductor, shown as a tooltip. */
-  name: string | null;
-  /** First label line: sets × size, material, length. */
-  line: string;
-  verdict: Verdict | null;
-  verdictText: string;
-  family: VerdictFamily;
   /** Wire and label position, from canvas/geometry.ts. */
   geometry: ConductorGeometry;
 }

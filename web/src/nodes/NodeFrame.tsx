@@ -3,6 +3,7 @@ import type { EquipmentNodeData } from '../canvas/flowTypes';
 import type { ReactNode } from 'react';
 import { SEVERITY_LOOK, SEVERITY_TEXT } from '../analysis/verdicts';
 import { kindSpec, nodeFacts, nodeTitle } from '../editor/equipment';
+import { spokenNameId, useNodeLook } from '../canvas/looks';
 
 export type { EquipmentNodeData } from '../canvas/flowTypes';
 
@@ -12,7 +13,10 @@ export type { EquipmentNodeData } from '../canvas/flowTypes';
  * bottom; name and key facts sit to the right as plain text.
  */
 export function NodeFrame(props: { data: EquipmentNodeData; selected: boolean; symbol: ReactNode; variant?: 'bus' }) {
-  const { node, worst, findingCount } = props.data;
+  const { node } = props.data;
+  const look = useNodeLook(node.id);
+  const worst = look?.worst ?? null;
+  const findingCount = look?.findingCount ?? 0;
   const spec = kindSpec(node.kind);
   const bus = props.variant === 'bus';
   const sw = bus ? spec.width : 40;
@@ -26,6 +30,7 @@ export function NodeFrame(props: { data: EquipmentNodeData; selected: boolean; s
       data-kind={node.kind}
       title={`${spec.title}: ${nodeTitle(node)}`}
     >
+      <span id={spokenNameId('node', node.id)} hidden>{look?.spoken}</span>
       {spec.ports.in && (
         <Handle type="target" id={spec.ports.in} position={Position.Top} style={{ left: spec.wireX }} className="lw-port lw-port-in" data-testid={`port-${node.id}-${spec.ports.in}`} title={`${spec.ports.in} side`} />
       )}

@@ -1,4 +1,4 @@
-import { useMemo, useRef, useState, type KeyboardEvent } from 'react';
+import { memo, useCallback, useMemo, useRef, useState, type KeyboardEvent } from 'react';
 import { SEVERITIES, type Finding, type Severity } from '@linewright/core';
 import { SEVERITY_LOOK, SEVERITY_TEXT } from '../analysis/verdicts';
 import { useCommandContext, useEditorState } from '../editor/useEditor';
@@ -40,7 +40,7 @@ export function selectionForFinding(f: Finding, doc: { conductors: readonly { id
 }
 
 /** The review list: every finding, filtered by severity and rule; click or Enter selects and frames. */
-export function FindingsPanel() {
+export const FindingsPanel = memo(function FindingsPanel() {
   const ctx = useCommandContext();
   const report = useEditorState((s) => s.report);
   const error = useEditorState((s) => s.analysisError);
@@ -62,11 +62,21 @@ export function FindingsPanel() {
   );
   const activeIdx = Math.min(active, Math.max(0, shown.length - 1));
 
-  const open = (f: Finding) => {
-    const { selection, frame } = selectionForFinding(f, ctx.store.getState().doc);
-    ctx.store.setSelection(selection);
-    if (frame.length) ctx.store.requestFrame(frame);
-  };
+  const open = useCallback(
+    (f: Finding) => {
+      const { selection, frame } = selectionForFinding(f, ctx.store.getState().doc);
+      ctx.store.setSelection(selection);
+      if (frame.length) ctx.store.requestFrame(frame);
+    },
+    [ctx],
+  );
+  const pick = useCallback(
+    (f: Finding, i: number) => {
+      setActive(i);
+      open(f);
+    },
+    [open],
+  );
 
   const onKey = (e: KeyboardEvent<HTMLUListElement>) => {
     let next: number;
@@ -124,25 +134,7 @@ export function FindingsPanel() {
           data-testid="review-list"
         >
           {shown.slice(0, Math.max(limit, activeIdx + 1)).map((f, i) => (
-            <li
-              key={f.id}
-              id={`finding-${i}`}
-              role="option"
-              aria-selected={i === activeIdx}
-              data-index={i}
-              data-testid="finding"
-              data-rule={f.ruleId}
-              data-severity={f.severity}
-              className={`lw-review-item${i === activeIdx ? ' is-active' : ''}`}
-              onClick={() => {
-                setActive(i);
-                open(f);
-              }}
-            >
-              <SeverityMark severity={f.severity} />
-              <span className="lw-review-msg"><IsolatedText text={f.message} /></span>
-              <span className="lw-cite">{f.cites ? citeText(f.cites) : ruleName(f.ruleId)}</span>
-            </li>
+            <FindingRow key={f.id} finding={f} index={i} active={i === activeIdx} onPick={pick} />
           ))}
         </ul>
       )}
@@ -153,4 +145,28 @@ export function FindingsPanel() {
       )}
     </Collapsible>
   );
-}
+});
+
+/**
+ * One finding of the list. Memoized: after an edit the incremental check hands back the same finding
+ * objects for everything the edit could not change, so only the findings that moved re-render.
+ */
+const FindingRow = memo(function FindingRow({ finding: f, index: i, active, onPick }: { finding: Finding; index: number; active: boolean; onPick: (f: Finding, i: number) => void }) {
+  return (
+    <li
+      id={`finding-${i}`}
+      role="option"
+      aria-selected={active}
+      data-index={i}
+      data-testid="finding"
+      data-rule={f.ruleId}
+      data-severity={f.severity}
+      className={`lw-review-item${active ? ' is-active' : ''}`}
+      onClick={() => onPick(f, i)}
+    >
+      <SeverityMark severity={f.severity} />
+      <span className="lw-review-msg"><IsolatedText text={f.message} /></span>
+      <span className="lw-cite">{f.cites ? citeText(f.cites) : ruleName(f.ruleId)}</span>
+    </li>
+  );
+});

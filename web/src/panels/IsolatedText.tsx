@@ -1,11 +1,10 @@
-import { Fragment, useMemo } from 'react';
+import { Fragment } from 'react';
 import { useEditorState } from '../editor/useEditor';
-import { BIDI_CONTROL, bidiHazards, isolateSegments } from './bidi';
+import { BIDI_CONTROL, isolateSegments, sharedHazards } from './bidi';
 
 /** A message that quotes user text (labels, ids): hazardous parts shown in <bdi>, the rest as plain text. */
 export function IsolatedText({ text }: { text: string }) {
-  const doc = useEditorState((s) => s.doc);
-  const hazards = useMemo(() => bidiHazards(doc), [doc]);
+  const hazards = useEditorState((s) => sharedHazards(s.doc));
   if (hazards.length === 0 && !BIDI_CONTROL.test(text)) return <>{text}</>;
   return (
     <>

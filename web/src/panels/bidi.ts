@@ -9,21 +9,45 @@ import type { Project } from '@linewright/core';
 const BIDI_HAZARD = /[\u0590-\u08FF\uFB1D-\uFDFF\uFE70-\uFEFF\u061C\u200E\u200F\u202A-\u202E\u2066-\u2069]|\uD802[\uDC00-\uDFFF]|\uD803[\uDC00-\uDE7F]|\uD83A[\uDC00-\uDFFF]|\uD83B[\uDC00-\uDEFF]/;
 export const BIDI_CONTROL = /[\u202A-\u202E\u2066-\u2069]/;
 
+/** Hazardous ids and labels of one element list, kept per list: an edit of one list leaves the others' answers. */
+const listHazards = new WeakMap<readonly unknown[], readonly string[]>();
+
+function hazardsIn(list: readonly { id: string; label?: string }[]): readonly string[] {
+  let found = listHazards.get(list);
+  if (found) return found;
+  const out: string[] = [];
+  for (const e of list) {
+    if (BIDI_HAZARD.test(e.id)) out.push(e.id);
+    if (e.label && BIDI_HAZARD.test(e.label)) out.push(e.label);
+  }
+  listHazards.set(list, (found = out));
+  return found;
+}
+
 /** Labels and ids of the drawing that could reorder a message they appear in; usually none. */
 export function bidiHazards(doc: Project): string[] {
   const found = new Set<string>();
-  const consider = (s: string | undefined) => {
-    if (s && BIDI_HAZARD.test(s)) found.add(s);
-  };
-  consider(doc.project.name);
-  for (const list of [doc.nodes, doc.conductors, doc.busLinks] as const) {
-    for (const e of list) {
-      consider(e.id);
-      consider((e as { label?: string }).label);
-    }
-  }
+  if (doc.project.name && BIDI_HAZARD.test(doc.project.name)) found.add(doc.project.name);
+  for (const list of [doc.nodes, doc.conductors, doc.busLinks] as const) for (const s of hazardsIn(list)) found.add(s);
   // Longest first, so a label containing another is isolated whole.
   return [...found].sort((a, b) => b.length - a.length);
+}
+
+const byDoc = new WeakMap<Project, readonly string[]>();
+let lastHazards: readonly string[] = [];
+
+/**
+ * bidiHazards, worked out once per document for every message on screen, and the same array while
+ * the answer stays the same, so a message re-renders only when its isolation can change.
+ */
+export function sharedHazards(doc: Project): readonly string[] {
+  let h = byDoc.get(doc);
+  if (h) return h;
+  const next = bidiHazards(doc);
+  h = next.length === lastHazards.length && next.every((x, i) => x === lastHazards[i]) ? lastHazards : next;
+  lastHazards = h;
+  byDoc.set(doc, h);
+  return h;
 }
 
 export interface Segment {

@@ -78,15 +78,18 @@ async function readIdbDraft(docId: string | null): Promise<Draft | null> {
 async function writeIdbDraft(d: Draft): Promise<void> {
   await tx('readwrite', (s) => {
     s.put(d, d.docId);
-    // Keep the newest MAX_DRAFTS: every tab writes its own, so old tabs' copies would pile up.
-    const all = s.getAll();
+    // Keep the newest MAX_DRAFTS: every tab writes its own, so old tabs' copies would pile up. Only the
+    // keys are read on every save; the drafts themselves (each a whole drawing) only when some must go.
     const keys = s.getAllKeys();
-    // Requests of one transaction answer in order, so both results are in when the second answers.
     keys.onsuccess = () => {
-      const drafts = (all.result as unknown[]).map((v, i) => ({ key: keys.result[i], d: asDraft(v) }));
-      if (drafts.length <= MAX_DRAFTS) return;
-      drafts.sort((a, b) => (b.d?.savedAtMs ?? 0) - (a.d?.savedAtMs ?? 0));
-      for (const { key } of drafts.slice(MAX_DRAFTS)) if (key !== undefined && key !== d.docId) s.delete(key);
+      if (keys.result.length <= MAX_DRAFTS) return;
+      const all = s.getAll();
+      // Requests of one transaction answer in order, over the same keys in the same order.
+      all.onsuccess = () => {
+        const drafts = (all.result as unknown[]).map((v, i) => ({ key: keys.result[i], d: asDraft(v) }));
+        drafts.sort((a, b) => (b.d?.savedAtMs ?? 0) - (a.d?.savedAtMs ?? 0));
+        for (const { key } of drafts.slice(MAX_DRAFTS)) if (key !== undefined && key !== d.docId) s.delete(key);
+      };
     };
   });
 }
@@ -154,19 +157,31 @@ export async function readDraftOf(docId: string): Promise<Draft | null> {
   return newer(wal, idb);
 }
 
+/** Longest a burst of edits may hold the save back: then it is written at the next idle moment anyway. */
+const MAX_SAVE_WAIT_MS = 2000;
+
+/** Runs `fn` when the page is idle (requestIdleCallback where there is one), within `timeoutMs`. */
+function whenIdle(fn: () => void, timeoutMs: number): void {
+  if (typeof requestIdleCallback === 'function') requestIdleCallback(fn, { timeout: timeoutMs });
+  else setTimeout(fn, 0);
+}
+
 /**
- * Saves the document after every committed edit, with its undo history (bounded). Two copies:
- * a write-ahead copy in localStorage, written synchronously right after the edit and again on
- * pagehide / hidden, which survives a reload or a closed tab that an asynchronous write would not;
- * and IndexedDB, the store, written a moment later (serialized, a burst coalesced). The write-ahead
- * copy is dropped once IndexedDB holds that version. Watches the other tabs through the `storage` event.
+ * Saves the document after committed edits, with its undo history (bounded), once the editing pauses:
+ * nothing of it runs on the input path. Two copies: a write-ahead copy in localStorage, written
+ * synchronously, and IndexedDB, the store, written after it (serialized, a burst coalesced). Both are
+ * written `delayMs` after the last edit, in an idle moment (a long burst of edits waits at most
+ * MAX_SAVE_WAIT_MS), and the write-ahead copy again on pagehide / hidden, which survives a reload or a
+ * closed tab that an asynchronous write would not. The write-ahead copy is dropped once IndexedDB
+ * holds that version. Watches the other tabs through the `storage` event.
  */
 export function startAutosave(store: EditorStore, identity: TabIdentity, events: AutosaveEvents, delayMs = 150): () => void {
   const ls = local();
   let pending: Draft | null = null;
   let writing = false;
   let timer: ReturnType<typeof setTimeout> | null = null;
-  let walTimer: ReturnType<typeof setTimeout> | null = null;
+  // Set from the first unsaved edit until the save that covers it starts.
+  let dirtySince: number | null = null;
   let walDirty = false;
   // A drawing whose copy did not fit last time is not stringified on every edit again, only on leaving.
   let walTooBig = false;
@@ -179,9 +194,15 @@ export function startAutosave(store: EditorStore, identity: TabIdentity, events:
     return { docId: identity.docId, lineage: identity.lineage, tabId: identity.tabId, savedAtMs: lastStamp, project: s.doc, history: boundHistory(store.historySnapshot()) };
   };
 
+  /** The unsaved edits become the draft to write (taken now, not at every edit). */
+  const takePending = () => {
+    if (dirtySince === null) return;
+    dirtySince = null;
+    pending = snapshot();
+    walDirty = true;
+  };
+
   const writeAhead = (force: boolean) => {
-    if (walTimer !== null) clearTimeout(walTimer);
-    walTimer = null;
     if (!walDirty || !ls || (walTooBig && !force)) return;
     walDirty = false;
     const d = pending ?? snapshot();
@@ -212,27 +233,35 @@ export function startAutosave(store: EditorStore, identity: TabIdentity, events:
     writing = false;
   };
 
-  stats.idle = () => timer === null && walTimer === null && !writing && pending === null;
+  const save = () => {
+    timer = null;
+    takePending();
+    writeAhead(false);
+    void flush();
+  };
+
+  stats.idle = () => timer === null && dirtySince === null && !writing && pending === null;
 
   const off = store.onDocumentCommitted(() => {
-    pending = snapshot();
-    walDirty = true;
-    if (walTimer === null) walTimer = setTimeout(() => writeAhead(false), 0);
-    if (timer !== null) clearTimeout(timer);
-    timer = setTimeout(() => {
-      timer = null;
-      void flush();
-    }, delayMs);
+    const now = Date.now();
+    dirtySince ??= now;
+    // Each edit pushes the save back, until the burst has waited long enough.
+    if (timer !== null) {
+      if (now - dirtySince >= MAX_SAVE_WAIT_MS) return;
+      clearTimeout(timer);
+    }
+    timer = setTimeout(() => whenIdle(save, delayMs), delayMs);
   });
 
   // Leaving the page (reload, navigation, closing the tab): the synchronous copy first, then IndexedDB.
   const onHide = () => {
+    takePending();
     writeAhead(true);
     if (timer !== null) {
       clearTimeout(timer);
       timer = null;
-      void flush();
     }
+    void flush();
   };
   const onVisibility = () => {
     if (document.visibilityState === 'hidden') onHide();
@@ -246,8 +275,8 @@ export function startAutosave(store: EditorStore, identity: TabIdentity, events:
       // A duplicated tab carries the same document id: this tab forks to its own, so neither overwrites the other.
       identity.docId = newId();
       rememberIdentity(session(), identity);
-      pending = snapshot();
-      walDirty = true;
+      dirtySince ??= Date.now();
+      takePending();
       writeAhead(true);
       void flush();
     }

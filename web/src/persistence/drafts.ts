@@ -59,6 +59,16 @@ export function newId(): string {
   return `${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 10)}`;
 }
 
+/** JSON size of a history step, remembered while the step is the same (a merge gives it new patch lists). */
+const sizes = new WeakMap<HistoryEntry, { label: string; redo: unknown; undo: unknown; size: number }>();
+function entrySize(e: HistoryEntry): number {
+  const hit = sizes.get(e);
+  if (hit && hit.label === e.label && hit.redo === e.redo && hit.undo === e.undo) return hit.size;
+  const size = JSON.stringify(e).length;
+  sizes.set(e, { label: e.label, redo: e.redo, undo: e.undo, size });
+  return size;
+}
+
 /**
  * The newest undo steps (and redo steps) that fit the budget, newest kept first: an old step is worth
  * less than a recent one, and a step that replaced the whole drawing can be large.
@@ -68,7 +78,7 @@ export function boundHistory(h: HistorySnapshot, maxChars = HISTORY_MAX_CHARS, m
   const take = (entries: readonly HistoryEntry[]): HistoryEntry[] => {
     const kept: HistoryEntry[] = [];
     for (let i = entries.length - 1; i >= 0 && kept.length < maxSteps; i--) {
-      const size = JSON.stringify(entries[i]).length;
+      const size = entrySize(entries[i]!);
       if (size > budget) break;
       budget -= size;
       kept.push(entries[i]!);

@@ -1,5 +1,5 @@
 import './schedules.css';
-import { useMemo, useRef, useState } from 'react';
+import { memo, useMemo, useRef, useState } from 'react';
 import { useCommandContext, useEditorState } from '../editor/useEditor';
 import { openImport, readScheduleFile } from '../import/importState';
 import { count as plural } from '../words';
@@ -13,7 +13,7 @@ type Tab = 'conductors' | 'equipment' | null;
  * import of a feeder schedule) and, when a schedule is open, its table. The tables edit the drawing
  * through the same commands as the details panel.
  */
-export function Schedules() {
+export const Schedules = memo(function Schedules() {
   const ctx = useCommandContext();
   const doc = useEditorState((s) => s.doc);
   const report = useEditorState((s) => s.report);
@@ -80,4 +80,4 @@ export function Schedules() {
       {tab === 'equipment' && <ScheduleGrid name="equipment" rows={eRows} columns={EQUIPMENT_COLUMNS} filter={filter} selected={selected} onSelect={selectNode} />}
     </section>
   );
-}
+});

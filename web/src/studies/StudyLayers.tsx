@@ -61,19 +61,22 @@ export function StudyLayers() {
         </label>
         {(showFault || showDrop) && nodes.length > MAX_LABELS && <span className="lw-muted"> too many to label; see the details panel</span>}
       </Panel>
-      <ViewportPortal>
-        {labels.map((l) => (
-          <div
-            key={l.key}
-            className={`lw-study-label lw-study-${l.kind}${l.over ? ' is-over' : ''}`}
-            data-testid={`layer-label-${l.key}`}
-            style={{ position: 'absolute', transform: `translate(${l.x}px, ${l.y}px)`, pointerEvents: 'none', fontSize: 11, whiteSpace: 'nowrap', background: 'rgba(255,255,255,0.85)', padding: '0 3px', borderRadius: 3, fontWeight: l.over ? 700 : 400, color: l.kind === 'fault' ? '#5b2a86' : l.over ? '#a1260d' : '#1d5e3a', border: l.over ? '1px dashed #a1260d' : undefined }}
-          >
-            {l.kind === 'fault' ? '⚡ ' : l.over ? '▲ ' : ''}
-            {l.text}
-          </div>
-        ))}
-      </ViewportPortal>
+      {/* Only with labels to show: the portal looks itself up in the DOM on every pan and zoom step. */}
+      {labels.length > 0 && (
+        <ViewportPortal>
+          {labels.map((l) => (
+            <div
+              key={l.key}
+              className={`lw-study-label lw-study-${l.kind}${l.over ? ' is-over' : ''}`}
+              data-testid={`layer-label-${l.key}`}
+              style={{ position: 'absolute', transform: `translate(${l.x}px, ${l.y}px)`, pointerEvents: 'none', fontSize: 11, whiteSpace: 'nowrap', background: 'rgba(255,255,255,0.85)', padding: '0 3px', borderRadius: 3, fontWeight: l.over ? 700 : 400, color: l.kind === 'fault' ? '#5b2a86' : l.over ? '#a1260d' : '#1d5e3a', border: l.over ? '1px dashed #a1260d' : undefined }}
+            >
+              {l.kind === 'fault' ? '⚡ ' : l.over ? '▲ ' : ''}
+              {l.text}
+            </div>
+          ))}
+        </ViewportPortal>
+      )}
     </>
   );
 }
