@@ -19,11 +19,11 @@ export function equipmentFindings(ctx: VerdictContext): Finding[] {
   const push = (f: Parameters<typeof finding>[0]) => out.push(finding(f));
   const seen = new Set<RunVerdict>();
   for (const v of verdicts) {
+    const f = v.facts;
+    if (f.termination.kind !== 'transformer' || !f.transformer) continue;
     // Runs judged as one share their verdict: judge their transformer once.
     if (seen.has(v)) continue;
     seen.add(v);
-    const f = v.facts;
-    if (f.termination.kind !== 'transformer' || !f.transformer) continue;
     if (v.family === 'service' || v.family === 'generator') {
       const byGenerator = v.family === 'generator';
       push({

@@ -82,7 +82,7 @@ export function runFactsOf(ctx: AnalysisContext, r: number, site: RunFacts['site
   const circuit = only >= 0 ? loads.loadCircuits[only] ?? null : null;
   return {
     edition,
-    conductorIds: members.map((ci) => g.conductors[ci]!.id),
+    conductorIds: idsOf(g, members),
     material: weakest.material,
     size: sized ? weakest.size! : null,
     parallelSets: weakest.parallelSets,
@@ -113,6 +113,13 @@ export function runFactsOf(ctx: AnalysisContext, r: number, site: RunFacts['site
     hvac: circuit?.hvac ?? null,
     suppliedFrom: null,
   };
+}
+
+/** The ids of conductors `members`, in order. */
+function idsOf(g: AnalysisContext['graph'], members: readonly number[]): Conductor['id'][] {
+  const ids = new Array<Conductor['id']>(members.length);
+  for (let i = 0; i < members.length; i++) ids[i] = g.conductors[members[i]!]!.id;
+  return ids;
 }
 
 /**

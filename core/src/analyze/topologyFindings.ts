@@ -8,6 +8,9 @@ import type { ElementRef, Finding } from './types';
 /** Most elements a single topology finding lists. */
 const MAX_RELATED = 50;
 
+/** Equipment that passes power on: with nothing below it, a conductor or load is probably missing. */
+const PASSES_POWER_ON: ReadonlySet<string> = new Set(['splice', 'bus', 'disconnect', 'breaker', 'fuse']);
+
 /** Stage: findings about the shape of the network: loose equipment, several supplies, no source, dangling ends, loops. */
 export function topologyFindings(ctx: AnalysisContext): Finding[] {
   const { graph: g, onCycle } = ctx;
@@ -15,12 +18,15 @@ export function topologyFindings(ctx: AnalysisContext): Finding[] {
   const push = (f: NewFinding) => out.push(finding(f));
   const cycleNodes: ElementRef[] = [];
   for (let v = 0; v < g.nodes.length; v++) {
-    const n = g.nodes[v]!;
-    const subject: ElementRef = { kind: 'node', id: n.id };
     const ins = g.inEdges[v]!.length;
     const outs = g.outEdges[v]!.length;
+    if (onCycle[v]) cycleNodes.push({ kind: 'node', id: g.nodes[v]!.id });
+    // Nearly every node has one supply and either something below it or no need of it (a load): no finding
+    // here, so its name and subject are made only for a node that may have one.
+    if (ins === 1 && (outs > 0 || !PASSES_POWER_ON.has(g.nodes[v]!.kind))) continue;
+    const n = g.nodes[v]!;
+    const subject: ElementRef = { kind: 'node', id: n.id };
     const name = `${nodeLabel(n)}${n.label ? ` (${n.id})` : ''}`;
-    if (onCycle[v]) cycleNodes.push(subject);
     if (ins === 0 && outs === 0) {
       push({ ruleId: 'topology', messageId: 'isolated', severity: 'info', cites: null, subject, message: `${name} is not connected to anything.` });
       continue;
@@ -40,7 +46,7 @@ export function topologyFindings(ctx: AnalysisContext): Finding[] {
     if (ins === 0 && n.kind !== 'utility' && n.kind !== 'generator') {
       push({ ruleId: 'topology', messageId: 'no-source', severity: 'warning', cites: null, subject, message: `Nothing supplies ${name}; the conductors below it cannot be judged. Connect it to a source.` });
     }
-    if (outs === 0 && ins > 0 && (n.kind === 'splice' || n.kind === 'bus' || n.kind === 'disconnect' || n.kind === 'breaker' || n.kind === 'fuse')) {
+    if (outs === 0 && ins > 0 && PASSES_POWER_ON.has(n.kind)) {
       push({ ruleId: 'topology', messageId: 'dangling-end', severity: 'info', cites: null, subject, message: `${name} supplies nothing; is a conductor or load missing below it?` });
     }
   }

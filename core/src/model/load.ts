@@ -3,6 +3,7 @@ import { CONDUCTOR_SIZES, project, type Project } from './schema';
 import { migrateToCurrent } from './migrations';
 import { compileSchema, FAIL } from './fastParse';
 import { foundText } from './found';
+import { rememberNodeIndex } from './nodeIndex';
 
 const fastProject = compileSchema(project);
 import type { LoadError } from '../analyze/types';
@@ -187,9 +188,14 @@ function issueToError(issue: z.core.$ZodIssue, source: unknown): LoadError {
 /** What the schema cannot check alone: unique ids, ends that exist and point the right way, load data. */
 export function checkConsistency(p: Project): LoadError[] {
   const errors: LoadError[] = [];
-  const kindById = new Map<string, string>();
+  // Each node id's position (the last, should one repeat); the graph reuses it (./nodeIndex.ts).
+  const nodeIndex = new Map<string, number>();
   // Where each id was first seen, as (list, index); a path string is built only for an error.
   const seen = new Map<string, number>();
+  const kindOf = (id: string): string | undefined => {
+    const i = nodeIndex.get(id);
+    return i === undefined ? undefined : p.nodes[i]!.kind;
+  };
   const lists = ['nodes', 'conductors', 'busLinks'] as const;
   const pathOf = (list: number, i: number) => `${lists[list]}[${i}]`;
   const claim = (id: string, list: number, i: number) => {
@@ -203,7 +209,7 @@ export function checkConsistency(p: Project): LoadError[] {
   for (let i = 0; i < p.nodes.length; i++) {
     const n = p.nodes[i]!;
     claim(n.id, 0, i);
-    kindById.set(n.id, n.kind);
+    nodeIndex.set(n.id, i);
     if (n.kind === 'load' && n.motor && n.motor.hp === undefined && n.motor.fullLoadA === undefined) {
       errors.push({ path: `nodes[${i}].motor.hp`, message: 'A motor needs its horsepower ("hp", for Tables 430.248/430.250) or its nameplate full-load current ("fullLoadA").' });
     } else if (n.kind === 'load' && n.motor && n.hvac) {
@@ -225,8 +231,8 @@ export function checkConsistency(p: Project): LoadError[] {
   }
   const checkEnds = (e: { id: string; from: string; to: string }, list: number, i: number) => {
     claim(e.id, list, i);
-    const fromKind = kindById.get(e.from);
-    const toKind = kindById.get(e.to);
+    const fromKind = kindOf(e.from);
+    const toKind = kindOf(e.to);
     if (fromKind !== undefined && toKind !== undefined && e.from !== e.to && fromKind !== 'load' && toKind !== 'utility' && toKind !== 'generator') return;
     const path = pathOf(list, i);
     if (fromKind === undefined) errors.push({ path: `${path}.from`, message: `No equipment has the id "${e.from}"; connect the supply end to existing equipment.` });
@@ -239,5 +245,6 @@ export function checkConsistency(p: Project): LoadError[] {
   };
   for (let i = 0; i < p.conductors.length; i++) checkEnds(p.conductors[i]!, 1, i);
   for (let i = 0; i < p.busLinks.length; i++) checkEnds(p.busLinks[i]!, 2, i);
+  if (errors.length === 0) rememberNodeIndex(p.nodes, nodeIndex);
   return errors;
 }

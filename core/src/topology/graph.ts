@@ -1,3 +1,4 @@
+import { nodeIndexOf } from '../model/nodeIndex';
 import type { BusLink, Conductor, EquipmentNode, Project } from '../model/schema';
 
 /**
@@ -22,8 +23,8 @@ export interface Graph {
 
 export function buildGraph(project: Project): Graph {
   const { nodes, conductors, busLinks: links } = project;
-  const nodeIndex = new Map<string, number>();
-  for (let i = 0; i < nodes.length; i++) nodeIndex.set(nodes[i]!.id, i);
+  // Built by the load step's check when the nodes are as it left them; else here.
+  const nodeIndex = nodeIndexOf(nodes);
   const conductorFrom = new Int32Array(conductors.length);
   const conductorTo = new Int32Array(conductors.length);
   for (let i = 0; i < conductors.length; i++) {
