@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { analyze } from '@linewright/core';
 import { FlowDeriver, conductorEdgeId } from '../../web/src/canvas/flowElements';
 import { conductorLook, nodeLook } from '../../web/src/canvas/looks';
+import { overviewLayout, overviewScene } from '../../web/src/canvas/overview';
 import { replaceElement } from '../../web/src/editor/commands';
 import { drawTap, harness } from './harness';
 
@@ -93,5 +94,26 @@ describe('React Flow elements derived from the document', () => {
       if (e1[i]!.id === conductorEdgeId(ids.tapId)) expect(e2[i]).toMatchObject({ selected: true });
       else expect(e2[i]).toBe(e1[i]);
     }
+  });
+});
+
+describe('the overview far out', () => {
+  it('draws each conductor in its look’s family, and a flag on every piece with a finding', () => {
+    const h = harness();
+    drawTap(h, { lengthFt: 40 });
+    h.store.setReport(analyze(h.doc()), h.store.getState().docVersion);
+    const s = h.store.getState();
+    const d = new FlowDeriver();
+    const scene = overviewScene(overviewLayout(d.nodes(s), d.edges(s)), s);
+    const drawn = new Map<string, string>();
+    for (const [family, lines] of scene.wires) for (const pts of lines) drawn.set(JSON.stringify(pts), family);
+    for (const e of d.edges(s)) {
+      if (e.type !== 'conductor') continue;
+      const data = e.data as { conductorId: string; geometry: { points: unknown } };
+      expect(drawn.get(JSON.stringify(data.geometry.points))).toBe(conductorLook(s, data.conductorId)!.family);
+    }
+    expect([...scene.badges.values()].flat()).toHaveLength(3);
+    const flagged = new Set(s.report!.findings.filter((f) => f.subject.kind === 'node').map((f) => (f.subject as { id: string }).id));
+    expect(scene.flags).toHaveLength(flagged.size);
   });
 });

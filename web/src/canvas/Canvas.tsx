@@ -15,6 +15,8 @@ import { nodeTypes } from '../nodes';
 import { KIND_DRAG_TYPE } from '../panels/Palette';
 import { DrawingTools } from '../panels/Toolbar';
 import { FlowDeriver, selectionAfter, type FlowEdge, type FlowNode } from './flowElements';
+import { Overview } from './Overview';
+import { OVERVIEW_ZOOM } from './overview';
 import { useReviewView } from '../review/reviewState';
 
 /**
@@ -31,7 +33,19 @@ const CULL_FROM = 300;
 const GRID = 20;
 // Module constants: React Flow copies a prop into its store (and every subscriber re-reads) when its identity changes.
 const SNAP_GRID: [number, number] = [GRID, GRID];
-const FIT_VIEW_OPTIONS = { padding: 0.12, maxZoom: 1.2 };
+// Hidden elements (the overview below) still count for framing.
+const FIT_VIEW_OPTIONS = { padding: 0.12, maxZoom: 1.2, includeHiddenNodes: true };
+/** From this many elements, a zoom below OVERVIEW_ZOOM shows the drawing as one bitmap (canvas/Overview.tsx). */
+const OVERVIEW_FROM = 2000;
+const isOverviewZoom = (s: { transform: [number, number, number] }) => s.transform[2] < OVERVIEW_ZOOM;
+
+/** The element as React Flow holds it while the overview draws it: hidden, one object per source object. */
+const hiddenCopies = new WeakMap<object, object>();
+function hidden<T extends FlowNode | FlowEdge>(e: T): T {
+  let h = hiddenCopies.get(e) as T | undefined;
+  if (!h) hiddenCopies.set(e, (h = { ...e, hidden: true }));
+  return h;
+}
 
 /** The drawing. Memoized: it has no props, so an autosave notice re-rendering the app passes it by. */
 export const Canvas = memo(function Canvas() {
@@ -45,6 +59,9 @@ export const Canvas = memo(function Canvas() {
   const rf = useReactFlow<FlowNode, FlowEdge>();
   const wrapper = useRef<HTMLDivElement>(null);
   const far = useStore(isFar);
+  const overview = useStore(isOverviewZoom) && nodes.length + edges.length >= OVERVIEW_FROM;
+  const flowNodes = useMemo(() => (overview ? nodes.map(hidden) : nodes), [nodes, overview]);
+  const flowEdges = useMemo(() => (overview ? edges.map(hidden) : edges), [edges, overview]);
   const flowStore = useStoreApi<FlowNode, FlowEdge>();
 
   // The growth factor follows every zoom step as a CSS variable, without a React render.
@@ -103,7 +120,7 @@ export const Canvas = memo(function Canvas() {
 
   useEffect(() => {
     if (!frameRequest) return;
-    requestAnimationFrame(() => void rf.fitView({ nodes: frameRequest.nodeIds.map((id) => ({ id })), padding: 0.6, maxZoom: 1.1, duration: 250 }));
+    requestAnimationFrame(() => void rf.fitView({ nodes: frameRequest.nodeIds.map((id) => ({ id })), padding: 0.6, maxZoom: 1.1, duration: 250, includeHiddenNodes: true }));
   }, [frameRequest, rf]);
 
   // Escape during a drag puts the equipment back where it was (the drag was never committed).
@@ -196,8 +213,8 @@ export const Canvas = memo(function Canvas() {
   return (
     <div className={far ? 'lw-canvas lw-far' : 'lw-canvas'} ref={wrapper} onDragOver={onDragOver} onDrop={onDrop} data-testid="canvas">
       <ReactFlow<FlowNode, FlowEdge>
-        nodes={nodes}
-        edges={edges}
+        nodes={flowNodes}
+        edges={flowEdges}
         nodeTypes={nodeTypes}
         edgeTypes={edgeTypes}
         onNodesChange={onNodesChange}
@@ -220,6 +237,7 @@ export const Canvas = memo(function Canvas() {
         nodesConnectable={!readOnly}
       >
         <Background variant={BackgroundVariant.Dots} gap={GRID} size={1} color="#c9ccd1" />
+        {overview && <Overview nodes={nodes} edges={edges} />}
         <Panel position="top-left" className="lw-drawing-tools-panel">
           <DrawingTools />
         </Panel>

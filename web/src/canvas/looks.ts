@@ -1,6 +1,6 @@
-import type { Conductor, EquipmentNode, Severity, Verdict } from '@linewright/core';
+import type { AnalysisReport, Conductor, ConductorReport, EquipmentNode, Severity, Verdict } from '@linewright/core';
 import { indexReport } from '../analysis/reportIndex';
-import { VERDICT_TEXT, conductorFamily, verdictFamily, type VerdictFamily } from '../analysis/verdicts';
+import { VERDICT_TEXT, conductorFamily, type VerdictFamily } from '../analysis/verdicts';
 import { conductorLine, kindSpec, nodeFacts } from '../editor/equipment';
 import type { EditorState } from '../editor/store';
 import { useEditorState } from '../editor/useEditor';
@@ -48,6 +48,11 @@ function byId<T extends { id: string }>(cache: WeakMap<readonly T[], Map<string,
 const conductorLooks = new WeakMap<Conductor, ConductorLook>();
 const nodeLooks = new WeakMap<EquipmentNode, NodeLook>();
 
+/** The family a conductor is drawn in: one core answer for the alarm, so a violation on it shows whatever its verdict. */
+export function familyOf(report: AnalysisReport | null, r: ConductorReport | undefined): VerdictFamily {
+  return report && r ? conductorFamily(report, r) : 'pending';
+}
+
 /** The look of conductor `id` in this state, or null when the document has no such conductor. */
 export function conductorLook(s: EditorState, id: string): ConductorLook | null {
   const c = byId(conductorMaps, s.doc.conductors).get(id);
@@ -55,8 +60,7 @@ export function conductorLook(s: EditorState, id: string): ConductorLook | null 
   const report = s.report;
   const r = report ? indexReport(report).conductor.get(id) : undefined;
   const verdict = r?.verdict ?? null;
-  // One core answer for the alarm: a violation on the conductor shows whatever its verdict.
-  const family = report && r ? conductorFamily(report, r) : report ? verdictFamily(verdict) : 'pending';
+  const family = familyOf(report, r);
   const verdictText = verdict ? VERDICT_TEXT[verdict] : report ? 'not checked' : 'checking…';
   const prev = conductorLooks.get(c);
   if (prev && prev.verdict === verdict && prev.family === family && prev.verdictText === verdictText) return prev;

@@ -159,6 +159,8 @@ export async function readDraftOf(docId: string): Promise<Draft | null> {
 
 /** Longest a burst of edits may hold the save back: then it is written at the next idle moment anyway. */
 const MAX_SAVE_WAIT_MS = 2000;
+/** Longest a due save waits for the page to be idle (a big drawing's copy takes tens of milliseconds). */
+const IDLE_WAIT_MS = 1000;
 
 /** Runs `fn` when the page is idle (requestIdleCallback where there is one), within `timeoutMs`. */
 function whenIdle(fn: () => void, timeoutMs: number): void {
@@ -250,7 +252,7 @@ export function startAutosave(store: EditorStore, identity: TabIdentity, events:
       if (now - dirtySince >= MAX_SAVE_WAIT_MS) return;
       clearTimeout(timer);
     }
-    timer = setTimeout(() => whenIdle(save, delayMs), delayMs);
+    timer = setTimeout(() => whenIdle(save, IDLE_WAIT_MS), delayMs);
   });
 
   // Leaving the page (reload, navigation, closing the tab): the synchronous copy first, then IndexedDB.

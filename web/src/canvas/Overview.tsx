@@ -1,0 +1,95 @@
+import { useEffect, useRef } from 'react';
+import { useStoreApi } from '@xyflow/react';
+import { useCommandContext } from '../editor/useEditor';
+import type { FlowEdge, FlowNode } from './flowElements';
+import { overviewLayout, overviewScene, type OverviewScene } from './overview';
+import { drawOverview, type View } from './overviewDraw';
+
+/** Room drawn beyond each side of the view, as a share of its size: a pan shows it before the next redraw. */
+const MARGIN = 0.25;
+/** A pan redraws once it has rested this long; until then the bitmap is moved. */
+const PAN_REDRAW_MS = 90;
+
+/**
+ * The drawing far out as one canvas over the flow (canvas/overview.ts): React Flow holds the elements
+ * hidden meanwhile. A pan moves the bitmap (a compositor transform, no redraw) and redraws when it
+ * rests; a zoom step, an edit, a new report or a selection redraws on the next frame.
+ */
+export function Overview({ nodes, edges }: { nodes: readonly FlowNode[]; edges: readonly FlowEdge[] }) {
+  const ref = useRef<HTMLCanvasElement>(null);
+  const { store } = useCommandContext();
+  const flow = useStoreApi<FlowNode, FlowEdge>();
+
+  useEffect(() => {
+    const canvas = ref.current;
+    const g = canvas?.getContext('2d');
+    if (!canvas || !g) return;
+    const layout = overviewLayout(nodes, edges);
+    let scene: OverviewScene | null = null;
+    let sceneKey: unknown[] = [];
+    let drawn: View | null = null;
+    let frame = 0;
+    let rest: ReturnType<typeof setTimeout> | null = null;
+
+    const sceneNow = (): OverviewScene => {
+      const s = store.getState();
+      const key = [s.report, s.doc.conductors, s.doc.nodes];
+      if (!scene || key.some((k, i) => k !== sceneKey[i])) {
+        scene = overviewScene(layout, s);
+        sceneKey = key;
+      }
+      return scene;
+    };
+    const viewNow = (): View => {
+      const { transform, width, height } = flow.getState();
+      const mx = Math.round(width * MARGIN);
+      const my = Math.round(height * MARGIN);
+      return { x: transform[0] + mx, y: transform[1] + my, zoom: transform[2], width: width + 2 * mx, height: height + 2 * my, dpr: window.devicePixelRatio || 1 };
+    };
+    const draw = () => {
+      frame = 0;
+      const v = viewNow();
+      const w = Math.round(v.width * v.dpr);
+      const h = Math.round(v.height * v.dpr);
+      if (canvas.width !== w || canvas.height !== h) {
+        canvas.width = w;
+        canvas.height = h;
+      }
+      const mx = (v.width - flow.getState().width) / 2;
+      const my = (v.height - flow.getState().height) / 2;
+      Object.assign(canvas.style, { left: `${-mx}px`, top: `${-my}px`, width: `${v.width}px`, height: `${v.height}px`, transform: '' });
+      drawOverview(g, sceneNow(), v);
+      drawn = v;
+    };
+    const redrawSoon = () => {
+      if (frame === 0) frame = requestAnimationFrame(draw);
+    };
+
+    const onFlow = () => {
+      const v = viewNow();
+      if (!drawn || v.zoom !== drawn.zoom || v.width !== drawn.width || v.height !== drawn.height) return redrawSoon();
+      if (v.x === drawn.x && v.y === drawn.y) return;
+      canvas.style.transform = `translate(${v.x - drawn.x}px, ${v.y - drawn.y}px)`;
+      if (rest !== null) clearTimeout(rest);
+      rest = setTimeout(() => {
+        rest = null;
+        redrawSoon();
+      }, PAN_REDRAW_MS);
+    };
+    const onStore = () => {
+      const s = store.getState();
+      if (s.report !== sceneKey[0] || s.doc.conductors !== sceneKey[1] || s.doc.nodes !== sceneKey[2]) redrawSoon();
+    };
+    draw();
+    const offFlow = flow.subscribe(onFlow);
+    const offStore = store.subscribe(onStore);
+    return () => {
+      offFlow();
+      offStore();
+      if (frame) cancelAnimationFrame(frame);
+      if (rest !== null) clearTimeout(rest);
+    };
+  }, [store, flow, nodes, edges]);
+
+  return <canvas ref={ref} className="lw-overview" data-testid="overview" role="img" aria-label="The whole drawing far out: wiring, bus bars and verdict badges. Zoom in, or pick a row of a schedule or a finding, to reach each element." />;
+}
