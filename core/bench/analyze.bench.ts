@@ -28,8 +28,9 @@
  * reported as "peak heap". It is a lower bound of the true peak (garbage made between samples is
  * not seen); the process's peak RSS (resourceUsage().maxRSS, whole run, all sizes) is printed too.
  * Re-check: a session (createAnalysis) on the 10 000-conductor network, then edits of one kind at a
- * time (a branch circuit's length changed by a foot; a load's amperes by one), each a new project
- * sharing every other object, as an editor's immer edit does, each timed through session.update();
+ * time (a branch circuit's length changed by a foot; a load's amperes by one; a breaker's rating 5 A
+ * up, then back), each a new project sharing every other object, as an editor's immer edit does, each
+ * timed through session.update();
  * per kind the median and 95th percentile, and how many ran the whole analysis.
  * CLI: the command is built from the current source first (scripts/build-cli.mjs), then
  * `node core/bin/linewright.mjs check samples/demo-clinic.json --format json` runs as a child
@@ -270,6 +271,18 @@ const RECHECK_EDITS: { kind: string; edit: BenchEdit }[] = [
       const i = loads[(k * 7919) % loads.length]!;
       const n = project.nodes[i]!;
       return { ...project, nodes: project.nodes.map((x, j) => (j === i && n.kind === 'load' ? { ...n, currentA: n.currentA! + (k % 2 ? -1 : 1) } : x)) };
+    },
+  },
+  {
+    kind: 'breaker rating',
+    edit: (project, _session, k) => {
+      // 5 A up, then back down: a branch or feeder device resized (20 A to 25 A, a standard rating, on most).
+      const breakers = project.nodes.flatMap((n, i) => (n.kind === 'breaker' ? [i] : []));
+      const i = breakers[(Math.floor(k / 2) * 7919) % breakers.length]!;
+      const n = project.nodes[i]!;
+      if (n.kind !== 'breaker') return project;
+      const ratingA = k % 2 ? n.ratingA! - 5 : n.ratingA! + 5;
+      return { ...project, nodes: project.nodes.map((x, j) => (j === i ? { ...n, ratingA } : x)) };
     },
   },
 ];

@@ -38,6 +38,7 @@ type Edit =
   | { kind: 'load'; at: number; kva: number }
   | { kind: 'loadData'; at: number; change: LoadChange }
   | { kind: 'move'; at: number; dx: number }
+  | { kind: 'device'; at: number; change: DeviceChange }
   | { kind: 'add'; at: number }
   | { kind: 'delete'; at: number };
 
@@ -58,6 +59,50 @@ const loadChangeArb: fc.Arbitrary<LoadChange> = fc.oneof(
 );
 
 type LoadNode = Extract<Project['nodes'][number], { kind: 'load' }>;
+type DeviceNode = Extract<Project['nodes'][number], { kind: 'breaker' | 'fuse' }>;
+
+/** A change of an OCPD's rating or type: what the supply facts, terminations, 408.36 and 450.3(B) read. */
+type DeviceChange =
+  | { field: 'ratingA'; value: number | undefined }
+  | { field: 'type' }
+  | { field: 'adjustableTrip'; maxSettingA: number | undefined; restrictedAccess: boolean }
+  | { field: 'arrangement' }
+  | { field: 'atDisconnectingMeans' }
+  | { field: 'clearingTimeS'; value: number | undefined };
+
+const deviceChangeArb: fc.Arbitrary<DeviceChange> = fc.oneof(
+  { weight: 4, arbitrary: fc.record({ field: fc.constant('ratingA' as const), value: fc.option(fc.constantFrom(15, 20, 30, 60, 100, 125, 225, 400, 600, 800, 1200), { nil: undefined, freq: 8 }) }) },
+  { weight: 2, arbitrary: fc.record({ field: fc.constant('type' as const) }) },
+  { weight: 1, arbitrary: fc.record({ field: fc.constant('adjustableTrip' as const), maxSettingA: fc.option(fc.constantFrom(100, 400, 800), { nil: undefined }), restrictedAccess: fc.boolean() }) },
+  { weight: 1, arbitrary: fc.record({ field: fc.constant('arrangement' as const) }) },
+  { weight: 1, arbitrary: fc.record({ field: fc.constant('atDisconnectingMeans' as const) }) },
+  { weight: 1, arbitrary: fc.record({ field: fc.constant('clearingTimeS' as const), value: fc.option(fc.constantFrom(0.02, 0.1, 0.5), { nil: undefined }) }) },
+);
+
+/** The device after one change of its rating or type. */
+function changeDevice(node: DeviceNode, change: DeviceChange): DeviceNode {
+  const without = <K extends string>(key: K): DeviceNode => {
+    const copy = { ...node } as Record<string, unknown>;
+    delete copy[key];
+    return copy as DeviceNode;
+  };
+  switch (change.field) {
+    case 'ratingA':
+      return change.value === undefined ? without('ratingA') : { ...node, ratingA: change.value };
+    case 'type':
+      if (node.kind === 'breaker') return { ...node, tripType: node.tripType === 'instantaneous' ? 'inverse-time' : 'instantaneous' };
+      return node.timeDelay === undefined ? { ...node, timeDelay: true } : node.timeDelay ? { ...node, timeDelay: false } : without('timeDelay');
+    case 'adjustableTrip':
+      if (node.kind !== 'breaker') return node;
+      return change.maxSettingA === undefined ? without('adjustableTrip') : { ...node, adjustableTrip: { maxSettingA: change.maxSettingA, longTimeSettingA: change.maxSettingA / 2, restrictedAccess: change.restrictedAccess } };
+    case 'arrangement':
+      return { ...node, arrangement: node.arrangement === 'single' ? 'group' : 'single' };
+    case 'atDisconnectingMeans':
+      return { ...node, atDisconnectingMeans: !node.atDisconnectingMeans };
+    case 'clearingTimeS':
+      return change.value === undefined ? without('clearingTimeS') : { ...node, clearingTimeS: change.value };
+  }
+}
 
 /** The load after one change of its data; the same object when the change does not apply to it. */
 function changeLoad(node: LoadNode, change: LoadChange): LoadNode {
@@ -90,6 +135,7 @@ const editArb: fc.Arbitrary<Edit> = fc.oneof(
   { weight: 2, arbitrary: fc.record({ kind: fc.constant('load' as const), at, kva: fc.integer({ min: 1, max: 500 }) }) },
   { weight: 3, arbitrary: fc.record({ kind: fc.constant('loadData' as const), at, change: loadChangeArb }) },
   { weight: 1, arbitrary: fc.record({ kind: fc.constant('move' as const), at, dx: fc.integer({ min: -200, max: 200 }) }) },
+  { weight: 3, arbitrary: fc.record({ kind: fc.constant('device' as const), at, change: deviceChangeArb }) },
   { weight: 1, arbitrary: fc.record({ kind: fc.constant('add' as const), at }) },
   { weight: 1, arbitrary: fc.record({ kind: fc.constant('delete' as const), at }) },
 );
@@ -129,6 +175,13 @@ function applyEdit(p: Project, e: Edit, step: number): Project {
       if (loads.length === 0) return p;
       const k = loads[e.at % loads.length]!;
       const next = changeLoad(p.nodes[k] as LoadNode, e.change);
+      return next === p.nodes[k] ? p : { ...p, nodes: p.nodes.map((x, j) => (j === k ? next : x)) };
+    }
+    case 'device': {
+      const devices = p.nodes.flatMap((node, k) => (node.kind === 'breaker' || node.kind === 'fuse' ? [k] : []));
+      if (devices.length === 0) return p;
+      const k = devices[e.at % devices.length]!;
+      const next = changeDevice(p.nodes[k] as DeviceNode, e.change);
       return next === p.nodes[k] ? p : { ...p, nodes: p.nodes.map((x, j) => (j === k ? next : x)) };
     }
     case 'rating':
@@ -189,7 +242,7 @@ describe('incremental analysis equals a whole analysis after every edit', () => 
     LIMIT_MS,
   );
 
-  it('a branch-circuit length edit, a load edit and a move are re-checked on their own; a breaker rating edit runs the whole analysis', () => {
+  it('a branch-circuit length edit, a load edit, a move and a breaker rating edit are re-checked on their own; a new conductor runs the whole analysis', () => {
     const project = load(generateProject({ conductors: 200, seed: 3 }));
     const session = createAnalysis(project);
     const branch = project.conductors.findIndex((c) => session.report.conductors.find((r) => r.id === c.id)?.role === 'branch' && c.lengthFt !== undefined);
@@ -205,6 +258,9 @@ describe('incremental analysis equals a whole analysis after every edit', () => 
     expect(session.last).toEqual({ mode: 'incremental', nodeId: moved.nodes[5]!.id, edit: 'layout' });
     const rated = applyEdit(moved, { kind: 'rating', at: 0, ratingA: 30 }, 3);
     expect(session.update(rated)).toEqual(analyze(rated));
+    expect(session.last).toEqual({ mode: 'incremental', nodeId: rated.nodes.find((n) => n.kind === 'breaker' || n.kind === 'fuse')!.id, edit: 'device' });
+    const added = applyEdit(rated, { kind: 'add', at: branch }, 4);
+    expect(session.update(added)).toEqual(analyze(added));
     expect(session.last.mode).toBe('full');
   });
 });

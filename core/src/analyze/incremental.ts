@@ -13,12 +13,18 @@ import type { RunFacts } from '../rules/facts';
 import { hasImpedance, restepThroughConductor } from '../studies/faultCurrent/faultCurrent';
 import { redropConductor, redropPath } from '../studies/voltageDrop/voltageDrop';
 import { conductorDropRow, nodeFault, redoDropFindings, voltageDropInputs } from '../studies/index';
-import type { Graph } from '../topology/graph';
+import { edgeFrom, edgeTo, orderPositions, type Graph } from '../topology/graph';
+import { voltageDropRule } from '../rules/voltage-drop';
+import { transformerProtection } from '../rules/transformer-protection';
+import { panelboardProtection } from '../rules/panelboard-protection';
+import { isOcpd } from './equipment';
+import { transformerFindingOf } from './equipmentFindings';
+import { panelboardFindingOf } from './panelboardFindings';
 
 /** How the last re-check was done: only what the edit can change, or the whole analysis (and why). */
 export type UpdateMode =
   | { mode: 'incremental'; conductorId: string }
-  | { mode: 'incremental'; nodeId: string; edit: 'load' | 'layout' }
+  | { mode: 'incremental'; nodeId: string; edit: 'load' | 'device' | 'layout' }
   | { mode: 'full'; reason: string }
   /** `update` was given the project it already had. */
   | { mode: 'unchanged' };
@@ -103,9 +109,11 @@ function recheck(state: AnalysisState, prev: Project, next: Project): { state: A
   const { index, before, after } = edit;
   if (before.id !== after.id || before.kind !== after.kind) return 'a node was replaced';
   if (onlyLayout(before, after)) return { state: relayout(state, next), mode: { mode: 'incremental', nodeId: after.id, edit: 'layout' } };
-  if (before.kind !== 'load' || after.kind !== 'load') return `a ${before.kind} node changed`;
-  const result = recheckLoad(state, next, index, before, after);
-  return typeof result === 'string' ? result : { state: result, mode: { mode: 'incremental', nodeId: after.id, edit: 'load' } };
+  let result: AnalysisState | string;
+  if (before.kind === 'load' && after.kind === 'load') result = recheckLoad(state, next, index, before, after);
+  else if ((before.kind === 'breaker' && after.kind === 'breaker') || (before.kind === 'fuse' && after.kind === 'fuse')) result = recheckDevice(state, next, index, before, after);
+  else return `a ${before.kind} node changed`;
+  return typeof result === 'string' ? result : { state: result, mode: { mode: 'incremental', nodeId: after.id, edit: before.kind === 'load' ? 'load' : 'device' } };
 }
 
 /** The one element of a list an edit changed, or why the edit is something else. Compares by identity only. */
@@ -219,11 +227,10 @@ function recheckLeaf(state: AnalysisState, next: Project, ci: number): AnalysisS
 /**
  * Re-checks the network after one load's data changed (its volt-amperes or current, continuous,
  * motor, HVAC, power factor) with its connection and what the fault study reads of it unchanged:
- * the load roll-up along its supply path, every run on that path (facts, verdict, fixes, findings,
- * report line) and the voltage drops at and below the path. The fault current, the circuits, the
- * ampacities and every other verdict stay. Returns why it cannot when the edit reaches further: a
- * load with several supplies or anything below it, a spliced run on the path, a verdict on the path
- * that changes (what is supplied through it would be judged again), or a study note that changes.
+ * the load roll-up along its supply path, every run on that path (see `rejudge`) and the voltage
+ * drops at and below the path. The fault current, the circuits and the ampacities stay. Returns why
+ * it cannot when the edit reaches further: a load with several supplies or anything below it, a node
+ * with several supplies on the path, a verdict that changes, or a study note that changes.
  */
 function recheckLoad(state: AnalysisState, next: Project, v: number, before: NodeOfKind<'load'>, after: NodeOfKind<'load'>): AnalysisState | string {
   const prev = state.ctx;
@@ -244,7 +251,7 @@ function recheckLoad(state: AnalysisState, next: Project, v: number, before: Nod
 
   // The supply path, load first: every node on it supplied once, so the roll-up changes along it alone.
   const path: number[] = [];
-  const pathRuns: number[] = [];
+  const pathRuns = new Set<number>();
   for (let w = v; ; ) {
     path.push(w);
     const ins = g0.inEdges[w]!;
@@ -252,94 +259,232 @@ function recheckLoad(state: AnalysisState, next: Project, v: number, before: Nod
     if (ins.length > 1) return 'a node on the supply path has several supplies';
     if (path.length > g0.nodes.length) return 'the supply path loops';
     const e = ins[0]!;
-    if (e >= 0) {
-      const r = runs.runOf[e]!;
-      if (runs.members[r]!.length !== 1 || prev.verdicts[r]!.facts.conductorIds.length !== 1) return 'a spliced run lies on the supply path';
-      pathRuns.push(r);
-    }
-    w = e >= 0 ? g0.conductorFrom[e]! : g0.linkFrom[-e - 1]!;
+    if (e >= 0) pathRuns.add(runs.runOf[e]!);
+    w = edgeFrom(g0, e);
     if (w < 0) break;
   }
-  pathRuns.reverse();
 
   const graph: Graph = { ...g0, nodes: next.nodes };
   // The session owns the analysis' arrays: the roll-up and the studies are updated in place.
   for (const w of path) rollUpAt(graph, loads, w);
-  const base = { ...prev, project: next, graph };
-  const facts: RunFacts[] = [];
-  let secondariesOf = state.walk.secondariesOf;
-  for (const r of pathRuns) {
-    const old = prev.verdicts[r]!.facts;
-    facts[r] = runFactsOf(base, r, old.site);
-    const from = graph.conductorFrom[runs.members[r]![0]!]!;
-    const list = secondariesOf.get(from);
-    if (list) {
-      // A transformer's primary reads the facts of its secondaries (240.21(B)(3)).
-      const at = list.indexOf(old);
-      if (at < 0) return 'a secondary run is judged with another';
-      if (secondariesOf === state.walk.secondariesOf) secondariesOf = new Map(secondariesOf);
-      (secondariesOf as Map<number, RunFacts[]>).set(from, list.map((f, k) => (k === at ? facts[r]! : f)));
-    }
-  }
-  const walk: KeptWalk = { ...state.walk, secondariesOf };
-  const verdicts = prev.verdicts.slice();
-  rejudgeRuns({ ...base, facts }, walk, verdicts, pathRuns);
-  for (const r of pathRuns) {
-    const why = verdictMoved(graph, prev.verdicts[r]!, verdicts[r]!);
-    if (why) return why;
-  }
-  const fixes = prev.fixes.slice();
-  const ctx: FixedContext = { ...base, verdicts, fixes };
-  for (const r of pathRuns) fixes[r] = fixesOfRun(ctx, r);
+  const judged = rejudge(state, { ...prev, project: next, graph }, pathRuns);
+  if (typeof judged === 'string') return judged;
+  const { ctx } = judged;
 
   // Voltage drop: the power along the path, then the sums below it.
   const { fault, drop } = state.studies;
   const conductorMoved = new Uint8Array(graph.conductors.length);
   const nodeMoved = new Uint8Array(graph.nodes.length);
   redropPath(graph, drop, voltageDropInputs(ctx, fault), path, conductorMoved, nodeMoved);
-  const old = state.report;
-  const oldStudies = old.studies!;
+  const oldStudies = state.report.studies!;
   const dropRows = oldStudies.voltageDrop.conductors.slice();
   for (let c = 0; c < conductorMoved.length; c++) if (conductorMoved[c]) dropRows[c] = conductorDropRow(graph, fault, drop, c);
   const studies = { ...oldStudies, voltageDrop: { ...oldStudies.voltageDrop, conductors: dropRows } };
-
-  const own = new Map<number, Finding[]>();
-  for (const r of pathRuns) {
-    const ci = runs.members[r]![0]!;
-    own.set(ci, []);
-    conductorFindingsOf(ctx, ci, own.get(ci)!);
-  }
-  const { findings, conductorFindingStart, studyFindingStart } = spliceFindings(state, ctx, own, conductorMoved, nodeMoved);
-
-  // Report lines: the path's, and those whose voltage-drop warning came or went.
-  const lines = new Set(own.keys());
-  const index = conductorIndexOf(state);
-  for (const list of [old.findings, findings]) {
-    for (let k = list === old.findings ? state.studyFindingStart : studyFindingStart; k < list.length; k++) {
-      const f = list[k]!;
-      if (f.ruleId === 'voltage-drop' && f.subject.kind === 'conductor') lines.add(index.get(f.subject.id)!);
-    }
-  }
-  const ids = findingIdsByConductor(findings, chainLookup(state, verdicts));
-  const conductors = old.conductors.slice();
-  for (const ci of lines) conductors[ci] = conductorReport(ctx, ci, ids.get(graph.conductors[ci]!.id));
-  const report: AnalysisReport = {
-    ...old,
-    conductors,
-    findings,
-    studies,
-    counts: { ...old.counts, bySeverity: countsOf([], findings).bySeverity },
-  };
-  return { ctx, studies: { ...state.studies, report: studies }, walk, conductorFindingStart, studyFindingStart, report };
+  return reported(state, judged, { conductorMoved, nodeMoved }, studies);
 }
 
-/** Why a new verdict of a run on the supply path reaches beyond it (what is supplied through the run reads these), or null. */
-function verdictMoved(g: Graph, before: RunVerdict, after: RunVerdict): string | null {
-  if (before.verdict !== after.verdict || before.rule !== after.rule || before.family !== after.family || before.deviceNode !== after.deviceNode || before.generatorNode !== after.generatorNode) return `the verdict of ${before.facts.conductorIds[0]} changed`;
-  // The secondaries of a transformer whose primary is a tap are judged on the primary's 240.21(B)(3) trial.
-  const end = after.facts.termination.nodeId === null ? -1 : g.nodeIndex.get(after.facts.termination.nodeId) ?? -1;
-  if (end >= 0 && g.nodes[end]!.kind === 'transformer' && after.verdict !== 'protected' && after.verdict !== 'protected-next-size') return 'a transformer on the supply path is fed by a tap';
-  return null;
+/**
+ * Re-checks the network after one OCPD's rating or type changed (its rating, adjustable trip, trip
+ * type, time delay, arrangement, disconnecting-means facts) with its name, interrupting rating and
+ * series ratings unchanged: every run judged against it (their supply facts and the device their
+ * report lines name), the runs that end at it or at the equipment it is linked into (the termination
+ * they read, a board's grouped ratings), the transformers those feed (Table 450.3(B)) and the
+ * panelboards it protects (408.36). The studies read no rating, so they stay; a tap's withstand reads
+ * the device's clearing, and when that changes under a tap the whole analysis runs.
+ */
+function recheckDevice(state: AnalysisState, next: Project, d: number, before: NodeOfKind<'breaker' | 'fuse'>, after: NodeOfKind<'breaker' | 'fuse'>): AnalysisState | string {
+  const prev = state.ctx;
+  const g0 = prev.graph;
+  const { runs, verdicts } = prev;
+  if (before.label !== after.label) return 'the device was renamed';
+  if (before.interruptingKA !== after.interruptingKA) return 'the interrupting rating changed (110.9)';
+  if ((next.seriesRatings ?? []).some((s) => s.loadSideId === before.id || s.lineSideId === before.id)) return 'the device is part of a series rating';
+  const rs = new Set<number>();
+  for (let r = 0; r < verdicts.length; r++) if (verdicts[r]!.deviceNode === d) rs.add(r);
+  const clearing = (n: NodeOfKind<'breaker' | 'fuse'>) => JSON.stringify([n.clearingTimeS, n.kind === 'fuse' ? n.currentLimiting : n.adjustableTrip]);
+  if (clearing(before) !== clearing(after)) {
+    // The withstand of a tap or secondary reads the clearing time of the device ahead of it.
+    for (const r of rs) if (WITHSTAND_VERDICT.test(verdicts[r]!.verdict)) return "the clearing of a tap's device changed (withstand)";
+  }
+  // What ends at the device, or at the equipment it is linked into, reads its rating in its termination.
+  const ends = [d];
+  for (const e of g0.inEdges[d]!) if (e < 0) ends.push(edgeFrom(g0, e));
+  for (const u of ends) for (const e of u >= 0 ? g0.inEdges[u]! : []) if (e >= 0) rs.add(runs.runOf[e]!);
+  // A transformer's primary reads the ends of its secondaries.
+  for (const r of [...rs]) {
+    const from = g0.conductorFrom[runs.members[r]![0]!]!;
+    if (from >= 0 && g0.nodes[from]!.kind === 'transformer') for (const e of g0.inEdges[from]!) if (e >= 0) rs.add(runs.runOf[e]!);
+  }
+  const graph: Graph = { ...g0, nodes: next.nodes };
+  const judged = rejudge(state, { ...prev, project: next, graph }, rs);
+  if (typeof judged === 'string') return judged;
+  // 408.36: the panelboards below the device, up to the next OCPD (their walk up stops at this one).
+  const panelboards: number[] = [];
+  const stack = [d];
+  for (let steps = 0; stack.length > 0 && steps <= g0.nodes.length; steps++) {
+    const u = stack.pop()!;
+    for (const e of g0.outEdges[u]!) {
+      const w = edgeTo(g0, e);
+      if (w < 0 || isOcpd(graph.nodes[w]!)) continue;
+      if (graph.nodes[w]!.kind === 'bus') panelboards.push(w);
+      stack.push(w);
+    }
+  }
+  return reported(state, judged, { panelboards }, state.report.studies!);
+}
+
+/** Verdicts whose runs the studies judge for short-circuit withstand (studies/index.ts runStudies). */
+const WITHSTAND_VERDICT = /^(tap-(?!from-tap)|secondary-)/;
+
+/** Runs judged again and what comes of it. */
+interface Rejudged {
+  readonly ctx: FixedContext;
+  readonly walk: KeptWalk;
+  /** The runs judged again, in supply-to-load order. */
+  readonly runs: readonly number[];
+}
+
+/**
+ * Judges the runs `rs` again after what their base facts read changed (`base` holds the new
+ * project, graph and roll-up), with the secondaries of any transformer they feed, in supply-to-load
+ * order as the classifier does, then their fixes. Returns why not when a verdict changes (what is
+ * supplied through the run reads it) or a run shares its verdict with another.
+ */
+function rejudge(state: AnalysisState, base: Omit<FixedContext, 'verdicts' | 'fixes'>, rs: Set<number>): Rejudged | string {
+  for (;;) {
+    const judged = rejudgeOnce(state, base, rs);
+    if (typeof judged === 'string' || !('reached' in judged)) return judged;
+    // A verdict changed: what is supplied through its run is judged again too, up to a bound.
+    for (const r of judged.reached) rs.add(r);
+    if (rs.size > Math.max(MIN_REJUDGED_BOUND, MAX_REJUDGED_FRACTION * base.runs.members.length)) return `the edit reaches more than ${MAX_REJUDGED_FRACTION * 100} % of the runs`;
+  }
+}
+
+/**
+ * Past this share of the runs judged again, the whole analysis runs instead: a re-judged run costs
+ * about what it costs in the whole analysis, and the re-check adds its own bookkeeping.
+ */
+const MAX_REJUDGED_FRACTION = 0.25;
+/** Below this many runs the bound does not apply (a small drawing re-checks in no time either way). */
+const MIN_REJUDGED_BOUND = 64;
+
+function rejudgeOnce(state: AnalysisState, base: Omit<FixedContext, 'verdicts' | 'fixes'>, rs: Set<number>): Rejudged | { reached: number[] } | string {
+  const prev = state.ctx;
+  const { graph, runs } = base;
+  // The secondaries of a transformer a run feeds (at its end, or bus-linked from there) are judged on that run (240.21(C)(5), (B)(3)).
+  for (const r of rs) {
+    const members = runs.members[r]!;
+    const end = graph.conductorTo[members[members.length - 1]!]!;
+    if (end < 0) continue;
+    for (const tx of suppliedThrough(graph, end, false)) if (graph.nodes[tx]!.kind === 'transformer') for (const v of suppliedThrough(graph, tx, true)) for (const e of graph.outEdges[v]!) if (e >= 0) rs.add(runs.runOf[e]!);
+  }
+  const pos = orderPositions(base.order, base.count);
+  const fromOf = (r: number) => graph.conductorFrom[runs.members[r]![0]!]!;
+  const at = (r: number) => (fromOf(r) >= 0 ? pos[fromOf(r)]! : -1);
+  const ordered = [...rs].sort((a, b) => at(a) - at(b) || a - b);
+  const facts: RunFacts[] = [];
+  let secondariesOf = state.walk.secondariesOf;
+  for (const r of ordered) {
+    const old = prev.verdicts[r]!.facts;
+    if (at(r) < 0) return 'a run is not reached from a supply';
+    if (old.conductorIds.length !== runs.members[r]!.length) return `${old.conductorIds[0]} is judged with the run it continues`;
+    facts[r] = runFactsOf(base, r, old.site);
+    const list = secondariesOf.get(fromOf(r));
+    if (list) {
+      // A transformer's primary reads the facts of its secondaries (240.21(B)(3)).
+      const k = list.indexOf(old);
+      if (k < 0) return 'a secondary run is judged with another';
+      if (secondariesOf === state.walk.secondariesOf) secondariesOf = new Map(secondariesOf);
+      (secondariesOf as Map<number, RunFacts[]>).set(fromOf(r), list.map((f, j) => (j === k ? facts[r]! : f)));
+    }
+  }
+  const walk: KeptWalk = { ...state.walk, secondariesOf };
+  const verdicts = prev.verdicts.slice();
+  rejudgeRuns({ ...base, facts }, walk, verdicts, ordered);
+  const reached: number[] = [];
+  for (const r of ordered) {
+    const a = prev.verdicts[r]!;
+    const b = verdicts[r]!;
+    const members = runs.members[r]!;
+    if (b.facts.conductorIds.length !== members.length) return `${a.facts.conductorIds[0]} is now judged with the run it continues`;
+    if (a.verdict === b.verdict && a.rule === b.rule && a.family === b.family && a.deviceNode === b.deviceNode && a.generatorNode === b.generatorNode) continue;
+    // A new verdict reaches what is supplied through the run (judged again here only when it is in `rs`) and the studies' list of taps.
+    if (a.deviceNode !== b.deviceNode || a.generatorNode !== b.generatorNode) return `the device ${a.facts.conductorIds[0]} is judged against changed`;
+    if (WITHSTAND_VERDICT.test(a.verdict) !== WITHSTAND_VERDICT.test(b.verdict)) return `${a.facts.conductorIds[0]} became ${b.verdict} from ${a.verdict} (the studies' list of taps)`;
+    const end = graph.conductorTo[members[members.length - 1]!]!;
+    if (end >= 0) for (const v of suppliedThrough(graph, end, false)) for (const e of graph.outEdges[v]!) if (e >= 0 && !rs.has(runs.runOf[e]!)) reached.push(runs.runOf[e]!);
+  }
+  if (reached.length > 0) return { reached };
+  const fixes = prev.fixes.slice();
+  const ctx: FixedContext = { ...base, verdicts, fixes };
+  for (const r of ordered) fixes[r] = fixesOfRun(ctx, r);
+  return { ctx, walk, runs: ordered };
+}
+
+/**
+ * Node `u` and the nodes bus-linked from it that take their supply from the same point (the
+ * classifier's nodeSupply): through equipment that is not itself a source, an OCPD or a transformer
+ * (`u` itself may be one when `fromSource`).
+ */
+function suppliedThrough(g: Graph, u: number, fromSource: boolean): number[] {
+  const out = [u];
+  for (let k = 0; k < out.length && out.length <= g.nodes.length; k++) {
+    const v = out[k]!;
+    if ((k > 0 || !fromSource) && SUPPLY_KINDS.has(g.nodes[v]!.kind)) continue;
+    for (const e of g.outEdges[v]!) if (e < 0 && g.linkTo[-e - 1]! >= 0) out.push(g.linkTo[-e - 1]!);
+  }
+  return out;
+}
+
+/** Equipment that starts a supply of its own for what it feeds (classify.ts SOURCE_KINDS). */
+const SUPPLY_KINDS: ReadonlySet<string> = new Set(['utility', 'generator', 'transformer', 'breaker', 'fuse']);
+
+/** What an edit moved besides the runs judged again: voltage drops, panelboards. */
+interface Moved {
+  conductorMoved?: Uint8Array;
+  nodeMoved?: Uint8Array;
+  panelboards?: readonly number[];
+}
+
+/** The state and report after `judged`: the runs' findings and report lines, the transformers they feed, the panelboards and drops that moved. */
+function reported(state: AnalysisState, judged: Rejudged, moved: Moved, studies: NonNullable<AnalysisReport['studies']>): AnalysisState {
+  const { ctx, walk } = judged;
+  const { graph, runs } = ctx;
+  const own = new Map<number, Finding[]>();
+  const transformers = new Set<number>();
+  for (const r of judged.runs) {
+    const members = runs.members[r]!;
+    for (const ci of members) {
+      own.set(ci, []);
+      conductorFindingsOf(ctx, ci, own.get(ci)!);
+    }
+    const end = graph.conductorTo[members[members.length - 1]!]!;
+    if (end >= 0 && graph.nodes[end]!.kind === 'transformer') transformers.add(end);
+  }
+  const conductorMoved = moved.conductorMoved ?? new Uint8Array(graph.conductors.length);
+  const nodeMoved = moved.nodeMoved ?? new Uint8Array(graph.nodes.length);
+  const { findings, conductorFindingStart, studyFindingStart } = spliceFindings(state, ctx, own, conductorMoved, nodeMoved, { transformers, panelboards: moved.panelboards ?? [] });
+
+  // Report lines: the runs', and those whose voltage-drop warning came or went.
+  const old = state.report;
+  const lines = new Set(own.keys());
+  const index = conductorIndexOf(state);
+  for (const [list, from] of [[old.findings, state.studyFindingStart], [findings, studyFindingStart]] as const) {
+    for (let k = from; k < list.length; k++) {
+      const f = list[k]!;
+      if (f.ruleId === voltageDropRule.id && f.subject.kind === 'conductor') lines.add(index.get(f.subject.id)!);
+    }
+  }
+  const ids = findingIdsByConductor(findings, chainLookup(state, ctx.verdicts));
+  const conductors = old.conductors.slice();
+  for (const ci of lines) conductors[ci] = conductorReport(ctx, ci, ids.get(graph.conductors[ci]!.id));
+  const byVerdict = { ...old.counts.byVerdict };
+  for (const ci of own.keys()) {
+    byVerdict[old.conductors[ci]!.verdict]--;
+    byVerdict[conductors[ci]!.verdict]++;
+  }
+  const report: AnalysisReport = { ...old, conductors, findings, studies, counts: { ...old.counts, byVerdict, bySeverity: countsOf([], findings).bySeverity } };
+  return { ctx, studies: { ...state.studies, report: studies }, walk, conductorFindingStart, studyFindingStart, report };
 }
 
 /**
@@ -347,7 +492,14 @@ function verdictMoved(g: Graph, before: RunVerdict, after: RunVerdict): string |
  * as conductorFindingsOf writes them) replaced and the voltage-drop warnings of the conductors and
  * nodes marked as moved judged again; where each conductor's section and the studies' findings now start.
  */
-function spliceFindings(state: AnalysisState, ctx: FixedContext, own: ReadonlyMap<number, Finding[]>, conductorMoved: Uint8Array, nodeMoved: Uint8Array): Pick<AnalysisState, 'conductorFindingStart' | 'studyFindingStart'> & { findings: Finding[] } {
+function spliceFindings(
+  state: AnalysisState,
+  ctx: FixedContext,
+  own: ReadonlyMap<number, Finding[]>,
+  conductorMoved: Uint8Array,
+  nodeMoved: Uint8Array,
+  equipment: { transformers: ReadonlySet<number>; panelboards: readonly number[] } = { transformers: new Set(), panelboards: [] },
+): Pick<AnalysisState, 'conductorFindingStart' | 'studyFindingStart'> & { findings: Finding[] } {
   const old = state.report.findings;
   const start = state.conductorFindingStart;
   const m = ctx.graph.conductors.length;
@@ -365,12 +517,56 @@ function spliceFindings(state: AnalysisState, ctx: FixedContext, own: ReadonlyMa
       for (let k = ci + 1; k <= m; k++) conductorFindingStart[k] = start[k]! + delta;
     }
   }
-  for (let k = from; k < state.studyFindingStart; k++) findings.push(old[k]!);
+  const equipmentStart = equipment.transformers.size === 0 && equipment.panelboards.length === 0 ? state.studyFindingStart : start[m]!;
+  for (let k = from; k < equipmentStart; k++) findings.push(old[k]!);
+  if (equipmentStart < state.studyFindingStart || equipmentStart === start[m]) for (const f of equipmentSection(ctx, conductorIndexOf(state), old.slice(equipmentStart, state.studyFindingStart), equipment.transformers, equipment.panelboards)) findings.push(f);
   const studyFindingStart = findings.length;
   const { fault, drop } = state.studies;
   const studyFindings = redoDropFindings(ctx.project, ctx.graph, fault, drop, old.slice(state.studyFindingStart), conductorMoved, nodeMoved, conductorIndexOf(state));
   for (const f of studyFindings) findings.push(f);
   return { findings, conductorFindingStart, studyFindingStart };
+}
+
+/**
+ * The equipment and network findings (what comes between the conductors' and the studies') with the
+ * Table 450.3(B) findings of `transformers` and the 408.36 findings of `panelboards` judged again,
+ * in the order a full run writes them: transformers by the first run that ends at them, panelboards
+ * by node, then the network's shape.
+ */
+function equipmentSection(ctx: FixedContext, index: ReadonlyMap<string, number>, section: readonly Finding[], transformers: ReadonlySet<number>, panelboards: readonly number[]): Finding[] {
+  const { graph: g, runs, verdicts } = ctx;
+  // A full run meets a verdict first at its first run (runs judged as one share it).
+  const firstRunOf = (verdict: RunVerdict) => runs.runOf[index.get(verdict.facts.conductorIds[0]!)!]!;
+  const firstRunInto = (v: number) => Math.min(...g.inEdges[v]!.map((e) => (e >= 0 ? firstRunOf(verdicts[runs.runOf[e]!]!) : Number.POSITIVE_INFINITY)));
+  const txs: [number, Finding][] = [];
+  const panels: [number, Finding][] = [];
+  const rest: Finding[] = [];
+  const redone = new Set(panelboards);
+  for (const f of section) {
+    const v = f.subject.kind === 'node' ? g.nodeIndex.get(f.subject.id)! : -1;
+    if (f.ruleId === transformerProtection.id) {
+      if (!transformers.has(v)) txs.push([firstRunInto(v), f]);
+    } else if (f.ruleId === panelboardProtection.id) {
+      if (!redone.has(v)) panels.push([v, f]);
+    } else rest.push(f);
+  }
+  for (const v of transformers) {
+    const seen = new Set<RunVerdict>();
+    for (const e of g.inEdges[v]!) {
+      if (e < 0 || seen.has(verdicts[runs.runOf[e]!]!)) continue;
+      const verdict = verdicts[runs.runOf[e]!]!;
+      seen.add(verdict);
+      const out: Finding[] = [];
+      transformerFindingOf(ctx, verdict, out);
+      for (const f of out) txs.push([firstRunOf(verdict), f]);
+    }
+  }
+  for (const v of redone) {
+    const f = panelboardFindingOf(ctx, v);
+    if (f) panels.push([v, f]);
+  }
+  const byKey = (a: [number, Finding], b: [number, Finding]) => a[0] - b[0];
+  return [...txs.sort(byKey).map((x) => x[1]), ...panels.sort(byKey).map((x) => x[1]), ...rest];
 }
 
 /** The conductors judged as one run whose first conductor is `id` (as conductorReports finds them), from the run of that conductor. */

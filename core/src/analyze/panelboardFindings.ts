@@ -13,34 +13,38 @@ const MAX_WALK = 10_000;
 
 /** Stage: 408.36 on every panelboard: the OCPD in it or on its supply side, not above its rating. */
 export function panelboardFindings(ctx: AnalysisContext): Finding[] {
-  const { graph: g, edition } = ctx;
   const out: Finding[] = [];
-  for (let v = 0; v < g.nodes.length; v++) {
-    const n = g.nodes[v]!;
-    if (n.kind !== 'bus' || n.busType !== 'panelboard' || g.inEdges[v]!.length !== 1 || ctx.onCycle[v]) continue;
-    const facts = panelboardFacts(g, v, edition);
-    if (!facts) continue;
-    const t = runRule(panelboardProtection, facts);
-    if (t.outcome !== 'fails') continue;
-    const mainA = facts.ratingA === null ? null : largestStandardRatingAtMost(facts.ratingA, edition, 'breaker');
-    const fixes: Fix[] =
-      mainA === null ? [] : [{ kind: 'add-main', busId: n.id, ratingA: mainA, label: `Add a ${mainA} A main breaker in ${facts.label}: it then protects the panelboard at no more than its ${facts.ratingA} A rating (408.36).` }];
-    const related: ElementRef[] = facts.device ? [{ kind: 'node', id: facts.device.id }] : [];
-    if (facts.transformer) related.push({ kind: 'node', id: facts.transformer.id });
-    out.push(
-      finding({
-        ruleId: panelboardProtection.id,
-        messageId: t.conditions.some((c) => c.id === 'device' && c.status === 'fail') ? 'no-device' : 'over-rating',
-        severity: 'violation',
-        cites: t.cites,
-        subject: { kind: 'node', id: n.id },
-        related,
-        fixes,
-        message: `Panelboard ${facts.label}: ${failedTexts(t).join(' ')} Fails ${t.cites.section}.`,
-      }),
-    );
+  for (let v = 0; v < ctx.graph.nodes.length; v++) {
+    const f = panelboardFindingOf(ctx, v);
+    if (f) out.push(f);
   }
   return out;
+}
+
+/** The 408.36 finding of node `v`, or null when it is not a panelboard fed once or its protection passes. */
+export function panelboardFindingOf(ctx: Pick<AnalysisContext, 'graph' | 'edition' | 'onCycle'>, v: number): Finding | null {
+  const { graph: g, edition } = ctx;
+  const n = g.nodes[v]!;
+  if (n.kind !== 'bus' || n.busType !== 'panelboard' || g.inEdges[v]!.length !== 1 || ctx.onCycle[v]) return null;
+  const facts = panelboardFacts(g, v, edition);
+  if (!facts) return null;
+  const t = runRule(panelboardProtection, facts);
+  if (t.outcome !== 'fails') return null;
+  const mainA = facts.ratingA === null ? null : largestStandardRatingAtMost(facts.ratingA, edition, 'breaker');
+  const fixes: Fix[] =
+    mainA === null ? [] : [{ kind: 'add-main', busId: n.id, ratingA: mainA, label: `Add a ${mainA} A main breaker in ${facts.label}: it then protects the panelboard at no more than its ${facts.ratingA} A rating (408.36).` }];
+  const related: ElementRef[] = facts.device ? [{ kind: 'node', id: facts.device.id }] : [];
+  if (facts.transformer) related.push({ kind: 'node', id: facts.transformer.id });
+  return finding({
+    ruleId: panelboardProtection.id,
+    messageId: t.conditions.some((c) => c.id === 'device' && c.status === 'fail') ? 'no-device' : 'over-rating',
+    severity: 'violation',
+    cites: t.cites,
+    subject: { kind: 'node', id: n.id },
+    related,
+    fixes,
+    message: `Panelboard ${facts.label}: ${failedTexts(t).join(' ')} Fails ${t.cites.section}.`,
+  });
 }
 
 /** Walks up from a panelboard bus to the first OCPD (a main when bus-linked straight into it), noting a transformer passed. */

@@ -101,3 +101,15 @@ export function topologicalOrder(g: Graph): { order: Int32Array; count: number; 
   for (let i = 0; i < n; i++) if (indegree[i]! > 0) onCycle[i] = 1;
   return { order, count: tail, onCycle };
 }
+
+/** Each node's position in a supply-to-load order (-1 when not reached), built once per order array. */
+const positions = new WeakMap<Int32Array, Int32Array>();
+export function orderPositions(order: Int32Array, count: number): Int32Array {
+  let pos = positions.get(order);
+  if (!pos) {
+    pos = new Int32Array(order.length).fill(-1);
+    for (let k = 0; k < count; k++) pos[order[k]!] = k;
+    positions.set(order, pos);
+  }
+  return pos;
+}

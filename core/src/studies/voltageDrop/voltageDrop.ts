@@ -1,6 +1,6 @@
 import type { ConductorCircuit } from '../../analyze/circuits';
 import type { SystemLoads } from '../../analyze/loads';
-import type { Graph } from '../../topology/graph';
+import { orderPositions, type Graph } from '../../topology/graph';
 
 /**
  * Voltage drop per conductor and cumulative from the source to every load,
@@ -190,18 +190,6 @@ function dropOf(g: Graph, inp: VoltageDropInputs, drop: VoltageDropStudy, c: num
   drop.pct[c] = dropPct(g, inp, c, amps, pf, three, volts);
 }
 
-/** Position of each node in the supply-to-load order, built once per order. */
-const positions = new WeakMap<Int32Array, Int32Array>();
-function positionsOf(order: Int32Array, count: number): Int32Array {
-  let pos = positions.get(order);
-  if (!pos) {
-    pos = new Int32Array(order.length).fill(-1);
-    for (let k = 0; k < count; k++) pos[order[k]!] = k;
-    positions.set(order, pos);
-  }
-  return pos;
-}
-
 /**
  * The drops again after the loads at and below the nodes of `path` changed (a supply path, load end
  * first, every node on the supply tree; see analyze/incremental.ts): the power at each of its nodes
@@ -212,7 +200,7 @@ function positionsOf(order: Int32Array, count: number): Int32Array {
  */
 export function redropPath(g: Graph, drop: VoltageDropStudy, inp: VoltageDropInputs, path: readonly number[], conductorMoved: Uint8Array, nodeMoved: Uint8Array): void {
   const { parent, parentEdge, order, count } = inp;
-  const pos = positionsOf(order, count);
+  const pos = orderPositions(order, count);
   const { p, q, totalPct, circuitPct } = drop;
   for (const v of path) {
     const below: number[] = [];
