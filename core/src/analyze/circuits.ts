@@ -1,5 +1,5 @@
-import type { Conductor, EquipmentNode } from '../model/schema';
-import { edgeTo, type Graph } from '../topology/graph';
+import type { Conductor, EquipmentNode, NodeOfKind } from '../model/schema';
+import { edgeTo, KIND, type Graph } from '../topology/graph';
 import { loadConnection, type SystemLoads } from './loads';
 
 /**
@@ -124,11 +124,10 @@ export function networkSystems(g: Graph, order: Int32Array, count: number, loads
   const service = new Uint8Array(n);
   for (let k = 0; k < count; k++) {
     const v = order[k]!;
-    const node = g.nodes[v]!;
-    const own = sourceSystem(node);
-    if (own) {
-      at[v] = own;
-      service[v] = node.kind === 'utility' ? 1 : 0;
+    const kind = g.nodeKind[v]!;
+    if (kind === KIND.utility || kind === KIND.generator || kind === KIND.transformer) {
+      at[v] = sourceSystem(g.nodes[v]!)!;
+      service[v] = kind === KIND.utility ? 1 : 0;
       continue;
     }
     const ins = g.inEdges[v]!;
@@ -137,20 +136,20 @@ export function networkSystems(g: Graph, order: Int32Array, count: number, loads
     const u = e >= 0 ? g.conductorFrom[e]! : g.linkFrom[-e - 1]!;
     if (u < 0) continue;
     at[v] = at[u]!;
-    service[v] = node.kind === 'splice' || node.kind === 'disconnect' ? service[u]! : 0;
+    service[v] = kind === KIND.splice || kind === KIND.disconnect ? service[u]! : 0;
   }
   // Bit flags, so a node reached along several paths is still counted once per kind.
   const bits = new Uint8Array(n);
   for (let k = count - 1; k >= 0; k--) {
     const v = order[k]!;
-    const node = g.nodes[v]!;
-    if (node.kind === 'transformer') {
+    const kind = g.nodeKind[v]!;
+    if (kind === KIND.transformer) {
       // One load of its own phases to the system ahead of it; what it serves is another system.
-      bits[v] = node.phases === 1 ? LL : THREE;
+      bits[v] = (g.nodes[v] as NodeOfKind<'transformer'>).phases === 1 ? LL : THREE;
       continue;
     }
-    if (node.kind === 'load') bits[v]! |= loadBits(node, loads.voltsLL[v]!, loads.phases[v]!, loads.voltsLN[v]!, at[v]!);
-    else if (node.kind === 'bus') bits[v]! |= DISTRIBUTION;
+    if (kind === KIND.load) bits[v]! |= loadBits(g.nodes[v] as NodeOfKind<'load'>, loads.voltsLL[v]!, loads.phases[v]!, loads.voltsLN[v]!, at[v]!);
+    else if (kind === KIND.bus) bits[v]! |= DISTRIBUTION;
     const outs = g.outEdges[v]!;
     for (let i = 0; i < outs.length; i++) {
       const e = outs[i]!;

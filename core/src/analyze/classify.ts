@@ -1,7 +1,7 @@
 import { runRule, type Rule } from '../rules/define';
 import type { RunFacts } from '../rules/facts';
 import { FEEDER_TAP_RULES, OWN_ARTICLE_RULES, PROTECTION_RULES, SECONDARY_RULES, generatorRule, serviceRule, tapFromTap, tapTransformer } from '../rules/index';
-import { edgeFrom, type Graph } from '../topology/graph';
+import { edgeFrom, KIND, type Graph } from '../topology/graph';
 import { isJoint } from '../topology/runs';
 import { joinFacts } from './runFacts';
 import type { FactsContext } from './context';
@@ -33,7 +33,6 @@ export interface RunVerdict {
   candidates: readonly Rule[];
 }
 
-const SOURCE_KINDS = new Set(['utility', 'generator', 'transformer', 'breaker', 'fuse']);
 const FED_BY_OCPD_RULES: readonly Rule[] = [...PROTECTION_RULES, ...FEEDER_TAP_RULES];
 
 /** The state of one classification pass: what each node is supplied by and each run's verdict so far. */
@@ -154,8 +153,9 @@ function secondariesByTransformer(ctx: FactsContext): Map<number, RunFacts[]> {
 }
 
 function supplyAt(walk: Walk, v: number): Supply {
-  const kind = walk.ctx.graph.nodes[v]!.kind;
-  if (SOURCE_KINDS.has(kind)) {
+  const code = walk.ctx.graph.nodeKind[v]!;
+  if (code === KIND.breaker || code === KIND.fuse || code === KIND.utility || code === KIND.generator || code === KIND.transformer) {
+    const kind = walk.ctx.graph.nodes[v]!.kind;
     return (walk.sources[v] ??= { kind: kind === 'breaker' || kind === 'fuse' ? 'ocpd' : (kind as 'utility' | 'generator' | 'transformer'), node: v });
   }
   return walk.nodeSupply[v]!;
@@ -381,8 +381,8 @@ function ocpdBelow(g: Graph, order: Int32Array, count: number): Uint8Array {
     for (let i = 0; i < outs.length; i++) {
       const e = outs[i]!;
       const w = e >= 0 ? g.conductorTo[e]! : g.linkTo[-e - 1]!;
-      const n = g.nodes[w]!;
-      if (below[w] || isOcpd(n) || n.kind === 'transformer') {
+      const kind = g.nodeKind[w]!;
+      if (below[w] || kind === KIND.breaker || kind === KIND.fuse || kind === KIND.transformer) {
         below[v] = 1;
         break;
       }

@@ -1,6 +1,6 @@
 import type { NodeOfKind } from '../model/schema';
 import { motorTableFlcA, type MotorType } from '../tables/motor';
-import { edgeFrom, edgeTo, type Graph } from '../topology/graph';
+import { edgeFrom, edgeTo, KIND, type Graph } from '../topology/graph';
 
 /**
  * System voltage at every node (from its source, changed by transformers) and
@@ -64,13 +64,15 @@ export function rollUpLoads(g: Graph, order: Int32Array, count: number): SystemL
   const phases = new Uint8Array(n);
   for (let k = 0; k < count; k++) {
     const v = order[k]!;
-    const node = g.nodes[v]!;
-    if (node.kind === 'utility' || node.kind === 'generator') {
+    const kind = g.nodeKind[v]!;
+    if (kind === KIND.utility || kind === KIND.generator) {
+      const node = g.nodes[v] as NodeOfKind<'utility' | 'generator'>;
       voltsLL[v] = node.voltsLL;
       phases[v] = node.phases;
       // A source is taken as having its neutral: 480Y/277, 208Y/120, 120/240 (common practice).
       voltsLN[v] = node.phases === 3 ? Math.round(node.voltsLL / Math.sqrt(3)) : node.voltsLL / 2;
-    } else if (node.kind === 'transformer') {
+    } else if (kind === KIND.transformer) {
+      const node = g.nodes[v] as NodeOfKind<'transformer'>;
       voltsLL[v] = node.secondaryVoltsLL;
       phases[v] = node.phases;
       voltsLN[v] = secondaryNeutralV(node);
@@ -108,7 +110,7 @@ export function rollUpLoads(g: Graph, order: Int32Array, count: number): SystemL
   const s: SystemLoads = { voltsLL, phases, voltsLN, vaNoncontinuous, vaContinuous, largestMotorVA, singleA, singleCalcA, unknown, onlyLoad, loadCircuits };
   for (let k = count - 1; k >= 0; k--) {
     const v = order[k]!;
-    if (g.nodes[v]!.kind === 'load') {
+    if (g.nodeKind[v] === KIND.load) {
       loadCount[v] = 1;
       onlyLoad[v] = v;
     }
@@ -132,11 +134,11 @@ export function rollUpLoads(g: Graph, order: Int32Array, count: number): SystemL
  */
 export function rollUpAt(g: Graph, s: SystemLoads, v: number): void {
   const { vaNoncontinuous, vaContinuous, largestMotorVA, singleA, singleCalcA, unknown } = s;
-  const node = g.nodes[v]!;
+  const kind = g.nodeKind[v]!;
   vaNoncontinuous[v] = vaContinuous[v] = largestMotorVA[v] = singleA[v] = singleCalcA[v] = 0;
   unknown[v] = 0;
-  if (node.kind === 'load') {
-    const c = loadCircuit(node, s.voltsLL[v]!, s.phases[v]!, s.voltsLN[v]!);
+  if (kind === KIND.load) {
+    const c = loadCircuit(g.nodes[v] as NodeOfKind<'load'>, s.voltsLL[v]!, s.phases[v]!, s.voltsLN[v]!);
     s.loadCircuits[v] = c;
     if (c === null) unknown[v] = 1;
     else {
@@ -147,8 +149,9 @@ export function rollUpAt(g: Graph, s: SystemLoads, v: number): void {
       singleCalcA[v] = c.lineA * (c.continuous || c.motor ? 1.25 : 1);
     }
   }
-  for (const e of g.outEdges[v]!) {
-    const w = edgeTo(g, e);
+  const outs = g.outEdges[v]!;
+  for (let i = 0; i < outs.length; i++) {
+    const w = edgeTo(g, outs[i]!);
     vaNoncontinuous[v] = vaNoncontinuous[v]! + vaNoncontinuous[w]!;
     vaContinuous[v] = vaContinuous[v]! + vaContinuous[w]!;
     if (largestMotorVA[w]! > largestMotorVA[v]!) largestMotorVA[v] = largestMotorVA[w]!;
@@ -156,7 +159,7 @@ export function rollUpAt(g: Graph, s: SystemLoads, v: number): void {
     if (singleCalcA[w]! > singleCalcA[v]!) singleCalcA[v] = singleCalcA[w]!;
     unknown[v] = unknown[v]! | unknown[w]!;
   }
-  if (node.kind === 'transformer') toPrimary(s, node, v);
+  if (kind === KIND.transformer) toPrimary(s, g.nodes[v] as NodeOfKind<'transformer'>, v);
 }
 
 /**

@@ -12,7 +12,7 @@ import { conductorAreaCmil } from '../tables/conductorProperties';
 import { finalTempC, withstandAreaCmil, withstandConstant, withstandTimeS } from '../tables/conductorWithstand';
 import { insulationRating } from '../tables/insulation';
 import { SIZE_INDEX_14 } from '../tables/sizes';
-import type { Graph } from '../topology/graph';
+import { KIND, type Graph } from '../topology/graph';
 import { studyFaultCurrent, type FaultStudy } from './faultCurrent/faultCurrent';
 import type { ConductorDrop, NodeFault, ServiceMarking, StudiesReport, WithstandResult } from './types';
 import { studyVoltageDrop, type VoltageDropInputs, type VoltageDropStudy } from './voltageDrop/voltageDrop';
@@ -260,9 +260,9 @@ function circuitDropFinding(edition: CodeEdition, g: Graph, fault: FaultStudy, d
 
 /** The 5 % warning of load node `v` (null when it passes, is not a load or has no figure). */
 function totalDropFinding(edition: CodeEdition, g: Graph, drop: VoltageDropStudy, v: number, limitPct: number): Finding | null {
-  const node = g.nodes[v]!;
   const total = drop.totalPct[v]!;
-  if (node.kind !== 'load' || !over(total, limitPct)) return null;
+  if (g.nodeKind[v] !== KIND.load || !over(total, limitPct)) return null;
+  const node = g.nodes[v]!;
   return studyFinding(edition, voltageDropRule, 'warning', { kind: 'node', id: node.id }, voltageDropRule.check({ edition, scope: 'total', subject: `Load ${label(node)}`, pct: total, limitPct }));
 }
 
@@ -371,13 +371,15 @@ export function smallestWithstandSize(_material: Material, sets: number, current
 function serviceMarkings(project: Project, g: Graph, f: FaultStudy): ServiceMarking[] {
   const out: ServiceMarking[] = [];
   const date = project.project.faultStudyDate ?? null;
+  const kinds = g.nodeKind;
   for (let v = 0; v < g.nodes.length; v++) {
-    const node = g.nodes[v]!;
-    if (node.kind === 'utility' || node.kind === 'splice' || node.kind === 'load' || node.kind === 'transformer' || node.kind === 'generator') continue;
+    const kind = kinds[v]!;
+    if (kind === KIND.utility || kind === KIND.splice || kind === KIND.load || kind === KIND.transformer || kind === KIND.generator) continue;
     let u = f.parent[v]!;
     if (u < 0 || f.parentEdge[v]! < 0) continue;
-    while (u >= 0 && g.nodes[u]!.kind === 'splice') u = f.parent[u]!;
-    if (u < 0 || g.nodes[u]!.kind !== 'utility') continue;
+    while (u >= 0 && kinds[u] === KIND.splice) u = f.parent[u]!;
+    if (u < 0 || kinds[u] !== KIND.utility) continue;
+    const node = g.nodes[v]!;
     out.push({ nodeId: node.id, label: label(node), kA: Number.isNaN(f.kA[v]!) ? null : f.kA[v]!, upperBound: f.upperBound[v] === 1, date });
   }
   return out;

@@ -1,5 +1,5 @@
 import { nodeIndexOf } from '../model/nodeIndex';
-import type { BusLink, Conductor, EquipmentNode, Project } from '../model/schema';
+import { EQUIPMENT_KINDS, type BusLink, type Conductor, type EquipmentKind, type EquipmentNode, type Project } from '../model/schema';
 
 /**
  * The project as arrays indexed by position, built once in linear time.
@@ -11,6 +11,12 @@ export interface Graph {
   conductors: readonly Conductor[];
   links: readonly BusLink[];
   nodeIndex: ReadonlyMap<string, number>;
+  /**
+   * Each node's kind as a small integer (`KIND`), read once here in file order: the passes in
+   * supply-to-load order that need nothing else of most nodes test this instead of reaching each
+   * node object (a cache miss on a large drawing, and a property read of many shapes).
+   */
+  nodeKind: Uint8Array;
   /** Edges arriving at each node (its supply side). */
   inEdges: readonly number[][];
   /** Edges leaving each node (its load side). */
@@ -44,8 +50,14 @@ export function buildGraph(project: Project): Graph {
   // about one list per edge, not two per node.
   const inEdges = edgeLists(nodes.length, conductorTo, linkTo);
   const outEdges = edgeLists(nodes.length, conductorFrom, linkFrom);
-  return { nodes, conductors, links, nodeIndex, inEdges, outEdges, conductorFrom, conductorTo, linkFrom, linkTo };
+  const nodeKind = new Uint8Array(nodes.length);
+  for (let i = 0; i < nodes.length; i++) nodeKind[i] = KIND[nodes[i]!.kind] ?? UNKNOWN_KIND;
+  return { nodes, conductors, links, nodeIndex, nodeKind, inEdges, outEdges, conductorFrom, conductorTo, linkFrom, linkTo };
 }
+
+/** Equipment kinds as small integers (Graph.nodeKind); a kind the schema does not know (an unchecked project) reads UNKNOWN_KIND. */
+export const UNKNOWN_KIND = 255;
+export const KIND: Readonly<Record<EquipmentKind, number>> = Object.freeze(Object.fromEntries(EQUIPMENT_KINDS.map((k, i) => [k, i])) as Record<EquipmentKind, number>);
 
 /** Not frozen: a frozen array has another shape, and every loop over the lists would then see two. */
 const NO_EDGES: readonly number[] = [];

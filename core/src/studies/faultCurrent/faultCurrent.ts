@@ -1,4 +1,4 @@
-import type { Conductor, EquipmentNode } from '../../model/schema';
+import type { Conductor, EquipmentNode, NodeOfKind } from '../../model/schema';
 import { racewayColumn, table9ROhmPerKft, table9XOhmPerKft } from '../../tables/chapter9Table9';
 import {
   TYPICAL_GENERATOR_XDPP_PU,
@@ -6,7 +6,12 @@ import {
   TYPICAL_UTILITY_X_OVER_R,
   typicalTransformerXOverR,
 } from '../../tables/sourceImpedance';
-import { edgeFrom, type Graph } from '../../topology/graph';
+import { edgeFrom, KIND, type Graph } from '../../topology/graph';
+
+const UTILITY = KIND.utility;
+const GENERATOR = KIND.generator;
+const TRANSFORMER = KIND.transformer;
+const LOAD = KIND.load;
 
 /**
  * Available short-circuit current at every node: the ohmic method with
@@ -97,8 +102,9 @@ export function studyFaultCurrent(g: Graph, order: Int32Array, count: number): F
 
   for (let k = 0; k < count; k++) {
     const v = order[k]!;
-    const node = g.nodes[v]!;
-    if (node.kind === 'utility' || node.kind === 'generator') {
+    const kind = g.nodeKind[v]!;
+    if (kind === UTILITY || kind === GENERATOR) {
+      const node = g.nodes[v] as NodeOfKind<'utility' | 'generator'>;
       const s = sourceImpedance(node);
       voltsLL[v] = node.voltsLL;
       loop[v] = node.phases === 1 ? 1 : 0;
@@ -116,7 +122,8 @@ export function studyFaultCurrent(g: Graph, order: Int32Array, count: number): F
     }
     const ins = g.inEdges[v]!;
     if (ins.length !== 1) {
-      unknownWhy[v] = ins.length === 0 ? `nothing supplies ${node.id}` : `${node.id} is fed from ${ins.length} supplies`;
+      const id = g.nodes[v]!.id;
+      unknownWhy[v] = ins.length === 0 ? `nothing supplies ${id}` : `${id} is fed from ${ins.length} supplies`;
       continue;
     }
     const e = ins[0]!;
@@ -129,7 +136,8 @@ export function studyFaultCurrent(g: Graph, order: Int32Array, count: number): F
     infinite[v] = infinite[u]!;
     unknownWhy[v] = unknownWhy[u]!;
     atTerminals[v] = e < 0 ? atTerminals[u]! : 0;
-    const isLoop = loopAt(node, loop[u]!);
+    // Only a transformer or a load can start a single-phase loop: no other node object is read here.
+    const isLoop = kind === TRANSFORMER || kind === LOAD ? loopAt(g.nodes[v]!, loop[u]!) : loop[u]!;
     let ru = seenFrom(r[u]!, isLoop, loop[u]!);
     let xu = seenFrom(x[u]!, isLoop, loop[u]!);
     loop[v] = isLoop;
@@ -148,7 +156,8 @@ export function studyFaultCurrent(g: Graph, order: Int32Array, count: number): F
         dx = xOhmPerKft[e]! * factor;
       }
     }
-    if (node.kind === 'transformer') {
+    if (kind === TRANSFORMER) {
+      const node = g.nodes[v] as NodeOfKind<'transformer'>;
       const ratio = node.secondaryVoltsLL / node.primaryVoltsLL;
       // The primary conductor is referred with the rest of the primary side.
       ru = (ru + dr) * ratio * ratio;

@@ -1,6 +1,7 @@
 import type { ConductorCircuit } from '../../analyze/circuits';
 import type { SystemLoads } from '../../analyze/loads';
-import { orderPositions, type Graph } from '../../topology/graph';
+import type { NodeOfKind } from '../../model/schema';
+import { KIND, orderPositions, type Graph } from '../../topology/graph';
 
 /**
  * Voltage drop per conductor and cumulative from the source to every load,
@@ -93,16 +94,16 @@ function dropPct(g: Graph, inp: Pick<VoltageDropInputs, 'rOhmPerKft' | 'xOhmPerK
 function arriveAt(g: Graph, inp: Pick<VoltageDropInputs, 'parent' | 'parentEdge'>, pct: Float64Array, totalPct: Float64Array, circuitPct: Float64Array, v: number): void {
   const u = inp.parent[v]!;
   if (u < 0) {
-    const kind = g.nodes[v]!.kind;
-    if (kind === 'utility' || kind === 'generator') totalPct[v] = circuitPct[v] = 0;
+    const kind = g.nodeKind[v]!;
+    if (kind === KIND.utility || kind === KIND.generator) totalPct[v] = circuitPct[v] = 0;
     return;
   }
   const e = inp.parentEdge[v]!;
   const d = e >= 0 ? pct[e]! : 0;
-  const up = g.nodes[u]!.kind;
-  const newSystem = up === 'utility' || up === 'generator' || up === 'transformer';
+  const up = g.nodeKind[u]!;
+  const newSystem = up === KIND.utility || up === KIND.generator || up === KIND.transformer;
   totalPct[v] = (newSystem ? 0 : totalPct[u]!) + d;
-  circuitPct[v] = (newSystem || up === 'breaker' || up === 'fuse' ? 0 : circuitPct[u]!) + d;
+  circuitPct[v] = (newSystem || up === KIND.breaker || up === KIND.fuse ? 0 : circuitPct[u]!) + d;
 }
 
 /**
@@ -164,11 +165,10 @@ export function studyVoltageDrop(g: Graph, inp: VoltageDropInputs): VoltageDropS
 
 /** A load node's own real and reactive power added at `v`; false for a load without a known circuit. */
 function addOwnPower(g: Graph, loadCircuits: VoltageDropInputs['loads']['loadCircuits'], p: Float64Array, q: Float64Array, v: number): boolean {
-  const node = g.nodes[v]!;
-  if (node.kind !== 'load') return true;
+  if (g.nodeKind[v] !== KIND.load) return true;
   const lc = loadCircuits[v];
   if (!lc) return false;
-  const pf = node.powerFactor;
+  const pf = (g.nodes[v] as NodeOfKind<'load'>).powerFactor;
   p[v] = p[v]! + lc.va * pf;
   q[v] = q[v]! + lc.va * Math.sqrt(1 - pf * pf);
   return true;
