@@ -1,7 +1,7 @@
-import { memo, useCallback, useEffect, useMemo, useRef } from 'react';
+import { memo, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import {
   Background, BackgroundVariant, ConnectionLineType, Controls, MiniMap, Panel, ReactFlow, useReactFlow, useStore, useStoreApi,
-  type Connection, type EdgeChange, type IsValidConnection, type NodeChange,
+  type Connection, type EdgeChange, type IsValidConnection, type NodeChange, type ReactFlowInstance,
 } from '@xyflow/react';
 import { StudyLayers } from '../studies/StudyLayers';
 import type { EquipmentKind } from '@linewright/core';
@@ -59,7 +59,10 @@ export const Canvas = memo(function Canvas() {
   const rf = useReactFlow<FlowNode, FlowEdge>();
   const wrapper = useRef<HTMLDivElement>(null);
   const far = useStore(isFar);
-  const overview = useStore(isOverviewZoom) && nodes.length + edges.length >= OVERVIEW_FROM;
+  // Set while a large drawing is framed whole: its elements wait hidden, so the frames between the old
+  // view and the fitted one never mount thousands of elements only to drop them for the overview.
+  const [fitting, setFitting] = useState(false);
+  const overview = (useStore(isOverviewZoom) || fitting) && nodes.length + edges.length >= OVERVIEW_FROM;
   const flowNodes = useMemo(() => (overview ? nodes.map(hidden) : nodes), [nodes, overview]);
   const flowEdges = useMemo(() => (overview ? edges.map(hidden) : edges), [edges, overview]);
   const flowStore = useStoreApi<FlowNode, FlowEdge>();
@@ -106,17 +109,28 @@ export const Canvas = memo(function Canvas() {
         });
       },
       fitAll: () => {
+        const { doc } = store.getState();
+        if (doc.nodes.length + doc.conductors.length + doc.busLinks.length >= OVERVIEW_FROM) setFitting(true);
         // Wait a frame so React Flow holds the newly committed nodes.
-        requestAnimationFrame(() => {
-          if (rf.getNodes().length === 0) void rf.setViewport({ x: 0, y: 0, zoom: 1 });
-          else void rf.fitView({ ...FIT_VIEW_OPTIONS, duration: 0 });
-        });
+        else requestAnimationFrame(() => void fitAll(rf));
       },
     };
     return () => {
       ctx.canvas = null;
     };
-  }, [ctx, rf]);
+  }, [ctx, rf, store]);
+
+  useEffect(() => {
+    if (!fitting) return;
+    // React Flow holds the hidden elements by now (its store updates in a child's effect, before this one).
+    const id = requestAnimationFrame(() => void fitAll(rf).finally(() => setFitting(false)));
+    // Whatever becomes of the fit, the elements do not stay hidden at a working zoom.
+    const giveUp = setTimeout(() => setFitting(false), 2000);
+    return () => {
+      cancelAnimationFrame(id);
+      clearTimeout(giveUp);
+    };
+  }, [fitting, rf]);
 
   useEffect(() => {
     if (!frameRequest) return;
@@ -253,6 +267,12 @@ export const Canvas = memo(function Canvas() {
     </div>
   );
 });
+
+/** Frames the whole drawing (an empty one at zoom 1). */
+function fitAll(rf: ReactFlowInstance<FlowNode, FlowEdge>): Promise<unknown> {
+  if (rf.getNodes().length === 0) return rf.setViewport({ x: 0, y: 0, zoom: 1 });
+  return rf.fitView({ ...FIT_VIEW_OPTIONS, duration: 0 });
+}
 
 function moveNodesChanged(nodes: readonly { id: string; position?: { x: number; y: number } }[], moved: Map<string, { x: number; y: number }>): boolean {
   for (const n of nodes) {
