@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { analyze } from '@linewright/core';
 import { FlowDeriver, conductorEdgeId } from '../../web/src/canvas/flowElements';
 import { conductorLook, nodeLook } from '../../web/src/canvas/looks';
-import { overviewLayout, overviewScene } from '../../web/src/canvas/overview';
+import { overviewLayout, overviewScene, sceneChanges } from '../../web/src/canvas/overview';
 import { replaceElement } from '../../web/src/editor/commands';
 import { drawTap, harness } from './harness';
 
@@ -115,5 +115,26 @@ describe('the overview far out', () => {
     expect([...scene.badges.values()].flat()).toHaveLength(3);
     const flagged = new Set(s.report!.findings.filter((f) => f.subject.kind === 'node').map((f) => (f.subject as { id: string }).id));
     expect(scene.flags).toHaveLength(flagged.size);
+  });
+
+  it('after a check, only where a verdict or a flag moved is drawn again', () => {
+    const h = harness();
+    const ids = drawTap(h, { lengthFt: 20 });
+    h.store.setReport(analyze(h.doc()), h.store.getState().docVersion);
+    const d = new FlowDeriver();
+    const layout = overviewLayout(d.nodes(h.store.getState()), d.edges(h.store.getState()));
+    const before = overviewScene(layout, h.store.getState());
+    expect(sceneChanges(before, overviewScene(layout, h.store.getState()), 10)).toEqual([]);
+    // 20 ft → 40 ft of 3/0 Cu tapped from 600 A: past 240.21(B)(2)'s 25 ft, so the tap's verdict moves.
+    const c = h.doc().conductors.find((x) => x.id === ids.tapId)!;
+    replaceElement.run(h.ctx, { target: { kind: 'conductor', id: c.id }, value: { ...c, lengthFt: 40 }, label: 'Set length' });
+    h.store.setReport(analyze(h.doc()), h.store.getState().docVersion);
+    const after = overviewScene(layout, h.store.getState());
+    const tap = layout.conductors.findIndex((x) => x.id === ids.tapId);
+    expect(after.family[tap]).not.toBe(before.family[tap]);
+    const boxes = sceneChanges(before, after, 10);
+    expect(boxes.length).toBeGreaterThan(0);
+    const badge = layout.conductors[tap]!.badge;
+    expect(boxes.some((b) => b.x1 <= badge.x && badge.x <= b.x2 && b.y1 <= badge.y && badge.y <= b.y2)).toBe(true);
   });
 });

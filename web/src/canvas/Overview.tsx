@@ -2,8 +2,8 @@ import { useEffect, useRef } from 'react';
 import { useStoreApi } from '@xyflow/react';
 import { useCommandContext } from '../editor/useEditor';
 import type { FlowEdge, FlowNode } from './flowElements';
-import { overviewLayout, overviewScene, type OverviewScene } from './overview';
-import { drawOverview, type View } from './overviewDraw';
+import { overviewLayout, overviewScene, sceneChanges, type Box, type OverviewScene } from './overview';
+import { drawOverview, overviewPad, type View } from './overviewDraw';
 
 /** Room drawn beyond each side of the view, as a share of its size: a pan shows it before the next redraw. */
 const MARGIN = 0.25;
@@ -62,7 +62,23 @@ export function Overview({ nodes, edges }: { nodes: readonly FlowNode[]; edges: 
       drawn = v;
     };
     const redrawSoon = () => {
+      dirty = null;
       if (frame === 0) frame = requestAnimationFrame(draw);
+    };
+    // After a check: only the boxes where the scene changed are drawn again (none when no verdict moved).
+    let dirty: Box[] | null = null;
+    const drawChanges = () => {
+      frame = 0;
+      const boxes = dirty;
+      dirty = null;
+      if (!boxes || !drawn || !scene) return draw();
+      for (const b of boxes) drawOverview(g, scene, drawn, b);
+    };
+    const changesSoon = (boxes: Box[]) => {
+      if (boxes.length === 0) return;
+      if (frame !== 0 && dirty === null) return; // a whole redraw is already due
+      dirty = [...(dirty ?? []), ...boxes];
+      if (frame === 0) frame = requestAnimationFrame(drawChanges);
     };
 
     const onFlow = () => {
@@ -78,7 +94,11 @@ export function Overview({ nodes, edges }: { nodes: readonly FlowNode[]; edges: 
     };
     const onStore = () => {
       const s = store.getState();
-      if (s.report !== sceneKey[0] || s.doc.conductors !== sceneKey[1] || s.doc.nodes !== sceneKey[2]) redrawSoon();
+      if (s.report === sceneKey[0] && s.doc.conductors === sceneKey[1] && s.doc.nodes === sceneKey[2]) return;
+      const before = scene;
+      const after = sceneNow();
+      if (!before || !drawn) return redrawSoon();
+      changesSoon(sceneChanges(before, after, overviewPad(drawn.zoom)));
     };
     draw();
     const offFlow = flow.subscribe(onFlow);

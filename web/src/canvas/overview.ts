@@ -20,14 +20,23 @@ import { indexReport } from '../analysis/reportIndex';
 export const OVERVIEW_ZOOM = 0.1;
 
 
+/** A straight stroke, in flow coordinates. */
+export interface Segment {
+  x1: number;
+  y1: number;
+  x2: number;
+  y2: number;
+}
+const barSegment = (b: Bar): Segment => ({ x1: b.x1, y1: b.y, x2: b.x2, y2: b.y });
+
 /** What does not change with a check: positions, geometry, selection. */
 export interface OverviewLayout {
   conductors: { id: string; points: Pt[]; badge: Pt }[];
   /** Bus bars drawn on from a bus to a drop, and bus bars of bus nodes. */
-  bars: Bar[];
+  bars: Segment[];
   busLinks: Pt[][];
-  /** The wire through each piece of equipment that is not a bus: x, top, bottom. */
-  stems: { x: number; y1: number; y2: number }[];
+  /** The wire through each piece of equipment, down to the bar of a bus. */
+  stems: Segment[];
   /** Where each piece's finding flag goes (its top right corner). */
   flagAt: Map<string, Pt>;
   selectedWires: Pt[][];
@@ -40,7 +49,9 @@ export interface OverviewScene {
   wires: Map<VerdictFamily, Pt[][]>;
   /** Verdict badge centres by family (flow coordinates). */
   badges: Map<VerdictFamily, Pt[]>;
-  flags: { at: Pt; severity: Severity }[];
+  flags: { id: string; at: Pt; severity: Severity }[];
+  /** Each conductor's family, in the order of the layout's conductors. */
+  family: VerdictFamily[];
 }
 
 /** The layout of a drawing, from React Flow's elements (positions, geometry, selection). */
@@ -50,15 +61,15 @@ export function overviewLayout(nodes: readonly FlowNode[], edges: readonly FlowE
     const spec = kindSpec(n.data.node.kind);
     const { x, y } = n.position;
     if (spec.barY !== undefined) {
-      layout.bars.push({ x1: x + 4, x2: x + spec.width - 4, y: y + spec.barY });
-      layout.stems.push({ x: x + spec.wireX, y1: y, y2: y + spec.barY });
-    } else layout.stems.push({ x: x + spec.wireX, y1: y, y2: y + spec.height });
+      layout.bars.push({ x1: x + 4, y1: y + spec.barY, x2: x + spec.width - 4, y2: y + spec.barY });
+      layout.stems.push({ x1: x + spec.wireX, y1: y, x2: x + spec.wireX, y2: y + spec.barY });
+    } else layout.stems.push({ x1: x + spec.wireX, y1: y, x2: x + spec.wireX, y2: y + spec.height });
     if (n.selected) layout.selectedBoxes.push({ x, y, w: spec.width, h: spec.height });
     layout.flagAt.set(n.id, { x: x + spec.width - 3, y: y + 2 });
   }
   for (const e of edges) {
     const g = (e.data as ConductorEdgeData | BusLinkEdgeData).geometry;
-    if (g.bar) layout.bars.push(g.bar);
+    if (g.bar) layout.bars.push(barSegment(g.bar));
     if (e.selected) layout.selectedWires.push(g.points);
     if (e.type === 'busLink') layout.busLinks.push(g.points);
     else {
@@ -71,19 +82,50 @@ export function overviewLayout(nodes: readonly FlowNode[], edges: readonly FlowE
 
 /** The scene: the layout in each element's look (its verdict family, its finding flag). */
 export function overviewScene(layout: OverviewLayout, s: EditorState): OverviewScene {
-  const scene: OverviewScene = { layout, wires: new Map(), badges: new Map(), flags: [] };
+  const scene: OverviewScene = { layout, wires: new Map(), badges: new Map(), flags: [], family: new Array<VerdictFamily>(layout.conductors.length) };
   const idx = indexReport(s.report);
-  for (const c of layout.conductors) {
+  layout.conductors.forEach((c, i) => {
     const family = familyOf(s.report, idx.conductor.get(c.id));
+    scene.family[i] = family;
     push(scene.wires, family, c.points);
     push(scene.badges, family, c.badge);
-  }
+  });
   // Only the pieces with findings, read off the report's index rather than asked of every piece.
-  for (const [id, severity] of indexReport(s.report).worstByElement) {
+  for (const [id, severity] of idx.worstByElement) {
     const at = layout.flagAt.get(id);
-    if (at) scene.flags.push({ at, severity });
+    if (at) scene.flags.push({ id, at, severity });
   }
   return scene;
+}
+
+/** A box in flow coordinates. */
+export type Box = Segment;
+
+/**
+ * Where two scenes of one layout differ: the wires and badges of the conductors whose family moved and
+ * the pieces whose flag moved (a length edit that keeps every verdict differs nowhere). `pad` covers
+ * what is drawn around a point (grown badges, flags, line widths).
+ */
+export function sceneChanges(before: OverviewScene, after: OverviewScene, pad: number): Box[] {
+  const out: Box[] = [];
+  after.layout.conductors.forEach((c, i) => {
+    if (before.family[i] === after.family[i]) return;
+    const b = { x1: c.badge.x, y1: c.badge.y, x2: c.badge.x, y2: c.badge.y };
+    for (const p of c.points) {
+      b.x1 = Math.min(b.x1, p.x);
+      b.y1 = Math.min(b.y1, p.y);
+      b.x2 = Math.max(b.x2, p.x);
+      b.y2 = Math.max(b.y2, p.y);
+    }
+    out.push({ x1: b.x1 - pad, y1: b.y1 - pad, x2: b.x2 + pad, y2: b.y2 + pad });
+  });
+  const was = new Map(before.flags.map((f) => [f.id, f.severity]));
+  const now = new Map(after.flags.map((f) => [f.id, f.severity]));
+  for (const f of [...before.flags, ...after.flags]) {
+    if (was.get(f.id) === now.get(f.id)) continue;
+    out.push({ x1: f.at.x - pad, y1: f.at.y - pad, x2: f.at.x + pad, y2: f.at.y + pad });
+  }
+  return out;
 }
 
 function push<K, V>(m: Map<K, V[]>, k: K, v: V): void {

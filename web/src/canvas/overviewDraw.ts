@@ -1,6 +1,6 @@
 import { FAMILY_LOOK, SEVERITY_LOOK } from '../analysis/verdicts';
 import type { Pt } from './geometry';
-import type { OverviewScene } from './overview';
+import type { Box, OverviewScene, Segment } from './overview';
 
 /** The pens of styles.css the overview draws with (--ink, --sel, .lw-edge-halo, .lw-buslink-outer). */
 const INK = '#1d232b';
@@ -19,18 +19,33 @@ export interface View {
   dpr: number;
 }
 
-/** Draws the scene for one view; everything outside the view (with a margin) is skipped. */
-export function drawOverview(g: CanvasRenderingContext2D, scene: OverviewScene, v: View): void {
+/** How far around a point the overview draws at a zoom (the grown badges and flags), in flow units. */
+export function overviewPad(zoom: number): number {
+  return 12 * 2.6 * Math.max(1, 0.85 / zoom);
+}
+
+/**
+ * Draws the scene for one view; everything outside the view (with a margin) is skipped. With `only`, just
+ * that box of the bitmap is cleared and drawn again, everything else kept.
+ */
+export function drawOverview(g: CanvasRenderingContext2D, scene: OverviewScene, v: View, only?: Box): void {
   g.setTransform(1, 0, 0, 1, 0, 0);
-  g.clearRect(0, 0, g.canvas.width, g.canvas.height);
+  if (!only) g.clearRect(0, 0, g.canvas.width, g.canvas.height);
+  g.save();
   g.setTransform(v.dpr * v.zoom, 0, 0, v.dpr * v.zoom, v.dpr * v.x, v.dpr * v.y);
+  if (only) {
+    g.beginPath();
+    g.rect(only.x1, only.y1, only.x2 - only.x1, only.y2 - only.y1);
+    g.clip();
+    g.clearRect(only.x1, only.y1, only.x2 - only.x1, only.y2 - only.y1);
+  }
   // The view in flow coordinates, with room for the grown badges.
   const grow = Math.max(1, 0.85 / v.zoom);
-  const pad = 12 * grow;
-  const left = -v.x / v.zoom - pad;
-  const top = -v.y / v.zoom - pad;
-  const right = (v.width - v.x) / v.zoom + pad;
-  const bottom = (v.height - v.y) / v.zoom + pad;
+  const pad = overviewPad(v.zoom);
+  const left = only ? only.x1 - pad : -v.x / v.zoom - pad;
+  const top = only ? only.y1 - pad : -v.y / v.zoom - pad;
+  const right = only ? only.x2 + pad : (v.width - v.x) / v.zoom + pad;
+  const bottom = only ? only.y2 + pad : (v.height - v.y) / v.zoom + pad;
   const inView = (pts: readonly Pt[]) => {
     let x1 = Infinity, x2 = -Infinity, y1 = Infinity, y2 = -Infinity;
     for (const p of pts) {
@@ -68,23 +83,19 @@ export function drawOverview(g: CanvasRenderingContext2D, scene: OverviewScene, 
   g.stroke();
 
   // Equipment: the wire through each symbol and the bus bars (.lw-symbol, .lw-busbar).
-  g.beginPath();
-  for (const s of scene.layout.stems) {
-    if (s.x < left || s.x > right || s.y2 < top || s.y1 > bottom) continue;
-    g.moveTo(s.x, s.y1);
-    g.lineTo(s.x, s.y2);
-  }
-  g.strokeStyle = INK;
-  g.lineWidth = 2;
-  g.stroke();
-  g.beginPath();
-  for (const b of scene.layout.bars) {
-    if (b.x2 < left || b.x1 > right || b.y < top || b.y > bottom) continue;
-    g.moveTo(b.x1, b.y);
-    g.lineTo(b.x2, b.y);
-  }
-  g.lineWidth = 7;
-  g.stroke();
+  const segments = (list: readonly Segment[], width: number) => {
+    g.beginPath();
+    for (const s of list) {
+      if (Math.max(s.x1, s.x2) < left || Math.min(s.x1, s.x2) > right || Math.max(s.y1, s.y2) < top || Math.min(s.y1, s.y2) > bottom) continue;
+      g.moveTo(s.x1, s.y1);
+      g.lineTo(s.x2, s.y2);
+    }
+    g.strokeStyle = INK;
+    g.lineWidth = width;
+    g.stroke();
+  };
+  segments(scene.layout.stems, 2);
+  segments(scene.layout.bars, 7);
 
   // Conductors in their family's pen.
   for (const [family, lines] of scene.wires) {
@@ -141,6 +152,7 @@ export function drawOverview(g: CanvasRenderingContext2D, scene: OverviewScene, 
     g.fillStyle = SEVERITY_LOOK[f.severity].colour;
     g.fillRect(x - flag, y, flag, flag);
   }
+  g.restore();
 }
 
 /** The badge outline of analysis/verdicts.ts's shapes (edges/VerdictBadge.tsx), added to the current path. */
