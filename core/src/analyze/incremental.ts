@@ -12,7 +12,8 @@ import type { AnalysisReport, Finding } from './types';
 import type { RunFacts } from '../rules/facts';
 import { hasImpedance, restepThroughConductor } from '../studies/faultCurrent/faultCurrent';
 import { redropConductor, redropPath } from '../studies/voltageDrop/voltageDrop';
-import { conductorDropRow, nodeFault, redoDropFindings, voltageDropInputs } from '../studies/index';
+import { conductorDropRow, nodeFault, redoDropFindings, tapWithstand, voltageDropInputs, type WithstandResult } from '../studies/index';
+import { conductorWithstand } from '../rules/conductor-withstand';
 import { edgeFrom, edgeTo, orderPositions, type Graph } from '../topology/graph';
 import { voltageDropRule } from '../rules/voltage-drop';
 import { transformerProtection } from '../rules/transformer-protection';
@@ -96,16 +97,16 @@ function recheck(state: AnalysisState, prev: Project, next: Project): { state: A
   }
   if (conductorsChanged && nodesChanged) return 'conductors and nodes changed';
   if (conductorsChanged) {
-    const edit = singleEdit(prev.conductors, next.conductors);
-    if (typeof edit === 'string') return edit.replace('element', 'conductor');
+    const edit = singleEdit(prev.conductors, next.conductors, 'conductor');
+    if (typeof edit === 'string') return edit;
     const { index, before, after } = edit;
     if (before.id !== after.id || before.from !== after.from || before.to !== after.to) return 'a conductor was reconnected';
     const why = leafBlocker(state, index, before, after);
     if (why !== null) return why;
     return { state: recheckLeaf(state, next, index), mode: { mode: 'incremental', conductorId: after.id } };
   }
-  const edit = singleEdit(prev.nodes, next.nodes);
-  if (typeof edit === 'string') return edit.replace('element', 'node');
+  const edit = singleEdit(prev.nodes, next.nodes, 'node');
+  if (typeof edit === 'string') return edit;
   const { index, before, after } = edit;
   if (before.id !== after.id || before.kind !== after.kind) return 'a node was replaced';
   if (onlyLayout(before, after)) return { state: relayout(state, next), mode: { mode: 'incremental', nodeId: after.id, edit: 'layout' } };
@@ -117,12 +118,12 @@ function recheck(state: AnalysisState, prev: Project, next: Project): { state: A
 }
 
 /** The one element of a list an edit changed, or why the edit is something else. Compares by identity only. */
-function singleEdit<T>(a: readonly T[], b: readonly T[]): { index: number; before: T; after: T } | string {
-  if (a.length !== b.length) return 'an element was added or removed';
+function singleEdit<T>(a: readonly T[], b: readonly T[], what: string): { index: number; before: T; after: T } | string {
+  if (a.length !== b.length) return `a ${what} was added or removed`;
   let index = -1;
   for (let i = 0; i < a.length; i++) {
     if (a[i] === b[i]) continue;
-    if (index >= 0) return 'more than one element changed';
+    if (index >= 0) return `more than one ${what} changed`;
     index = i;
   }
   if (index < 0) return 'nothing changed';
@@ -151,6 +152,7 @@ function leafBlocker(state: AnalysisState, ci: number, before: Conductor, after:
   const r = runs.runOf[ci]!;
   if (runs.members[r]!.length !== 1) return 'the conductor is part of a spliced run';
   const v = verdicts[r]!;
+  if (v.facts.conductorIds.length !== 1) return 'the conductor is judged with the run it continues';
   if (v.family !== 'fed-by-ocpd' || v.role !== 'branch' || v.supply.kind !== 'ocpd') return 'the conductor is not a branch circuit from an OCPD';
   const load = g.conductorTo[ci]!;
   if (load < 0 || g.nodes[load]!.kind !== 'load' || g.outEdges[load]!.length !== 0 || g.inEdges[load]!.length !== 1) return 'the conductor does not end at a load alone';
@@ -289,8 +291,8 @@ function recheckLoad(state: AnalysisState, next: Project, v: number, before: Nod
  * series ratings unchanged: every run judged against it (their supply facts and the device their
  * report lines name), the runs that end at it or at the equipment it is linked into (the termination
  * they read, a board's grouped ratings), the transformers those feed (Table 450.3(B)) and the
- * panelboards it protects (408.36). The studies read no rating, so they stay; a tap's withstand reads
- * the device's clearing, and when that changes under a tap the whole analysis runs.
+ * panelboards it protects (408.36). Of the studies only the withstand of the taps and secondaries
+ * judged against it reads the device (its clearing time); the rest stays.
  */
 function recheckDevice(state: AnalysisState, next: Project, d: number, before: NodeOfKind<'breaker' | 'fuse'>, after: NodeOfKind<'breaker' | 'fuse'>): AnalysisState | string {
   const prev = state.ctx;
@@ -301,11 +303,6 @@ function recheckDevice(state: AnalysisState, next: Project, d: number, before: N
   if ((next.seriesRatings ?? []).some((s) => s.loadSideId === before.id || s.lineSideId === before.id)) return 'the device is part of a series rating';
   const rs = new Set<number>();
   for (let r = 0; r < verdicts.length; r++) if (verdicts[r]!.deviceNode === d) rs.add(r);
-  const clearing = (n: NodeOfKind<'breaker' | 'fuse'>) => JSON.stringify([n.clearingTimeS, n.kind === 'fuse' ? n.currentLimiting : n.adjustableTrip]);
-  if (clearing(before) !== clearing(after)) {
-    // The withstand of a tap or secondary reads the clearing time of the device ahead of it.
-    for (const r of rs) if (WITHSTAND_VERDICT.test(verdicts[r]!.verdict)) return "the clearing of a tap's device changed (withstand)";
-  }
   // What ends at the device, or at the equipment it is linked into, reads its rating in its termination.
   const ends = [d];
   for (const e of g0.inEdges[d]!) if (e < 0) ends.push(edgeFrom(g0, e));
@@ -408,9 +405,8 @@ function rejudgeOnce(state: AnalysisState, base: Omit<FixedContext, 'verdicts' |
     const members = runs.members[r]!;
     if (b.facts.conductorIds.length !== members.length) return `${a.facts.conductorIds[0]} is now judged with the run it continues`;
     if (a.verdict === b.verdict && a.rule === b.rule && a.family === b.family && a.deviceNode === b.deviceNode && a.generatorNode === b.generatorNode) continue;
-    // A new verdict reaches what is supplied through the run (judged again here only when it is in `rs`) and the studies' list of taps.
+    // A new verdict reaches what is supplied through the run (judged again here only when it is in `rs`).
     if (a.deviceNode !== b.deviceNode || a.generatorNode !== b.generatorNode) return `the device ${a.facts.conductorIds[0]} is judged against changed`;
-    if (WITHSTAND_VERDICT.test(a.verdict) !== WITHSTAND_VERDICT.test(b.verdict)) return `${a.facts.conductorIds[0]} became ${b.verdict} from ${a.verdict} (the studies' list of taps)`;
     const end = graph.conductorTo[members[members.length - 1]!]!;
     if (end >= 0) for (const v of suppliedThrough(graph, end, false)) for (const e of graph.outEdges[v]!) if (e >= 0 && !rs.has(runs.runOf[e]!)) reached.push(runs.runOf[e]!);
   }
@@ -419,6 +415,48 @@ function rejudgeOnce(state: AnalysisState, base: Omit<FixedContext, 'verdicts' |
   const ctx: FixedContext = { ...base, verdicts, fixes };
   for (const r of ordered) fixes[r] = fixesOfRun(ctx, r);
   return { ctx, walk, runs: ordered };
+}
+
+/**
+ * The withstand table and the study findings with the short-circuit withstand of the runs in `rs`
+ * that are (or were) taps or secondaries judged again, in the order a full run writes them (by run,
+ * then by conductor of the run).
+ */
+function rewithstand(state: AnalysisState, ctx: FixedContext, rs: readonly number[], studies: NonNullable<AnalysisReport['studies']>): { studies: NonNullable<AnalysisReport['studies']>; findings: Finding[] } {
+  const old = state.report.findings.slice(state.studyFindingStart);
+  const before = state.ctx.verdicts;
+  const redo = new Set(rs.filter((r) => WITHSTAND_VERDICT.test(before[r]!.verdict) || WITHSTAND_VERDICT.test(ctx.verdicts[r]!.verdict)));
+  if (redo.size === 0) return { studies, findings: old };
+  const { graph: g, runs } = ctx;
+  const index = conductorIndexOf(state);
+  const runOfId = (id: string) => runs.runOf[index.get(id)!]!;
+  const rows: [number, WithstandResult][] = [];
+  for (const row of studies.withstand) if (!redo.has(runOfId(row.conductorIds[0]!))) rows.push([runOfId(row.conductorIds[0]!), row]);
+  // Findings by run, then by the conductor's place in its run.
+  const key = (id: string) => runOfId(id) * (g.conductors.length + 1) + runs.members[runOfId(id)]!.indexOf(index.get(id)!);
+  const found: [number, Finding][] = [];
+  let first = -1;
+  for (let k = 0; k < old.length; k++) {
+    const f = old[k]!;
+    if (f.ruleId !== conductorWithstand.id) continue;
+    if (first < 0) first = k;
+    if (f.subject.kind === 'conductor' && !redo.has(runOfId(f.subject.id))) found.push([key(f.subject.id), f]);
+  }
+  for (const r of redo) {
+    const v = ctx.verdicts[r]!;
+    if (!WITHSTAND_VERDICT.test(v.verdict)) continue;
+    const w = tapWithstand(ctx.edition, g, state.studies.fault, { conductors: runs.members[r]!, deviceNode: v.deviceNode });
+    if (!w) continue;
+    rows.push([r, w.row]);
+    for (const f of w.findings) found.push([key((f.subject as { id: string }).id), f]);
+  }
+  const byKey = <T>(a: [number, T], b: [number, T]) => a[0] - b[0];
+  // They come after the 110.9 and 110.10 findings and before the voltage drops.
+  if (first < 0) first = old.findIndex((f) => f.ruleId === voltageDropRule.id);
+  if (first < 0) first = old.length;
+  const rest = old.filter((f) => f.ruleId !== conductorWithstand.id);
+  const findings = [...rest.slice(0, first), ...found.sort(byKey).map((x) => x[1]), ...rest.slice(first)];
+  return { studies: { ...studies, withstand: rows.sort(byKey).map((x) => x[1]) }, findings };
 }
 
 /**
@@ -447,7 +485,8 @@ interface Moved {
 }
 
 /** The state and report after `judged`: the runs' findings and report lines, the transformers they feed, the panelboards and drops that moved. */
-function reported(state: AnalysisState, judged: Rejudged, moved: Moved, studies: NonNullable<AnalysisReport['studies']>): AnalysisState {
+function reported(state: AnalysisState, judged: Rejudged, moved: Moved, studiesReport: NonNullable<AnalysisReport['studies']>): AnalysisState {
+  let studies = studiesReport;
   const { ctx, walk } = judged;
   const { graph, runs } = ctx;
   const own = new Map<number, Finding[]>();
@@ -463,7 +502,9 @@ function reported(state: AnalysisState, judged: Rejudged, moved: Moved, studies:
   }
   const conductorMoved = moved.conductorMoved ?? new Uint8Array(graph.conductors.length);
   const nodeMoved = moved.nodeMoved ?? new Uint8Array(graph.nodes.length);
-  const { findings, conductorFindingStart, studyFindingStart } = spliceFindings(state, ctx, own, conductorMoved, nodeMoved, { transformers, panelboards: moved.panelboards ?? [] });
+  const withstood = rewithstand(state, ctx, judged.runs, studies);
+  const { findings, conductorFindingStart, studyFindingStart } = spliceFindings(state, ctx, own, conductorMoved, nodeMoved, { transformers, panelboards: moved.panelboards ?? [] }, withstood.findings);
+  studies = withstood.studies;
 
   // Report lines: the runs', and those whose voltage-drop warning came or went.
   const old = state.report;
@@ -499,6 +540,7 @@ function spliceFindings(
   conductorMoved: Uint8Array,
   nodeMoved: Uint8Array,
   equipment: { transformers: ReadonlySet<number>; panelboards: readonly number[] } = { transformers: new Set(), panelboards: [] },
+  studySection: readonly Finding[] = state.report.findings.slice(state.studyFindingStart),
 ): Pick<AnalysisState, 'conductorFindingStart' | 'studyFindingStart'> & { findings: Finding[] } {
   const old = state.report.findings;
   const start = state.conductorFindingStart;
@@ -522,7 +564,7 @@ function spliceFindings(
   if (equipmentStart < state.studyFindingStart || equipmentStart === start[m]) for (const f of equipmentSection(ctx, conductorIndexOf(state), old.slice(equipmentStart, state.studyFindingStart), equipment.transformers, equipment.panelboards)) findings.push(f);
   const studyFindingStart = findings.length;
   const { fault, drop } = state.studies;
-  const studyFindings = redoDropFindings(ctx.project, ctx.graph, fault, drop, old.slice(state.studyFindingStart), conductorMoved, nodeMoved, conductorIndexOf(state));
+  const studyFindings = redoDropFindings(ctx.project, ctx.graph, fault, drop, studySection, conductorMoved, nodeMoved, conductorIndexOf(state));
   for (const f of studyFindings) findings.push(f);
   return { findings, conductorFindingStart, studyFindingStart };
 }

@@ -133,23 +133,10 @@ export function studyNetwork(net: StudiedNetwork, taps: readonly TapRun[]): Stud
   // Conductor withstand of taps and secondaries.
   const withstand: WithstandResult[] = [];
   for (const t of taps) {
-    const first = t.conductors[0];
-    if (first === undefined || t.deviceNode < 0) continue;
-    const device = g.nodes[t.deviceNode]!;
-    if (device.kind !== 'breaker' && device.kind !== 'fuse') continue;
-    const c = g.conductors[first]!;
-    const supply = g.conductorFrom[first]!;
-    const facts = withstandFacts(edition, g, t, device, supply >= 0 ? kAt(supply) : null, supply >= 0 && fault.upperBound[supply] === 1);
-    const checks = conductorWithstand.check(facts);
-    const k = withstandConstant(c.material, facts.initialC, facts.finalC);
-    const allowed = facts.faultKA === null || facts.areaCmil === null ? null : withstandTimeS(facts.faultKA * 1000, facts.areaCmil * facts.parallelSets, k);
-    withstand.push({ conductorIds: facts.conductorIds, faultKA: facts.faultKA, clearingTimeS: facts.clearingTimeS, clearingBasis: facts.clearingBasis, allowedS: allowed, withstands: allowed === null ? null : allowed >= facts.clearingTimeS });
-    if (!checks.some((x) => x.status === 'fail')) continue;
-    const extra = {
-      ...(facts.smallestSize ? { smallestSize: facts.smallestSize } : {}),
-      ...(allowed !== null ? { longestClearingS: Number(allowed.toPrecision(3)) } : {}),
-    };
-    for (const ci of t.conductors) push(conductorWithstand, 'violation', { kind: 'conductor', id: g.conductors[ci]!.id }, checks, [{ kind: 'node', id: device.id }], extra);
+    const w = tapWithstand(edition, g, fault, t);
+    if (!w) continue;
+    withstand.push(w.row);
+    for (const f of w.findings) findings.push(f);
   }
 
   // Voltage drop: each circuit at its end, each load's total.
@@ -180,6 +167,36 @@ export function studyNetwork(net: StudiedNetwork, taps: readonly TapRun[]): Stud
     fault,
     drop,
   };
+}
+
+/**
+ * The short-circuit withstand of one tap or secondary run: its row of the table and its findings
+ * (one per conductor of the run when it fails); null when no OCPD is ahead of it.
+ */
+export function tapWithstand(edition: CodeEdition, g: Graph, fault: FaultStudy, t: TapRun): { row: WithstandResult; findings: Finding[] } | null {
+  const first = t.conductors[0];
+  if (first === undefined || t.deviceNode < 0) return null;
+  const device = g.nodes[t.deviceNode]!;
+  if (device.kind !== 'breaker' && device.kind !== 'fuse') return null;
+  const c = g.conductors[first]!;
+  const supply = g.conductorFrom[first]!;
+  const faultKA = supply >= 0 && !Number.isNaN(fault.kA[supply]!) ? fault.kA[supply]! : null;
+  const facts = withstandFacts(edition, g, t, device, faultKA, supply >= 0 && fault.upperBound[supply] === 1);
+  const checks = conductorWithstand.check(facts);
+  const k = withstandConstant(c.material, facts.initialC, facts.finalC);
+  const allowed = facts.faultKA === null || facts.areaCmil === null ? null : withstandTimeS(facts.faultKA * 1000, facts.areaCmil * facts.parallelSets, k);
+  const row: WithstandResult = { conductorIds: facts.conductorIds, faultKA: facts.faultKA, clearingTimeS: facts.clearingTimeS, clearingBasis: facts.clearingBasis, allowedS: allowed, withstands: allowed === null ? null : allowed >= facts.clearingTimeS };
+  const findings: Finding[] = [];
+  if (!checks.some((x) => x.status === 'fail')) return { row, findings };
+  const extra = {
+    ...(facts.smallestSize ? { smallestSize: facts.smallestSize } : {}),
+    ...(allowed !== null ? { longestClearingS: Number(allowed.toPrecision(3)) } : {}),
+  };
+  for (const ci of t.conductors) {
+    const f = studyFinding(edition, conductorWithstand, 'violation', { kind: 'conductor', id: g.conductors[ci]!.id }, checks, [{ kind: 'node', id: device.id }], extra);
+    if (f) findings.push(f);
+  }
+  return { row, findings };
 }
 
 /** One node's row of the short-circuit table: one object shape for every row (the optional `unknownWhy` added after), so building 100 000 rows stays on the fast path. */
