@@ -1,4 +1,4 @@
-import { FAMILY_LOOK, SEVERITY_LOOK } from '../analysis/verdicts';
+import { FAMILY_LOOK, SEVERITY_LOOK, type VerdictFamily } from '../analysis/verdicts';
 import type { Pt } from './geometry';
 import type { Box, OverviewScene, Segment } from './overview';
 
@@ -19,6 +19,9 @@ export interface View {
   dpr: number;
 }
 
+/** Families in one drawing order, so a box drawn again blends its overlaps as the whole view did. */
+const FAMILIES = Object.keys(FAMILY_LOOK) as VerdictFamily[];
+
 /** How far around a point the overview draws at a zoom (the grown badges and flags), in flow units. */
 export function overviewPad(zoom: number): number {
   return 12 * 2.6 * Math.max(1, 0.85 / zoom);
@@ -32,13 +35,19 @@ export function drawOverview(g: CanvasRenderingContext2D, scene: OverviewScene, 
   g.setTransform(1, 0, 0, 1, 0, 0);
   if (!only) g.clearRect(0, 0, g.canvas.width, g.canvas.height);
   g.save();
-  g.setTransform(v.dpr * v.zoom, 0, 0, v.dpr * v.zoom, v.dpr * v.x, v.dpr * v.y);
   if (only) {
+    // Clip and clear on whole device pixels, so no half-cleared pixel is drawn over twice at the border.
+    const k = v.dpr * v.zoom;
+    const x1 = Math.floor(only.x1 * k + v.dpr * v.x);
+    const y1 = Math.floor(only.y1 * k + v.dpr * v.y);
+    const x2 = Math.ceil(only.x2 * k + v.dpr * v.x);
+    const y2 = Math.ceil(only.y2 * k + v.dpr * v.y);
     g.beginPath();
-    g.rect(only.x1, only.y1, only.x2 - only.x1, only.y2 - only.y1);
+    g.rect(x1, y1, x2 - x1, y2 - y1);
     g.clip();
-    g.clearRect(only.x1, only.y1, only.x2 - only.x1, only.y2 - only.y1);
+    g.clearRect(x1, y1, x2 - x1, y2 - y1);
   }
+  g.setTransform(v.dpr * v.zoom, 0, 0, v.dpr * v.zoom, v.dpr * v.x, v.dpr * v.y);
   // The view in flow coordinates, with room for the grown badges.
   const grow = Math.max(1, 0.85 / v.zoom);
   const pad = overviewPad(v.zoom);
@@ -98,7 +107,9 @@ export function drawOverview(g: CanvasRenderingContext2D, scene: OverviewScene, 
   segments(scene.layout.bars, 7);
 
   // Conductors in their family's pen.
-  for (const [family, lines] of scene.wires) {
+  for (const family of FAMILIES) {
+    const lines = scene.wires.get(family);
+    if (!lines) continue;
     const look = FAMILY_LOOK[family];
     polylines(lines);
     g.strokeStyle = look.colour;
@@ -124,7 +135,9 @@ export function drawOverview(g: CanvasRenderingContext2D, scene: OverviewScene, 
 
   // Verdict badges, grown as on the drawing far out (.lw-lod-grow): shape and colour by family, one path each.
   const r = (11 / 2) * grow;
-  for (const [family, centres] of scene.badges) {
+  for (const family of FAMILIES) {
+    const centres = scene.badges.get(family);
+    if (!centres) continue;
     const look = FAMILY_LOOK[family];
     g.beginPath();
     for (const c of centres) {
