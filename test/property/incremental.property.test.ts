@@ -48,7 +48,8 @@ type LoadChange =
   | { field: 'continuous' }
   | { field: 'powerFactor'; value: number }
   | { field: 'motor'; hp: number | undefined }
-  | { field: 'hvac'; mcaA: number | undefined };
+  | { field: 'hvac'; mcaA: number | undefined }
+  | { field: 'label'; label: string | undefined };
 
 const loadChangeArb: fc.Arbitrary<LoadChange> = fc.oneof(
   fc.record({ field: fc.constant('currentA' as const), value: fc.integer({ min: 1, max: 400 }) }),
@@ -56,6 +57,7 @@ const loadChangeArb: fc.Arbitrary<LoadChange> = fc.oneof(
   fc.record({ field: fc.constant('powerFactor' as const), value: fc.constantFrom(0.7, 0.8, 0.85, 0.9, 0.95, 1) }),
   fc.record({ field: fc.constant('motor' as const), hp: fc.option(fc.constantFrom(0.5, 1, 5, 10, 25, 50), { nil: undefined }) }),
   fc.record({ field: fc.constant('hvac' as const), mcaA: fc.option(fc.constantFrom(12, 28, 45, 90), { nil: undefined }) }),
+  fc.record({ field: fc.constant('label' as const), label: fc.option(fc.constantFrom('Lighting', 'Pump P-2', ' '), { nil: undefined }) }),
 );
 
 type LoadNode = Extract<Project['nodes'][number], { kind: 'load' }>;
@@ -120,6 +122,10 @@ function changeLoad(node: LoadNode, change: LoadChange): LoadNode {
     case 'hvac': {
       const { hvac: _, ...rest } = node;
       return change.mcaA === undefined ? rest : { ...node, hvac: { mcaA: change.mcaA, mopA: change.mcaA * 2 } };
+    }
+    case 'label': {
+      const { label: _, ...rest } = node;
+      return change.label === undefined ? rest : { ...node, label: change.label };
     }
   }
 }

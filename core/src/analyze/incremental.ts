@@ -228,7 +228,7 @@ function recheckLeaf(state: AnalysisState, next: Project, ci: number): AnalysisS
 
 /**
  * Re-checks the network after one load's data changed (its volt-amperes or current, continuous,
- * motor, HVAC, power factor) with its connection and what the fault study reads of it unchanged:
+ * motor, HVAC, power factor, its name: what ends at it names it) with its connection and what the fault study reads of it unchanged:
  * the load roll-up along its supply path, every run on that path (see `rejudge`) and the voltage
  * drops at and below the path. The fault current, the circuits and the ampacities stay. Returns why
  * it cannot when the edit reaches further: a load with several supplies or anything below it, a node
@@ -238,7 +238,6 @@ function recheckLoad(state: AnalysisState, next: Project, v: number, before: Nod
   const prev = state.ctx;
   const g0 = prev.graph;
   const { loads, runs } = prev;
-  if (before.label !== after.label) return 'the load was renamed';
   // The fault study reads a load's phases (the loop it sees) and, for a motor contribution, its full-load current.
   if (before.phases !== after.phases) return "the load's phases changed";
   if ((before.faultContributionXFlc !== undefined || after.faultContributionXFlc !== undefined) && (before.faultContributionXFlc !== after.faultContributionXFlc || before.currentA !== after.currentA || before.kva !== after.kva)) return "the load's motor contribution changed";
