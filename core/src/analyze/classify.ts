@@ -5,7 +5,7 @@ import { edgeFrom, KIND, type Graph } from '../topology/graph';
 import { isJoint } from '../topology/runs';
 import { joinFacts } from './runFacts';
 import type { FactsContext } from './context';
-import { deviceTypeOf, effectiveRatingA, generatorFacts, isOcpd, transformerFacts } from './equipment';
+import { deviceTypeOf, effectiveRatingA, generatorFacts, transformerFacts } from './equipment';
 import { firstHolding, protectionTrial } from './trials';
 import { FAILING_VERDICTS, type ConductorRole, type RuleTrial, type Verdict } from './types';
 
@@ -172,9 +172,10 @@ function toJudge(walk: Walk, r: number, supply: Supply): RunToJudge {
   const facts: RunFacts = walk.ctx.facts[r]!;
   const members = runs.members[r]!;
   const endNode = g.conductorTo[members[members.length - 1]!]!;
-  const endsAtTransformer = endNode >= 0 && g.nodes[endNode]!.kind === 'transformer';
+  const endKind = endNode >= 0 ? g.nodeKind[endNode]! : -1;
+  const endsAtTransformer = endKind === KIND.transformer;
   // Conductors into distribution equipment (a panelboard, switchboard, tap box…) are feeders even with nothing drawn below it.
-  const feedsDevice = endNode >= 0 && (isOcpd(g.nodes[endNode]!) || g.nodes[endNode]!.kind === 'bus' || walk.below[endNode] === 1);
+  const feedsDevice = endNode >= 0 && (endKind === KIND.breaker || endKind === KIND.fuse || endKind === KIND.bus || walk.below[endNode] === 1);
   if (endsAtTransformer) {
     facts.secondaries = walk.secondariesOf.get(endNode) ?? [];
     facts.transformer = transformerFacts(g, endNode, { ratingA: null, id: null }, facts.secondaries.map((s) => s.termination));

@@ -93,6 +93,9 @@ export function studyNetwork(net: StudiedNetwork, taps: readonly TapRun[]): Stud
   const series = new Map((project.seriesRatings ?? []).map((s) => [s.loadSideId as string, s]));
   const noRating: NodeId[] = [];
   for (let v = 0; v < g.nodes.length; v++) {
+    // Only devices and buses are judged here: no other node object is read.
+    const kind = g.nodeKind[v]!;
+    if (kind !== KIND.breaker && kind !== KIND.fuse && kind !== KIND.bus) continue;
     const node = g.nodes[v]!;
     if (node.kind === 'breaker' || node.kind === 'fuse') {
       if (node.interruptingKA === undefined) {
