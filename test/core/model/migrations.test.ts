@@ -1,5 +1,9 @@
+import { readdirSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { migrateToCurrent, PROJECT_FORMAT, PROJECT_VERSION } from '@linewright/core';
+import { analyze, loadProject, migrateToCurrent, PROJECT_FORMAT, PROJECT_VERSION } from '@linewright/core';
+
+const SAMPLES = new URL('../../../samples/', import.meta.url);
+const sampleFiles = readdirSync(SAMPLES).filter((f) => f.endsWith('.json') && !f.endsWith('.expected.json') && f !== 'package.json');
 
 describe('schema versions and migrations', () => {
   it('a current file passes through untouched', () => {
@@ -40,5 +44,31 @@ describe('schema versions and migrations', () => {
   ])('%j is refused at "%s"', (raw, path) => {
     const r = migrateToCurrent(raw as Record<string, unknown>);
     expect(!r.ok && r.errors[0]!.path).toBe(path);
+  });
+});
+
+describe('old files still open', () => {
+  it.each(sampleFiles)('%s (written as file version 1) opens through the migration, says so, and is analyzed', (file) => {
+    const text = readFileSync(new URL(file, SAMPLES), 'utf8');
+    expect(JSON.parse(text).version).toBe(1);
+    const r = loadProject(text);
+    expect(r.ok ? [] : r.errors.slice(0, 3)).toEqual([]);
+    if (!r.ok) return;
+    expect(r.project.version).toBe(PROJECT_VERSION);
+    expect(r.notices).toContain('Upgraded from file version 1.');
+    expect(analyze(r.project).conductors.length).toBe(JSON.parse(text).conductors.length);
+  });
+
+  it('a version 2 file written before the optional fields of this version (every size stated, no egcBare, no sizingMaterials) opens unchanged', () => {
+    const v1 = JSON.parse(readFileSync(new URL('demo-clinic.json', SAMPLES), 'utf8')) as { conductors: Record<string, unknown>[] };
+    for (const c of v1.conductors) {
+      expect(c.size).toBeDefined();
+      expect(c.egcBare).toBeUndefined();
+    }
+    const r = loadProject({ ...v1, version: 2 });
+    expect(r.ok ? [] : r.errors.slice(0, 3)).toEqual([]);
+    if (!r.ok) return;
+    expect(r.notices).toEqual([]);
+    expect(r.project.conductors.map((c) => c.size)).toEqual(v1.conductors.map((c) => c.size));
   });
 });
