@@ -1,11 +1,12 @@
 import './import.css';
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useMemo, useState } from 'react';
 import { FIELD_SPECS, cellProblemText, planFeederImport, type FeederImportPlan, type ScheduleField } from '@linewright/core';
 import { layoutTopToBottom } from '../canvas/layout';
 import { useCommandContext, useEditorState } from '../editor/useEditor';
 import type { CommandContext } from '../editor/commands';
 import { count as plural } from '../words';
 import { openImport, useImportSource, type ImportSource } from './importState';
+import { useModalDialog } from '../panels/useModalDialog';
 
 /** Rows shown in the preview table; the rest are counted. */
 const PREVIEW_ROWS = 200;
@@ -18,13 +19,7 @@ const PREVIEW_FIELDS: ScheduleField[] = ['id', 'from', 'to', 'size', 'sets', 'ma
  */
 export function ImportDialog() {
   const src = useImportSource();
-  const ref = useRef<HTMLDialogElement>(null);
-  useEffect(() => {
-    const d = ref.current;
-    if (!d) return;
-    if (src && !d.open) d.showModal();
-    if (!src && d.open) d.close();
-  }, [src]);
+  const ref = useModalDialog(src !== null);
   return (
     <dialog ref={ref} className="lw-dialog lw-import" onClose={() => openImport(null)} onCancel={() => openImport(null)} data-testid="import-dialog" aria-labelledby="import-title">
       {src && <ImportBody key={src.name + src.rows.length} src={src} />}

@@ -1,4 +1,4 @@
-import { useSyncExternalStore } from 'react';
+import { uiValue } from '../editor/uiValue';
 import { parseDelimited, type ScheduleField } from '@linewright/core';
 
 /**
@@ -14,19 +14,10 @@ export interface ImportSource {
   headerless?: readonly ScheduleField[];
 }
 
-let source: ImportSource | null = null;
-const listeners = new Set<() => void>();
-
-export function openImport(s: ImportSource | null): void {
-  source = s;
-  for (const l of listeners) l();
-}
-
-const subscribe = (l: () => void) => {
-  listeners.add(l);
-  return () => listeners.delete(l);
-};
-export const useImportSource = () => useSyncExternalStore(subscribe, () => source);
+const source = uiValue<ImportSource | null>(null);
+/** Opens the import preview on a table read from a file or a paste; null closes it. */
+export const openImport = source.set;
+export const useImportSource = source.use;
 
 /** The conductor schedule's columns, in order: how a block pasted without headers is read. */
 export const PASTE_COLUMNS: readonly ScheduleField[] = ['from', 'to', 'size', 'sets', 'material', 'length', 'insulation', 'deviceRating'];

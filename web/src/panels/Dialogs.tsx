@@ -1,17 +1,12 @@
-import { useEffect, useRef, type ReactNode } from 'react';
+import { useEffect, type ReactNode } from 'react';
+import { useModalDialog } from './useModalDialog';
 import { CAUTION } from '../analysis/coreApi';
 import { useCommandContext, useEditorState } from '../editor/useEditor';
 
 export const CAUTION_SEEN_KEY = 'linewright.caution-seen';
 
 function Modal({ open, onClose, title, children, testId }: { open: boolean; onClose: () => void; title: string; children: ReactNode; testId: string }) {
-  const ref = useRef<HTMLDialogElement>(null);
-  useEffect(() => {
-    const d = ref.current;
-    if (!d) return;
-    if (open && !d.open) d.showModal();
-    if (!open && d.open) d.close();
-  }, [open]);
+  const ref = useModalDialog(open);
   return (
     <dialog ref={ref} className="lw-dialog" onClose={onClose} onCancel={onClose} data-testid={testId} aria-labelledby={`${testId}-title`}>
       <h2 id={`${testId}-title`}>{title}</h2>

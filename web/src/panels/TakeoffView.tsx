@@ -1,10 +1,11 @@
 import './takeoff.css';
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useMemo, useState } from 'react';
 import { buildTakeoff, takeoffTables, takeoffTotals, toTakeoffCsv, takeoffTableCsv, type TakeoffCell, type TakeoffTable } from '@linewright/core';
 import { CAUTION } from '../analysis/coreApi';
 import { fileBaseName } from '../editor/commands/saveJson';
 import { useCommandContext, useEditorState } from '../editor/useEditor';
 import { setOpen, useOpen } from './takeoffOpen';
+import { useModalDialog } from './useModalDialog';
 
 /*
  * The estimator's takeoff of the checked drawing: totals grouped by what is
@@ -95,18 +96,11 @@ export function TakeoffView() {
   const doc = useEditorState((s) => s.doc);
   const report = useEditorState((s) => s.report);
   const stale = useEditorState((s) => s.reportVersion !== s.docVersion);
-  const ref = useRef<HTMLDialogElement>(null);
+  const ref = useModalDialog(isOpen);
   const [busy, setBusy] = useState(false);
   const takeoff = useMemo(() => (isOpen && report ? buildTakeoff(doc, report) : null), [isOpen, doc, report]);
   const tables = useMemo(() => (takeoff ? takeoffTables(takeoff, takeoffTotals(takeoff)) : []), [takeoff]);
   const byId = useMemo(() => new Map(tables.map((t) => [t.id, t])), [tables]);
-
-  useEffect(() => {
-    const d = ref.current;
-    if (!d) return;
-    if (isOpen && !d.open) d.showModal();
-    if (!isOpen && d.open) d.close();
-  }, [isOpen]);
 
   const base = `${fileBaseName(doc)}.takeoff`;
   const downloadXlsx = async () => {

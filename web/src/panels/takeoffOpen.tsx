@@ -1,21 +1,14 @@
-import { lazy, Suspense, useRef, useSyncExternalStore } from 'react';
+import { lazy, Suspense, useRef } from 'react';
+import { uiValue } from '../editor/uiValue';
 import { useEditorState } from '../editor/useEditor';
 
 /*
  * Whether the takeoff is open, and the toolbar button that opens it. The takeoff view itself (its
  * tables and the takeoff code) loads on the first opening, so the editor's first paint never waits for it.
  */
-let open = false;
-const listeners = new Set<() => void>();
-export function setOpen(v: boolean): void {
-  open = v;
-  for (const l of listeners) l();
-}
-const subscribe = (l: () => void) => {
-  listeners.add(l);
-  return () => listeners.delete(l);
-};
-export const useOpen = () => useSyncExternalStore(subscribe, () => open);
+const open = uiValue(false);
+export const setOpen = open.set;
+export const useOpen = open.use;
 
 /** Toolbar button that opens the takeoff. */
 export function TakeoffButton() {
