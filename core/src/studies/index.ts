@@ -14,6 +14,7 @@ import { insulationRating } from '../tables/insulation';
 import { SIZE_INDEX_14 } from '../tables/sizes';
 import { KIND, type Graph } from '../topology/graph';
 import { studyFaultCurrent, type FaultStudy } from './faultCurrent/faultCurrent';
+import { lazyTable } from './lazyTable';
 import type { ConductorDrop, NodeFault, ServiceMarking, StudiesReport, WithstandResult } from './types';
 import { studyVoltageDrop, type VoltageDropInputs, type VoltageDropStudy } from './voltageDrop/voltageDrop';
 
@@ -144,9 +145,7 @@ export function studyNetwork(net: StudiedNetwork, taps: readonly TapRun[]): Stud
 
   // Voltage drop: each circuit at its end, each load's total.
   const { circuitLimit, totalLimit } = dropLimits(project);
-  const conductorsDrop: ConductorDrop[] = new Array(g.conductors.length);
   for (let c = 0; c < g.conductors.length; c++) {
-    conductorsDrop[c] = conductorDropRow(g, fault, drop, c);
     const f = circuitDropFinding(edition, g, fault, drop, c, circuitLimit);
     if (f) findings.push(f);
   }
@@ -155,21 +154,32 @@ export function studyNetwork(net: StudiedNetwork, taps: readonly TapRun[]): Stud
     if (f) findings.push(f);
   }
 
-  const faults: NodeFault[] = new Array(g.nodes.length);
-  for (let v = 0; v < g.nodes.length; v++) faults[v] = nodeFault(g, fault, v);
-
-  return {
-    report: {
-      notes: [...fault.notes, ...drop.notes],
-      faults,
-      voltageDrop: { circuitLimitPct: circuitLimit, totalLimitPct: totalLimit, conductors: conductorsDrop },
-      serviceMarkings: serviceMarkings(project, g, fault),
-      withstand,
-    },
-    findings,
-    fault,
-    drop,
+  // The row tables are built when a report reads them (./lazyTable.ts); the key order stays as written here.
+  const voltageDrop = { circuitLimitPct: circuitLimit, totalLimitPct: totalLimit, conductors: [] as ConductorDrop[] };
+  lazyTable(voltageDrop, 'conductors', () => dropTable(g, fault, drop), [fault, drop]);
+  const report: StudiesReport = {
+    notes: [...fault.notes, ...drop.notes],
+    faults: [],
+    voltageDrop,
+    serviceMarkings: serviceMarkings(project, g, fault),
+    withstand,
   };
+  lazyTable(report, 'faults', () => faultTable(g, fault), [fault]);
+  return { report, findings, fault, drop };
+}
+
+/** The short-circuit table: a row per node, in file order. */
+function faultTable(g: Graph, fault: FaultStudy): NodeFault[] {
+  const rows: NodeFault[] = new Array(g.nodes.length);
+  for (let v = 0; v < g.nodes.length; v++) rows[v] = nodeFault(g, fault, v);
+  return rows;
+}
+
+/** The voltage-drop table: a row per conductor, in file order. */
+function dropTable(g: Graph, fault: FaultStudy, drop: VoltageDropStudy): ConductorDrop[] {
+  const rows: ConductorDrop[] = new Array(g.conductors.length);
+  for (let c = 0; c < g.conductors.length; c++) rows[c] = conductorDropRow(g, fault, drop, c);
+  return rows;
 }
 
 /**

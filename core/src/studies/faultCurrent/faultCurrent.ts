@@ -7,6 +7,7 @@ import {
   typicalTransformerXOverR,
 } from '../../tables/sourceImpedance';
 import { edgeFrom, KIND, type Graph } from '../../topology/graph';
+import { settleTables } from '../lazyTable';
 
 const UTILITY = KIND.utility;
 const GENERATOR = KIND.generator;
@@ -261,6 +262,7 @@ function stepFactor(c: Conductor, isLoop: number): number {
  * below it that is not a transformer, so nothing else moves (see analyze/incremental.ts).
  */
 export function restepThroughConductor(g: Graph, f: FaultStudy, v: number): void {
+  settleTables(f);
   const u = f.parent[v]!;
   const e = f.parentEdge[v]!;
   const c = g.conductors[e]!;

@@ -2,6 +2,7 @@ import type { ConductorCircuit } from '../../analyze/circuits';
 import type { SystemLoads } from '../../analyze/loads';
 import type { NodeOfKind } from '../../model/schema';
 import { KIND, orderPositions, type Graph } from '../../topology/graph';
+import { settleTables } from '../lazyTable';
 
 /**
  * Voltage drop per conductor and cumulative from the source to every load,
@@ -112,6 +113,7 @@ function arriveAt(g: Graph, inp: Pick<VoltageDropInputs, 'parent' | 'parentEdge'
  * The fault study has re-read its Table 9 values into `inp.rOhmPerKft`/`xOhmPerKft` first.
  */
 export function redropConductor(g: Graph, drop: VoltageDropStudy, inp: VoltageDropInputs, c: number): void {
+  settleTables(drop);
   const three = drop.singlePhase[c] === 0;
   const volts = circuitVolts(inp, c, g.conductorFrom[c]!, three);
   if (!(volts > 0)) return;
@@ -199,6 +201,7 @@ function dropOf(g: Graph, inp: VoltageDropInputs, drop: VoltageDropStudy, c: num
  * node whose sums changed (and every node of the path).
  */
 export function redropPath(g: Graph, drop: VoltageDropStudy, inp: VoltageDropInputs, path: readonly number[], conductorMoved: Uint8Array, nodeMoved: Uint8Array): void {
+  settleTables(drop);
   const { parent, parentEdge, order, count } = inp;
   const pos = orderPositions(order, count);
   const { p, q, totalPct, circuitPct } = drop;
