@@ -6,7 +6,7 @@ import { isJoint } from '../topology/runs';
 import { joinFacts } from './runFacts';
 import type { FactsContext } from './context';
 import { deviceTypeOf, effectiveRatingA, generatorFacts, transformerFacts } from './equipment';
-import { firstHolding, protectionTrial } from './trials';
+import { firstHolding, protectionTrial, triedList } from './trials';
 import { FAILING_VERDICTS, type ConductorRole, type RuleTrial, type Verdict } from './types';
 
 /** What the upstream walk from a node ends on. */
@@ -154,10 +154,10 @@ function secondariesByTransformer(ctx: FactsContext): Map<number, RunFacts[]> {
 
 function supplyAt(walk: Walk, v: number): Supply {
   const code = walk.ctx.graph.nodeKind[v]!;
-  if (code === KIND.breaker || code === KIND.fuse || code === KIND.utility || code === KIND.generator || code === KIND.transformer) {
-    const kind = walk.ctx.graph.nodes[v]!.kind;
-    return (walk.sources[v] ??= { kind: kind === 'breaker' || kind === 'fuse' ? 'ocpd' : (kind as 'utility' | 'generator' | 'transformer'), node: v });
-  }
+  if (code === KIND.breaker || code === KIND.fuse) return (walk.sources[v] ??= { kind: 'ocpd', node: v });
+  if (code === KIND.utility) return (walk.sources[v] ??= { kind: 'utility', node: v });
+  if (code === KIND.generator) return (walk.sources[v] ??= { kind: 'generator', node: v });
+  if (code === KIND.transformer) return (walk.sources[v] ??= { kind: 'transformer', node: v });
   return walk.nodeSupply[v]!;
 }
 
@@ -291,19 +291,22 @@ function fedByOcpd(j: RunToJudge, device: number): RunVerdict {
     const v: Verdict = t.outcome === 'holds' ? own.verdict! : t.outcome === 'unknown' ? 'incomplete' : 'unprotected';
     return { verdict: v, rule: v === own.verdict ? own : null, family: 'fed-by-ocpd', role, supply: j.supply, deviceNode: device, generatorNode: -1, facts, tried: [t], candidates: [own] };
   }
-  const tried: RuleTrial[] = [];
+  const [atRating, nextSize] = PROTECTION_RULES as [Rule, Rule];
+  const first = protectionTrial(atRating, facts);
+  let tried: RuleTrial[];
   let verdict: Verdict | null = null;
   let rule: Rule | null = null;
-  for (let i = 0; i < PROTECTION_RULES.length && verdict === null; i++) {
-    const r = PROTECTION_RULES[i]!;
-    const t = protectionTrial(r, facts);
-    tried.push(t);
-    if (t.outcome === 'holds') {
-      verdict = r.verdict!;
-      rule = r;
-    } else if (t.outcome === 'unknown' && i === 0) {
-      // Without the ampacity or the rating nothing further can be decided.
-      verdict = 'incomplete';
+  if (first.outcome === 'holds' || first.outcome === 'unknown') {
+    tried = triedList(first);
+    // Without the ampacity or the rating nothing further can be decided.
+    verdict = first.outcome === 'holds' ? atRating.verdict! : 'incomplete';
+    rule = first.outcome === 'holds' ? atRating : null;
+  } else {
+    const second = protectionTrial(nextSize, facts);
+    tried = triedList(first, second);
+    if (second.outcome === 'holds') {
+      verdict = nextSize.verdict!;
+      rule = nextSize;
     }
   }
   let candidates = FED_BY_OCPD_RULES;
@@ -312,6 +315,7 @@ function fedByOcpd(j: RunToJudge, device: number): RunVerdict {
     verdict = 'unprotected';
     candidates = PROTECTION_RULES;
   } else if (verdict === null) {
+    tried = [...tried];
     const v = firstHolding(FEEDER_TAP_RULES, facts, tried);
     verdict = v.verdict;
     rule = v.rule;

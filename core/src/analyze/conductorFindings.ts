@@ -1,6 +1,6 @@
 import { VERDICT_LABELS, type Citation, type ElementRef, type Finding, type Fix, type RuleTrial } from './types';
 import { conductorName, formatNumber } from '../rules/define';
-import { calculatedLoadTrial } from './trials';
+import { calculatedLoadFails, calculatedLoadTrial } from './trials';
 import type { Graph } from '../topology/graph';
 import type { RunVerdict } from './classify';
 import type { RunFacts } from '../rules/facts';
@@ -120,9 +120,9 @@ function runFindings(ctx: FixedContext, c: Graph['conductors'][number], v: RunVe
     default:
       break;
   }
-  for (let i = 0; i < v.tried.length; i++) {
+  for (let i = 0; v.rule && i < v.tried.length; i++) {
     const t = v.tried[i]!;
-    if (t.outcome !== 'holds' || t.ruleId !== v.rule?.id) continue;
+    if (t.outcome !== 'holds' || t.ruleId !== v.rule.id) continue;
     if (hasNeedsAhj(t)) {
       pushRunFinding(out, f, {
         ruleId: t.ruleId,
@@ -144,7 +144,7 @@ function runFindings(ctx: FixedContext, c: Graph['conductors'][number], v: RunVe
     if (rest.length > 0) pushRunFinding(out, f, { ruleId: t.ruleId, messageId: 'fails', severity: 'violation', cites: t.cites, subject: { kind: 'conductor', id: c.id }, message: `${describeRun(c, f)}: ${rest.join(' ')} Fails ${t.cites.section}.` });
   }
   // 210.19(A)(1), 215.2(A)(1), 230.42(A): both halves; a motor or HVAC circuit is sized by its own article (430.22, 440.35).
-  if (c.id === f.conductorIds[0] && sizedByCalculatedLoad(v)) {
+  if (c.id === f.conductorIds[0] && sizedByCalculatedLoad(v) && calculatedLoadFails(f)) {
     const t = calculatedLoadTrial(f);
     const section = v.role === 'branch' ? '210.19(A)(1)' : v.role === 'service' ? '230.42(A)' : '215.2(A)(1)';
     for (const cond of t.conditions) {

@@ -89,13 +89,13 @@ function runShared(graph: Graph, v: RunVerdict, edition: CodeEdition): RunShared
   const s = v.supply;
   const supply: ConductorReport['supply'] =
     s.kind === 'ocpd' || s.kind === 'utility' || s.kind === 'generator' || s.kind === 'transformer'
-      ? { kind: s.kind, id: graph.nodes[s.node]!.id }
-      : { kind: device ? 'ocpd' : 'none', id: device?.id ?? null };
+      ? supplyRef(graph, s.kind, s.node)
+      : device ? supplyRef(graph, 'ocpd', v.deviceNode) : NO_SUPPLY;
   const isTap = v.family === 'fed-by-ocpd' && v.verdict !== 'protected' && v.verdict !== 'protected-next-size' && v.verdict !== 'incomplete';
   const f = v.facts;
   return {
     cites: v.rule ? ruleCitation(v.rule, edition) : null,
-    summary: describeRun(v),
+    summary: summaryOf(v),
     device,
     supply,
     tapLengthFt: v.verdict === 'tap-transformer' ? transformerTapLength(v) : isTap || v.family === 'on-tap' || v.family === 'secondary' ? f.lengthFt : null,
@@ -114,6 +114,44 @@ function deviceRef(graph: Graph, v: number): DeviceRef {
     byNode[v] = d = { id: n.id, kind: n.kind, label: nodeLabel(n), ratingA: effectiveRatingA(n) };
   }
   return d;
+}
+
+/** What a run's supply end is, one object per node and kind, shared by every run it supplies (reports are read-only). */
+const supplyRefs = new WeakMap<Graph, Map<number, ConductorReport['supply']>>();
+const NO_SUPPLY: ConductorReport['supply'] = { kind: 'none', id: null };
+function supplyRef(graph: Graph, kind: 'ocpd' | 'utility' | 'generator' | 'transformer', v: number): ConductorReport['supply'] {
+  let byNode = supplyRefs.get(graph);
+  if (!byNode) supplyRefs.set(graph, (byNode = new Map()));
+  // A node is one kind of supply (an OCPD, or a source); the kind is in the key all the same.
+  const key = v * 4 + (kind === 'ocpd' ? 0 : kind === 'utility' ? 1 : kind === 'generator' ? 2 : 3);
+  let ref = byNode.get(key);
+  if (!ref) byNode.set(key, (ref = { kind, id: graph.nodes[v]!.id }));
+  return ref;
+}
+
+/**
+ * The run's summary. A riser protects thousands of runs with the same device on the same
+ * ampacity, and their summaries read alike: one string each for those (strings are values).
+ */
+const protectedSummaries = { protected: new Map<number, Map<number, string>>(), 'protected-next-size': new Map<number, Map<number, string>>() };
+let protectedSummaryCount = 0;
+function summaryOf(v: RunVerdict): string {
+  const R = v.facts.supplyOcpdA;
+  const A = v.facts.ampacityA;
+  if ((v.verdict !== 'protected' && v.verdict !== 'protected-next-size') || R === null || A === null) return describeRun(v);
+  const byR = protectedSummaries[v.verdict];
+  let byA = byR.get(R);
+  let text = byA?.get(A);
+  if (text !== undefined) return text;
+  if (++protectedSummaryCount > 4096) {
+    protectedSummaries.protected.clear();
+    protectedSummaries['protected-next-size'].clear();
+    protectedSummaryCount = 0;
+    byA = undefined;
+  }
+  if (!byA) byR.set(R, (byA = new Map()));
+  byA.set(A, (text = describeRun(v)));
+  return text;
 }
 
 /** 240.21(B)(3) counts primary plus secondary: a secondary its own set's total, the primary the longest. */

@@ -107,13 +107,16 @@ export function runFactsOf(ctx: AnalysisContext, r: number, site: RunFacts['site
     highBay,
     site,
     transformer: null,
-    secondaries: [],
+    secondaries: NO_SECONDARIES,
     generator: null,
     motor: circuit?.motor ? { fullLoadA: circuit.motor.fullLoadA, source: circuit.motor.source, motorType: circuit.motor.motorType } : null,
     hvac: circuit?.hvac ?? null,
     suppliedFrom: null,
   };
 }
+
+/** Shared by every run that ends elsewhere than at a transformer (facts are read-only; the classifier replaces the list, never fills it). */
+const NO_SECONDARIES: RunFacts[] = [];
 
 /** The ids of conductors `members`, in order. */
 function idsOf(g: AnalysisContext['graph'], members: readonly number[]): Conductor['id'][] {

@@ -1,6 +1,7 @@
 import { runRule, type Rule } from '../rules/define';
 import type { RunFacts } from '../rules/facts';
 import { calculatedLoad, PROTECTION_RULES } from '../rules/index';
+import { carriesLoad, coversCalculatedLoad } from '../rules/calculated-load';
 import { sizeIndexOf } from '../tables/sizes';
 import type { RuleTrial, Verdict } from './types';
 
@@ -40,6 +41,27 @@ export function protectionTrial(rule: Rule, f: RunFacts): RuleTrial {
   return t;
 }
 
+/**
+ * The trials a run protected under 240.4 was judged by: [240.4] or [240.4, 240.4(B)]. Runs judged
+ * by the same shared trials share one list (read-only, like the trials), so most runs of a riser
+ * keep no list of their own.
+ */
+const lists = new WeakMap<RuleTrial, RuleTrial[]>();
+const pairs = new WeakMap<RuleTrial, WeakMap<RuleTrial, RuleTrial[]>>();
+
+export function triedList(first: RuleTrial, second?: RuleTrial): RuleTrial[] {
+  if (!second) {
+    let list = lists.get(first);
+    if (!list) lists.set(first, (list = [first]));
+    return list;
+  }
+  let after = pairs.get(first);
+  if (!after) pairs.set(first, (after = new WeakMap()));
+  let list = after.get(second);
+  if (!list) after.set(second, (list = [first, second]));
+  return list;
+}
+
 /** Try rules in code order; every rule is tried and kept, the first that holds names the verdict. */
 export function firstHolding(rules: readonly Rule[], facts: RunFacts, tried: RuleTrial[]): { verdict: Verdict; rule: Rule | null } {
   let winner: Rule | null = null;
@@ -54,6 +76,11 @@ export function firstHolding(rules: readonly Rule[], facts: RunFacts, tried: Rul
   return { verdict: unknown ? 'incomplete' : 'unprotected', rule: null };
 }
 
+
+/** The calculated-load trial of the run has a failed condition: what its findings need to know first (most runs pass). */
+export function calculatedLoadFails(f: RunFacts): boolean {
+  return coversCalculatedLoad(f) === false || carriesLoad(f) === false;
+}
 
 /**
  * The 210.19(A)(1) / 215.2(A)(1) / 230.42(A) trial of a run (rules/calculated-load.ts), which reads the

@@ -1,4 +1,5 @@
 import { atLeast, defineRule, when } from './define';
+import type { RunFacts } from './facts';
 
 /**
  * 210.19(A)(1), 215.2(A)(1) and 230.42(A): a conductor is sized for its load
@@ -21,8 +22,18 @@ export const calculatedLoad = defineRule({
   },
   check(f) {
     return [
-      when('continuous', atLeast(f.ampacityUncorrectedA, f.calculatedLoadA), { uncorrectedA: f.ampacityUncorrectedA ?? '?', calculatedA: f.calculatedLoadA ?? '?' }),
-      when('conditions', atLeast(f.ampacityA, f.loadA), { ampacityA: f.ampacityA ?? '?', loadA: f.loadA ?? '?' }),
+      when('continuous', coversCalculatedLoad(f), { uncorrectedA: f.ampacityUncorrectedA ?? '?', calculatedA: f.calculatedLoadA ?? '?' }),
+      when('conditions', carriesLoad(f), { ampacityA: f.ampacityA ?? '?', loadA: f.loadA ?? '?' }),
     ];
   },
 });
+
+/** (a): the ampacity before correction and adjustment covers the calculated load; null when either is unknown. */
+export function coversCalculatedLoad(f: Pick<RunFacts, 'ampacityUncorrectedA' | 'calculatedLoadA'>): boolean | null {
+  return atLeast(f.ampacityUncorrectedA, f.calculatedLoadA);
+}
+
+/** (b): the ampacity after correction and adjustment carries the load; null when either is unknown. */
+export function carriesLoad(f: Pick<RunFacts, 'ampacityA' | 'loadA'>): boolean | null {
+  return atLeast(f.ampacityA, f.loadA);
+}
