@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { produceWithPatches } from 'immer';
 import { loadProject } from '@linewright/core';
 import {
   addEquipment, applyFix, connect, copySelection, deleteSelection, moveNodes, openProject, paste, projectFileText, redo, replaceElement, saveJson, undo,
@@ -28,6 +29,31 @@ describe('edit history (immer patches)', () => {
     expect(h.store.getState().history.undoDepth).toBe(1);
     undo.run(h.ctx);
     expect(h.doc().project.name).toBe('Untitled one-line');
+  });
+
+  it('a whole-element replacement leaves the document and undo step an immer recipe would, and undoes exactly', () => {
+    const h = harness();
+    const { tapId, m } = drawTap(h, { lengthFt: 8 });
+    const before = h.doc();
+    const tap = { ...before.conductors.find((c) => c.id === tapId)!, lengthFt: 12 };
+    const breaker = { ...before.nodes.find((n) => n.id === m)!, ratingA: 225 };
+    const [expected, redoPatches, undoPatches] = produceWithPatches(before, (d) => {
+      d.conductors[d.conductors.findIndex((c) => c.id === tapId)] = tap;
+      d.nodes[d.nodes.findIndex((n) => n.id === m)] = breaker;
+    });
+    expect(h.store.replaceElements('Set', [{ list: 'conductors', value: tap }, { list: 'nodes', value: breaker }])).toBe(true);
+    expect(h.doc()).toEqual(expected);
+    expect(Object.isFrozen(h.doc().conductors)).toBe(true);
+    const step = h.store.historySnapshot().past.at(-1)!;
+    expect(new Set(step.redo.map((p) => JSON.stringify(p)))).toEqual(new Set(redoPatches.map((p) => JSON.stringify(p))));
+    expect(new Set(step.undo.map((p) => JSON.stringify(p)))).toEqual(new Set(undoPatches.map((p) => JSON.stringify(p))));
+    // Untouched elements keep their objects (the canvas and the analysis session read identity).
+    expect(h.doc().conductors.filter((c, i) => c === before.conductors[i])).toHaveLength(before.conductors.length - 1);
+    undo.run(h.ctx);
+    expect(h.doc()).toEqual(before);
+    redo.run(h.ctx);
+    expect(h.doc()).toEqual(expected);
+    expect(h.store.replaceElements('Set', [{ list: 'conductors', value: { ...tap, id: 'NO-SUCH' } }])).toBe(false);
   });
 
   it('a new edit clears the redo stack', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { analyze } from '@linewright/core';
+import { analyze, createAnalysis } from '@linewright/core';
 import { FlowDeriver, conductorEdgeId } from '../../web/src/canvas/flowElements';
 import { conductorLook, nodeLook } from '../../web/src/canvas/looks';
 import { overviewLayout, overviewScene, sceneChanges } from '../../web/src/canvas/overview';
@@ -136,5 +136,28 @@ describe('the overview far out', () => {
     expect(boxes.length).toBeGreaterThan(0);
     const badge = layout.conductors[tap]!.badge;
     expect(boxes.some((b) => b.x1 <= badge.x && badge.x <= b.x2 && b.y1 <= badge.y && badge.y <= b.y2)).toBe(true);
+  });
+
+  it('a scene made from the one before equals a scene made afresh, edit after edit', () => {
+    const h = harness();
+    const ids = drawTap(h, { lengthFt: 20 });
+    // The editor's path: one analysis session, so unchanged conductors keep their report objects.
+    const session = createAnalysis(h.doc());
+    h.store.setReport(session.report, h.store.getState().docVersion);
+    const d = new FlowDeriver();
+    const layout = overviewLayout(d.nodes(h.store.getState()), d.edges(h.store.getState()));
+    let scene = overviewScene(layout, h.store.getState());
+    const plain = (x: ReturnType<typeof overviewScene>) => ({ family: x.family, wires: [...x.wires].sort(), badges: [...x.badges].sort(), flags: x.flags });
+    // 20 → 22 ft keeps every verdict; 22 → 40 ft passes 240.21(B)(2)'s 25 ft; 40 → 10 ft brings it back.
+    for (const lengthFt of [22, 40, 10]) {
+      const c = h.doc().conductors.find((x) => x.id === ids.tapId)!;
+      replaceElement.run(h.ctx, { target: { kind: 'conductor', id: c.id }, value: { ...c, lengthFt }, label: 'Set length' });
+      h.store.setReport(session.update(h.doc()), h.store.getState().docVersion);
+      const next = overviewScene(layout, h.store.getState(), scene);
+      expect(plain(next)).toEqual(plain(overviewScene(layout, h.store.getState())));
+      if (lengthFt === 22) expect(next.family).toBe(scene.family);
+      else expect(next.family).not.toEqual(scene.family);
+      scene = next;
+    }
   });
 });

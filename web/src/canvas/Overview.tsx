@@ -26,18 +26,14 @@ export function Overview({ nodes, edges }: { nodes: readonly FlowNode[]; edges: 
     if (!canvas || !g) return;
     const layout = overviewLayout(nodes, edges);
     let scene: OverviewScene | null = null;
-    let sceneKey: unknown[] = [];
     let drawn: View | null = null;
     let frame = 0;
     let rest: ReturnType<typeof setTimeout> | null = null;
 
+    // The layout follows the elements (this effect's inputs); the scene follows the report alone.
     const sceneNow = (): OverviewScene => {
       const s = store.getState();
-      const key = [s.report, s.doc.conductors, s.doc.nodes];
-      if (!scene || key.some((k, i) => k !== sceneKey[i])) {
-        scene = overviewScene(layout, s);
-        sceneKey = key;
-      }
+      if (!scene || scene.report !== s.report) scene = overviewScene(layout, s, scene);
       return scene;
     };
     const viewNow = (): View => {
@@ -93,8 +89,7 @@ export function Overview({ nodes, edges }: { nodes: readonly FlowNode[]; edges: 
       }, PAN_REDRAW_MS);
     };
     const onStore = () => {
-      const s = store.getState();
-      if (s.report === sceneKey[0] && s.doc.conductors === sceneKey[1] && s.doc.nodes === sceneKey[2]) return;
+      if (scene && scene.report === store.getState().report) return;
       const before = scene;
       const after = sceneNow();
       if (!before || !drawn) return redrawSoon();

@@ -1,4 +1,4 @@
-import type { Severity } from '@linewright/core';
+import type { AnalysisReport, Finding, Severity } from '@linewright/core';
 import type { VerdictFamily } from '../analysis/verdicts';
 import type { EditorState } from '../editor/store';
 import { kindSpec } from '../editor/equipment';
@@ -32,6 +32,8 @@ const barSegment = (b: Bar): Segment => ({ x1: b.x1, y1: b.y, x2: b.x2, y2: b.y 
 /** What does not change with a check: positions, geometry, selection. */
 export interface OverviewLayout {
   conductors: { id: string; points: Pt[]; badge: Pt }[];
+  /** Where each conductor id sits in `conductors`. */
+  conductorAt: Map<string, number>;
   /** Bus bars drawn on from a bus to a drop, and bus bars of bus nodes. */
   bars: Segment[];
   busLinks: Pt[][];
@@ -45,6 +47,8 @@ export interface OverviewLayout {
 
 export interface OverviewScene {
   layout: OverviewLayout;
+  /** The report the looks were read from. */
+  report: AnalysisReport | null;
   /** Wire polylines by the family they are drawn in. */
   wires: Map<VerdictFamily, Pt[][]>;
   /** Verdict badge centres by family (flow coordinates). */
@@ -56,7 +60,7 @@ export interface OverviewScene {
 
 /** The layout of a drawing, from React Flow's elements (positions, geometry, selection). */
 export function overviewLayout(nodes: readonly FlowNode[], edges: readonly FlowEdge[]): OverviewLayout {
-  const layout: OverviewLayout = { conductors: [], bars: [], busLinks: [], stems: [], flagAt: new Map(), selectedWires: [], selectedBoxes: [] };
+  const layout: OverviewLayout = { conductors: [], conductorAt: new Map(), bars: [], busLinks: [], stems: [], flagAt: new Map(), selectedWires: [], selectedBoxes: [] };
   for (const n of nodes) {
     const spec = kindSpec(n.data.node.kind);
     const { x, y } = n.position;
@@ -74,28 +78,76 @@ export function overviewLayout(nodes: readonly FlowNode[], edges: readonly FlowE
     if (e.type === 'busLink') layout.busLinks.push(g.points);
     else {
       const label = (g as ConductorEdgeData['geometry']).label;
-      layout.conductors.push({ id: (e.data as ConductorEdgeData).conductorId, points: g.points, badge: { x: label.x + label.w - 9, y: label.y + label.h / 2 } });
+      const id = (e.data as ConductorEdgeData).conductorId;
+      layout.conductorAt.set(id, layout.conductors.length);
+      layout.conductors.push({ id, points: g.points, badge: { x: label.x + label.w - 9, y: label.y + label.h / 2 } });
     }
   }
   return layout;
 }
 
-/** The scene: the layout in each element's look (its verdict family, its finding flag). */
-export function overviewScene(layout: OverviewLayout, s: EditorState): OverviewScene {
-  const scene: OverviewScene = { layout, wires: new Map(), badges: new Map(), flags: [], family: new Array<VerdictFamily>(layout.conductors.length) };
-  const idx = indexReport(s.report);
-  layout.conductors.forEach((c, i) => {
-    const family = familyOf(s.report, idx.conductor.get(c.id));
-    scene.family[i] = family;
-    push(scene.wires, family, c.points);
-    push(scene.badges, family, c.badge);
-  });
+/**
+ * The scene: the layout in each element's look (its verdict family, its finding flag). Given the scene
+ * of the report before, only the conductors whose report line moved (or whose findings changed between
+ * violation and not) are asked again, and the wires are regrouped only when a family moved: after a
+ * length edit that keeps every verdict, the scene is the one before with the new report.
+ */
+export function overviewScene(layout: OverviewLayout, s: Pick<EditorState, 'report'>, before?: OverviewScene | null): OverviewScene {
+  const report = s.report;
+  const idx = indexReport(report);
   // Only the pieces with findings, read off the report's index rather than asked of every piece.
+  const flags: OverviewScene['flags'] = [];
   for (const [id, severity] of idx.worstByElement) {
     const at = layout.flagAt.get(id);
-    if (at) scene.flags.push({ id, at, severity });
+    if (at) flags.push({ id, at, severity });
   }
+  const family = (before && before.layout === layout && familiesAfter(before, report)) || layout.conductors.map((c) => familyOf(report, idx.conductor.get(c.id)));
+  if (before && family === before.family) return { ...before, report, flags };
+  const scene: OverviewScene = { layout, report, wires: new Map(), badges: new Map(), flags, family };
+  layout.conductors.forEach((c, i) => {
+    push(scene.wires, family[i]!, c.points);
+    push(scene.badges, family[i]!, c.badge);
+  });
   return scene;
+}
+
+/** The families after `report` from the scene before (the same array when none moved), or null when the conductors differ. */
+function familiesAfter(before: OverviewScene, report: AnalysisReport | null): VerdictFamily[] | null {
+  const was = before.report;
+  if (!was || !report || was.conductors.length !== report.conductors.length) return null;
+  const flipped = violationFlips(was, report);
+  let family = before.family;
+  for (let i = 0; i < report.conductors.length; i++) {
+    const c = report.conductors[i]!;
+    const old = was.conductors[i]!;
+    if (c === old && (flipped.size === 0 || !c.findingIds.some((id) => flipped.has(id)))) continue;
+    if (c.id !== old.id) return null;
+    const at = before.layout.conductorAt.get(c.id);
+    if (at === undefined) continue;
+    const f = familyOf(report, c);
+    if (f === family[at]) continue;
+    if (family === before.family) family = family.slice();
+    family[at] = f;
+  }
+  return family;
+}
+
+/** Ids of the findings that are a violation in one report and not in the other. */
+function violationFlips(a: AnalysisReport, b: AnalysisReport): Set<string> {
+  if (a.findings === b.findings) return new Set();
+  const va = violationIds(a.findings);
+  const vb = violationIds(b.findings);
+  const out = new Set<string>();
+  for (const id of va) if (!vb.has(id)) out.add(id);
+  for (const id of vb) if (!va.has(id)) out.add(id);
+  return out;
+}
+
+const violations = new WeakMap<readonly Finding[], Set<string>>();
+function violationIds(findings: readonly Finding[]): Set<string> {
+  let ids = violations.get(findings);
+  if (!ids) violations.set(findings, (ids = new Set(findings.flatMap((f) => (f.severity === 'violation' ? [f.id] : [])))));
+  return ids;
 }
 
 /** A box in flow coordinates. */
@@ -108,7 +160,7 @@ export type Box = Segment;
  */
 export function sceneChanges(before: OverviewScene, after: OverviewScene, pad: number): Box[] {
   const out: Box[] = [];
-  after.layout.conductors.forEach((c, i) => {
+  if (before.family !== after.family) after.layout.conductors.forEach((c, i) => {
     if (before.family[i] === after.family[i]) return;
     const b = { x1: c.badge.x, y1: c.badge.y, x2: c.badge.x, y2: c.badge.y };
     for (const p of c.points) {

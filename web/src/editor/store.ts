@@ -1,8 +1,11 @@
-import { applyPatches, enablePatches, produceWithPatches, type Draft, type Patch } from 'immer';
+import { applyPatches, enableArrayMethods, enablePatches, freeze, produceWithPatches, type Draft, type Patch } from 'immer';
 import type { AnalysisReport, LoadError, Project, SheetSize } from '@linewright/core';
 import { History, type HistoryIntent, type HistorySnapshot } from './history';
 
 enablePatches();
+// Array searches in a recipe (findIndex, some, find) read the base array instead of drafting each
+// element they pass: one conductor replaced in a 10 000-conductor drawing costs about 2 ms, not 17.
+enableArrayMethods();
 
 /** What is selected on the drawing. View state: never saved, never undone. */
 export interface Selection {
@@ -13,6 +16,9 @@ export interface Selection {
 export const EMPTY_SELECTION: Selection = Object.freeze({ nodes: [], conductors: [], busLinks: [] });
 
 export type ConnectAs = 'conductor' | 'busLink';
+
+/** The document's lists of elements, each element with an id. */
+export type ElementList = 'nodes' | 'conductors' | 'busLinks';
 
 export interface Notice {
   id: number;
@@ -133,6 +139,37 @@ export class EditorStore {
     if (this.refused(redo)) return false;
     if (intent !== 'skip') this.history.push({ label, redo, undo }, intent === 'merge');
     this.commitDoc(next);
+    return true;
+  }
+
+  /**
+   * Replaces whole elements, each found by its id in its list: the same document, patches and undo step
+   * as an `edit` whose recipe assigns `d[list][i] = value`, built without drafting. Immer's draft of a
+   * 10 000-element list costs a copy, a patch pass and a freeze of every element slot (about 2 ms per
+   * edit, and garbage); this costs one array copy per list touched. An element not in its list is
+   * skipped; an id change is not a replacement (use `edit`, which carries the references). Returns true
+   * when the document changed.
+   */
+  replaceElements(label: string, items: readonly { list: ElementList; value: { id: string } }[], intent: HistoryIntent = 'record'): boolean {
+    const doc = this.state.doc;
+    const copies: Partial<Record<ElementList, { id: string }[]>> = {};
+    const redo: Patch[] = [];
+    const undo: Patch[] = [];
+    for (const { list, value } of items) {
+      const base = doc[list] as readonly { id: string }[];
+      const i = base.findIndex((x) => x.id === value.id);
+      const copy = (copies[list] ??= base.slice());
+      if (i < 0 || copy[i] === value) continue;
+      undo.unshift({ op: 'replace', path: [list, i], value: copy[i] });
+      redo.push({ op: 'replace', path: [list, i], value: freeze(value, true) });
+      copy[i] = value;
+    }
+    if (redo.length === 0) return false;
+    if (this.refused(redo)) return false;
+    const next = { ...doc } as Record<string, unknown>;
+    for (const [list, copy] of Object.entries(copies)) next[list] = Object.freeze(copy);
+    if (intent !== 'skip') this.history.push({ label, redo, undo }, intent === 'merge');
+    this.commitDoc(Object.freeze(next) as unknown as Project);
     return true;
   }
 

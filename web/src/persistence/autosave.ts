@@ -9,7 +9,10 @@ import {
   readLatest,
   readWal,
   rememberIdentity,
+  savedAtMsOf,
+  storedDraft,
   tabIdentity,
+  walSavedAtMs,
   writeLatest,
   writeWal,
   WAL_PREFIX,
@@ -76,8 +79,9 @@ async function readIdbDraft(docId: string | null): Promise<Draft | null> {
 }
 
 async function writeIdbDraft(d: Draft): Promise<void> {
+  const stored = storedDraft(d);
   await tx('readwrite', (s) => {
-    s.put(d, d.docId);
+    s.put(stored, d.docId);
     // Keep the newest MAX_DRAFTS: every tab writes its own, so old tabs' copies would pile up. Only the
     // keys are read on every save; the drafts themselves (each a whole drawing) only when some must go.
     const keys = s.getAllKeys();
@@ -86,8 +90,8 @@ async function writeIdbDraft(d: Draft): Promise<void> {
       const all = s.getAll();
       // Requests of one transaction answer in order, over the same keys in the same order.
       all.onsuccess = () => {
-        const drafts = (all.result as unknown[]).map((v, i) => ({ key: keys.result[i], d: asDraft(v) }));
-        drafts.sort((a, b) => (b.d?.savedAtMs ?? 0) - (a.d?.savedAtMs ?? 0));
+        const drafts = (all.result as unknown[]).map((v, i) => ({ key: keys.result[i], savedAtMs: savedAtMsOf(v) }));
+        drafts.sort((a, b) => b.savedAtMs - a.savedAtMs);
         for (const { key } of drafts.slice(MAX_DRAFTS)) if (key !== undefined && key !== d.docId) s.delete(key);
       };
     };
@@ -223,8 +227,8 @@ export function startAutosave(store: EditorStore, identity: TabIdentity, events:
         stats.saves++;
         if (ls) {
           // IndexedDB now holds this version: the write-ahead copy is only needed if it is newer.
-          const wal = readWal(ls, d.docId);
-          if (wal && wal.savedAtMs <= d.savedAtMs) ls.removeItem(WAL_PREFIX + d.docId);
+          const walAt = walSavedAtMs(ls, d.docId);
+          if (walAt !== null && walAt <= d.savedAtMs) ls.removeItem(WAL_PREFIX + d.docId);
           writeLatest(ls, d);
         }
         events.onSaved(new Date(d.savedAtMs).toISOString());

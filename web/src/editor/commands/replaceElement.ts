@@ -1,5 +1,6 @@
 import { busLink, conductor, equipmentNode, projectSettings } from '@linewright/core';
 import type { BusLink, Conductor, EquipmentNode, ProjectSettings } from '@linewright/core';
+import type { ElementList } from '../store';
 import { defineCommand } from './types';
 
 export type ElementTarget =
@@ -7,6 +8,9 @@ export type ElementTarget =
   | { kind: 'conductor'; id: string }
   | { kind: 'busLink'; id: string }
   | { kind: 'project' };
+
+/** The document list each kind of element lives in. */
+export const LIST_OF: Record<Exclude<ElementTarget['kind'], 'project'>, ElementList> = { node: 'nodes', conductor: 'conductors', busLink: 'busLinks' };
 
 export interface ReplaceArg {
   target: ElementTarget;
@@ -50,6 +54,10 @@ export const replaceElement = defineCommand<ReplaceArg>({
     const current =
       t.kind === 'project' ? doc.project : (t.kind === 'node' ? doc.nodes : t.kind === 'conductor' ? doc.conductors : doc.busLinks).find((x) => x.id === t.id);
     if (current !== undefined && JSON.stringify(current) === JSON.stringify(parsed.value)) return;
+    if (t.kind !== 'project' && (parsed.value as { id: string }).id === t.id) {
+      store.replaceElements(a.label, [{ list: LIST_OF[t.kind], value: parsed.value as { id: string } }]);
+      return;
+    }
     store.edit(a.label, (d) => {
       if (t.kind === 'project') {
         d.project = parsed.value as ProjectSettings;

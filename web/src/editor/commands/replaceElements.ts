@@ -1,5 +1,5 @@
 import type { BusLink, Conductor, EquipmentNode } from '@linewright/core';
-import { parseElement, type ElementTarget } from './replaceElement';
+import { LIST_OF, parseElement, type ElementTarget } from './replaceElement';
 import { defineCommand } from './types';
 
 export interface ReplaceManyArg {
@@ -28,12 +28,6 @@ export const replaceElements = defineCommand<ReplaceManyArg>({
   run: ({ store }, a) => {
     if (a.items.length === 0 || replaceManyProblem(a) !== null) return;
     const parsed = a.items.map((it) => ({ t: it.target, v: (parseElement(it.target, it.value) as { ok: true; value: EquipmentNode | Conductor | BusLink }).value }));
-    store.edit(a.label, (d) => {
-      for (const { t, v } of parsed) {
-        const list = (t.kind === 'node' ? d.nodes : t.kind === 'conductor' ? d.conductors : d.busLinks) as { id: string }[];
-        const i = list.findIndex((x) => x.id === t.id);
-        if (i >= 0 && v.id === t.id) list[i] = v as { id: string };
-      }
-    });
+    store.replaceElements(a.label, parsed.flatMap(({ t, v }) => (v.id === t.id ? [{ list: LIST_OF[t.kind], value: v }] : [])));
   },
 });
