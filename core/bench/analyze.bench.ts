@@ -28,8 +28,9 @@
  * reported as "peak heap". It is a lower bound of the true peak (garbage made between samples is
  * not seen); the process's peak RSS (resourceUsage().maxRSS, whole run, all sizes) is printed too.
  * Re-check: a session (createAnalysis) on the 10 000-conductor network, then edits of one kind at a
- * time (a branch circuit's length changed by a foot; a load's amperes by one; a breaker's rating 5 A
- * up, then back), each a new project sharing every other object, as an editor's immer edit does, each
+ * time (the length of a branch circuit, a feeder, a tap or a transformer secondary changed by a foot;
+ * a load's amperes by one; a breaker's rating 5 A up, then back), each a new project sharing every
+ * other object, as an editor's immer edit does, each
  * timed through session.update();
  * per kind the median and 95th percentile, and how many ran the whole analysis.
  * CLI: the command is built from the current source first (scripts/build-cli.mjs), then
@@ -254,16 +255,22 @@ function measure({ conductors, warmup, runs }: (typeof SIZES)[number]): SizeResu
 /** One edit of `project`: the `k`th of its kind, a new project sharing every object it does not touch (an immer edit). */
 type BenchEdit = (project: Project, session: ReturnType<typeof createAnalysis>, k: number) => Project;
 
+/** The `k`th of the conductors whose report line `pick` chooses (spread over the drawing), its length a foot longer or shorter. */
+const lengthEdit =
+  (pick: (c: ReturnType<typeof createAnalysis>['report']['conductors'][number]) => boolean): BenchEdit =>
+  (project, session, k) => {
+    const chosen = session.report.conductors.flatMap((c, i) => (pick(c) && c.lengthFt !== null ? [i] : []));
+    const i = chosen[(k * 7919) % chosen.length]!;
+    const c = project.conductors[i]!;
+    return { ...project, conductors: project.conductors.map((x, j) => (j === i ? { ...c, lengthFt: (c.lengthFt ?? 0) + (k % 2 ? -1 : 1) } : x)) };
+  };
+
 const RECHECK_EDITS: { kind: string; edit: BenchEdit }[] = [
-  {
-    kind: 'branch-circuit length',
-    edit: (project, session, k) => {
-      const branches = session.report.conductors.flatMap((c, i) => (c.role === 'branch' && c.lengthFt !== null ? [i] : []));
-      const i = branches[(k * 7919) % branches.length]!;
-      const c = project.conductors[i]!;
-      return { ...project, conductors: project.conductors.map((x, j) => (j === i ? { ...c, lengthFt: (c.lengthFt ?? 0) + (k % 2 ? -1 : 1) } : x)) };
-    },
-  },
+  { kind: 'branch-circuit length', edit: lengthEdit((c) => c.role === 'branch') },
+  // Feeders to panelboards, transformers and distribution boards: the fault current and drops below them move.
+  { kind: 'feeder length', edit: lengthEdit((c) => c.role === 'feeder' && !c.verdict.startsWith('tap-')) },
+  { kind: 'tap length', edit: lengthEdit((c) => c.verdict.startsWith('tap-')) },
+  { kind: 'transformer secondary length', edit: lengthEdit((c) => c.role === 'transformer-secondary') },
   {
     kind: 'load amperes',
     edit: (project, _session, k) => {

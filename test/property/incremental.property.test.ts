@@ -7,7 +7,7 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { CONDUCTOR_SIZES, MATERIALS, WIRING_METHODS, analyze, createAnalysis, loadProject, type Conductor, type Project, type ProjectInput } from '@linewright/core';
+import { CONDUCTOR_SIZES, INSULATIONS, MATERIALS, WIRING_METHODS, analyze, createAnalysis, loadProject, type Conductor, type Project, type ProjectInput } from '@linewright/core';
 import { generateProject } from '../../core/bench/generateProject';
 import { treeNetwork } from '../helpers/networks';
 
@@ -34,6 +34,8 @@ type Edit =
   | { kind: 'material'; at: number; material: number }
   | { kind: 'sets'; at: number; sets: number }
   | { kind: 'wiring'; at: number; wiring: number }
+  | { kind: 'insulation'; at: number; insulation: number }
+  | { kind: 'conductorFacts'; at: number; change: ConductorChange }
   | { kind: 'rating'; at: number; ratingA: number }
   | { kind: 'load'; at: number; kva: number }
   | { kind: 'loadData'; at: number; change: LoadChange }
@@ -41,6 +43,47 @@ type Edit =
   | { kind: 'device'; at: number; change: DeviceChange }
   | { kind: 'add'; at: number }
   | { kind: 'delete'; at: number };
+
+/** A change of a conductor's other facts: what its ampacity, its run's 240.21 conditions and its findings read. */
+type ConductorChange =
+  | { field: 'ambientC'; value: number }
+  | { field: 'outdoors' }
+  | { field: 'leavesEnclosure' }
+  | { field: 'damageProtection'; value: Conductor['damageProtection'] }
+  | { field: 'terminalTempC'; value: 60 | 75 | 90 | undefined }
+  | { field: 'label'; label: string | undefined };
+
+const conductorChangeArb: fc.Arbitrary<ConductorChange> = fc.oneof(
+  fc.record({ field: fc.constant('ambientC' as const), value: fc.constantFrom(20, 30, 40, 50) }),
+  fc.record({ field: fc.constant('outdoors' as const) }),
+  fc.record({ field: fc.constant('leavesEnclosure' as const) }),
+  fc.record({ field: fc.constant('damageProtection' as const), value: fc.constantFrom('raceway', 'other-approved-means', 'none') }),
+  fc.record({ field: fc.constant('terminalTempC' as const), value: fc.option(fc.constantFrom(60 as const, 75 as const, 90 as const), { nil: undefined }) }),
+  fc.record({ field: fc.constant('label' as const), label: fc.option(fc.constantFrom('Feeder F-1', 'Tap T-3', ' '), { nil: undefined }) }),
+);
+
+/** The conductor after one change of its other facts. */
+function changeConductor(c: Conductor, change: ConductorChange): Conductor {
+  const without = (key: 'terminalTempC' | 'label'): Conductor => {
+    const copy = { ...c } as Record<string, unknown>;
+    delete copy[key];
+    return copy as Conductor;
+  };
+  switch (change.field) {
+    case 'ambientC':
+      return { ...c, ambientC: change.value };
+    case 'outdoors':
+      return { ...c, outdoors: !c.outdoors };
+    case 'leavesEnclosure':
+      return { ...c, leavesEnclosure: !c.leavesEnclosure };
+    case 'damageProtection':
+      return { ...c, damageProtection: change.value };
+    case 'terminalTempC':
+      return change.value === undefined ? without('terminalTempC') : { ...c, terminalTempC: change.value };
+    case 'label':
+      return change.label === undefined ? without('label') : { ...c, label: change.label };
+  }
+}
 
 /** A change of a load's own data: what the roll-up, the motor and HVAC rules and the voltage drop read. */
 type LoadChange =
@@ -137,6 +180,8 @@ const editArb: fc.Arbitrary<Edit> = fc.oneof(
   { weight: 1, arbitrary: fc.record({ kind: fc.constant('material' as const), at, material: fc.nat({ max: MATERIALS.length - 1 }) }) },
   { weight: 1, arbitrary: fc.record({ kind: fc.constant('sets' as const), at, sets: fc.integer({ min: 1, max: 4 }) }) },
   { weight: 1, arbitrary: fc.record({ kind: fc.constant('wiring' as const), at, wiring: fc.nat({ max: WIRING_METHODS.length - 1 }) }) },
+  { weight: 1, arbitrary: fc.record({ kind: fc.constant('insulation' as const), at, insulation: fc.nat({ max: INSULATIONS.length - 1 }) }) },
+  { weight: 2, arbitrary: fc.record({ kind: fc.constant('conductorFacts' as const), at, change: conductorChangeArb }) },
   { weight: 2, arbitrary: fc.record({ kind: fc.constant('rating' as const), at, ratingA: fc.constantFrom(15, 20, 30, 60, 100, 225, 400, 800) }) },
   { weight: 2, arbitrary: fc.record({ kind: fc.constant('load' as const), at, kva: fc.integer({ min: 1, max: 500 }) }) },
   { weight: 3, arbitrary: fc.record({ kind: fc.constant('loadData' as const), at, change: loadChangeArb }) },
@@ -166,6 +211,10 @@ function applyEdit(p: Project, e: Edit, step: number): Project {
       return withConductor(i, { ...c, parallelSets: e.sets });
     case 'wiring':
       return withConductor(i, { ...c, wiring: WIRING_METHODS[e.wiring]! });
+    case 'insulation':
+      return withConductor(i, { ...c, insulation: INSULATIONS[e.insulation]! });
+    case 'conductorFacts':
+      return withConductor(i, changeConductor(c, e.change));
     case 'add':
       return { ...p, conductors: [...p.conductors, { ...c, id: `${c.id}-X${step}` as Conductor['id'] }] };
     case 'delete':
@@ -268,5 +317,39 @@ describe('incremental analysis equals a whole analysis after every edit', () => 
     const added = applyEdit(rated, { kind: 'add', at: branch }, 4);
     expect(session.update(added)).toEqual(analyze(added));
     expect(session.last.mode).toBe('full');
+  });
+
+  it('a feeder, tap, transformer primary or secondary edited (length, size, sets) is re-checked with what is below it; a service conductor runs the whole analysis', () => {
+    let project = load(generateProject({ conductors: 400, seed: 5 }));
+    const session = createAnalysis(project);
+    const lines = session.report.conductors;
+    const first = (pick: (c: (typeof lines)[number]) => boolean) => lines.findIndex((c) => pick(c) && c.lengthFt !== null);
+    const picks = {
+      feeder: first((c) => c.role === 'feeder' && c.verdict === 'protected'),
+      tap: first((c) => c.verdict === 'tap-10ft'),
+      primary: first((c) => c.role === 'transformer-primary'),
+      secondary: first((c) => c.role === 'transformer-secondary'),
+    };
+    let step = 0;
+    for (const [what, at] of Object.entries(picks)) {
+      expect(at, what).toBeGreaterThanOrEqual(0);
+      // Long enough to move the verdict of a tap (past 10 ft, then 25 ft) and the drops below a feeder; then smaller and doubled.
+      const edits: Edit[] = [
+        { kind: 'length', at, lengthFt: 14 },
+        { kind: 'length', at, lengthFt: 400 },
+        { kind: 'size', at, size: CONDUCTOR_SIZES.indexOf('6') },
+        { kind: 'sets', at, sets: 2 },
+        { kind: 'insulation', at, insulation: INSULATIONS.indexOf('TW') },
+      ];
+      for (const e of edits) {
+        project = applyEdit(project, e, step++);
+        expect(session.update(project), `${what} ${e.kind}`).toEqual(analyze(project));
+        expect(session.last, `${what} ${e.kind}`).toEqual({ mode: 'incremental', conductorId: project.conductors[at]!.id });
+      }
+    }
+    const service = lines.findIndex((c) => c.role === 'service');
+    project = applyEdit(project, { kind: 'length', at: service, lengthFt: 60 }, step);
+    expect(session.update(project)).toEqual(analyze(project));
+    expect(session.last).toEqual({ mode: 'full', reason: 'the conductor is a service conductor' });
   });
 });

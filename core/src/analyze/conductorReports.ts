@@ -103,11 +103,11 @@ function runShared(graph: Graph, v: RunVerdict, edition: CodeEdition): RunShared
   };
 }
 
-/** One DeviceRef per device node, shared by every run it feeds (reports are read-only). */
-const deviceRefs = new WeakMap<Graph, (DeviceRef | undefined)[]>();
+/** One DeviceRef per device node, shared by every run it feeds (reports are read-only); kept while the nodes are (an incremental re-check of a conductor keeps them). */
+const deviceRefs = new WeakMap<Graph['nodes'], (DeviceRef | undefined)[]>();
 function deviceRef(graph: Graph, v: number): DeviceRef {
-  let byNode = deviceRefs.get(graph);
-  if (!byNode) deviceRefs.set(graph, (byNode = new Array(graph.nodes.length)));
+  let byNode = deviceRefs.get(graph.nodes);
+  if (!byNode) deviceRefs.set(graph.nodes, (byNode = new Array(graph.nodes.length)));
   let d = byNode[v];
   if (!d) {
     const n = graph.nodes[v]!;

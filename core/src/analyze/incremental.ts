@@ -10,11 +10,13 @@ import { assumptionsFor, countsOf, runAnalysis, type AnalysisState } from './ana
 import type { FixedContext } from './context';
 import type { AnalysisReport, Finding } from './types';
 import type { RunFacts } from '../rules/facts';
-import { hasImpedance, restepThroughConductor } from '../studies/faultCurrent/faultCurrent';
-import { redropConductor, redropPath } from '../studies/voltageDrop/voltageDrop';
-import { conductorDropRow, nodeFault, redoDropFindings, tapWithstand, voltageDropInputs, type WithstandResult } from '../studies/index';
+import { hasImpedance, restepBelow } from '../studies/faultCurrent/faultCurrent';
+import { redropBelow, redropPath } from '../studies/voltageDrop/voltageDrop';
+import { conductorDropRow, faultDutyFinding, NO_RATING, nodeFault, redoDropFindings, seriesByLoadSide, tapWithstand, voltageDropInputs, type WithstandResult } from '../studies/index';
 import { conductorWithstand } from '../rules/conductor-withstand';
-import { edgeFrom, edgeTo, orderPositions, type Graph } from '../topology/graph';
+import { equipmentSccr } from '../rules/equipment-sccr';
+import { interruptingRating } from '../rules/interrupting-rating';
+import { edgeFrom, edgeTo, KIND, orderPositions, type Graph } from '../topology/graph';
 import { voltageDropRule } from '../rules/voltage-drop';
 import { transformerProtection } from '../rules/transformer-protection';
 import { panelboardProtection } from '../rules/panelboard-protection';
@@ -100,10 +102,10 @@ function recheck(state: AnalysisState, prev: Project, next: Project): { state: A
     const edit = singleEdit(prev.conductors, next.conductors, 'conductor');
     if (typeof edit === 'string') return edit;
     const { index, before, after } = edit;
-    if (before.id !== after.id || before.from !== after.from || before.to !== after.to) return 'a conductor was reconnected';
-    const why = leafBlocker(state, index, before, after);
+    const why = conductorBlocker(state, index, before, after);
     if (why !== null) return why;
-    return { state: recheckLeaf(state, next, index), mode: { mode: 'incremental', conductorId: after.id } };
+    const result = isBranchLeaf(state, index) ? recheckLeaf(state, next, index) : recheckConductor(state, next, index);
+    return typeof result === 'string' ? result : { state: result, mode: { mode: 'incremental', conductorId: after.id } };
   }
   const edit = singleEdit(prev.nodes, next.nodes, 'node');
   if (typeof edit === 'string') return edit;
@@ -146,22 +148,37 @@ function relayout(state: AnalysisState, next: Project): AnalysisState {
   return { ...state, ctx: { ...state.ctx, project: next, graph } };
 }
 
-/** Why the edit of conductor `ci` cannot be re-checked on its own, or null when it can. */
-function leafBlocker(state: AnalysisState, ci: number, before: Conductor, after: Conductor): string | null {
-  const { graph: g, runs, verdicts } = state.ctx;
-  const r = runs.runOf[ci]!;
-  if (runs.members[r]!.length !== 1) return 'the conductor is part of a spliced run';
-  const v = verdicts[r]!;
-  if (v.facts.conductorIds.length !== 1) return 'the conductor is judged with the run it continues';
-  if (v.family !== 'fed-by-ocpd' || v.role !== 'branch' || v.supply.kind !== 'ocpd') return 'the conductor is not a branch circuit from an OCPD';
-  const load = g.conductorTo[ci]!;
-  if (load < 0 || g.nodes[load]!.kind !== 'load' || g.outEdges[load]!.length !== 0 || g.inEdges[load]!.length !== 1) return 'the conductor does not end at a load alone';
-  if (state.studies.fault.parentEdge[load] !== ci) return 'the load is not supplied through this conductor';
+/**
+ * Why the edit of conductor `ci` cannot be re-checked without the whole analysis, or null when it can
+ * (what it reaches is bounded later: its run, the runs that read its run's verdict, its subtree).
+ */
+function conductorBlocker(state: AnalysisState, ci: number, before: Conductor, after: Conductor): string | null {
+  if (before.id !== after.id || before.from !== after.from || before.to !== after.to) return 'a conductor was reconnected';
   // The 310.15(E) count of its circuit (analyze/circuits.ts) reads these; the rest of the circuit is the nodes'.
   if (before.neutral !== after.neutral || before.nonlinearLoad !== after.nonlinearLoad || before.currentCarrying !== after.currentCarrying) return 'the edit changes the circuit makeup';
-  // A conductor without a length or an impedance adds a note to the study: let the full run word it.
-  if (!hasImpedance(before) || !hasImpedance(after)) return 'the conductor has no length or Table 9 impedance';
+  // A conductor without a length or a Table 9 impedance counts as zero, makes the fault current below it an upper
+  // bound and adds a note to the study, worded by whether it has a size (which also decides what is judged below it):
+  // let the full run say so when that changes.
+  if (hasImpedance(before) !== hasImpedance(after)) return 'the conductor gained or lost a length or Table 9 impedance';
+  if ((before.size === undefined) !== (after.size === undefined)) return 'the conductor gained or lost its size';
+  // Service conductors: the service markings (110.24) and every fault figure in the building read them.
+  if (state.ctx.verdicts[state.ctx.runs.runOf[ci]!]!.family === 'service') return 'the conductor is a service conductor';
   return null;
+}
+
+/**
+ * A branch circuit of one conductor from an OCPD to one load with nothing below it (the most common
+ * edit by far): `recheckLeaf` re-checks it with less bookkeeping than `recheckConductor`.
+ */
+function isBranchLeaf(state: AnalysisState, ci: number): boolean {
+  const { graph: g, runs, verdicts } = state.ctx;
+  const r = runs.runOf[ci]!;
+  const v = verdicts[r]!;
+  if (runs.members[r]!.length !== 1 || v.facts.conductorIds.length !== 1) return false;
+  if (v.family !== 'fed-by-ocpd' || v.role !== 'branch' || v.supply.kind !== 'ocpd') return false;
+  const load = g.conductorTo[ci]!;
+  if (load < 0 || g.nodes[load]!.kind !== 'load' || g.outEdges[load]!.length !== 0 || g.inEdges[load]!.length !== 1) return false;
+  return state.studies.fault.parentEdge[load] === ci && state.studies.fault.parent[load]! >= 0;
 }
 
 /**
@@ -186,44 +203,127 @@ function recheckLeaf(state: AnalysisState, next: Project, ci: number): AnalysisS
   fixes[r] = fixesOfRun(ctx, r);
 
   // Studies: the load's fault current and the conductor's drop; nothing above the load changes.
-  const { fault, drop } = state.studies;
   const load = graph.conductorTo[ci]!;
-  restepThroughConductor(graph, fault, load);
-  redropConductor(graph, drop, voltageDropInputs(ctx, fault), ci);
-  const old = state.report;
-  const oldStudies = old.studies!;
-  const faults = oldStudies.faults.slice();
-  faults[load] = nodeFault(graph, fault, load);
-  const dropRows = oldStudies.voltageDrop.conductors.slice();
-  dropRows[ci] = conductorDropRow(graph, fault, drop, ci);
-  const studies = { ...oldStudies, faults, voltageDrop: { ...oldStudies.voltageDrop, conductors: dropRows } };
-
-  const conductorMoved = new Uint8Array(graph.conductors.length);
-  const nodeMoved = new Uint8Array(graph.nodes.length);
-  conductorMoved[ci] = 1;
+  const { studies, conductorMoved, nodeMoved } = restudyBelow(state, ctx, ci, [load]);
   nodeMoved[load] = 1;
+  const old = state.report;
   const own = new Map<number, Finding[]>([[ci, []]]);
   conductorFindingsOf(ctx, ci, own.get(ci)!);
   const { findings, conductorFindingStart, studyFindingStart } = spliceFindings(state, ctx, own, conductorMoved, nodeMoved);
   const conductors = old.conductors.slice();
   conductors[ci] = conductorReport(ctx, ci, findingIdsByConductor(findings, chainLookup(state, verdicts)).get(conductor.id));
 
-  const before = state.ctx.graph.conductors[ci]!;
-  const setting = next.project.terminationDefault;
-  // The assumptions name the termination ratings in use and count the conductors that state none.
-  const sameTerminals = terminalTempOf(before, setting) === terminalTempOf(conductor, setting) && (before.terminalTempC === undefined) === (conductor.terminalTempC === undefined);
   const byVerdict = { ...old.counts.byVerdict };
   byVerdict[old.conductors[ci]!.verdict]--;
   byVerdict[conductors[ci]!.verdict]++;
   const report: AnalysisReport = {
     ...old,
-    assumptions: sameTerminals ? old.assumptions : assumptionsFor(next),
+    assumptions: assumptionsAfter(state, next, ci),
     conductors,
     findings,
     studies,
     counts: { conductors: conductors.length, byVerdict, bySeverity: countsOf([], findings).bySeverity },
   };
   return { ...state, ctx, studies: { ...state.studies, report: studies }, conductorFindingStart, studyFindingStart, report };
+}
+
+/** The report's assumptions after conductor `ci` changed: they name the termination ratings in use and count the conductors that state none. */
+function assumptionsAfter(state: AnalysisState, next: Project, ci: number): string[] {
+  const before = state.ctx.graph.conductors[ci]!;
+  const after = next.conductors[ci]!;
+  const setting = next.project.terminationDefault;
+  const same = terminalTempOf(before, setting) === terminalTempOf(after, setting) && (before.terminalTempC === undefined) === (after.terminalTempC === undefined);
+  return same ? state.report.assumptions : assumptionsFor(next);
+}
+
+/**
+ * The studies after conductor `ci`'s impedance changed, `below` the nodes supplied through it on the
+ * supply tree (each after its supply, its end first; empty when it is not on the tree): their fault
+ * current and the drops and sums there, with their rows of the study tables. The typed arrays of the
+ * studies are updated in place (the session owns them). Marks the conductors and nodes whose drop
+ * figures moved.
+ */
+function restudyBelow(state: AnalysisState, ctx: FixedContext, ci: number, below: readonly number[]): { studies: NonNullable<AnalysisReport['studies']>; conductorMoved: Uint8Array; nodeMoved: Uint8Array } {
+  const { graph } = ctx;
+  const { fault, drop } = state.studies;
+  const conductorMoved = new Uint8Array(graph.conductors.length);
+  const nodeMoved = new Uint8Array(graph.nodes.length);
+  const oldStudies = state.report.studies!;
+  conductorMoved[ci] = 1;
+  if (below.length === 0) return { studies: oldStudies, conductorMoved, nodeMoved };
+  restepBelow(graph, fault, ci, below);
+  redropBelow(graph, drop, voltageDropInputs(ctx, fault), ci, below, conductorMoved, nodeMoved);
+  const faults = oldStudies.faults.slice();
+  for (const v of below) faults[v] = nodeFault(graph, fault, v);
+  const dropRows = oldStudies.voltageDrop.conductors.slice();
+  dropRows[ci] = conductorDropRow(graph, fault, drop, ci);
+  for (const v of below) {
+    const e = fault.parentEdge[v]!;
+    if (e >= 0 && conductorMoved[e]) dropRows[e] = conductorDropRow(graph, fault, drop, e);
+  }
+  return { studies: { ...oldStudies, faults, voltageDrop: { ...oldStudies.voltageDrop, conductors: dropRows } }, conductorMoved, nodeMoved };
+}
+
+/**
+ * The nodes supplied through conductor `ci` on the fault study's supply tree, each after its supply,
+ * its end first; empty when its end is not supplied through it (several supplies, a loop, unreached);
+ * null past `limit` nodes.
+ */
+function nodesBelow(state: AnalysisState, ci: number, limit: number): number[] | null {
+  const g = state.ctx.graph;
+  const { parent, parentEdge } = state.studies.fault;
+  const end = g.conductorTo[ci]!;
+  if (end < 0 || parent[end]! < 0 || parentEdge[end] !== ci) return [];
+  const out = [end];
+  for (let k = 0; k < out.length; k++) {
+    const v = out[k]!;
+    for (const e of g.outEdges[v]!) {
+      const w = edgeTo(g, e);
+      if (w >= 0 && parent[w] === v && parentEdge[w] === e) out.push(w);
+    }
+    if (out.length > limit) return null;
+  }
+  return out;
+}
+
+/**
+ * Re-checks the network after one conductor's own data changed (its length, size, material, sets,
+ * insulation, wiring, ambient, installation facts, label; not what decides its circuit's makeup)
+ * anywhere but on the service: its ampacity; its run's facts, verdict and fixes, with the primary of
+ * the transformer it leaves (which reads its secondaries) and the secondaries of the transformer it
+ * feeds (which read the primary), and what is supplied through any run whose verdict changes (see
+ * `rejudge`); the fault current and voltage drop of every node below it, with the 110.9/110.10
+ * findings there and the withstand of the taps and secondaries that start there; the findings and
+ * report lines of all of these. Past a bound on what it reaches, returns why.
+ */
+function recheckConductor(state: AnalysisState, next: Project, ci: number): AnalysisState | string {
+  const prev = state.ctx;
+  const { runs } = prev;
+  const graph: Graph = { ...prev.graph, conductors: next.conductors };
+  const below = nodesBelow(state, ci, boundOf(graph.nodes.length));
+  if (below === null) return `the edit reaches more than ${MAX_REJUDGED_FRACTION * 100} % of the nodes`;
+  const marked = state.report.studies!.serviceMarkings;
+  if (marked.length > 0 && below.length > 0) {
+    const inBelow = new Set(below);
+    if (marked.some((m) => inBelow.has(graph.nodeIndex.get(m.nodeId)!))) return 'a service marking (110.24) reads the fault current below the conductor';
+  }
+  const ampacities = prev.ampacities.slice();
+  ampacities[ci] = conductorAmpacity(next.conductors[ci]!, prev.edition, next.project.terminationDefault, prev.circuits[ci]!.currentCarrying.adjustmentCount);
+  const r = runs.runOf[ci]!;
+  const rs = new Set([r]);
+  // A transformer's primary reads the facts of its secondaries (240.21(B)(3)).
+  const from = graph.conductorFrom[runs.members[r]![0]!]!;
+  if (from >= 0 && graph.nodeKind[from] === KIND.transformer) for (const e of graph.inEdges[from]!) if (e >= 0) rs.add(runs.runOf[e]!);
+  const judged = rejudge(state, { ...prev, project: next, graph, ampacities }, rs);
+  if (typeof judged === 'string') return judged;
+
+  const { studies, conductorMoved, nodeMoved } = restudyBelow(state, judged.ctx, ci, below);
+  // The taps and secondaries that start below read the fault current there (their withstand).
+  const withstandRuns: number[] = [];
+  for (const v of below) for (const e of graph.outEdges[v]!) if (e >= 0 && runs.members[runs.runOf[e]!]![0] === e) withstandRuns.push(runs.runOf[e]!);
+  const after = reported(state, judged, { conductorMoved, nodeMoved, faultNodes: below, withstandRuns }, studies);
+  const assumptions = assumptionsAfter(state, next, ci);
+  return assumptions === after.report.assumptions ? after : { ...after, report: { ...after.report, assumptions } };
 }
 
 /**
@@ -352,7 +452,7 @@ function rejudge(state: AnalysisState, base: Omit<FixedContext, 'verdicts' | 'fi
     if (typeof judged === 'string' || !('reached' in judged)) return judged;
     // A verdict changed: what is supplied through its run is judged again too, up to a bound.
     for (const r of judged.reached) rs.add(r);
-    if (rs.size > Math.max(MIN_REJUDGED_BOUND, MAX_REJUDGED_FRACTION * base.runs.members.length)) return `the edit reaches more than ${MAX_REJUDGED_FRACTION * 100} % of the runs`;
+    if (rs.size > boundOf(base.runs.members.length)) return `the edit reaches more than ${MAX_REJUDGED_FRACTION * 100} % of the runs`;
   }
 }
 
@@ -361,8 +461,10 @@ function rejudge(state: AnalysisState, base: Omit<FixedContext, 'verdicts' | 'fi
  * about what it costs in the whole analysis, and the re-check adds its own bookkeeping.
  */
 const MAX_REJUDGED_FRACTION = 0.25;
-/** Below this many runs the bound does not apply (a small drawing re-checks in no time either way). */
+/** Below this many runs (or nodes) the bound does not apply (a small drawing re-checks in no time either way). */
 const MIN_REJUDGED_BOUND = 64;
+/** How many of `total` runs (or nodes) an edit may reach before the whole analysis runs instead. */
+const boundOf = (total: number) => Math.max(MIN_REJUDGED_BOUND, MAX_REJUDGED_FRACTION * total);
 
 function rejudgeOnce(state: AnalysisState, base: Omit<FixedContext, 'verdicts' | 'fixes'>, rs: Set<number>): Rejudged | { reached: number[] } | string {
   const prev = state.ctx;
@@ -421,7 +523,7 @@ function rejudgeOnce(state: AnalysisState, base: Omit<FixedContext, 'verdicts' |
  * that are (or were) taps or secondaries judged again, in the order a full run writes them (by run,
  * then by conductor of the run).
  */
-function rewithstand(state: AnalysisState, ctx: FixedContext, rs: readonly number[], studies: NonNullable<AnalysisReport['studies']>): { studies: NonNullable<AnalysisReport['studies']>; findings: Finding[] } {
+function rewithstand(state: AnalysisState, ctx: FixedContext, rs: readonly number[], studies: NonNullable<AnalysisReport['studies']>): { studies: NonNullable<AnalysisReport['studies']>; findings: readonly Finding[] } {
   const old = state.report.findings.slice(state.studyFindingStart);
   const before = state.ctx.verdicts;
   const redo = new Set(rs.filter((r) => WITHSTAND_VERDICT.test(before[r]!.verdict) || WITHSTAND_VERDICT.test(ctx.verdicts[r]!.verdict)));
@@ -430,7 +532,10 @@ function rewithstand(state: AnalysisState, ctx: FixedContext, rs: readonly numbe
   const index = conductorIndexOf(state);
   const runOfId = (id: string) => runs.runOf[index.get(id)!]!;
   const rows: [number, WithstandResult][] = [];
-  for (const row of studies.withstand) if (!redo.has(runOfId(row.conductorIds[0]!))) rows.push([runOfId(row.conductorIds[0]!), row]);
+  for (const row of studies.withstand) {
+    const r = runOfId(row.conductorIds[0]!);
+    if (!redo.has(r)) rows.push([r, row]);
+  }
   // Findings by run, then by the conductor's place in its run.
   const key = (id: string) => runOfId(id) * (g.conductors.length + 1) + runs.members[runOfId(id)]!.indexOf(index.get(id)!);
   const found: [number, Finding][] = [];
@@ -459,6 +564,38 @@ function rewithstand(state: AnalysisState, ctx: FixedContext, rs: readonly numbe
 }
 
 /**
+ * The study findings `section` with the 110.9 and 110.10 findings of `nodes` (whose fault current
+ * moved) judged again, in the order a full run writes them: they come first, by node. Which devices
+ * count in the project's "no interrupting rating" finding does not change (a fault current known
+ * stays known).
+ */
+function refaultDuty(ctx: FixedContext, fault: AnalysisState['studies']['fault'], section: readonly Finding[], nodes: readonly number[]): readonly Finding[] {
+  const g = ctx.graph;
+  const redo = new Set<number>();
+  for (const v of nodes) {
+    const kind = g.nodeKind[v];
+    if (kind === KIND.breaker || kind === KIND.fuse || kind === KIND.bus) redo.add(v);
+  }
+  if (redo.size === 0) return section;
+  const isDuty = (f: Finding) => f.subject.kind === 'node' && (f.ruleId === interruptingRating.id || f.ruleId === equipmentSccr.id);
+  let end = 0;
+  while (end < section.length && isDuty(section[end]!)) end++;
+  const found: [number, Finding][] = [];
+  for (let k = 0; k < end; k++) {
+    const f = section[k]!;
+    const v = g.nodeIndex.get((f.subject as { id: string }).id)!;
+    if (!redo.has(v)) found.push([v, f]);
+  }
+  const series = seriesByLoadSide(ctx.project);
+  for (const v of redo) {
+    const f = faultDutyFinding(ctx.edition, g, fault, series, v);
+    if (f !== null && f !== NO_RATING) found.push([v, f]);
+  }
+  found.sort((a, b) => a[0] - b[0]);
+  return [...found.map((x) => x[1]), ...section.slice(end)];
+}
+
+/**
  * Node `u` and the nodes bus-linked from it that take their supply from the same point (the
  * classifier's nodeSupply): through equipment that is not itself a source, an OCPD or a transformer
  * (`u` itself may be one when `fromSource`).
@@ -476,11 +613,15 @@ function suppliedThrough(g: Graph, u: number, fromSource: boolean): number[] {
 /** Equipment that starts a supply of its own for what it feeds (classify.ts SOURCE_KINDS). */
 const SUPPLY_KINDS: ReadonlySet<string> = new Set(['utility', 'generator', 'transformer', 'breaker', 'fuse']);
 
-/** What an edit moved besides the runs judged again: voltage drops, panelboards. */
+/** What an edit moved besides the runs judged again: voltage drops, panelboards, fault currents. */
 interface Moved {
   conductorMoved?: Uint8Array;
   nodeMoved?: Uint8Array;
   panelboards?: readonly number[];
+  /** Nodes whose fault current moved: their 110.9/110.10 findings are judged again. */
+  faultNodes?: readonly number[];
+  /** Runs whose withstand is judged again besides those judged again (the fault current where they start moved). */
+  withstandRuns?: readonly number[];
 }
 
 /** The state and report after `judged`: the runs' findings and report lines, the transformers they feed, the panelboards and drops that moved. */
@@ -501,20 +642,27 @@ function reported(state: AnalysisState, judged: Rejudged, moved: Moved, studiesR
   }
   const conductorMoved = moved.conductorMoved ?? new Uint8Array(graph.conductors.length);
   const nodeMoved = moved.nodeMoved ?? new Uint8Array(graph.nodes.length);
-  const withstood = rewithstand(state, ctx, judged.runs, studies);
-  const { findings, conductorFindingStart, studyFindingStart } = spliceFindings(state, ctx, own, conductorMoved, nodeMoved, { transformers, panelboards: moved.panelboards ?? [] }, withstood.findings);
+  const extra = moved.withstandRuns ?? [];
+  const withstood = rewithstand(state, ctx, extra.length === 0 ? judged.runs : [...judged.runs, ...extra], studies);
+  const studySection = moved.faultNodes ? refaultDuty(ctx, state.studies.fault, withstood.findings, moved.faultNodes) : withstood.findings;
+  const { findings, conductorFindingStart, studyFindingStart } = spliceFindings(state, ctx, own, conductorMoved, nodeMoved, { transformers, panelboards: moved.panelboards ?? [] }, studySection);
   studies = withstood.studies;
 
-  // Report lines: the runs', and those whose voltage-drop warning came or went.
+  // Report lines: the runs', those whose withstand was judged again, and those whose voltage-drop warning came or went.
   const old = state.report;
   const lines = new Set(own.keys());
+  for (const r of extra) for (const ci of runs.members[r]!) lines.add(ci);
+  // A line lists the ids of its findings, so a warning that changed only its figures leaves it as it was.
   const index = conductorIndexOf(state);
-  for (const [list, from] of [[old.findings, state.studyFindingStart], [findings, studyFindingStart]] as const) {
-    for (let k = from; k < list.length; k++) {
-      const f = list[k]!;
-      if (f.ruleId === voltageDropRule.id && f.subject.kind === 'conductor') lines.add(index.get(f.subject.id)!);
-    }
-  }
+  const warned = (list: readonly Finding[], from: number) => {
+    const ids = new Set<string>();
+    for (let k = from; k < list.length; k++) if (list[k]!.ruleId === voltageDropRule.id && list[k]!.subject.kind === 'conductor') ids.add((list[k]!.subject as { id: string }).id);
+    return ids;
+  };
+  const warnedBefore = warned(old.findings, state.studyFindingStart);
+  const warnedAfter = warned(findings, studyFindingStart);
+  for (const id of warnedBefore) if (!warnedAfter.has(id)) lines.add(index.get(id)!);
+  for (const id of warnedAfter) if (!warnedBefore.has(id)) lines.add(index.get(id)!);
   const ids = findingIdsByConductor(findings, chainLookup(state, ctx.verdicts));
   const conductors = old.conductors.slice();
   for (const ci of lines) conductors[ci] = conductorReport(ctx, ci, ids.get(graph.conductors[ci]!.id));

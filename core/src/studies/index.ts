@@ -84,40 +84,17 @@ export function studyNetwork(net: StudiedNetwork, taps: readonly TapRun[]): Stud
   const fault = studyFaultCurrent(g, order, count);
   const drop = studyVoltageDropAfterFault(net, fault);
   const findings: Finding[] = [];
-  const push = (rule: Rule<string, never>, severity: Severity, subject: Finding['subject'], checks: readonly Check[], related: Finding['related'] = [], data: Finding['data'] = {}) => {
-    const f = studyFinding(edition, rule, severity, subject, checks, related, data);
-    if (f) findings.push(f);
-  };
-  const kAt = (v: number): number | null => (Number.isNaN(fault.kA[v]!) ? null : fault.kA[v]!);
 
   // 110.9 and 110.10, one pass over the equipment.
-  const series = new Map((project.seriesRatings ?? []).map((s) => [s.loadSideId as string, s]));
+  const series = seriesByLoadSide(project);
   const noRating: NodeId[] = [];
   for (let v = 0; v < g.nodes.length; v++) {
     // Only devices and buses are judged here: no other node object is read.
     const kind = g.nodeKind[v]!;
     if (kind !== KIND.breaker && kind !== KIND.fuse && kind !== KIND.bus) continue;
-    const node = g.nodes[v]!;
-    if (node.kind === 'breaker' || node.kind === 'fuse') {
-      if (node.interruptingKA === undefined) {
-        if (kAt(v) !== null) noRating.push(node.id);
-        continue;
-      }
-      const s = series.get(node.id);
-      const lineSide = s ? g.nodeIndex.get(s.lineSideId) ?? -1 : -1;
-      const facts: InterruptingFacts = {
-        edition,
-        deviceId: node.id,
-        device: label(node),
-        interruptingKA: node.interruptingKA,
-        faultKA: kAt(v),
-        upperBound: fault.upperBound[v] === 1,
-        series: s ? { lineSideId: s.lineSideId, lineSide: lineSide >= 0 ? label(g.nodes[lineSide]!) : s.lineSideId, combinationKA: s.combinationKA, lineSideIsAhead: isAhead(fault, lineSide, v) } : null,
-      };
-      push(interruptingRating, 'violation', { kind: 'node', id: node.id }, interruptingRating.check(facts), s ? [{ kind: 'node', id: s.lineSideId }] : []);
-    } else if (node.kind === 'bus' && node.sccrKA !== undefined) {
-      push(equipmentSccr, 'violation', { kind: 'node', id: node.id }, equipmentSccr.check({ edition, equipmentId: node.id, equipment: label(node), sccrKA: node.sccrKA, faultKA: kAt(v), upperBound: fault.upperBound[v] === 1 }));
-    }
+    const f = faultDutyFinding(edition, g, fault, series, v);
+    if (f === NO_RATING) noRating.push(g.nodes[v]!.id);
+    else if (f) findings.push(f);
   }
   if (noRating.length > 0) {
     findings.push({
@@ -180,6 +157,44 @@ function dropTable(g: Graph, fault: FaultStudy, drop: VoltageDropStudy): Conduct
   const rows: ConductorDrop[] = new Array(g.conductors.length);
   for (let c = 0; c < g.conductors.length; c++) rows[c] = conductorDropRow(g, fault, drop, c);
   return rows;
+}
+
+/** The series combination ratings by the id of their load-side device (110.9 reads a device's own). */
+export function seriesByLoadSide(project: Project): ReadonlyMap<string, NonNullable<Project['seriesRatings']>[number]> {
+  return new Map((project.seriesRatings ?? []).map((s) => [s.loadSideId as string, s]));
+}
+
+/** What `faultDutyFinding` returns for a device with a known fault current and no interrupting rating (one project finding counts them). */
+export const NO_RATING = 'no-rating';
+
+/**
+ * Node `v` against the available fault current there: a breaker or fuse under 110.9 (its
+ * interrupting rating, or a series combination rating), a bus with an SCCR under 110.10. Its finding,
+ * null when it holds or the node is not judged here, or NO_RATING.
+ */
+export function faultDutyFinding(edition: CodeEdition, g: Graph, fault: FaultStudy, series: ReturnType<typeof seriesByLoadSide>, v: number): Finding | typeof NO_RATING | null {
+  const node = g.nodes[v]!;
+  const kA = Number.isNaN(fault.kA[v]!) ? null : fault.kA[v]!;
+  const upperBound = fault.upperBound[v] === 1;
+  if (node.kind === 'breaker' || node.kind === 'fuse') {
+    if (node.interruptingKA === undefined) return kA !== null ? NO_RATING : null;
+    const s = series.get(node.id);
+    const lineSide = s ? g.nodeIndex.get(s.lineSideId) ?? -1 : -1;
+    const facts: InterruptingFacts = {
+      edition,
+      deviceId: node.id,
+      device: label(node),
+      interruptingKA: node.interruptingKA,
+      faultKA: kA,
+      upperBound,
+      series: s ? { lineSideId: s.lineSideId, lineSide: lineSide >= 0 ? label(g.nodes[lineSide]!) : s.lineSideId, combinationKA: s.combinationKA, lineSideIsAhead: isAhead(fault, lineSide, v) } : null,
+    };
+    return studyFinding(edition, interruptingRating, 'violation', { kind: 'node', id: node.id }, interruptingRating.check(facts), s ? [{ kind: 'node', id: s.lineSideId }] : []);
+  }
+  if (node.kind === 'bus' && node.sccrKA !== undefined) {
+    return studyFinding(edition, equipmentSccr, 'violation', { kind: 'node', id: node.id }, equipmentSccr.check({ edition, equipmentId: node.id, equipment: label(node), sccrKA: node.sccrKA, faultKA: kA, upperBound }));
+  }
+  return null;
 }
 
 /**

@@ -100,6 +100,7 @@ export function studyFaultCurrent(g: Graph, order: Int32Array, count: number): F
   const rOhmPerKft = new Float64Array(g.conductors.length).fill(Number.NaN);
   const xOhmPerKft = new Float64Array(g.conductors.length).fill(Number.NaN);
   const notes = new Set<string>();
+  const steps: Impedances = { r, x, loop, stepR, stepX, rOhmPerKft, xOhmPerKft };
 
   for (let k = 0; k < count; k++) {
     const v = order[k]!;
@@ -139,49 +140,32 @@ export function studyFaultCurrent(g: Graph, order: Int32Array, count: number): F
     atTerminals[v] = e < 0 ? atTerminals[u]! : 0;
     // Only a transformer or a load can start a single-phase loop: no other node object is read here.
     const isLoop = kind === TRANSFORMER || kind === LOAD ? loopAt(g.nodes[v]!, loop[u]!) : loop[u]!;
-    let ru = seenFrom(r[u]!, isLoop, loop[u]!);
-    let xu = seenFrom(x[u]!, isLoop, loop[u]!);
     loop[v] = isLoop;
     voltsLL[v] = voltsLL[u]!;
-    let dr = 0;
-    let dx = 0;
+    let known = true;
     if (e >= 0) {
       const c = g.conductors[e]!;
       if (!readConductor(c, e, rOhmPerKft, xOhmPerKft)) {
+        known = false;
         upperBound[v] = 1;
         if (c.size === undefined) notes.add('A conductor without a size has no known impedance and counts as zero: the fault current below it is an upper bound ("at most"); enter the size for the value.');
         else notes.add('A conductor without a length or a Chapter 9 Table 9 value counts as zero impedance: the fault current below it is an upper bound ("at most").');
-      } else {
-        const factor = stepFactor(c, isLoop);
-        dr = rOhmPerKft[e]! * factor;
-        dx = xOhmPerKft[e]! * factor;
       }
     }
+    const t = impedanceAt(g, steps, v, u, e, known);
     if (kind === TRANSFORMER) {
       const node = g.nodes[v] as NodeOfKind<'transformer'>;
-      const ratio = node.secondaryVoltsLL / node.primaryVoltsLL;
-      // The primary conductor is referred with the rest of the primary side.
-      ru = (ru + dr) * ratio * ratio;
-      xu = (xu + dx) * ratio * ratio;
       voltsLL[v] = node.secondaryVoltsLL;
       zone[v] = v;
       atTerminals[v] = 1;
-      const t = transformerImpedance(node);
       if (!t) {
         unknownWhy[v] = `transformer ${node.id} has no impedance %Z`;
-        dr = dx = 0;
       } else {
         if (node.xOverR === undefined) notes.add('Transformer X/R not given: a typical value by kVA used (common practice, IEEE Std 141 typical values).');
         if (infinite[v]) notes.add('A utility without an available fault current is taken as an infinite bus: the transformer impedance alone limits the fault (conservative).');
         infinite[v] = 0;
-        dr = t.r;
-        dx = t.x;
       }
     }
-    r[v] = ru + dr;
-    x[v] = xu + dx;
-    stepR[v] = dr;
-    stepX[v] = dx;
   }
 
   // Motor contribution by zone: summed once, then added everywhere in the zone.
@@ -256,24 +240,65 @@ function stepFactor(c: Conductor, isLoop: number): number {
   return ((isLoop ? 2 : 1) * c.lengthFt!) / 1000 / c.parallelSets;
 }
 
+/** What the step from a node's supply to the node reads and writes: R and X so far, the loop flag, the steps, the conductors' Table 9 values. */
+type Impedances = Pick<FaultStudy, 'r' | 'x' | 'loop' | 'stepR' | 'stepX' | 'rOhmPerKft' | 'xOhmPerKft'>;
+
 /**
- * Node `v` again after the conductor reaching it changed (length, size, material, sets or wiring,
- * with an impedance before and after): its R and X and its figures. Only for a node with nothing
- * below it that is not a transformer, so nothing else moves (see analyze/incremental.ts).
+ * R and X at node `v` (its loop flag set) from its supply `u` through edge `e`: the supply side as
+ * `v` sees it, plus the conductor when `conductorKnown` (its Table 9 values read), referred to the
+ * secondary with the rest of the primary side at a transformer, whose own impedance is then the
+ * step. Returns that transformer impedance at a transformer (null without %Z: nothing added).
  */
-export function restepThroughConductor(g: Graph, f: FaultStudy, v: number): void {
-  settleTables(f);
-  const u = f.parent[v]!;
-  const e = f.parentEdge[v]!;
-  const c = g.conductors[e]!;
+function impedanceAt(g: Graph, f: Impedances, v: number, u: number, e: number, conductorKnown: boolean): ReturnType<typeof transformerImpedance> | undefined {
   const isLoop = f.loop[v]!;
-  readConductor(c, e, f.rOhmPerKft, f.xOhmPerKft);
-  const factor = stepFactor(c, isLoop);
-  f.stepR[v] = f.rOhmPerKft[e]! * factor;
-  f.stepX[v] = f.xOhmPerKft[e]! * factor;
-  f.r[v] = seenFrom(f.r[u]!, isLoop, f.loop[u]!) + f.stepR[v]!;
-  f.x[v] = seenFrom(f.x[u]!, isLoop, f.loop[u]!) + f.stepX[v]!;
-  if (!f.unknownWhy[v]) figuresAt(g, f, v, false);
+  let ru = seenFrom(f.r[u]!, isLoop, f.loop[u]!);
+  let xu = seenFrom(f.x[u]!, isLoop, f.loop[u]!);
+  let dr = 0;
+  let dx = 0;
+  if (e >= 0 && conductorKnown) {
+    const factor = stepFactor(g.conductors[e]!, isLoop);
+    dr = f.rOhmPerKft[e]! * factor;
+    dx = f.xOhmPerKft[e]! * factor;
+  }
+  let t: ReturnType<typeof transformerImpedance> | undefined;
+  if (g.nodeKind[v] === TRANSFORMER) {
+    const node = g.nodes[v] as NodeOfKind<'transformer'>;
+    const ratio = node.secondaryVoltsLL / node.primaryVoltsLL;
+    ru = (ru + dr) * ratio * ratio;
+    xu = (xu + dx) * ratio * ratio;
+    t = transformerImpedance(node);
+    dr = t ? t.r : 0;
+    dx = t ? t.x : 0;
+  }
+  f.r[v] = ru + dr;
+  f.x[v] = xu + dx;
+  f.stepR[v] = dr;
+  f.stepX[v] = dx;
+  return t;
+}
+
+/**
+ * The nodes `below` again after conductor `c` changed (length, size, material, sets or wiring, with
+ * an impedance before and after; see analyze/incremental.ts): its Table 9 values, then each node's R,
+ * X and figures from its supply. `below` lists the nodes supplied through `c` on the supply tree,
+ * each after its supply, the end of `c` first. The tree, the loops, voltages, zones, motor
+ * contributions and what is unknown or an upper bound stay as they were.
+ */
+export function restepBelow(g: Graph, f: FaultStudy, c: number, below: readonly number[]): void {
+  settleTables(f);
+  readConductor(g.conductors[c]!, c, f.rOhmPerKft, f.xOhmPerKft);
+  for (const v of below) {
+    const e = f.parentEdge[v]!;
+    impedanceAt(g, f, v, f.parent[v]!, e, e >= 0 && !Number.isNaN(f.rOhmPerKft[e]!) && g.conductors[e]!.lengthFt !== undefined);
+    if (!f.unknownWhy[v]) figuresAt(g, f, v, atTransformerTerminals(g, f, v));
+  }
+}
+
+/** A transformer, or equipment bus-linked alone to one (where the line-to-ground figure is given). */
+function atTransformerTerminals(g: Graph, f: FaultStudy, v: number): boolean {
+  let w = v;
+  for (let steps = 0; g.nodeKind[w] !== TRANSFORMER && f.parent[w]! >= 0 && f.parentEdge[w]! < 0 && steps <= g.nodes.length; steps++) w = f.parent[w]!;
+  return g.nodeKind[w] === TRANSFORMER;
 }
 
 /** Transformer R and X on the secondary, ohms (phase or single-phase loop), or null without %Z. */

@@ -109,16 +109,27 @@ function arriveAt(g: Graph, inp: Pick<VoltageDropInputs, 'parent' | 'parentEdge'
 
 /**
  * Conductor `c` again after its length, size, material, sets or wiring changed (its circuit and current
- * do not): its drop and the sums at its load end, which has nothing below it (see analyze/incremental.ts).
- * The fault study has re-read its Table 9 values into `inp.rOhmPerKft`/`xOhmPerKft` first.
+ * do not; see analyze/incremental.ts): its drop, then the sums at the nodes `below` it (the nodes
+ * supplied through it on the supply tree, each after its supply, its end first). The fault study has
+ * re-read its Table 9 values into `inp.rOhmPerKft`/`xOhmPerKft` first. Marks `c` in `conductorMoved`,
+ * and each node whose sums changed in `nodeMoved` with the conductor into it.
  */
-export function redropConductor(g: Graph, drop: VoltageDropStudy, inp: VoltageDropInputs, c: number): void {
+export function redropBelow(g: Graph, drop: VoltageDropStudy, inp: VoltageDropInputs, c: number, below: readonly number[], conductorMoved: Uint8Array, nodeMoved: Uint8Array): void {
   settleTables(drop);
   const three = drop.singlePhase[c] === 0;
   const volts = circuitVolts(inp, c, g.conductorFrom[c]!, three);
+  conductorMoved[c] = 1;
   if (!(volts > 0)) return;
   drop.pct[c] = dropPct(g, inp, c, drop.currentA[c]!, drop.powerFactor[c]!, three, volts);
-  arriveAt(g, inp, drop.pct, drop.totalPct, drop.circuitPct, g.conductorTo[c]!);
+  const { totalPct, circuitPct } = drop;
+  for (const v of below) {
+    const t = totalPct[v]!;
+    const cp = circuitPct[v]!;
+    arriveAt(g, inp, drop.pct, totalPct, circuitPct, v);
+    if (Object.is(t, totalPct[v]) && Object.is(cp, circuitPct[v])) continue;
+    nodeMoved[v] = 1;
+    if (inp.parentEdge[v]! >= 0) conductorMoved[inp.parentEdge[v]!] = 1;
+  }
 }
 
 export function studyVoltageDrop(g: Graph, inp: VoltageDropInputs): VoltageDropStudy {
