@@ -3,7 +3,7 @@ import { CONDUCTOR_SIZES, project, type Project } from './schema';
 import { migrateToCurrent } from './migrations';
 import { compileSchema, FAIL } from './fastParse';
 import { foundText } from './found';
-import { rememberNodeIndex } from './nodeIndex';
+import { rememberEdgeEnds, rememberNodeIndex } from './nodeIndex';
 
 const fastProject = compileSchema(project);
 import type { LoadError } from '../analyze/types';
@@ -192,10 +192,9 @@ export function checkConsistency(p: Project): LoadError[] {
   const nodeIndex = new Map<string, number>();
   // Where each id was first seen, as (list, index); a path string is built only for an error.
   const seen = new Map<string, number>();
-  const kindOf = (id: string): string | undefined => {
-    const i = nodeIndex.get(id);
-    return i === undefined ? undefined : p.nodes[i]!.kind;
-  };
+  // Each end's node position (-1 for none), kept for the graph with the index (./nodeIndex.ts).
+  const ends = { from: new Int32Array(p.conductors.length), to: new Int32Array(p.conductors.length) };
+  const linkEnds = { from: new Int32Array(p.busLinks.length), to: new Int32Array(p.busLinks.length) };
   const lists = ['nodes', 'conductors', 'busLinks'] as const;
   const pathOf = (list: number, i: number) => `${lists[list]}[${i}]`;
   const claim = (id: string, list: number, i: number) => {
@@ -229,10 +228,12 @@ export function checkConsistency(p: Project): LoadError[] {
       errors.push({ path: `nodes[${i}].adjustableTrip.longTimeSettingA`, message: 'The long-time setting cannot exceed the maximum setting.' });
     }
   }
-  const checkEnds = (e: { id: string; from: string; to: string }, list: number, i: number) => {
+  const checkEnds = (e: { id: string; from: string; to: string }, list: number, i: number, at: { from: Int32Array; to: Int32Array }) => {
     claim(e.id, list, i);
-    const fromKind = kindOf(e.from);
-    const toKind = kindOf(e.to);
+    const from = (at.from[i] = nodeIndex.get(e.from) ?? -1);
+    const to = (at.to[i] = nodeIndex.get(e.to) ?? -1);
+    const fromKind = from < 0 ? undefined : p.nodes[from]!.kind;
+    const toKind = to < 0 ? undefined : p.nodes[to]!.kind;
     if (fromKind !== undefined && toKind !== undefined && e.from !== e.to && fromKind !== 'load' && toKind !== 'utility' && toKind !== 'generator') return;
     const path = pathOf(list, i);
     if (fromKind === undefined) errors.push({ path: `${path}.from`, message: `No equipment has the id "${e.from}"; connect the supply end to existing equipment.` });
@@ -243,8 +244,12 @@ export function checkConsistency(p: Project): LoadError[] {
       errors.push({ path: `${path}.to`, message: `"${e.to}" is a source and has no line side; draw the connection from it, not to it.` });
     }
   };
-  for (let i = 0; i < p.conductors.length; i++) checkEnds(p.conductors[i]!, 1, i);
-  for (let i = 0; i < p.busLinks.length; i++) checkEnds(p.busLinks[i]!, 2, i);
-  if (errors.length === 0) rememberNodeIndex(p.nodes, nodeIndex);
+  for (let i = 0; i < p.conductors.length; i++) checkEnds(p.conductors[i]!, 1, i, ends);
+  for (let i = 0; i < p.busLinks.length; i++) checkEnds(p.busLinks[i]!, 2, i, linkEnds);
+  if (errors.length === 0) {
+    rememberNodeIndex(p.nodes, nodeIndex);
+    rememberEdgeEnds(p.conductors, nodeIndex, ends.from, ends.to);
+    rememberEdgeEnds(p.busLinks, nodeIndex, linkEnds.from, linkEnds.to);
+  }
   return errors;
 }

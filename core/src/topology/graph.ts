@@ -1,4 +1,4 @@
-import { nodeIndexOf } from '../model/nodeIndex';
+import { edgeEndsOf, nodeIndexOf } from '../model/nodeIndex';
 import { EQUIPMENT_KINDS, type BusLink, type Conductor, type EquipmentKind, type EquipmentNode, type Project } from '../model/schema';
 
 /**
@@ -31,20 +31,9 @@ export function buildGraph(project: Project): Graph {
   const { nodes, conductors, busLinks: links } = project;
   // Built by the load step's check when the nodes are as it left them; else here.
   const nodeIndex = nodeIndexOf(nodes);
-  const conductorFrom = new Int32Array(conductors.length);
-  const conductorTo = new Int32Array(conductors.length);
-  for (let i = 0; i < conductors.length; i++) {
-    const c = conductors[i]!;
-    conductorFrom[i] = nodeIndex.get(c.from) ?? -1;
-    conductorTo[i] = nodeIndex.get(c.to) ?? -1;
-  }
-  const linkFrom = new Int32Array(links.length);
-  const linkTo = new Int32Array(links.length);
-  for (let j = 0; j < links.length; j++) {
-    const l = links[j]!;
-    linkFrom[j] = nodeIndex.get(l.from) ?? -1;
-    linkTo[j] = nodeIndex.get(l.to) ?? -1;
-  }
+  // Each end's node position: the load step's look-ups while the lists are as it left them (model/nodeIndex.ts).
+  const { from: conductorFrom, to: conductorTo } = edgeEndsOf(conductors, nodeIndex);
+  const { from: linkFrom, to: linkTo } = edgeEndsOf(links, nodeIndex);
   // Every node has a list each way, but most lists are empty (a load feeds nothing, a source is fed by
   // nothing): those share one empty list (read-only, like the whole graph), so a large drawing makes
   // about one list per edge, not two per node.

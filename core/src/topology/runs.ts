@@ -1,4 +1,5 @@
-import type { Graph } from './graph';
+import type { NodeOfKind } from '../model/schema';
+import { KIND, type Graph } from './graph';
 
 /**
  * A run is one conductor, or several joined end to end at pass-through
@@ -21,8 +22,9 @@ export interface Runs {
 /** A splice or tap box with one conductor in and one out and nothing else: no branch, whatever the sizes. */
 export function isJoint(g: Graph, node: number): boolean {
   if (node < 0) return false;
-  const n = g.nodes[node]!;
-  if (n.kind !== 'splice' && !(n.kind === 'bus' && n.busType === 'tap-box')) return false;
+  // The kind code first: most conductors end at a device or a load, whose node object is then not read.
+  const kind = g.nodeKind[node]!;
+  if (kind !== KIND.splice && !(kind === KIND.bus && (g.nodes[node] as NodeOfKind<'bus'>).busType === 'tap-box')) return false;
   const ins = g.inEdges[node]!;
   const outs = g.outEdges[node]!;
   // Conductors only: a bus link out of a tap box feeds equipment in it, which is a branch.
@@ -51,17 +53,20 @@ export function buildRuns(g: Graph): Runs {
   }
   const runOf = new Int32Array(n).fill(-1);
   const members: number[][] = [];
-  const collect = (start: number) => {
-    const run: number[] = [];
-    const id = members.length;
-    for (let c = start; c >= 0 && runOf[c] === -1; c = next[c]!) {
-      runOf[c] = id;
-      run.push(c);
-    }
-    members.push(run);
-  };
-  for (let c = 0; c < n; c++) if (!hasPrev[c]) collect(c);
+  for (let c = 0; c < n; c++) if (!hasPrev[c]) collect(members, runOf, next, c);
   // Whatever is left lies on a ring of pass-through joints: a cycle, reported elsewhere.
-  for (let c = 0; c < n; c++) if (runOf[c] === -1) collect(c);
+  for (let c = 0; c < n; c++) if (runOf[c] === -1) collect(members, runOf, next, c);
   return { members, runOf };
+}
+
+/** Appends the run that starts at conductor `start` and follows `next`; most runs are one conductor, a list of exactly one. */
+function collect(members: number[][], runOf: Int32Array, next: Int32Array, start: number): void {
+  const id = members.length;
+  const run = [start];
+  runOf[start] = id;
+  for (let c = next[start]!; c >= 0 && runOf[c] === -1; c = next[c]!) {
+    runOf[c] = id;
+    run.push(c);
+  }
+  members.push(run);
 }
