@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { loadProject } from '../../../core/src/model/load';
-import type { Project } from '../../../core/src/model/schema';
+import type { NodeId, Project } from '../../../core/src/model/schema';
 import { buildGraph, type Graph } from '../../../core/src/topology/graph';
 
 /**
@@ -47,7 +47,7 @@ describe('graph ends from the load step', () => {
     const q: Project = { ...p, nodes: [...p.nodes].reverse() };
     const e = ends(q, buildGraph(q));
     expect(e.graph).toEqual(e.project);
-    const r: Project = { ...p, conductors: p.conductors.map((c, i) => (i === 0 ? { ...c, from: 'no-such-node' } : c)) };
+    const r: Project = { ...p, conductors: p.conductors.map((c, i) => (i === 0 ? { ...c, from: 'no-such-node' as NodeId } : c)) };
     const g = buildGraph(r);
     expect(g.conductorFrom[0]).toBe(-1);
     expect(ends(r, g).graph.slice(1)).toEqual(ends(r, g).project.slice(1));
