@@ -22,4 +22,18 @@ describe('isolateSegments', () => {
     doc.nodes.push({ id: 'X\u202E', kind: 'utility', voltsLL: 480, phases: 3 } as (typeof doc.nodes)[number]);
     expect(bidiHazards(doc).sort()).toEqual(['X\u202E', 'לוח ראשי'].sort());
   });
+  it('after an element is replaced in place, the answer is that of the whole list read again', () => {
+    const utility = (id: string, label: string) => ({ id, kind: 'utility', label, voltsLL: 480, phases: 3 }) as ReturnType<typeof emptyProject>['nodes'][number];
+    const base = emptyProject();
+    const nodes = [utility('U1', 'plain'), utility('U2', 'לוח ראשי'), utility('U3', 'also plain')];
+    const docs = [
+      { ...base, nodes },
+      { ...base, nodes: [utility('U1', 'renamed'), nodes[1]!, nodes[2]!] },
+      { ...base, nodes: [nodes[0]!, nodes[1]!, utility('U3', 'LP\u202E2')] },
+      { ...base, nodes: [nodes[0]!, utility('U2', 'plain now'), utility('U3', 'LP\u202E2')] },
+      { ...base, nodes: [nodes[0]!, utility('U2', 'plain now'), nodes[2]!] },
+    ];
+    const expected = [['לוח ראשי'], ['לוח ראשי'], ['לוח ראשי', 'LP\u202E2'], ['LP\u202E2'], []];
+    docs.forEach((d, i) => expect(bidiHazards(d)).toEqual(expected[i]));
+  });
 });
