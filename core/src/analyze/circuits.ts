@@ -1,6 +1,6 @@
 import type { Conductor, EquipmentNode, NodeOfKind } from '../model/schema';
 import { edgeTo, KIND, type Graph } from '../topology/graph';
-import { loadConnection, type SystemLoads } from './loads';
+import { loadConnection, type LoadConnection, type SystemLoads } from './loads';
 
 /**
  * What each conductor's circuit is made of: the system it is supplied from,
@@ -118,7 +118,7 @@ function sourceSystem(node: EquipmentNode): SystemAt | null {
  * A load's connection is its own (loads.ts `loadConnection`), so a load at
  * line-to-neutral voltage asks for a neutral and a line-to-line one does not.
  */
-export function networkSystems(g: Graph, order: Int32Array, count: number, loads: Pick<SystemLoads, 'voltsLL' | 'phases' | 'voltsLN'>): NetworkSystems {
+export function networkSystems(g: Graph, order: Int32Array, count: number, loads: Pick<SystemLoads, 'voltsLL' | 'phases' | 'voltsLN'> & Partial<Pick<SystemLoads, 'loadCircuits'>>): NetworkSystems {
   const n = g.nodes.length;
   const at: SystemAt[] = new Array<SystemAt>(n).fill(UNKNOWN);
   const service = new Uint8Array(n);
@@ -148,7 +148,11 @@ export function networkSystems(g: Graph, order: Int32Array, count: number, loads
       bits[v] = (g.nodes[v] as NodeOfKind<'transformer'>).phases === 1 ? LL : THREE;
       continue;
     }
-    if (kind === KIND.load) bits[v]! |= loadBits(g.nodes[v] as NodeOfKind<'load'>, loads.voltsLL[v]!, loads.phases[v]!, loads.voltsLN[v]!, at[v]!);
+    if (kind === KIND.load) {
+      // The roll-up has already decided the connection of every load whose current it knows.
+      const known = loads.loadCircuits?.[v];
+      bits[v]! |= known ? connectionBits(known) : loadBits(g.nodes[v] as NodeOfKind<'load'>, loads.voltsLL[v]!, loads.phases[v]!, loads.voltsLN[v]!, at[v]!);
+    }
     else if (kind === KIND.bus) bits[v]! |= DISTRIBUTION;
     const outs = g.outEdges[v]!;
     for (let i = 0; i < outs.length; i++) {
@@ -162,9 +166,13 @@ export function networkSystems(g: Graph, order: Int32Array, count: number, loads
   return { at, serves, service };
 }
 
+function connectionBits(on: Pick<LoadConnection, 'connection'>): number {
+  return on.connection === 'three-phase' ? THREE : on.connection === 'line-to-neutral' ? LN : LL;
+}
+
 function loadBits(node: Extract<EquipmentNode, { kind: 'load' }>, sysV: number, sysPhases: number, sysLN: number, system: SystemAt): number {
   const on = loadConnection(node, sysV, sysPhases, sysLN);
-  if (on) return on.connection === 'three-phase' ? THREE : on.connection === 'line-to-neutral' ? LN : LL;
+  if (on) return connectionBits(on);
   // The system cannot say (unknown voltage): the load's own fields as far as they go.
   if ((node.phases ?? system.phases) !== 1) return THREE;
   return node.connection === 'line-to-line' || !systemHasNeutral(system) ? LL : LN;

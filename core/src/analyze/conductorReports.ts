@@ -1,23 +1,19 @@
-import type { CodeEdition } from '../model/schema';
 import { ruleCitation } from '../rules/define';
 import type { Graph } from '../topology/graph';
 import type { RunVerdict } from './classify';
 import type { FixedContext } from './context';
 import { effectiveRatingA, nodeLabel } from './equipment';
 import { describeRun } from './summary';
-import type { Citation, ConductorReport, DeviceRef, Finding } from './types';
+import type { ConductorReport, DeviceRef, Finding } from './types';
 
-/** Stage: one report line per conductor, in file order; what a run's conductors share is built once per run. */
+/** Stage: one report line per conductor, in file order; what a run's conductors share is shared, not copied. */
 export function conductorReports(ctx: FixedContext & { findings: readonly Finding[] }): ConductorReport[] {
-  const { graph, runs, verdicts, edition } = ctx;
+  const { graph, verdicts } = ctx;
   const chains = new Map<string, readonly string[]>();
   for (const v of verdicts) if (v.facts.conductorIds.length > 1) chains.set(v.facts.conductorIds[0]!, v.facts.conductorIds);
   const findingIdsBySubject = findingIdsByConductor(ctx.findings, (id) => chains.get(id));
-  const shared = verdicts.map((v) => runShared(graph, v, edition));
   const conductors: ConductorReport[] = new Array(graph.conductors.length);
-  for (let ci = 0; ci < graph.conductors.length; ci++) {
-    conductors[ci] = conductorReport(ctx, ci, findingIdsBySubject.get(graph.conductors[ci]!.id), shared[runs.runOf[ci]!]);
-  }
+  for (let ci = 0; ci < graph.conductors.length; ci++) conductors[ci] = conductorReport(ctx, ci, findingIdsBySubject.get(graph.conductors[ci]!.id));
   return conductors;
 }
 
@@ -42,65 +38,51 @@ export function findingIdsByConductor(findings: readonly Finding[], chainOf: (id
   return findingIdsBySubject;
 }
 
-/** The report line of conductor `ci`, given the ids of its findings and (when known) what its run's lines share. */
-export function conductorReport(ctx: FixedContext, ci: number, findingIds: string[] | undefined, shared?: RunShared): ConductorReport {
+/** The report line of conductor `ci`, given the ids of its findings. Built straight from its run's verdict: no object per run in between. */
+export function conductorReport(ctx: FixedContext, ci: number, findingIds: string[] | undefined): ConductorReport {
   const { graph, runs, verdicts, ampacities, edition } = ctx;
   const c = graph.conductors[ci]!;
   const r = runs.runOf[ci]!;
   const v = verdicts[r]!;
-  const s = shared ?? runShared(graph, v, edition);
-  return {
-      id: c.id,
-      label: c.label ?? c.id,
-      from: c.from,
-      to: c.to,
-      verdict: v.verdict,
-      rule: v.rule?.id ?? null,
-      cites: s.cites,
-      role: v.role,
-      summary: s.summary,
-      size: c.size ?? null,
-      material: c.material,
-      parallelSets: c.parallelSets,
-      lengthFt: c.lengthFt ?? null,
-      ampacity: ampacities[ci]!.working,
-      upstreamDevice: s.device,
-      supply: s.supply,
-      chain: v.facts.conductorIds,
-      tapLengthFt: s.tapLengthFt,
-      load: s.load,
-      tried: v.tried,
-      fixes: ctx.fixes[r]!,
-      findingIds: findingIds ?? NONE,
-    };
-}
-
-interface RunShared {
-  cites: Citation | null;
-  summary: string;
-  device: DeviceRef | null;
-  supply: ConductorReport['supply'];
-  tapLengthFt: number | null;
-  load: ConductorReport['load'];
-}
-
-function runShared(graph: Graph, v: RunVerdict, edition: CodeEdition): RunShared {
-  const device = v.deviceNode >= 0 ? deviceRef(graph, v.deviceNode) : null;
-  const s = v.supply;
-  const supply: ConductorReport['supply'] =
-    s.kind === 'ocpd' || s.kind === 'utility' || s.kind === 'generator' || s.kind === 'transformer'
-      ? supplyRef(graph, s.kind, s.node)
-      : device ? supplyRef(graph, 'ocpd', v.deviceNode) : NO_SUPPLY;
-  const isTap = v.family === 'fed-by-ocpd' && v.verdict !== 'protected' && v.verdict !== 'protected-next-size' && v.verdict !== 'incomplete';
   const f = v.facts;
   return {
+    id: c.id,
+    label: c.label ?? c.id,
+    from: c.from,
+    to: c.to,
+    verdict: v.verdict,
+    rule: v.rule?.id ?? null,
     cites: v.rule ? ruleCitation(v.rule, edition) : null,
+    role: v.role,
     summary: summaryOf(v),
-    device,
-    supply,
-    tapLengthFt: v.verdict === 'tap-transformer' ? transformerTapLength(v) : isTap || v.family === 'on-tap' || v.family === 'secondary' ? f.lengthFt : null,
+    size: c.size ?? null,
+    material: c.material,
+    parallelSets: c.parallelSets,
+    lengthFt: c.lengthFt ?? null,
+    ampacity: ampacities[ci]!.working,
+    upstreamDevice: v.deviceNode >= 0 ? deviceRef(graph, v.deviceNode) : null,
+    supply: supplyOf(graph, v),
+    chain: f.conductorIds,
+    tapLengthFt: tapLengthOf(v),
     load: f.loadA === null || f.calculatedLoadA === null ? null : { flowingA: f.loadA, calculatedA: f.calculatedLoadA },
+    tried: v.tried,
+    fixes: ctx.fixes[r]!,
+    findingIds: findingIds ?? NONE,
   };
+}
+
+/** What the upstream walk ended on: the source or OCPD itself, or the device ahead of a run supplied from another. */
+function supplyOf(graph: Graph, v: RunVerdict): ConductorReport['supply'] {
+  const s = v.supply;
+  if (s.kind === 'ocpd' || s.kind === 'utility' || s.kind === 'generator' || s.kind === 'transformer') return supplyRef(graph, s.kind, s.node);
+  return v.deviceNode >= 0 ? supplyRef(graph, 'ocpd', v.deviceNode) : NO_SUPPLY;
+}
+
+/** The tap length the rule counted: a feeder tap's, a tap from a tap's or a secondary's run length; a transformer tap's total. */
+function tapLengthOf(v: RunVerdict): number | null {
+  if (v.verdict === 'tap-transformer') return transformerTapLength(v);
+  const isTap = v.family === 'fed-by-ocpd' && v.verdict !== 'protected' && v.verdict !== 'protected-next-size' && v.verdict !== 'incomplete';
+  return isTap || v.family === 'on-tap' || v.family === 'secondary' ? v.facts.lengthFt : null;
 }
 
 /** One DeviceRef per device node, shared by every run it feeds (reports are read-only); kept while the nodes are (an incremental re-check of a conductor keeps them). */
@@ -116,17 +98,16 @@ function deviceRef(graph: Graph, v: number): DeviceRef {
   return d;
 }
 
-/** What a run's supply end is, one object per node and kind, shared by every run it supplies (reports are read-only). */
-const supplyRefs = new WeakMap<Graph, Map<number, ConductorReport['supply']>>();
+/** What a run's supply end is: one object per node, shared by every run it supplies (reports are read-only); kept while the nodes are. */
+const supplyRefs = new WeakMap<Graph['nodes'], (ConductorReport['supply'] | undefined)[]>();
 const NO_SUPPLY: ConductorReport['supply'] = { kind: 'none', id: null };
 function supplyRef(graph: Graph, kind: 'ocpd' | 'utility' | 'generator' | 'transformer', v: number): ConductorReport['supply'] {
-  let byNode = supplyRefs.get(graph);
-  if (!byNode) supplyRefs.set(graph, (byNode = new Map()));
-  // A node is one kind of supply (an OCPD, or a source); the kind is in the key all the same.
-  const key = v * 4 + (kind === 'ocpd' ? 0 : kind === 'utility' ? 1 : kind === 'generator' ? 2 : 3);
-  let ref = byNode.get(key);
-  if (!ref) byNode.set(key, (ref = { kind, id: graph.nodes[v]!.id }));
-  return ref;
+  let byNode = supplyRefs.get(graph.nodes);
+  if (!byNode) supplyRefs.set(graph.nodes, (byNode = new Array(graph.nodes.length)));
+  const ref = byNode[v];
+  // A node is one kind of supply (an OCPD or a source), so the kind always agrees; were it not to, the line gets its own.
+  if (ref) return ref.kind === kind ? ref : { kind, id: graph.nodes[v]!.id };
+  return (byNode[v] = { kind, id: graph.nodes[v]!.id });
 }
 
 /**

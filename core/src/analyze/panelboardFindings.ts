@@ -1,7 +1,7 @@
 import { runRule } from '../rules/define';
 import { panelboardProtection, type PanelboardFacts } from '../rules/panelboard-protection';
 import { largestStandardRatingAtMost } from '../tables/standardRatings';
-import { edgeFrom, type Graph } from '../topology/graph';
+import { edgeFrom, KIND, type Graph } from '../topology/graph';
 import type { AnalysisContext } from './context';
 import { effectiveRatingA, isOcpd, nodeLabel, transformerFacts } from './equipment';
 import { finding } from './finding';
@@ -14,7 +14,10 @@ const MAX_WALK = 10_000;
 /** Stage: 408.36 on every panelboard: the OCPD in it or on its supply side, not above its rating. */
 export function panelboardFindings(ctx: AnalysisContext): Finding[] {
   const out: Finding[] = [];
-  for (let v = 0; v < ctx.graph.nodes.length; v++) {
+  const kinds = ctx.graph.nodeKind;
+  for (let v = 0; v < kinds.length; v++) {
+    // Only a bus can be a panelboard: the kind codes spare reaching every other node.
+    if (kinds[v] !== KIND.bus) continue;
     const f = panelboardFindingOf(ctx, v);
     if (f) out.push(f);
   }

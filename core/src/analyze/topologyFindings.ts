@@ -1,5 +1,5 @@
 import type { ConductorId, NodeId } from '../model/schema';
-import type { Graph } from '../topology/graph';
+import { KIND, type Graph } from '../topology/graph';
 import type { AnalysisContext } from './context';
 import { nodeLabel } from './equipment';
 import { finding, type NewFinding } from './finding';
@@ -10,6 +10,8 @@ const MAX_RELATED = 50;
 
 /** Equipment that passes power on: with nothing below it, a conductor or load is probably missing. */
 const PASSES_POWER_ON: ReadonlySet<string> = new Set(['splice', 'bus', 'disconnect', 'breaker', 'fuse']);
+/** The same by kind code (Graph.nodeKind), read without reaching the node. */
+const PASSES_POWER_ON_CODE: ReadonlySet<number> = new Set([...PASSES_POWER_ON].map((k) => KIND[k as keyof typeof KIND]));
 
 /** Stage: findings about the shape of the network: loose equipment, several supplies, no source, dangling ends, loops. */
 export function topologyFindings(ctx: AnalysisContext): Finding[] {
@@ -23,7 +25,7 @@ export function topologyFindings(ctx: AnalysisContext): Finding[] {
     if (onCycle[v]) cycleNodes.push({ kind: 'node', id: g.nodes[v]!.id });
     // Nearly every node has one supply and either something below it or no need of it (a load): no finding
     // here, so its name and subject are made only for a node that may have one.
-    if (ins === 1 && (outs > 0 || !PASSES_POWER_ON.has(g.nodes[v]!.kind))) continue;
+    if (ins === 1 && (outs > 0 || !PASSES_POWER_ON_CODE.has(g.nodeKind[v]!))) continue;
     const n = g.nodes[v]!;
     const subject: ElementRef = { kind: 'node', id: n.id };
     const name = `${nodeLabel(n)}${n.label ? ` (${n.id})` : ''}`;
