@@ -1,6 +1,6 @@
 import type { AnalysisContext, VerdictContext } from '../analyze/context';
-import type { Finding, Severity } from '../analyze/types';
-import { CONDUCTOR_SIZES, type CodeEdition, type ConductorSize, type EquipmentNode, type Material, type NodeId, type Project } from '../model/schema';
+import { VERDICTS, type Finding, type Severity } from '../analyze/types';
+import { CONDUCTOR_SIZES, type CodeEdition, type ConductorId, type ConductorSize, type EquipmentNode, type Material, type NodeId, type Project } from '../model/schema';
 import type { Check, Rule } from '../rules/define';
 import { conductorWithstand } from '../rules/conductor-withstand';
 import { equipmentSccr } from '../rules/equipment-sccr';
@@ -48,11 +48,16 @@ const MAX_RELATED = 50;
  */
 export function runStudies(ctx: VerdictContext): StudiesResult {
   const taps: TapRun[] = [];
-  ctx.verdicts.forEach((v, r) => {
-    if ((v.verdict.startsWith('tap-') && v.verdict !== 'tap-from-tap') || v.verdict.startsWith('secondary-')) taps.push({ conductors: ctx.runs.members[r]!, deviceNode: v.deviceNode });
-  });
+  const { verdicts, runs } = ctx;
+  for (let r = 0; r < verdicts.length; r++) {
+    const v = verdicts[r]!;
+    if (RELIES_ON_DEVICE_AHEAD.has(v.verdict)) taps.push({ conductors: runs.members[r]!, deviceNode: v.deviceNode });
+  }
   return studyNetwork(ctx, taps);
 }
+
+/** The verdicts whose conductors rely on the device ahead to clear a fault (withstand is judged): taps, but a tap from a tap, and transformer secondaries. */
+const RELIES_ON_DEVICE_AHEAD: ReadonlySet<string> = new Set(VERDICTS.filter((v) => (v.startsWith('tap-') && v !== 'tap-from-tap') || v.startsWith('secondary-')));
 
 /** The network the studies read: the project, its graph and order, the loads and each conductor's circuit. */
 export type StudiedNetwork = Pick<AnalysisContext, 'project' | 'graph' | 'order' | 'count' | 'loads' | 'circuits'>;
@@ -209,12 +214,17 @@ export function tapWithstand(edition: CodeEdition, g: Graph, fault: FaultStudy, 
   const c = g.conductors[first]!;
   const supply = g.conductorFrom[first]!;
   const faultKA = supply >= 0 && !Number.isNaN(fault.kA[supply]!) ? fault.kA[supply]! : null;
+  const rating = insulationRating(c.insulation);
+  const k = withstandConstant(c.material, rating.tempC, finalTempC(rating.thermalClass));
+  const clearing = clearingOf(device);
+  const areaCmil = c.size === undefined ? null : conductorAreaCmil(c.size);
+  const allowed = faultKA === null || areaCmil === null ? null : withstandTimeS(faultKA * 1000, areaCmil * c.parallelSets, k);
+  const row: WithstandResult = { conductorIds: idsOf(g, t.conductors), faultKA, clearingTimeS: clearing.seconds, clearingBasis: clearing.basis, allowedS: allowed, withstands: allowed === null ? null : allowed >= clearing.seconds };
+  const findings: Finding[] = [];
+  // The rule fails only where the run does not withstand (the same figures, rules/conductor-withstand.ts): the others need no facts.
+  if (row.withstands !== false) return { row, findings };
   const facts = withstandFacts(edition, g, t, device, faultKA, supply >= 0 && fault.upperBound[supply] === 1);
   const checks = conductorWithstand.check(facts);
-  const k = withstandConstant(c.material, facts.initialC, facts.finalC);
-  const allowed = facts.faultKA === null || facts.areaCmil === null ? null : withstandTimeS(facts.faultKA * 1000, facts.areaCmil * facts.parallelSets, k);
-  const row: WithstandResult = { conductorIds: facts.conductorIds, faultKA: facts.faultKA, clearingTimeS: facts.clearingTimeS, clearingBasis: facts.clearingBasis, allowedS: allowed, withstands: allowed === null ? null : allowed >= facts.clearingTimeS };
-  const findings: Finding[] = [];
   if (!checks.some((x) => x.status === 'fail')) return { row, findings };
   const extra = {
     ...(facts.smallestSize ? { smallestSize: facts.smallestSize } : {}),
@@ -384,11 +394,11 @@ function withstandFacts(edition: Project['project']['codeEdition'], g: Graph, t:
   const rating = insulationRating(c.insulation);
   const initialC = rating.tempC;
   const finalC = finalTempC(rating.thermalClass);
-  const clearing = device.clearingTimeS !== undefined ? { seconds: device.clearingTimeS, basis: 'entered' } : defaultClearingTime(device.kind === 'fuse' ? { kind: 'fuse', currentLimiting: device.currentLimiting } : { kind: 'breaker', adjustableTrip: device.adjustableTrip });
+  const clearing = clearingOf(device);
   // The smallest conductor along the run governs; all members share material and size by construction of a run.
   return {
     edition,
-    conductorIds: t.conductors.map((i) => g.conductors[i]!.id),
+    conductorIds: idsOf(g, t.conductors),
     material: c.material,
     size: c.size ?? null,
     parallelSets: c.parallelSets,
@@ -398,12 +408,30 @@ function withstandFacts(edition: Project['project']['codeEdition'], g: Graph, t:
     thermalClass: rating.thermalClass,
     device: `${device.kind} ${label(device)}`,
     clearingTimeS: clearing.seconds,
-    clearingBasis: clearing.basis === 'entered' ? 'entered' : `${clearing.basis}, common practice`,
+    clearingBasis: clearing.basis,
     faultKA,
     upperBound,
     smallestSize: faultKA === null ? null : smallestWithstandSize(c.material, c.parallelSets, faultKA * 1000, clearing.seconds, withstandConstant(c.material, initialC, finalC)),
   };
 }
+
+function idsOf(g: Graph, conductors: readonly number[]): ConductorId[] {
+  const ids = new Array<ConductorId>(conductors.length);
+  for (let i = 0; i < conductors.length; i++) ids[i] = g.conductors[conductors[i]!]!.id;
+  return ids;
+}
+
+/** The device's clearing time and where it comes from, as the withstand row and the rule state it. */
+function clearingOf(device: Extract<EquipmentNode, { kind: 'breaker' | 'fuse' }>): { seconds: number; basis: string } {
+  if (device.clearingTimeS !== undefined) return { seconds: device.clearingTimeS, basis: 'entered' };
+  const typical = defaultClearingTime(device.kind === 'fuse' ? { kind: 'fuse', currentLimiting: device.currentLimiting } : { kind: 'breaker', adjustableTrip: device.adjustableTrip });
+  let basis = COMMON_PRACTICE.get(typical.basis);
+  if (basis === undefined) COMMON_PRACTICE.set(typical.basis, (basis = `${typical.basis}, common practice`));
+  return { seconds: typical.seconds, basis };
+}
+
+/** Each typical clearing basis with "common practice" added, made once. */
+const COMMON_PRACTICE = new Map<string, string>();
 
 /** Smallest size (14 AWG up) whose `sets` conductors together carry `currentA` for `timeS`; null when none does. */
 export function smallestWithstandSize(_material: Material, sets: number, currentA: number, timeS: number, constant: number): ConductorSize | null {

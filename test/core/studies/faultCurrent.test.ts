@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { Net } from './build';
+import { magnitude } from '../../../core/src/studies/faultCurrent/faultCurrent';
 
 /**
  * Worked values computed here independently of the study (all arithmetic in
@@ -163,6 +164,25 @@ describe('short-circuit study, ohmic method (IEEE Std 141 / 551)', () => {
         },
       ),
       { numRuns: 200 },
+    );
+  });
+});
+
+describe('|R + jX|', () => {
+  // The study's magnitude must equal Math.hypot to the last bit (the reports print full precision):
+  // the 3-4-5 right triangle (common practice) and random pairs across the magnitudes a drawing gives.
+  it('is √(R² + X²): 3, 4 → 5; 0, 0 → 0; a sign does not matter', () => {
+    expect(magnitude(3, 4)).toBe(5);
+    expect(magnitude(-3, 4)).toBe(5);
+    expect(magnitude(0, 0)).toBe(0);
+    expect(magnitude(0, 0.25)).toBe(0.25);
+  });
+
+  it('equals Math.hypot bit for bit, infinite and NaN parts included', () => {
+    const part = fc.oneof(fc.double({ min: -1e20, max: 1e20 }), fc.double({ min: -1e-3, max: 1e-3, noNaN: true }), fc.constantFrom(0, -0, Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, Number.NaN, Number.MIN_VALUE, Number.MAX_VALUE));
+    fc.assert(
+      fc.property(part, part, (r, x) => Object.is(magnitude(r, x), Math.hypot(r, x))),
+      { numRuns: 20_000 },
     );
   });
 });
