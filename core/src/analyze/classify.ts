@@ -268,7 +268,7 @@ function generator(j: RunToJudge, gen: number): RunVerdict {
  */
 function single(j: RunToJudge, rule: Rule, v: Pick<RunVerdict, 'verdict' | 'family' | 'role' | 'deviceNode' | 'generatorNode'>): RunVerdict {
   const verdict = j.facts.size === null ? 'incomplete' : v.verdict;
-  return { ...v, verdict, rule: verdict === 'incomplete' ? null : rule, supply: j.supply, facts: j.facts, tried: [runRule(rule, j.facts)], candidates: [] };
+  return { verdict, rule: verdict === 'incomplete' ? null : rule, family: v.family, role: v.role, supply: j.supply, deviceNode: v.deviceNode, generatorNode: v.generatorNode, facts: j.facts, tried: [runRule(rule, j.facts)], candidates: [] };
 }
 
 function incomplete(j: RunToJudge): RunVerdict {
@@ -340,22 +340,23 @@ function secondary(j: RunToJudge, tx: number): RunVerdict {
     facts.generator = gen && { ...gen, nameplateA: (gen.nameplateA * facts.transformer.primaryVoltsLL) / facts.transformer.secondaryVoltsLL };
     return single(j, generatorRule, { verdict: 'generator', family: 'generator', role: 'generator', deviceNode: -1, generatorNode: primary.generator });
   }
-  const base = { family: 'secondary' as Family, role: 'transformer-secondary' as ConductorRole, supply: j.supply, deviceNode: primary.device, generatorNode: -1, facts };
+  const judged = (verdict: Verdict, rule: Rule | null, tried: RuleTrial[], candidates: readonly Rule[]): RunVerdict =>
+    ({ verdict, rule, family: 'secondary', role: 'transformer-secondary', supply: j.supply, deviceNode: primary.device, generatorNode: -1, facts, tried, candidates });
   // A primary incomplete only for want of its size is judged on as if protected (its own verdict says incomplete).
   if (primary.run && !isUnsizedOnOcpd(primary.run)) {
     const pv = primary.run.verdict;
-    if (pv === 'incomplete') return { ...base, verdict: 'incomplete', rule: null, tried: [], candidates: [] };
+    if (pv === 'incomplete') return judged('incomplete', null, [], []);
     if (pv !== 'protected' && pv !== 'protected-next-size') {
       // 240.21(C)(5): a transformer supplied by a feeder tap is judged under 240.21(B)(3), on the primary.
       const trial = primary.run.tried.find((t) => t.ruleId === tapTransformer.id) ?? runRule(tapTransformer, primary.run.facts);
       const holds = pv === 'tap-transformer' && trial.outcome === 'holds';
-      return { ...base, verdict: holds ? 'tap-transformer' : trial.outcome === 'unknown' ? 'incomplete' : 'unprotected', rule: holds ? tapTransformer : null, tried: [trial], candidates: [] };
+      return judged(holds ? 'tap-transformer' : trial.outcome === 'unknown' ? 'incomplete' : 'unprotected', holds ? tapTransformer : null, [trial], []);
     }
   }
-  if (facts.transformer.primaryOcpdA === null) return { ...base, verdict: 'incomplete', rule: null, tried: [], candidates: SECONDARY_RULES };
+  if (facts.transformer.primaryOcpdA === null) return judged('incomplete', null, [], SECONDARY_RULES);
   const tried: RuleTrial[] = [];
   const v = firstHolding(SECONDARY_RULES, facts, tried);
-  return { ...base, verdict: v.verdict, rule: v.rule, tried, candidates: SECONDARY_RULES };
+  return judged(v.verdict, v.rule, tried, SECONDARY_RULES);
 }
 
 /** The device protecting a transformer's primary, the primary run when there is one, and a service or generator straight ahead. */
