@@ -1,7 +1,7 @@
 import type { AnalysisContext, VerdictContext } from '../analyze/context';
 import { VERDICTS, type Finding, type Severity } from '../analyze/types';
 import { CONDUCTOR_SIZES, type CodeEdition, type ConductorId, type ConductorSize, type EquipmentNode, type Material, type NodeId, type Project } from '../model/schema';
-import type { Check, Rule } from '../rules/define';
+import { atLeast, type Check, type Rule } from '../rules/define';
 import { conductorWithstand } from '../rules/conductor-withstand';
 import { equipmentSccr } from '../rules/equipment-sccr';
 import { interruptingRating } from '../rules/interrupting-rating';
@@ -184,6 +184,10 @@ export function faultDutyFinding(edition: CodeEdition, g: Graph, fault: FaultStu
   if (node.kind === 'breaker' || node.kind === 'fuse') {
     if (node.interruptingKA === undefined) return kA !== null ? NO_RATING : null;
     const s = series.get(node.id);
+    // The rule (rules/interrupting-rating.ts) fails only on this comparison (or a series rating when it
+    // is not met): a device that holds, or cannot be judged without a series rating, builds no facts.
+    const own = atLeast(node.interruptingKA, kA);
+    if (own === true || (own === null && !s)) return null;
     const lineSide = s ? g.nodeIndex.get(s.lineSideId) ?? -1 : -1;
     const facts: InterruptingFacts = {
       edition,
@@ -197,6 +201,8 @@ export function faultDutyFinding(edition: CodeEdition, g: Graph, fault: FaultStu
     return studyFinding(edition, interruptingRating, 'violation', { kind: 'node', id: node.id }, interruptingRating.check(facts), s ? [{ kind: 'node', id: s.lineSideId }] : []);
   }
   if (node.kind === 'bus' && node.sccrKA !== undefined) {
+    // Likewise 110.10 (rules/equipment-sccr.ts) fails only where this comparison does.
+    if (atLeast(node.sccrKA, kA) !== false) return null;
     return studyFinding(edition, equipmentSccr, 'violation', { kind: 'node', id: node.id }, equipmentSccr.check({ edition, equipmentId: node.id, equipment: label(node), sccrKA: node.sccrKA, faultKA: kA, upperBound }));
   }
   return null;
