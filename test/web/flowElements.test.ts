@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { analyze, createAnalysis } from '@linewright/core';
 import { FlowDeriver, conductorEdgeId } from '../../web/src/canvas/flowElements';
 import { conductorLook, nodeLook } from '../../web/src/canvas/looks';
-import { overviewLayout, overviewScene, sceneChanges } from '../../web/src/canvas/overview';
+import { overviewLayout, overviewScene, pickAt, sceneChanges, selectionInBox } from '../../web/src/canvas/overview';
 import { replaceElement } from '../../web/src/editor/commands';
 import { drawTap, harness } from './harness';
 
@@ -136,6 +136,29 @@ describe('the overview far out', () => {
     expect(boxes.length).toBeGreaterThan(0);
     const badge = layout.conductors[tap]!.badge;
     expect(boxes.some((b) => b.x1 <= badge.x && badge.x <= b.x2 && b.y1 <= badge.y && badge.y <= b.y2)).toBe(true);
+  });
+
+  it('a click far out picks the piece under it or the nearest wire within reach; a box takes the pieces inside and their links', () => {
+    const h = harness();
+    const ids = drawTap(h, { lengthFt: 20 });
+    // One below the other, 200 apart (drawTap leaves every piece at the origin).
+    h.store.edit('Spread', (doc) => doc.nodes.forEach((n, i) => void (n.position = { x: 0, y: i * 200 })));
+    const d = new FlowDeriver();
+    const layout = overviewLayout(d.nodes(h.store.getState()), d.edges(h.store.getState()));
+    const m = layout.nodes.find((n) => n.id === ids.m)!;
+    expect(pickAt(layout, { x: m.x + m.w / 2, y: m.y + m.h / 2 }, 1)).toEqual({ kind: 'node', id: ids.m });
+    const tap = layout.links.find((l) => l.id === ids.tapId)!;
+    const [a, b] = [tap.points[0]!, tap.points[1]!];
+    const mid = { x: (a.x + b.x) / 2 + 0.5, y: (a.y + b.y) / 2 + 0.5 };
+    expect(pickAt(layout, mid, 3)).toEqual({ kind: 'conductor', id: ids.tapId });
+    expect(pickAt(layout, { x: -10_000, y: -10_000 }, 50)).toBeNull();
+    // A box around the whole drawing takes every piece and every link; one around a single piece takes it and what ends there.
+    const all = selectionInBox(layout, { x1: -1e6, y1: -1e6, x2: 1e6, y2: 1e6 });
+    expect(all.nodes).toHaveLength(h.doc().nodes.length);
+    expect(all.conductors).toHaveLength(h.doc().conductors.length);
+    const one = selectionInBox(layout, { x1: m.x + m.w + 1, y1: m.y + m.h + 1, x2: m.x - 1, y2: m.y - 1 });
+    expect(one.nodes).toEqual([ids.m]);
+    expect(one.conductors).toEqual(h.doc().conductors.filter((c) => c.from === ids.m || c.to === ids.m).map((c) => c.id));
   });
 
   it('a scene made from the one before equals a scene made afresh, edit after edit', () => {

@@ -1,6 +1,8 @@
 import type { Project } from '@linewright/core';
 import { stats as analysisStats } from './analysis/scheduler';
+import { drawingGeometry } from './canvas/geometry';
 import { openProject, replaceElement, type CommandContext } from './editor/commands';
+import { conductorLine, kindSpec } from './editor/equipment';
 import { stats as saveStats } from './persistence/autosave';
 
 /**
@@ -15,6 +17,10 @@ export interface TestHook {
   doc(): Project;
   open(text: string, fileName?: string): Promise<void>;
   setConductorLength(id: string, lengthFt: number): number;
+  /** Where the drawing puts each piece (its box) and each conductor (its wire), in flow coordinates. */
+  geometry(): { nodes: { id: string; x: number; y: number; w: number; h: number }[]; conductors: { id: string; points: { x: number; y: number }[] }[] };
+  /** What is selected now. */
+  selection(): { nodes: readonly string[]; conductors: readonly string[]; busLinks: readonly string[] };
   /** Selects elements, as a click on the drawing would. */
   select(sel: { nodes?: string[]; conductors?: string[]; busLinks?: string[] }): void;
   /** Resolves after the report for `version` (or a later one) has been rendered and painted. */
@@ -41,6 +47,16 @@ export function installTestHook(ctx: CommandContext): void {
       replaceElement.run(ctx, { target: { kind: 'conductor', id }, value: { ...c, lengthFt }, label: 'Set length' });
       return store.getState().docVersion;
     },
+    geometry: () => {
+      const { nodes, conductors, busLinks } = store.getState().doc;
+      const pos = new Map<string, { x: number; y: number }>(nodes.map((n) => [n.id, n.position ?? { x: 0, y: 0 }]));
+      const geo = drawingGeometry(nodes, conductors, busLinks, (id) => pos.get(id), conductorLine);
+      return {
+        nodes: nodes.map((n) => ({ id: n.id, ...pos.get(n.id)!, w: kindSpec(n.kind).width, h: kindSpec(n.kind).height })),
+        conductors: [...geo.conductors].map(([id, g]) => ({ id, points: g.points })),
+      };
+    },
+    selection: () => store.getState().view.selection,
     select: (sel) => store.setSelection({ nodes: sel.nodes ?? [], conductors: sel.conductors ?? [], busLinks: sel.busLinks ?? [] }),
     whenChecked: (version) =>
       new Promise<void>((resolve) => {

@@ -16,7 +16,8 @@ import { KIND_DRAG_TYPE } from '../panels/Palette';
 import { DrawingTools } from '../panels/Toolbar';
 import { FlowDeriver, selectionAfter, type FlowEdge, type FlowNode } from './flowElements';
 import { Overview } from './Overview';
-import { OVERVIEW_ZOOM } from './overview';
+import { OVERVIEW_ZOOM, overviewLayout, pickAt, selectionInBox, type OverviewHit } from './overview';
+import type { Selection } from '../editor/store';
 import { useReviewView } from '../review/reviewState';
 
 /**
@@ -38,6 +39,16 @@ const FIT_VIEW_OPTIONS = { padding: 0.12, maxZoom: 1.2, includeHiddenNodes: true
 /** From this many elements, a zoom below OVERVIEW_ZOOM shows the drawing as one bitmap (canvas/Overview.tsx). */
 const OVERVIEW_FROM = 2000;
 const isOverviewZoom = (s: { transform: [number, number, number] }) => s.transform[2] < OVERVIEW_ZOOM;
+/** How near a click far out must come to an element to pick it, in screen pixels (the grown badges are about 9 px). */
+const PICK_REACH_PX = 8;
+
+/** The selection after a click far out picked `hit`: it alone, or, with Ctrl or Cmd held, it added to or taken from `cur`. */
+function selectionAfterPick(cur: Selection, hit: OverviewHit, add: boolean): Selection {
+  const key = hit.kind === 'node' ? 'nodes' : hit.kind === 'conductor' ? 'conductors' : 'busLinks';
+  if (!add) return { nodes: [], conductors: [], busLinks: [], [key]: [hit.id] };
+  const list = cur[key];
+  return { ...cur, [key]: list.includes(hit.id) ? list.filter((id) => id !== hit.id) : [...list, hit.id] };
+}
 
 /** The element as React Flow holds it while the overview draws it: hidden, one object per source object. */
 const hiddenCopies = new WeakMap<object, object>();
@@ -66,6 +77,38 @@ export const Canvas = memo(function Canvas() {
   const flowNodes = useMemo(() => (overview ? nodes.map(hidden) : nodes), [nodes, overview]);
   const flowEdges = useMemo(() => (overview ? edges.map(hidden) : edges), [edges, overview]);
   const flowStore = useStoreApi<FlowNode, FlowEdge>();
+  // Far out the elements are hidden, so React Flow picks nothing: a click and a selection box pick from the overview's layout.
+  const layout = useMemo(() => (overview ? overviewLayout(nodes, edges) : null), [overview, nodes, edges]);
+  const onPaneClick = useCallback(
+    (e: React.MouseEvent) => {
+      if (!layout) return;
+      const hit = pickAt(layout, rf.screenToFlowPosition({ x: e.clientX, y: e.clientY }), PICK_REACH_PX / rf.getZoom());
+      if (!hit) return;
+      const cur = store.getState().view.selection;
+      const add = e.ctrlKey || e.metaKey;
+      // React Flow clears the selection right after this handler returns: pick once it has.
+      queueMicrotask(() => store.setSelection(selectionAfterPick(cur, hit, add)));
+    },
+    [layout, rf, store],
+  );
+  const selectionBox = useRef<{ x: number; y: number; width: number; height: number } | null>(null);
+  useEffect(
+    () =>
+      flowStore.subscribe((s) => {
+        if (s.userSelectionRect) selectionBox.current = s.userSelectionRect;
+      }),
+    [flowStore],
+  );
+  const onSelectionStart = useCallback(() => {
+    selectionBox.current = null;
+  }, []);
+  const onSelectionEnd = useCallback(() => {
+    const r = selectionBox.current;
+    selectionBox.current = null;
+    if (!layout || !r) return;
+    const [tx, ty, zoom] = flowStore.getState().transform;
+    store.setSelection(selectionInBox(layout, { x1: (r.x - tx) / zoom, y1: (r.y - ty) / zoom, x2: (r.x + r.width - tx) / zoom, y2: (r.y + r.height - ty) / zoom }));
+  }, [layout, flowStore, store]);
 
   // The growth factor follows every zoom step as a CSS variable, without a React render.
   useEffect(() => {
@@ -225,7 +268,7 @@ export const Canvas = memo(function Canvas() {
 
   const big = nodes.length + edges.length > CULL_FROM;
   return (
-    <div className={far ? 'lw-canvas lw-far' : 'lw-canvas'} ref={wrapper} onDragOver={onDragOver} onDrop={onDrop} data-testid="canvas">
+    <div className={far ? 'lw-canvas lw-far' : 'lw-canvas'} ref={wrapper} onDragOver={onDragOver} onDrop={onDrop} onMouseDown={keepTextSelection} data-testid="canvas">
       <ReactFlow<FlowNode, FlowEdge>
         nodes={flowNodes}
         edges={flowEdges}
@@ -234,6 +277,9 @@ export const Canvas = memo(function Canvas() {
         onNodesChange={onNodesChange}
         onEdgesChange={onEdgesChange}
         onConnect={onConnect}
+        onPaneClick={onPaneClick}
+        onSelectionStart={onSelectionStart}
+        onSelectionEnd={onSelectionEnd}
         isValidConnection={isValidConnection}
         connectionLineType={ConnectionLineType.SmoothStep}
         snapToGrid={snap}
@@ -251,7 +297,7 @@ export const Canvas = memo(function Canvas() {
         nodesConnectable={!readOnly}
       >
         <Background variant={BackgroundVariant.Dots} gap={GRID} size={1} color="#c9ccd1" />
-        {overview && <Overview nodes={nodes} edges={edges} />}
+        {layout && <Overview layout={layout} />}
         <Panel position="top-left" className="lw-drawing-tools-panel">
           <DrawingTools />
         </Panel>
@@ -267,6 +313,11 @@ export const Canvas = memo(function Canvas() {
     </div>
   );
 });
+
+/** Shift and drag draws a selection box: the browser must not also extend a text selection over the page. */
+function keepTextSelection(e: React.MouseEvent): void {
+  if (e.shiftKey) e.preventDefault();
+}
 
 /** Frames the whole drawing (an empty one at zoom 1). */
 function fitAll(rf: ReactFlowInstance<FlowNode, FlowEdge>): Promise<unknown> {

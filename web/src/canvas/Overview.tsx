@@ -2,7 +2,7 @@ import { useEffect, useRef } from 'react';
 import { useStoreApi } from '@xyflow/react';
 import { useCommandContext } from '../editor/useEditor';
 import type { FlowEdge, FlowNode } from './flowElements';
-import { overviewLayout, overviewScene, sceneChanges, type Box, type OverviewScene } from './overview';
+import { overviewScene, sceneChanges, type Box, type OverviewLayout, type OverviewScene } from './overview';
 import { drawOverview, overviewPad, type View } from './overviewDraw';
 
 /** Room drawn beyond each side of the view, as a share of its size: a pan shows it before the next redraw. */
@@ -12,10 +12,10 @@ const PAN_REDRAW_MS = 90;
 
 /**
  * The drawing far out as one canvas over the flow (canvas/overview.ts): React Flow holds the elements
- * hidden meanwhile. A pan moves the bitmap (a compositor transform, no redraw) and redraws when it
+ * hidden meanwhile, so the canvas (Canvas.tsx) picks a click and a selection box from the same layout. A pan moves the bitmap (a compositor transform, no redraw) and redraws when it
  * rests; a zoom step, an edit, a new report or a selection redraws on the next frame.
  */
-export function Overview({ nodes, edges }: { nodes: readonly FlowNode[]; edges: readonly FlowEdge[] }) {
+export function Overview({ layout }: { layout: OverviewLayout }) {
   const ref = useRef<HTMLCanvasElement>(null);
   const { store } = useCommandContext();
   const flow = useStoreApi<FlowNode, FlowEdge>();
@@ -24,7 +24,6 @@ export function Overview({ nodes, edges }: { nodes: readonly FlowNode[]; edges: 
     const canvas = ref.current;
     const g = canvas?.getContext('2d');
     if (!canvas || !g) return;
-    const layout = overviewLayout(nodes, edges);
     let scene: OverviewScene | null = null;
     let drawn: View | null = null;
     let frame = 0;
@@ -104,7 +103,7 @@ export function Overview({ nodes, edges }: { nodes: readonly FlowNode[]; edges: 
       if (frame) cancelAnimationFrame(frame);
       if (rest !== null) clearTimeout(rest);
     };
-  }, [store, flow, nodes, edges]);
+  }, [store, flow, layout]);
 
   return <canvas ref={ref} className="lw-overview" data-testid="overview" role="img" aria-label="The whole drawing far out: wiring, bus bars and verdict badges. Zoom in, or pick a row of a schedule or a finding, to reach each element." />;
 }

@@ -1,6 +1,6 @@
 import type { AnalysisReport, Finding, Severity } from '@linewright/core';
 import type { VerdictFamily } from '../analysis/verdicts';
-import type { EditorState } from '../editor/store';
+import type { EditorState, Selection } from '../editor/store';
 import { kindSpec } from '../editor/equipment';
 import type { FlowEdge, FlowNode } from './flowElements';
 import type { BusLinkEdgeData, ConductorEdgeData } from './flowTypes';
@@ -30,7 +30,20 @@ export interface Segment {
 const barSegment = (b: Bar): Segment => ({ x1: b.x1, y1: b.y, x2: b.x2, y2: b.y });
 
 /** What does not change with a check: positions, geometry, selection. */
+/** A conductor or bus link as the overview picks it: its ends and its wire. */
+export interface OverviewLink {
+  kind: 'conductor' | 'busLink';
+  id: string;
+  from: string;
+  to: string;
+  points: Pt[];
+}
+
 export interface OverviewLayout {
+  /** Each piece of equipment's box, for picking. */
+  nodes: { id: string; x: number; y: number; w: number; h: number }[];
+  /** Every conductor and bus link, for picking. */
+  links: OverviewLink[];
   conductors: { id: string; points: Pt[]; badge: Pt }[];
   /** Where each conductor id sits in `conductors`. */
   conductorAt: Map<string, number>;
@@ -60,7 +73,7 @@ export interface OverviewScene {
 
 /** The layout of a drawing, from React Flow's elements (positions, geometry, selection). */
 export function overviewLayout(nodes: readonly FlowNode[], edges: readonly FlowEdge[]): OverviewLayout {
-  const layout: OverviewLayout = { conductors: [], conductorAt: new Map(), bars: [], busLinks: [], stems: [], flagAt: new Map(), selectedWires: [], selectedBoxes: [] };
+  const layout: OverviewLayout = { nodes: [], links: [], conductors: [], conductorAt: new Map(), bars: [], busLinks: [], stems: [], flagAt: new Map(), selectedWires: [], selectedBoxes: [] };
   for (const n of nodes) {
     const spec = kindSpec(n.data.node.kind);
     const { x, y } = n.position;
@@ -68,6 +81,7 @@ export function overviewLayout(nodes: readonly FlowNode[], edges: readonly FlowE
       layout.bars.push({ x1: x + 4, y1: y + spec.barY, x2: x + spec.width - 4, y2: y + spec.barY });
       layout.stems.push({ x1: x + spec.wireX, y1: y, x2: x + spec.wireX, y2: y + spec.barY });
     } else layout.stems.push({ x1: x + spec.wireX, y1: y, x2: x + spec.wireX, y2: y + spec.height });
+    layout.nodes.push({ id: n.id, x, y, w: spec.width, h: spec.height });
     if (n.selected) layout.selectedBoxes.push({ x, y, w: spec.width, h: spec.height });
     layout.flagAt.set(n.id, { x: x + spec.width - 3, y: y + 2 });
   }
@@ -75,10 +89,13 @@ export function overviewLayout(nodes: readonly FlowNode[], edges: readonly FlowE
     const g = (e.data as ConductorEdgeData | BusLinkEdgeData).geometry;
     if (g.bar) layout.bars.push(barSegment(g.bar));
     if (e.selected) layout.selectedWires.push(g.points);
-    if (e.type === 'busLink') layout.busLinks.push(g.points);
-    else {
+    if (e.type === 'busLink') {
+      layout.busLinks.push(g.points);
+      layout.links.push({ kind: 'busLink', id: (e.data as BusLinkEdgeData).busLinkId, from: e.source, to: e.target, points: g.points });
+    } else {
       const label = (g as ConductorEdgeData['geometry']).label;
       const id = (e.data as ConductorEdgeData).conductorId;
+      layout.links.push({ kind: 'conductor', id, from: e.source, to: e.target, points: g.points });
       layout.conductorAt.set(id, layout.conductors.length);
       layout.conductors.push({ id, points: g.points, badge: { x: label.x + label.w - 9, y: label.y + label.h / 2 } });
     }
@@ -178,6 +195,65 @@ export function sceneChanges(before: OverviewScene, after: OverviewScene, pad: n
     out.push({ x1: f.at.x - pad, y1: f.at.y - pad, x2: f.at.x + pad, y2: f.at.y + pad });
   }
   return out;
+}
+
+/** What a click far out picked. */
+export interface OverviewHit {
+  kind: 'node' | 'conductor' | 'busLink';
+  id: string;
+}
+
+/**
+ * The element nearest to `p` (flow coordinates) within `reach`: a piece of equipment when `p` is on its
+ * box, else the nearest piece, conductor or bus link (a conductor also by its verdict badge, drawn grown
+ * far out). Null when nothing is that close.
+ */
+export function pickAt(layout: OverviewLayout, p: Pt, reach: number): OverviewHit | null {
+  let best: OverviewHit | null = null;
+  let bestD = reach;
+  for (const n of layout.nodes) {
+    const dx = Math.max(n.x - p.x, 0, p.x - (n.x + n.w));
+    const dy = Math.max(n.y - p.y, 0, p.y - (n.y + n.h));
+    const d = Math.hypot(dx, dy);
+    if (d === 0) return { kind: 'node', id: n.id };
+    if (d < bestD) [best, bestD] = [{ kind: 'node', id: n.id }, d];
+  }
+  for (const l of layout.links) {
+    for (let i = 1; i < l.points.length; i++) {
+      const d = segmentDistance(p, l.points[i - 1]!, l.points[i]!);
+      if (d < bestD) [best, bestD] = [{ kind: l.kind, id: l.id }, d];
+    }
+  }
+  for (const c of layout.conductors) {
+    const d = Math.hypot(p.x - c.badge.x, p.y - c.badge.y);
+    if (d < bestD) [best, bestD] = [{ kind: 'conductor', id: c.id }, d];
+  }
+  return best;
+}
+
+function segmentDistance(p: Pt, a: Pt, b: Pt): number {
+  const vx = b.x - a.x;
+  const vy = b.y - a.y;
+  const len2 = vx * vx + vy * vy;
+  const t = len2 === 0 ? 0 : Math.max(0, Math.min(1, ((p.x - a.x) * vx + (p.y - a.y) * vy) / len2));
+  return Math.hypot(p.x - (a.x + t * vx), p.y - (a.y + t * vy));
+}
+
+/**
+ * What a selection box (flow coordinates) takes far out, as it does up close: the equipment wholly
+ * inside it, and every conductor and bus link with an end at one of those pieces.
+ */
+export function selectionInBox(layout: OverviewLayout, box: Box): Selection {
+  const x1 = Math.min(box.x1, box.x2);
+  const x2 = Math.max(box.x1, box.x2);
+  const y1 = Math.min(box.y1, box.y2);
+  const y2 = Math.max(box.y1, box.y2);
+  const nodes = new Set<string>();
+  for (const n of layout.nodes) if (n.x >= x1 && n.y >= y1 && n.x + n.w <= x2 && n.y + n.h <= y2) nodes.add(n.id);
+  const conductors: string[] = [];
+  const busLinks: string[] = [];
+  for (const l of layout.links) if (nodes.has(l.from) || nodes.has(l.to)) (l.kind === 'conductor' ? conductors : busLinks).push(l.id);
+  return { nodes: [...nodes], conductors, busLinks };
 }
 
 function push<K, V>(m: Map<K, V[]>, k: K, v: V): void {
