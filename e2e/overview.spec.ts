@@ -117,3 +117,31 @@ test('far out, a click picks a piece or a conductor and a Shift-drag box selects
   await expect(page.getByTestId('details')).toContainText('elements selected');
   await shot(page, info, 'overview-boxed');
 });
+
+test('a big drawing restored by a reload is framed whole before any of its elements is mounted', async ({ page }, info) => {
+  await openApp(page);
+  await checked(page);
+  await page.evaluate((text) => window.__linewright!.open(text, 'campus.json'), JSON.stringify(drawing));
+  await checked(page);
+  await expect(page.getByTestId('overview')).toBeVisible();
+  // Saved in this browser (IndexedDB) before the reload.
+  await page.waitForFunction(() => {
+    const s = window.__linewright!.stats();
+    return s.saves > 0 && s.saveIdle;
+  });
+  // Count every equipment element React Flow mounts from the first moment of the next load.
+  await page.addInitScript(() => {
+    const w = window as unknown as { __mounted: number };
+    w.__mounted = 0;
+    new MutationObserver((records) => {
+      for (const r of records) for (const n of r.addedNodes) if (n instanceof Element && (n.matches('.react-flow__node') || n.querySelector('.react-flow__node'))) w.__mounted++;
+    }).observe(document, { childList: true, subtree: true });
+  });
+  await page.reload();
+  await expect(page.getByTestId('overview')).toBeVisible();
+  await checked(page);
+  expect(await page.evaluate(() => window.__linewright!.doc().conductors.length)).toBe(drawing.conductors.length);
+  await expect(page.getByText('Restored your drawing from this browser')).toBeVisible();
+  expect(await page.evaluate(() => (window as unknown as { __mounted: number }).__mounted)).toBe(0);
+  await shot(page, info, 'overview-restored');
+});

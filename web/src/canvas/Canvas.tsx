@@ -71,8 +71,9 @@ export const Canvas = memo(function Canvas() {
   const wrapper = useRef<HTMLDivElement>(null);
   const far = useStore(isFar);
   // Set while a large drawing is framed whole: its elements wait hidden, so the frames between the old
-  // view and the fitted one never mount thousands of elements only to drop them for the overview.
-  const [fitting, setFitting] = useState(false);
+  // view and the fitted one never mount thousands of elements only to drop them for the overview. A
+  // large drawing the page starts with (restored after a reload) is framed the same way.
+  const [fitting, setFitting] = useState(() => elementCount(store.getState().doc) >= OVERVIEW_FROM);
   const overview = (useStore(isOverviewZoom) || fitting) && nodes.length + edges.length >= OVERVIEW_FROM;
   const flowNodes = useMemo(() => (overview ? nodes.map(hidden) : nodes), [nodes, overview]);
   const flowEdges = useMemo(() => (overview ? edges.map(hidden) : edges), [edges, overview]);
@@ -152,8 +153,7 @@ export const Canvas = memo(function Canvas() {
         });
       },
       fitAll: () => {
-        const { doc } = store.getState();
-        if (doc.nodes.length + doc.conductors.length + doc.busLinks.length >= OVERVIEW_FROM) setFitting(true);
+        if (elementCount(store.getState().doc) >= OVERVIEW_FROM) setFitting(true);
         // Wait a frame so React Flow holds the newly committed nodes.
         else requestAnimationFrame(() => void fitAll(rf));
       },
@@ -313,6 +313,10 @@ export const Canvas = memo(function Canvas() {
     </div>
   );
 });
+
+function elementCount(doc: { nodes: readonly unknown[]; conductors: readonly unknown[]; busLinks: readonly unknown[] }): number {
+  return doc.nodes.length + doc.conductors.length + doc.busLinks.length;
+}
 
 /** Shift and drag draws a selection box: the browser must not also extend a text selection over the page. */
 function keepTextSelection(e: React.MouseEvent): void {
