@@ -53,7 +53,9 @@ export function suggestFixes(
   if (facts.motor || facts.hvac) return ownArticleFixes(facts, members, edition);
   const fixes: Fix[] = [];
   const ids = facts.conductorIds;
-  const run: RunUnderTest = { facts, members, rules, loadRule: false, edition, terminationDefault: facts.site.terminationDefault, mode: 'upsize' };
+  // A rule the run fails whatever its size (outdoors, length, what it ends in…) is not searched.
+  const searched = rules.filter((rule) => mayHoldAtSomeSize(rule, trials));
+  const run: RunUnderTest = { facts, members, rules: searched, loadRule: false, edition, terminationDefault: facts.site.terminationDefault, mode: 'upsize' };
   const resized = cheapestPerRule(run);
   const seen = new Set<string>();
   const byCost = [...resized.entries()].sort((a, b) => costPerFt(a[1]) - costPerFt(b[1]));
@@ -105,6 +107,14 @@ export function suggestFixes(
   // Only the longest length the present size allows: a shorter limit says nothing more.
   const longest = shorten.reduce<Fix[]>((best, f) => (f.kind === 'shorten' && (best.length === 0 || f.maxLengthFt > (best[0] as { maxLengthFt: number }).maxLengthFt) ? [f] : best), []);
   return [...tapResizes, ...longest, ...addOcpd, ...protectionResizes];
+}
+
+/** False when the run's own trial of `rule` does not pass a condition no size decides (Rule.sizeIndependent). */
+function mayHoldAtSomeSize(rule: Rule, trials: readonly RuleTrial[]): boolean {
+  const fixed = rule.sizeIndependent;
+  if (!fixed) return true;
+  const t = trials.find((x) => x.ruleId === rule.id);
+  return !t || !t.conditions.some((c) => c.status !== 'pass' && fixed.includes(c.id));
 }
 
 /**

@@ -46,6 +46,13 @@ export interface Rule<K extends string = string, F = RunFacts> {
   title: string;
   /** For a rule with a length limit: the limit and the condition that checks it. */
   lengthLimit?: { maxFt: number; conditionId: NoInfer<K> };
+  /**
+   * Conditions that no size, material, number of sets or ampacity of the run itself decides (the
+   * site, the installation, its length, what it ends in): a run that does not pass one of them
+   * cannot meet the rule at any size, so the search for a larger size passes the rule by
+   * (analyze/fixes.ts). test/core/rules/sizeIndependent.test.ts holds each list to that.
+   */
+  sizeIndependent?: readonly NoInfer<K>[];
   /** Condition templates, phrased as the requirement with the values filled in. */
   messages: Readonly<Record<K, string>>;
   /** Pure: facts in, every condition out. No lookups beyond `facts`, no I/O, no clock. */

@@ -9,6 +9,7 @@ export const secondary10ft = defineRule({
   section: '240.21(C)(2)',
   title: 'Transformer secondary not over 10 ft',
   lengthLimit: { maxFt: 10, conditionId: 'length' },
+  sizeIndependent: ['length', 'beyond', 'raceway'],
   messages: {
     ...TEN_FOOT_MESSAGES,
     fieldTenth:

@@ -8,6 +8,7 @@ export const secondary25ft = defineRule({
   section: '240.21(C)(6)',
   title: 'Transformer secondary not over 25 ft',
   lengthLimit: { maxFt: 25, conditionId: 'length' },
+  sizeIndependent: ['length', 'single', 'damage'],
   messages: {
     length: 'Length {{lengthFt}} ft; must be at most 25 ft.',
     third: 'Ampacity ({{ampacityA}} A) must be at least one third of the primary device {{primaryA}} A × {{vp}} V / {{vs}} V ({{minA}} A).',

@@ -8,6 +8,7 @@ export const secondaryIndustrial25ft = defineRule({
   section: '240.21(C)(3)',
   title: 'Industrial transformer secondary not over 25 ft',
   lengthLimit: { maxFt: 25, conditionId: 'length' },
+  sizeIndependent: ['industrial', 'qualified', 'length', 'switchboard', 'damage'],
   messages: {
     industrial: 'Must be an industrial installation (project setting).',
     qualified: 'Maintenance and supervision must ensure that only qualified persons service the system (project setting).',

@@ -8,6 +8,7 @@ export const secondaryOutside = defineRule({
   family: 'transformer-secondary',
   section: '240.21(C)(4)',
   title: 'Outside transformer secondary, any length',
+  sizeIndependent: ['outdoors', 'damage', 'single', 'atDisconnect', 'accessible'],
   messages: OUTSIDE_MESSAGES,
   check: outsideChecks,
 });

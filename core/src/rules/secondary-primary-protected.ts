@@ -17,6 +17,7 @@ export const secondaryPrimaryProtected = defineRule({
   family: 'transformer-secondary',
   section: '240.21(C)(1)',
   title: 'Secondary protected by the primary device',
+  sizeIndependent: ['connection', 'primary450'],
   messages: {
     connection: 'Must be a single-phase 2-wire or three-phase 3-wire delta-delta secondary (here: {{connection}}).',
     primary450: 'The primary device ({{primaryA}} A) must meet Table 450.3(B), {{scheme}}: at most {{allowedA}} A ({{pct}} % of {{flaA}} A, next standard size where allowed).',

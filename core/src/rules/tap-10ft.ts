@@ -54,6 +54,7 @@ export const tap10ft = defineRule<Id>({
   section: '240.21(B)(1)',
   title: 'Feeder tap not over 10 ft',
   lengthLimit: { maxFt: 10, conditionId: 'length' },
+  sizeIndependent: ['length', 'beyond', 'raceway'],
   messages: {
     ...TEN_FOOT_MESSAGES,
     fieldTenth: 'Field installation leaving the enclosure{{stated}}: ampacity ({{ampacityA}} A) must be at least one tenth of the {{feederA}} A feeder device ({{minA}} A).',

@@ -8,6 +8,7 @@ export const tap25ft = defineRule({
   section: '240.21(B)(2)',
   title: 'Feeder tap not over 25 ft',
   lengthLimit: { maxFt: 25, conditionId: 'length' },
+  sizeIndependent: ['length', 'single', 'damage'],
   messages: {
     length: 'Length {{lengthFt}} ft; must be at most 25 ft.',
     third: ONE_THIRD_MESSAGE,

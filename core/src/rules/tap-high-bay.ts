@@ -9,6 +9,7 @@ export const tapHighBay = defineRule({
   section: '240.21(B)(4)',
   title: 'Feeder tap in a high-bay manufacturing building, up to 100 ft',
   lengthLimit: { maxFt: 100, conditionId: 'total' },
+  sizeIndependent: ['building', 'qualified', 'horizontal', 'total', 'single', 'damage', 'noSplices', 'noPenetration', 'height'],
   messages: {
     building: 'Must be a manufacturing building with walls over 35 ft high (project: {{wallFt}} ft).',
     qualified: 'Maintenance and supervision must ensure that only qualified persons service the system (project setting).',

@@ -38,6 +38,7 @@ export const tapOutside = defineRule<Id>({
   family: 'feeder-tap',
   section: '240.21(B)(5)',
   title: 'Outside feeder tap, any length',
+  sizeIndependent: ['outdoors', 'damage', 'single', 'atDisconnect', 'accessible'],
   messages: OUTSIDE_MESSAGES,
   check: outsideChecks,
 });

@@ -14,6 +14,7 @@ export const tapTransformer = defineRule<Id>({
   section: '240.21(B)(3)',
   title: 'Feeder tap to a transformer, primary plus secondary not over 25 ft',
   lengthLimit: { maxFt: 25, conditionId: 'length' },
+  sizeIndependent: ['transformer', 'oneSecondary'],
   messages: {
     transformer: 'The tap must supply a transformer (here: {{transformer}}).',
     oneSecondary: 'The transformer must supply secondary conductors (it has {{count}} runs).',
