@@ -211,7 +211,7 @@ function recheckLeaf(state: AnalysisState, next: Project, ci: number): AnalysisS
   conductorFindingsOf(ctx, ci, own.get(ci)!);
   const { findings, conductorFindingStart, studyFindingStart } = spliceFindings(state, ctx, own, conductorMoved, nodeMoved);
   const conductors = old.conductors.slice();
-  conductors[ci] = conductorReport(ctx, ci, findingIdsByConductor(findings, chainLookup(state, verdicts)).get(conductor.id));
+  conductors[ci] = conductorReport(ctx, ci, findingIdsOf(state, verdicts, { findings, conductorFindingStart, studyFindingStart }, [ci]).get(conductor.id));
 
   const byVerdict = { ...old.counts.byVerdict };
   byVerdict[old.conductors[ci]!.verdict]--;
@@ -531,11 +531,7 @@ function rewithstand(state: AnalysisState, ctx: FixedContext, rs: readonly numbe
   const { graph: g, runs } = ctx;
   const index = conductorIndexOf(state);
   const runOfId = (id: string) => runs.runOf[index.get(id)!]!;
-  const rows: [number, WithstandResult][] = [];
-  for (const row of studies.withstand) {
-    const r = runOfId(row.conductorIds[0]!);
-    if (!redo.has(r)) rows.push([r, row]);
-  }
+  const added: [number, WithstandResult][] = [];
   // Findings by run, then by the conductor's place in its run.
   const key = (id: string) => runOfId(id) * (g.conductors.length + 1) + runs.members[runOfId(id)]!.indexOf(index.get(id)!);
   const found: [number, Finding][] = [];
@@ -551,16 +547,46 @@ function rewithstand(state: AnalysisState, ctx: FixedContext, rs: readonly numbe
     if (!WITHSTAND_VERDICT.test(v.verdict)) continue;
     const w = tapWithstand(ctx.edition, g, state.studies.fault, { conductors: runs.members[r]!, deviceNode: v.deviceNode });
     if (!w) continue;
-    rows.push([r, w.row]);
+    added.push([r, w.row]);
     for (const f of w.findings) found.push([key((f.subject as { id: string }).id), f]);
   }
   const byKey = <T>(a: [number, T], b: [number, T]) => a[0] - b[0];
+  // The table is by run: the rows kept and the rows judged again, merged.
+  const table = studies.withstand;
+  const tableRuns = withstandRunsOf(state, table);
+  added.sort(byKey);
+  const rows: WithstandResult[] = [];
+  const rowRuns: number[] = [];
+  for (let k = 0, j = 0; k <= table.length; k++) {
+    const r = k < table.length ? tableRuns[k]! : Number.POSITIVE_INFINITY;
+    for (; j < added.length && added[j]![0] < r; j++) {
+      rows.push(added[j]![1]);
+      rowRuns.push(added[j]![0]);
+    }
+    if (k < table.length && !redo.has(r)) {
+      rows.push(table[k]!);
+      rowRuns.push(r);
+    }
+  }
+  withstandRuns.set(rows, Int32Array.from(rowRuns));
   // They come after the 110.9 and 110.10 findings and before the voltage drops.
   if (first < 0) first = old.findIndex((f) => f.ruleId === voltageDropRule.id);
   if (first < 0) first = old.length;
   const rest = old.filter((f) => f.ruleId !== conductorWithstand.id);
   const findings = [...rest.slice(0, first), ...found.sort(byKey).map((x) => x[1]), ...rest.slice(first)];
-  return { studies: { ...studies, withstand: rows.sort(byKey).map((x) => x[1]) }, findings };
+  return { studies: { ...studies, withstand: rows }, findings };
+}
+
+/** The run of each row of a withstand table, by table (a re-check that builds a table sets its own). */
+const withstandRuns = new WeakMap<readonly WithstandResult[], Int32Array>();
+function withstandRunsOf(state: AnalysisState, table: readonly WithstandResult[]): Int32Array {
+  let out = withstandRuns.get(table);
+  if (!out) {
+    const index = conductorIndexOf(state);
+    out = Int32Array.from(table, (row) => state.ctx.runs.runOf[index.get(row.conductorIds[0]!)!]!);
+    withstandRuns.set(table, out);
+  }
+  return out;
 }
 
 /**
@@ -663,7 +689,7 @@ function reported(state: AnalysisState, judged: Rejudged, moved: Moved, studiesR
   const warnedAfter = warned(findings, studyFindingStart);
   for (const id of warnedBefore) if (!warnedAfter.has(id)) lines.add(index.get(id)!);
   for (const id of warnedAfter) if (!warnedBefore.has(id)) lines.add(index.get(id)!);
-  const ids = findingIdsByConductor(findings, chainLookup(state, ctx.verdicts));
+  const ids = findingIdsOf(state, ctx.verdicts, { findings, conductorFindingStart, studyFindingStart }, lines);
   const conductors = old.conductors.slice();
   for (const ci of lines) conductors[ci] = conductorReport(ctx, ci, ids.get(graph.conductors[ci]!.id));
   const byVerdict = { ...old.counts.byVerdict };
@@ -756,6 +782,33 @@ function equipmentSection(ctx: FixedContext, index: ReadonlyMap<string, number>,
   }
   const byKey = (a: [number, Finding], b: [number, Finding]) => a[0] - b[0];
   return [...txs.sort(byKey).map((x) => x[1]), ...panels.sort(byKey).map((x) => x[1]), ...rest];
+}
+
+/**
+ * The ids of the findings the report lines of conductors `lines` list (findingIdsByConductor), read
+ * from the findings that can name them: their own sections, the section of the first conductor of
+ * the run each is judged with (a run's findings sit there), and the studies'. The equipment and
+ * network findings between are about nodes.
+ */
+function findingIdsOf(
+  state: AnalysisState,
+  verdicts: readonly RunVerdict[],
+  at: Pick<AnalysisState, 'conductorFindingStart' | 'studyFindingStart'> & { findings: readonly Finding[] },
+  lines: Iterable<number>,
+): Map<string, string[]> {
+  const index = conductorIndexOf(state);
+  const { runOf } = state.ctx.runs;
+  const sections = new Set<number>();
+  for (const ci of lines) {
+    sections.add(ci);
+    const chain = verdicts[runOf[ci]!]!.facts.conductorIds;
+    if (chain.length > 1) sections.add(index.get(chain[0]!)!);
+  }
+  const { findings, conductorFindingStart: start } = at;
+  const named: Finding[] = [];
+  for (const ci of [...sections].sort((a, b) => a - b)) for (let k = start[ci]!; k < start[ci + 1]!; k++) named.push(findings[k]!);
+  for (let k = at.studyFindingStart; k < findings.length; k++) named.push(findings[k]!);
+  return findingIdsByConductor(named, chainLookup(state, verdicts));
 }
 
 /** The conductors judged as one run whose first conductor is `id` (as conductorReports finds them), from the run of that conductor. */

@@ -236,16 +236,21 @@ export function redropPath(g: Graph, drop: VoltageDropStudy, inp: VoltageDropInp
       conductorMoved[e] = 1;
     }
   }
-  for (let k = pos[path[path.length - 1]!]!; k < count; k++) {
-    const v = order[k]!;
+  // The sums from the top of the path down the supply tree, each node after its supply, only below a node whose sums moved.
+  const stack = [path[path.length - 1]!];
+  while (stack.length > 0) {
+    const v = stack.pop()!;
     const u = parent[v]!;
     const onPath = nodeMoved[v] === 1;
-    if (!onPath && (u < 0 || nodeMoved[u] !== 1)) continue;
     const t = totalPct[v]!;
     const cp = circuitPct[v]!;
     arriveAt(g, inp, drop.pct, totalPct, circuitPct, v);
     if (!onPath && Object.is(t, totalPct[v]) && Object.is(cp, circuitPct[v])) continue;
     nodeMoved[v] = 1;
     if (u >= 0 && parentEdge[v]! >= 0) conductorMoved[parentEdge[v]!] = 1;
+    for (const e of g.outEdges[v]!) {
+      const w = e >= 0 ? g.conductorTo[e]! : g.linkTo[-e - 1]!;
+      if (w >= 0 && parent[w] === v && parentEdge[w] === e) stack.push(w);
+    }
   }
 }
