@@ -12,7 +12,8 @@ import type { AnalysisReport, Finding } from './types';
 import type { RunFacts } from '../rules/facts';
 import { hasImpedance, restepBelow } from '../studies/faultCurrent/faultCurrent';
 import { redropBelow, redropPath } from '../studies/voltageDrop/voltageDrop';
-import { conductorDropRow, faultDutyFinding, NO_RATING, nodeFault, redoDropFindings, seriesByLoadSide, tapWithstand, voltageDropInputs, type WithstandResult } from '../studies/index';
+import { conductorDropRow, faultDutyFinding, NO_RATING, nodeFault, redoDropFindings, seriesByLoadSide, tapWithstand, voltageDropInputs, type ConductorDrop, type NodeFault, type StudiesReport, type WithstandResult } from '../studies/index';
+import { lazyTable } from '../studies/lazyTable';
 import { conductorWithstand } from '../rules/conductor-withstand';
 import { equipmentSccr } from '../rules/equipment-sccr';
 import { interruptingRating } from '../rules/interrupting-rating';
@@ -204,12 +205,12 @@ function recheckLeaf(state: AnalysisState, next: Project, ci: number): AnalysisS
 
   // Studies: the load's fault current and the conductor's drop; nothing above the load changes.
   const load = graph.conductorTo[ci]!;
-  const { studies, conductorMoved, nodeMoved } = restudyBelow(state, ctx, ci, [load]);
+  const { studies, conductorMoved, nodeMoved, among } = restudyBelow(state, ctx, ci, [load]);
   nodeMoved[load] = 1;
   const old = state.report;
   const own = new Map<number, Finding[]>([[ci, []]]);
   conductorFindingsOf(ctx, ci, own.get(ci)!);
-  const { findings, conductorFindingStart, studyFindingStart } = spliceFindings(state, ctx, own, conductorMoved, nodeMoved);
+  const { findings, conductorFindingStart, studyFindingStart } = spliceFindings(state, ctx, own, conductorMoved, nodeMoved, undefined, undefined, among);
   const conductors = old.conductors.slice();
   conductors[ci] = conductorReport(ctx, ci, findingIdsOf(state, verdicts, { findings, conductorFindingStart, studyFindingStart }, [ci]).get(conductor.id));
 
@@ -243,25 +244,86 @@ function assumptionsAfter(state: AnalysisState, next: Project, ci: number): stri
  * studies are updated in place (the session owns them). Marks the conductors and nodes whose drop
  * figures moved.
  */
-function restudyBelow(state: AnalysisState, ctx: FixedContext, ci: number, below: readonly number[]): { studies: NonNullable<AnalysisReport['studies']>; conductorMoved: Uint8Array; nodeMoved: Uint8Array } {
+function restudyBelow(state: AnalysisState, ctx: FixedContext, ci: number, below: readonly number[]): { studies: NonNullable<AnalysisReport['studies']>; conductorMoved: Uint8Array; nodeMoved: Uint8Array; among: DropsAmong } {
   const { graph } = ctx;
   const { fault, drop } = state.studies;
   const conductorMoved = new Uint8Array(graph.conductors.length);
   const nodeMoved = new Uint8Array(graph.nodes.length);
   const oldStudies = state.report.studies!;
   conductorMoved[ci] = 1;
-  if (below.length === 0) return { studies: oldStudies, conductorMoved, nodeMoved };
+  const among: DropsAmong = { conductors: [ci], nodes: below };
+  if (below.length === 0) return { studies: oldStudies, conductorMoved, nodeMoved, among };
   restepBelow(graph, fault, ci, below);
   redropBelow(graph, drop, voltageDropInputs(ctx, fault), ci, below, conductorMoved, nodeMoved);
-  const faults = oldStudies.faults.slice();
-  for (const v of below) faults[v] = nodeFault(graph, fault, v);
-  const dropRows = oldStudies.voltageDrop.conductors.slice();
-  dropRows[ci] = conductorDropRow(graph, fault, drop, ci);
+  const faults = below.map((v): [number, NodeFault] => [v, nodeFault(graph, fault, v)]);
+  const dropRows: [number, ConductorDrop][] = [[ci, conductorDropRow(graph, fault, drop, ci)]];
   for (const v of below) {
     const e = fault.parentEdge[v]!;
-    if (e >= 0 && conductorMoved[e]) dropRows[e] = conductorDropRow(graph, fault, drop, e);
+    if (e >= 0 && conductorMoved[e]) {
+      dropRows.push([e, conductorDropRow(graph, fault, drop, e)]);
+      among.conductors.push(e);
+    }
   }
-  return { studies: { ...oldStudies, faults, voltageDrop: { ...oldStudies.voltageDrop, conductors: dropRows } }, conductorMoved, nodeMoved };
+  return { studies: withRows(oldStudies, faults, dropRows), conductorMoved, nodeMoved, among };
+}
+
+/** The studies report with rows of its short-circuit table (by node) and voltage-drop table (by conductor) replaced; the tables are built when read. */
+function withRows(before: StudiesReport, faults: readonly [number, NodeFault][], drops: readonly [number, ConductorDrop][]): StudiesReport {
+  const studies = copyOf(before);
+  if (faults.length > 0) patchTable<'faults', NodeFault>(studies, before, 'faults', faults);
+  if (drops.length > 0) {
+    const voltageDrop = copyOf(before.voltageDrop);
+    patchTable<'conductors', ConductorDrop>(voltageDrop, before.voltageDrop, 'conductors', drops);
+    studies.voltageDrop = voltageDrop;
+  }
+  return studies;
+}
+
+/**
+ * A shallow copy of `o` with its properties as they are: a table of the studies not yet built
+ * (studies/lazyTable.ts, `patchTable`) stays so, where spreading would build it. Replace a copied
+ * table with `patchTable` or Object.defineProperty, never by assignment (its setter is the original's).
+ */
+function copyOf<T extends object>(o: T): T {
+  const copy = Object.defineProperties({}, Object.getOwnPropertyDescriptors(o)) as T;
+  const pending = pendingRows.get(o);
+  if (pending) pendingRows.set(copy, pending);
+  return copy;
+}
+
+/** A table `patchTable` has not built: the object whose table it starts from, and the rows each re-check since replaced, in order. */
+interface PendingRows {
+  readonly base: object;
+  readonly rows: readonly (readonly [number, unknown][])[];
+}
+/** By the object holding the table (each holds one table `patchTable` patches). */
+const pendingRows = new WeakMap<object, PendingRows>();
+/** Past this many re-checks standing on one base, `patchTable` builds the table at once, so the old reports are let go. */
+const MAX_PENDING_EDITS = 32;
+
+/**
+ * Puts on `owner[key]` the table `before[key]` with the `rows` (index, row) replaced, built when first
+ * read: re-checks whose tables nobody reads copy none of a whole table (20 000 rows at 10 000
+ * conductors) each. A table patched again stands on the same base with the rows added, so it is
+ * built with one copy whenever it is read.
+ */
+function patchTable<K extends string, R>(owner: { [k in K]: R[] }, before: { readonly [k in K]: R[] }, key: K, rows: readonly [number, R][]): void {
+  const prev = pendingRows.get(before);
+  const pending: PendingRows = prev ? { base: prev.base, rows: [...prev.rows, rows] } : { base: before, rows: [rows] };
+  let from: PendingRows | null = pending;
+  const build = (): R[] => {
+    const table = (from!.base as { readonly [k in K]: R[] })[key].slice();
+    for (const changed of from!.rows as readonly (readonly [number, R][])[]) for (const [i, row] of changed) table[i] = row;
+    from = null;
+    return table;
+  };
+  if (pending.rows.length >= MAX_PENDING_EDITS) {
+    Object.defineProperty(owner, key, { value: build(), enumerable: true, writable: true, configurable: true });
+    pendingRows.delete(owner);
+    return;
+  }
+  lazyTable(owner, key, build, []);
+  pendingRows.set(owner, pending);
 }
 
 /**
@@ -317,11 +379,11 @@ function recheckConductor(state: AnalysisState, next: Project, ci: number): Anal
   const judged = rejudge(state, { ...prev, project: next, graph, ampacities }, rs);
   if (typeof judged === 'string') return judged;
 
-  const { studies, conductorMoved, nodeMoved } = restudyBelow(state, judged.ctx, ci, below);
+  const { studies, conductorMoved, nodeMoved, among } = restudyBelow(state, judged.ctx, ci, below);
   // The taps and secondaries that start below read the fault current there (their withstand).
   const withstandRuns: number[] = [];
   for (const v of below) for (const e of graph.outEdges[v]!) if (e >= 0 && runs.members[runs.runOf[e]!]![0] === e) withstandRuns.push(runs.runOf[e]!);
-  const after = reported(state, judged, { conductorMoved, nodeMoved, faultNodes: below, withstandRuns }, studies);
+  const after = reported(state, judged, { conductorMoved, nodeMoved, among, faultNodes: below, withstandRuns }, studies);
   const assumptions = assumptionsAfter(state, next, ci);
   return assumptions === after.report.assumptions ? after : { ...after, report: { ...after.report, assumptions } };
 }
@@ -376,12 +438,10 @@ function recheckLoad(state: AnalysisState, next: Project, v: number, before: Nod
   const { fault, drop } = state.studies;
   const conductorMoved = new Uint8Array(graph.conductors.length);
   const nodeMoved = new Uint8Array(graph.nodes.length);
-  redropPath(graph, drop, voltageDropInputs(ctx, fault), path, conductorMoved, nodeMoved);
-  const oldStudies = state.report.studies!;
-  const dropRows = oldStudies.voltageDrop.conductors.slice();
-  for (let c = 0; c < conductorMoved.length; c++) if (conductorMoved[c]) dropRows[c] = conductorDropRow(graph, fault, drop, c);
-  const studies = { ...oldStudies, voltageDrop: { ...oldStudies.voltageDrop, conductors: dropRows } };
-  return reported(state, judged, { conductorMoved, nodeMoved }, studies);
+  const among = { conductors: [] as number[], nodes: [] as number[] };
+  redropPath(graph, drop, voltageDropInputs(ctx, fault), path, conductorMoved, nodeMoved, among);
+  const dropRows = among.conductors.map((c): [number, ConductorDrop] => [c, conductorDropRow(graph, fault, drop, c)]);
+  return reported(state, judged, { conductorMoved, nodeMoved, among }, withRows(state.report.studies!, [], dropRows));
 }
 
 /**
@@ -519,14 +579,26 @@ function rejudgeOnce(state: AnalysisState, base: Omit<FixedContext, 'verdicts' |
 }
 
 /**
- * The withstand table and the study findings with the short-circuit withstand of the runs in `rs`
- * that are (or were) taps or secondaries judged again, in the order a full run writes them (by run,
- * then by conductor of the run).
+ * The withstand table and the study findings with the short-circuit withstand judged again of the
+ * runs that are (or were) taps or secondaries among `rs` (judged again: when what the withstand
+ * reads of them changed, their verdict, device or conductors) and `faultMoved` (the fault current
+ * where they start moved), in the order a full run writes them (by run, then by conductor of the run).
  */
-function rewithstand(state: AnalysisState, ctx: FixedContext, rs: readonly number[], studies: NonNullable<AnalysisReport['studies']>): { studies: NonNullable<AnalysisReport['studies']>; findings: readonly Finding[] } {
+function rewithstand(state: AnalysisState, ctx: FixedContext, rs: readonly number[], faultMoved: readonly number[], studies: NonNullable<AnalysisReport['studies']>): { studies: NonNullable<AnalysisReport['studies']>; findings: readonly Finding[] } {
   const old = state.report.findings.slice(state.studyFindingStart);
   const before = state.ctx.verdicts;
-  const redo = new Set(rs.filter((r) => WITHSTAND_VERDICT.test(before[r]!.verdict) || WITHSTAND_VERDICT.test(ctx.verdicts[r]!.verdict)));
+  const g0 = state.ctx.graph;
+  const withstands = (r: number) => WITHSTAND_VERDICT.test(before[r]!.verdict) || WITHSTAND_VERDICT.test(ctx.verdicts[r]!.verdict);
+  const changed = (r: number) => {
+    const a = before[r]!;
+    const b = ctx.verdicts[r]!;
+    if (WITHSTAND_VERDICT.test(a.verdict) !== WITHSTAND_VERDICT.test(b.verdict) || a.deviceNode !== b.deviceNode) return true;
+    if (b.deviceNode >= 0 && g0.nodes[b.deviceNode] !== ctx.graph.nodes[b.deviceNode]) return true;
+    return ctx.runs.members[r]!.some((ci) => g0.conductors[ci] !== ctx.graph.conductors[ci]);
+  };
+  const redo = new Set<number>();
+  for (const r of rs) if (withstands(r) && changed(r)) redo.add(r);
+  for (const r of faultMoved) if (withstands(r)) redo.add(r);
   if (redo.size === 0) return { studies, findings: old };
   const { graph: g, runs } = ctx;
   const index = conductorIndexOf(state);
@@ -574,7 +646,9 @@ function rewithstand(state: AnalysisState, ctx: FixedContext, rs: readonly numbe
   if (first < 0) first = old.length;
   const rest = old.filter((f) => f.ruleId !== conductorWithstand.id);
   const findings = [...rest.slice(0, first), ...found.sort(byKey).map((x) => x[1]), ...rest.slice(first)];
-  return { studies: { ...studies, withstand: rows }, findings };
+  const next = copyOf(studies);
+  next.withstand = rows;
+  return { studies: next, findings };
 }
 
 /** The run of each row of a withstand table, by table (a re-check that builds a table sets its own). */
@@ -648,6 +722,14 @@ interface Moved {
   faultNodes?: readonly number[];
   /** Runs whose withstand is judged again besides those judged again (the fault current where they start moved). */
   withstandRuns?: readonly number[];
+  /** Every conductor and node that may be marked in `conductorMoved`, `nodeMoved` (absent: any may be). */
+  among?: DropsAmong;
+}
+
+/** The conductors and nodes whose drop figures an edit may have moved (the voltage-drop warnings looked at again). */
+interface DropsAmong {
+  conductors: number[];
+  nodes: readonly number[];
 }
 
 /** The state and report after `judged`: the runs' findings and report lines, the transformers they feed, the panelboards and drops that moved. */
@@ -669,9 +751,9 @@ function reported(state: AnalysisState, judged: Rejudged, moved: Moved, studiesR
   const conductorMoved = moved.conductorMoved ?? new Uint8Array(graph.conductors.length);
   const nodeMoved = moved.nodeMoved ?? new Uint8Array(graph.nodes.length);
   const extra = moved.withstandRuns ?? [];
-  const withstood = rewithstand(state, ctx, extra.length === 0 ? judged.runs : [...judged.runs, ...extra], studies);
+  const withstood = rewithstand(state, ctx, judged.runs, extra, studies);
   const studySection = moved.faultNodes ? refaultDuty(ctx, state.studies.fault, withstood.findings, moved.faultNodes) : withstood.findings;
-  const { findings, conductorFindingStart, studyFindingStart } = spliceFindings(state, ctx, own, conductorMoved, nodeMoved, { transformers, panelboards: moved.panelboards ?? [] }, studySection);
+  const { findings, conductorFindingStart, studyFindingStart } = spliceFindings(state, ctx, own, conductorMoved, nodeMoved, { transformers, panelboards: moved.panelboards ?? [] }, studySection, moved.among);
   studies = withstood.studies;
 
   // Report lines: the runs', those whose withstand was judged again, and those whose voltage-drop warning came or went.
@@ -714,6 +796,7 @@ function spliceFindings(
   nodeMoved: Uint8Array,
   equipment: { transformers: ReadonlySet<number>; panelboards: readonly number[] } = { transformers: new Set(), panelboards: [] },
   studySection: readonly Finding[] = state.report.findings.slice(state.studyFindingStart),
+  among?: DropsAmong,
 ): Pick<AnalysisState, 'conductorFindingStart' | 'studyFindingStart'> & { findings: Finding[] } {
   const old = state.report.findings;
   const start = state.conductorFindingStart;
@@ -737,7 +820,7 @@ function spliceFindings(
   if (equipmentStart < state.studyFindingStart || equipmentStart === start[m]) for (const f of equipmentSection(ctx, conductorIndexOf(state), old.slice(equipmentStart, state.studyFindingStart), equipment.transformers, equipment.panelboards)) findings.push(f);
   const studyFindingStart = findings.length;
   const { fault, drop } = state.studies;
-  const studyFindings = redoDropFindings(ctx.project, ctx.graph, fault, drop, studySection, conductorMoved, nodeMoved, conductorIndexOf(state));
+  const studyFindings = redoDropFindings(ctx.project, ctx.graph, fault, drop, studySection, conductorMoved, nodeMoved, conductorIndexOf(state), among);
   for (const f of studyFindings) findings.push(f);
   return { findings, conductorFindingStart, studyFindingStart };
 }

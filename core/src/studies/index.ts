@@ -332,7 +332,8 @@ function totalDropFinding(edition: CodeEdition, g: Graph, drop: VoltageDropStudy
  * re-check, analyze/incremental.ts): the voltage-drop warnings of the conductors marked in
  * `conductorMoved` and of the nodes marked in `nodeMoved` judged again, every other finding kept, in
  * the order a full run writes them (the voltage-drop warnings come last: circuits by conductor, then
- * totals by node). `conductorIndex` gives a conductor's index by id.
+ * totals by node). `conductorIndex` gives a conductor's index by id. `among`, when given, lists every
+ * conductor and node that may be marked (the rest are not looked at).
  */
 export function redoDropFindings(
   project: Project,
@@ -343,6 +344,7 @@ export function redoDropFindings(
   conductorMoved: Uint8Array,
   nodeMoved: Uint8Array,
   conductorIndex: ReadonlyMap<string, number>,
+  among?: { conductors: readonly number[]; nodes: readonly number[] },
 ): Finding[] {
   const edition = project.project.codeEdition;
   const { circuitLimit, totalLimit } = dropLimits(project);
@@ -360,15 +362,22 @@ export function redoDropFindings(
       if (!nodeMoved[v]) totals.push([v, f]);
     }
   }
-  for (let c = 0; c < conductorMoved.length; c++) {
-    if (!conductorMoved[c]) continue;
+  const redoCircuit = (c: number) => {
+    if (!conductorMoved[c]) return;
     const f = circuitDropFinding(edition, g, fault, drop, c, circuitLimit);
     if (f) circuits.push([c, f]);
-  }
-  for (let v = 0; v < nodeMoved.length; v++) {
-    if (!nodeMoved[v]) continue;
+  };
+  const redoTotal = (v: number) => {
+    if (!nodeMoved[v]) return;
     const f = totalDropFinding(edition, g, drop, v, totalLimit);
     if (f) totals.push([v, f]);
+  };
+  if (among) {
+    for (const c of new Set(among.conductors)) redoCircuit(c);
+    for (const v of new Set(among.nodes)) redoTotal(v);
+  } else {
+    for (let c = 0; c < conductorMoved.length; c++) redoCircuit(c);
+    for (let v = 0; v < nodeMoved.length; v++) redoTotal(v);
   }
   const byIndex = (a: [number, Finding], b: [number, Finding]) => a[0] - b[0];
   return [...findings.slice(0, first), ...circuits.sort(byIndex).map((x) => x[1]), ...totals.sort(byIndex).map((x) => x[1])];

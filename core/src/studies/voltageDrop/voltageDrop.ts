@@ -209,9 +209,9 @@ function dropOf(g: Graph, inp: VoltageDropInputs, drop: VoltageDropStudy, c: num
  * summed as the whole study sums it (what a node supplies in reverse supply-to-load order, then its
  * own load), the current and drop of the conductor into each, then the sums at every node below whose
  * figures moved. Marks in `conductorMoved` each conductor whose row changed and in `nodeMoved` each
- * node whose sums changed (and every node of the path).
+ * node whose sums changed (and every node of the path); lists them in `marked` when given.
  */
-export function redropPath(g: Graph, drop: VoltageDropStudy, inp: VoltageDropInputs, path: readonly number[], conductorMoved: Uint8Array, nodeMoved: Uint8Array): void {
+export function redropPath(g: Graph, drop: VoltageDropStudy, inp: VoltageDropInputs, path: readonly number[], conductorMoved: Uint8Array, nodeMoved: Uint8Array, marked?: { conductors: number[]; nodes: number[] }): void {
   settleTables(drop);
   const { parent, parentEdge, order, count } = inp;
   const pos = orderPositions(order, count);
@@ -230,10 +230,12 @@ export function redropPath(g: Graph, drop: VoltageDropStudy, inp: VoltageDropInp
     }
     addOwnPower(g, inp.loads.loadCircuits, p, q, v);
     nodeMoved[v] = 1;
+    marked?.nodes.push(v);
     const e = parentEdge[v]!;
     if (parent[v]! >= 0 && e >= 0) {
       dropOf(g, inp, drop, e);
       conductorMoved[e] = 1;
+      marked?.conductors.push(e);
     }
   }
   // The sums from the top of the path down the supply tree, each node after its supply, only below a node whose sums moved.
@@ -246,8 +248,14 @@ export function redropPath(g: Graph, drop: VoltageDropStudy, inp: VoltageDropInp
     const cp = circuitPct[v]!;
     arriveAt(g, inp, drop.pct, totalPct, circuitPct, v);
     if (!onPath && Object.is(t, totalPct[v]) && Object.is(cp, circuitPct[v])) continue;
-    nodeMoved[v] = 1;
-    if (u >= 0 && parentEdge[v]! >= 0) conductorMoved[parentEdge[v]!] = 1;
+    if (!onPath) {
+      nodeMoved[v] = 1;
+      marked?.nodes.push(v);
+      if (u >= 0 && parentEdge[v]! >= 0) {
+        conductorMoved[parentEdge[v]!] = 1;
+        marked?.conductors.push(parentEdge[v]!);
+      }
+    }
     for (const e of g.outEdges[v]!) {
       const w = e >= 0 ? g.conductorTo[e]! : g.linkTo[-e - 1]!;
       if (w >= 0 && parent[w] === v && parentEdge[w] === e) stack.push(w);
