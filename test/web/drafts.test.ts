@@ -6,6 +6,7 @@ import {
   WAL_PREFIX,
   asDraft,
   boundHistory,
+  cacheProjectJson,
   draftJson,
   projectJson,
   savedAtMsOf,
@@ -22,6 +23,7 @@ import {
   type KeyValueStore,
 } from '../../web/src/persistence/drafts';
 import { harness, drawTap } from './harness';
+import { addEquipment } from '../../web/src/editor/commands';
 
 /** Web Storage over a Map, with an optional quota in characters like a browser's. */
 function memoryStorage(quota = Infinity): KeyValueStore & { map: Map<string, string> } {
@@ -80,6 +82,18 @@ describe('write-ahead copy of the drawing (localStorage)', () => {
     expect(asDraft(stored)).toEqual(asDraft(JSON.parse(JSON.stringify(later))));
     expect(asDraft(later)!.project).toBe(later.project);
     expect(asDraft({ savedAtMs: 5, json: '{broken' })).toBeNull();
+  });
+
+  it('the text of a drawing just opened is made in slices, and the slices add up to the whole serialisation', () => {
+    const h = harness();
+    for (let i = 0; i < 200; i++) addEquipment.run(h.ctx, { kind: 'load' });
+    const doc = h.doc();
+    let slices = 0;
+    // Time is up after every 64 elements: 200 pieces take four slices.
+    while (!cacheProjectJson(doc, () => true)) slices++;
+    expect(slices).toBe(3);
+    expect(cacheProjectJson(doc, () => true)).toBe(true);
+    expect(projectJson(doc)).toBe(JSON.stringify(doc));
   });
 
   it('the restored history undoes the edits it was saved with, step by step', () => {

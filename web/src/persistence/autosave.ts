@@ -3,6 +3,7 @@ import {
   LATEST_KEY,
   asDraft,
   boundHistory,
+  cacheProjectJson,
   newId,
   newer,
   parseLatest,
@@ -166,6 +167,9 @@ const MAX_SAVE_WAIT_MS = 2000;
 /** Longest a due save waits for the page to be idle (a big drawing's copy takes tens of milliseconds). */
 const IDLE_WAIT_MS = 1000;
 
+/** Longest one idle moment spends writing the text of a drawing's elements before yielding. */
+const SLICE_MS = 8;
+
 /** Runs `fn` when the page is idle (requestIdleCallback where there is one), within `timeoutMs`. */
 function whenIdle(fn: () => void, timeoutMs: number): void {
   if (typeof requestIdleCallback === 'function') requestIdleCallback(fn, { timeout: timeoutMs });
@@ -239,14 +243,25 @@ export function startAutosave(store: EditorStore, identity: TabIdentity, events:
     writing = false;
   };
 
+  // Set while the text of a drawing's new elements is being made, a slice per idle moment.
+  let slicing = false;
   const save = () => {
     timer = null;
-    takePending();
-    writeAhead(false);
-    void flush();
+    // Slices under way save the drawing as it is when they finish.
+    if (slicing) return;
+    slicing = true;
+    const slice = () => {
+      const end = performance.now() + SLICE_MS;
+      if (!cacheProjectJson(store.getState().doc, () => performance.now() > end)) return whenIdle(slice, IDLE_WAIT_MS);
+      slicing = false;
+      takePending();
+      writeAhead(false);
+      void flush();
+    };
+    slice();
   };
 
-  stats.idle = () => timer === null && dirtySince === null && !writing && pending === null;
+  stats.idle = () => timer === null && !slicing && dirtySince === null && !writing && pending === null;
 
   const off = store.onDocumentCommitted(() => {
     const now = Date.now();

@@ -87,6 +87,24 @@ function cachedJson(v: unknown): string {
   return text;
 }
 
+/**
+ * Writes the texts of the project's elements that have none yet, until `timeUp()` says to stop; true
+ * when every element has its text (projectJson is then a join). A drawing just opened has none: its
+ * text is made a slice at a time in idle moments instead of in one task that input would wait behind.
+ */
+export function cacheProjectJson(p: Project, timeUp: () => boolean): boolean {
+  let n = 0;
+  for (const value of Object.values(p)) {
+    if (!Array.isArray(value) || jsonTexts.has(value)) continue;
+    for (const e of value as unknown[]) {
+      if (e === null || typeof e !== 'object' || jsonTexts.has(e)) continue;
+      jsonTexts.set(e, JSON.stringify(e));
+      if (++n % 64 === 0 && timeUp()) return false;
+    }
+  }
+  return true;
+}
+
 /** `JSON.stringify(project)`, joined from the texts of the lists and elements it shares with documents saved before. */
 export function projectJson(p: Project): string {
   const parts: string[] = [];
