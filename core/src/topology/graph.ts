@@ -83,8 +83,10 @@ export function edgeTo(g: Graph, e: number): number {
  */
 export function topologicalOrder(g: Graph): { order: Int32Array; count: number; onCycle: Uint8Array } {
   const n = g.nodes.length;
+  // Each node's in-edge count (its inEdges list's length) from the end arrays: a sequential pass, no list read.
   const indegree = new Int32Array(n);
-  for (let i = 0; i < n; i++) indegree[i] = g.inEdges[i]!.length;
+  countEnds(indegree, g.conductorTo);
+  countEnds(indegree, g.linkTo);
   const order = new Int32Array(n);
   let head = 0;
   let tail = 0;
@@ -101,6 +103,13 @@ export function topologicalOrder(g: Graph): { order: Int32Array; count: number; 
   const onCycle = new Uint8Array(n);
   for (let i = 0; i < n; i++) if (indegree[i]! > 0) onCycle[i] = 1;
   return { order, count: tail, onCycle };
+}
+
+function countEnds(count: Int32Array, ends: Int32Array): void {
+  for (let i = 0; i < ends.length; i++) {
+    const v = ends[i]!;
+    if (v >= 0) count[v]!++;
+  }
 }
 
 /** Each node's position in a supply-to-load order (-1 when not reached), built once per order array. */
