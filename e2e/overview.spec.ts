@@ -1,18 +1,11 @@
 import { expect, test, type Page } from '@playwright/test';
 import { generateProject } from '../core/bench/generateProject';
+import { segmentDistance } from '../web/src/canvas/pointDistance';
 import { checked, openApp, shot } from './helpers';
 
 // A generated drawing of 1 000 conductors (about 4 000 elements): framed whole it sits below zoom 0.1,
 // where the canvas draws it as one bitmap with every element hidden from React Flow (canvas/Overview.tsx).
 const drawing = generateProject({ conductors: 1000, seed: 11 });
-
-function segmentDistance(p: { x: number; y: number }, a: { x: number; y: number }, b: { x: number; y: number }): number {
-  const vx = b.x - a.x;
-  const vy = b.y - a.y;
-  const len2 = vx * vx + vy * vy;
-  const t = len2 === 0 ? 0 : Math.max(0, Math.min(1, ((p.x - a.x) * vx + (p.y - a.y) * vy) / len2));
-  return Math.hypot(p.x - (a.x + t * vx), p.y - (a.y + t * vy));
-}
 
 /** React Flow's transform, and the drawing's box on the page. */
 async function view(page: Page) {

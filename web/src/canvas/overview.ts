@@ -7,6 +7,7 @@ import type { BusLinkEdgeData, ConductorEdgeData } from './flowTypes';
 import type { Bar, Pt } from './geometry';
 import { familyOf } from './looks';
 import { indexReport } from '../analysis/reportIndex';
+import { segmentDistance } from './pointDistance';
 
 /**
  * The drawing far out, as one bitmap. Below OVERVIEW_ZOOM the names, facts and tags of a large
@@ -229,14 +230,6 @@ export function pickAt(layout: OverviewLayout, p: Pt, reach: number): OverviewHi
     if (d < bestD) [best, bestD] = [{ kind: 'conductor', id: c.id }, d];
   }
   return best;
-}
-
-function segmentDistance(p: Pt, a: Pt, b: Pt): number {
-  const vx = b.x - a.x;
-  const vy = b.y - a.y;
-  const len2 = vx * vx + vy * vy;
-  const t = len2 === 0 ? 0 : Math.max(0, Math.min(1, ((p.x - a.x) * vx + (p.y - a.y) * vy) / len2));
-  return Math.hypot(p.x - (a.x + t * vx), p.y - (a.y + t * vy));
 }
 
 /**
