@@ -113,7 +113,8 @@ type DeviceChange =
   | { field: 'adjustableTrip'; maxSettingA: number | undefined; restrictedAccess: boolean }
   | { field: 'arrangement' }
   | { field: 'atDisconnectingMeans' }
-  | { field: 'clearingTimeS'; value: number | undefined };
+  | { field: 'clearingTimeS'; value: number | undefined }
+  | { field: 'interruptingKA'; value: number | undefined };
 
 const deviceChangeArb: fc.Arbitrary<DeviceChange> = fc.oneof(
   { weight: 4, arbitrary: fc.record({ field: fc.constant('ratingA' as const), value: fc.option(fc.constantFrom(15, 20, 30, 60, 100, 125, 225, 400, 600, 800, 1200), { nil: undefined, freq: 8 }) }) },
@@ -122,6 +123,7 @@ const deviceChangeArb: fc.Arbitrary<DeviceChange> = fc.oneof(
   { weight: 1, arbitrary: fc.record({ field: fc.constant('arrangement' as const) }) },
   { weight: 1, arbitrary: fc.record({ field: fc.constant('atDisconnectingMeans' as const) }) },
   { weight: 1, arbitrary: fc.record({ field: fc.constant('clearingTimeS' as const), value: fc.option(fc.constantFrom(0.02, 0.1, 0.5), { nil: undefined }) }) },
+  { weight: 2, arbitrary: fc.record({ field: fc.constant('interruptingKA' as const), value: fc.option(fc.constantFrom(10, 14, 22, 35, 65), { nil: undefined, freq: 6 }) }) },
 );
 
 /** The device after one change of its rating or type. */
@@ -146,6 +148,8 @@ function changeDevice(node: DeviceNode, change: DeviceChange): DeviceNode {
       return { ...node, atDisconnectingMeans: !node.atDisconnectingMeans };
     case 'clearingTimeS':
       return change.value === undefined ? without('clearingTimeS') : { ...node, clearingTimeS: change.value };
+    case 'interruptingKA':
+      return change.value === undefined ? without('interruptingKA') : { ...node, interruptingKA: change.value };
   }
 }
 
@@ -319,7 +323,7 @@ describe('incremental analysis equals a whole analysis after every edit', () => 
     expect(session.last.mode).toBe('full');
   });
 
-  it('a feeder, tap, transformer primary or secondary edited (length, size, sets) is re-checked with what is below it; a service conductor runs the whole analysis', () => {
+  it('a feeder, tap, transformer primary or secondary edited (length, size, sets) is re-checked with what is below it, an interrupting rating on its own; a service conductor runs the whole analysis', () => {
     let project = load(generateProject({ conductors: 400, seed: 5 }));
     const session = createAnalysis(project);
     const lines = session.report.conductors;
@@ -347,6 +351,16 @@ describe('incremental analysis equals a whole analysis after every edit', () => 
         expect(session.last, `${what} ${e.kind}`).toEqual({ mode: 'incremental', conductorId: project.conductors[at]!.id });
       }
     }
+    // An OCPD's interrupting rating changed: its 110.9 finding alone (entering one the first time counts the devices without one again).
+    const breakers = project.nodes.flatMap((n, k) => (n.kind === 'breaker' ? [k] : []));
+    for (const k of [breakers[0]!, breakers[breakers.length - 1]!]) {
+      for (const [i, value] of [10, 200, 10, 14].entries()) {
+        project = applyEdit(project, { kind: 'device', at: breakers.indexOf(k), change: { field: 'interruptingKA', value } }, step++);
+        expect(session.update(project), `interruptingKA ${value}`).toEqual(analyze(project));
+        expect(session.last.mode).toBe(i === 0 ? 'full' : 'incremental');
+      }
+    }
+    expect(session.report.findings.some((f) => f.ruleId === 'interrupting-rating' && f.subject.kind === 'node')).toBe(true);
     const service = lines.findIndex((c) => c.role === 'service');
     project = applyEdit(project, { kind: 'length', at: service, lengthFt: 60 }, step);
     expect(session.update(project)).toEqual(analyze(project));

@@ -46,16 +46,21 @@ export interface AnalysisSession {
 }
 
 /**
- * An incremental analysis. Three edits are re-checked without the whole analysis:
- * - one conductor of a branch circuit (an OCPD to one load, nothing below it: the most common edit
- *   by far): that conductor's run, its load's fault current and voltage drop and its findings;
+ * An incremental analysis. These edits are re-checked without the whole analysis:
+ * - one conductor's own data (length, size, material, sets, insulation, wiring, ambient, installation
+ *   facts, label) anywhere but on the service: its run (with the transformer primary or secondaries
+ *   that read it, and what a changed verdict reaches), the fault current and voltage drop of every
+ *   node below it and what judges them (110.9/110.10, withstand, voltage-drop warnings). A branch
+ *   circuit (an OCPD to one load, nothing below it: the most common edit by far) takes a shorter way;
  * - one load's data (its VA or amperes, continuous, motor, HVAC, power factor) with its connection
  *   unchanged: the load roll-up along its supply path, the runs on that path (facts, verdicts,
  *   fixes, findings, report lines) and the voltage drops below the path;
+ * - one OCPD's rating or type (`recheckDevice`), or its interrupting rating alone (its 110.9 finding);
  * - a node moved or its notes edited: nothing the analysis reads.
  * Any other edit, and any edit whose reach it cannot bound (a change of topology, of the project
- * settings, of a conductor that feeds anything, of a verdict on the supply path, or one that adds
- * or removes a study note), runs the whole analysis.
+ * settings, of a service conductor, of a circuit's makeup, a conductor gaining or losing its
+ * impedance, one that adds or removes a study note, or past a quarter of the runs or nodes), runs
+ * the whole analysis.
  * The property test (test/property/incremental.property.test.ts) holds it equal to `analyze()`.
  */
 export function createAnalysis(project: Project): AnalysisSession {
@@ -112,10 +117,12 @@ function recheck(state: AnalysisState, prev: Project, next: Project): { state: A
   if (typeof edit === 'string') return edit;
   const { index, before, after } = edit;
   if (before.id !== after.id || before.kind !== after.kind) return 'a node was replaced';
-  if (onlyLayout(before, after)) return { state: relayout(state, next), mode: { mode: 'incremental', nodeId: after.id, edit: 'layout' } };
+  if (changedOnly(before, after, LAYOUT_FIELDS)) return { state: relayout(state, next), mode: { mode: 'incremental', nodeId: after.id, edit: 'layout' } };
   let result: AnalysisState | string;
   if (before.kind === 'load' && after.kind === 'load') result = recheckLoad(state, next, index, before, after);
-  else if ((before.kind === 'breaker' && after.kind === 'breaker') || (before.kind === 'fuse' && after.kind === 'fuse')) result = recheckDevice(state, next, index, before, after);
+  else if ((before.kind === 'breaker' && after.kind === 'breaker') || (before.kind === 'fuse' && after.kind === 'fuse')) {
+    result = changedOnly(before, after, INTERRUPTING_FIELDS) ? recheckInterrupting(state, next, index, before, after) : recheckDevice(state, next, index, before, after);
+  }
   else return `a ${before.kind} node changed`;
   return typeof result === 'string' ? result : { state: result, mode: { mode: 'incremental', nodeId: after.id, edit: before.kind === 'load' ? 'load' : 'device' } };
 }
@@ -136,10 +143,14 @@ function singleEdit<T>(a: readonly T[], b: readonly T[], what: string): { index:
 /** Fields of a node no stage of the analysis reads: where it is drawn and the designer's notes. */
 const LAYOUT_FIELDS: ReadonlySet<string> = new Set(['position', 'notes']);
 
-function onlyLayout(before: EquipmentNode, after: EquipmentNode): boolean {
+/** What only 110.9 reads of an OCPD: its own finding there. */
+const INTERRUPTING_FIELDS: ReadonlySet<string> = new Set(['interruptingKA', ...LAYOUT_FIELDS]);
+
+/** True when `before` and `after` differ in `fields` at most. */
+function changedOnly(before: EquipmentNode, after: EquipmentNode, fields: ReadonlySet<string>): boolean {
   const a = before as Record<string, unknown>;
   const b = after as Record<string, unknown>;
-  for (const key of new Set([...Object.keys(a), ...Object.keys(b)])) if (!LAYOUT_FIELDS.has(key) && a[key] !== b[key]) return false;
+  for (const key of new Set([...Object.keys(a), ...Object.keys(b)])) if (!fields.has(key) && a[key] !== b[key]) return false;
   return true;
 }
 
@@ -147,6 +158,20 @@ function onlyLayout(before: EquipmentNode, after: EquipmentNode): boolean {
 function relayout(state: AnalysisState, next: Project): AnalysisState {
   const graph: Graph = { ...state.ctx.graph, nodes: next.nodes };
   return { ...state, ctx: { ...state.ctx, project: next, graph } };
+}
+
+/**
+ * An OCPD's interrupting rating changed (and perhaps where it is drawn): its 110.9 finding is judged
+ * again. Nothing else of the analysis reads it, but the project's finding that counts the devices
+ * without one: a rating entered or removed runs the whole analysis.
+ */
+function recheckInterrupting(state: AnalysisState, next: Project, d: number, before: NodeOfKind<'breaker' | 'fuse'>, after: NodeOfKind<'breaker' | 'fuse'>): AnalysisState | string {
+  if ((before.interruptingKA === undefined) !== (after.interruptingKA === undefined)) return 'an interrupting rating was entered or removed (110.9)';
+  const relaid = relayout(state, next);
+  const old = state.report;
+  const section = refaultDuty(relaid.ctx, state.studies.fault, old.findings.slice(state.studyFindingStart), [d]);
+  const findings = [...old.findings.slice(0, state.studyFindingStart), ...section];
+  return { ...relaid, report: { ...old, findings, counts: { ...old.counts, bySeverity: countsOf([], findings).bySeverity } } };
 }
 
 /**
