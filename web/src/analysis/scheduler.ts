@@ -8,6 +8,8 @@ import { coreCreateAnalysis } from './coreApi';
  * check itself on big drawings. Slower checks go after the commit.
  */
 const INLINE_BUDGET_MS = 60;
+/** How many of the last bounded re-checks say what one typically takes. */
+const TYPICAL_OF = 5;
 
 /**
  * Re-runs the analysis on every committed document. Drags never commit until
@@ -15,7 +17,7 @@ const INLINE_BUDGET_MS = 60;
  * less than INLINE_BUDGET_MS they run inside the commit; slower ones run a
  * few milliseconds after it, so a burst of edits costs one run and the screen
  * shows the edit first. "Typically" follows the session's bounded re-checks
- * once there have been any: a whole re-run (an edit of a feeder, of the
+ * (and expects one before there has been any): a whole re-run (an edit of a feeder, of the
  * service, of the topology) is as slow inline as after the commit, and must
  * not send the next few edits of branch circuits, each a millisecond or two,
  * down the slower path of two renders and a timer.
@@ -25,18 +27,20 @@ export function startAnalysis(store: EditorStore, debounceMs = 8): () => void {
   // One session for the editor's life: an edit of one branch circuit is re-checked on its own and
   // every other conductor keeps its report object (core/src/analyze/incremental.ts).
   let session: AnalysisSession | null = null;
-  const full = { runs: 0, ms: 0 };
-  const bounded = { runs: 0, ms: 0 };
+  // The last few bounded re-checks' times, newest last.
+  const bounded: number[] = [];
   const check = (doc: Project): { report: AnalysisReport | null; error: string | null } => {
     const t0 = performance.now();
     try {
       const report = session ? session.update(doc) : (session = coreCreateAnalysis(doc)).report;
       stats.lastMs = performance.now() - t0;
-      // Smoothed figures, so one slow run (a GC pause) does not flip the mode.
-      const typical = session.last.mode === 'full' ? full : bounded;
-      typical.ms = typical.runs === 0 ? stats.lastMs : 0.7 * typical.ms + 0.3 * stats.lastMs;
-      typical.runs++;
-      stats.typicalMs = bounded.runs > 0 ? bounded.ms : full.ms;
+      if (session.last.mode !== 'full') {
+        bounded.push(stats.lastMs);
+        if (bounded.length > TYPICAL_OF) bounded.shift();
+      }
+      // The lower median, so one slow run (a GC pause, the first re-check building its tables) does not
+      // flip the mode; before the first bounded re-check (a drawing just opened) one is expected.
+      stats.typicalMs = bounded.length ? [...bounded].sort((a, b) => a - b)[(bounded.length - 1) >> 1]! : 0;
       stats.runs++;
       return { report, error: null };
     } catch (e) {
