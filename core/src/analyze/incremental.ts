@@ -18,6 +18,7 @@ import { conductorWithstand } from '../rules/conductor-withstand';
 import { equipmentSccr } from '../rules/equipment-sccr';
 import { interruptingRating } from '../rules/interrupting-rating';
 import { edgeFrom, edgeTo, KIND, orderPositions, type Graph } from '../topology/graph';
+import { isPassThroughJoint } from '../topology/runs';
 import { voltageDropRule } from '../rules/voltage-drop';
 import { transformerProtection } from '../rules/transformer-protection';
 import { panelboardProtection } from '../rules/panelboard-protection';
@@ -108,7 +109,7 @@ function recheck(state: AnalysisState, prev: Project, next: Project): { state: A
     const edit = singleEdit(prev.conductors, next.conductors, 'conductor');
     if (typeof edit === 'string') return edit;
     const { index, before, after } = edit;
-    const why = conductorBlocker(state, index, before, after);
+    const why = conductorBlocker(state, next, index, before, after);
     if (why !== null) return why;
     const result = isBranchLeaf(state, index) ? recheckLeaf(state, next, index) : recheckConductor(state, next, index);
     return typeof result === 'string' ? result : { state: result, mode: { mode: 'incremental', conductorId: after.id } };
@@ -178,8 +179,12 @@ function recheckInterrupting(state: AnalysisState, next: Project, d: number, bef
  * Why the edit of conductor `ci` cannot be re-checked without the whole analysis, or null when it can
  * (what it reaches is bounded later: its run, the runs that read its run's verdict, its subtree).
  */
-function conductorBlocker(state: AnalysisState, ci: number, before: Conductor, after: Conductor): string | null {
+function conductorBlocker(state: AnalysisState, next: Project, ci: number, before: Conductor, after: Conductor): string | null {
   if (before.id !== after.id || before.from !== after.from || before.to !== after.to) return 'a conductor was reconnected';
+  // Conductors of the same material, size and sets through a splice or tap box are one run (topology/runs.ts).
+  const g = state.ctx.graph;
+  const gNext: Graph = { ...g, conductors: next.conductors };
+  for (const v of [g.conductorFrom[ci]!, g.conductorTo[ci]!]) if (isPassThroughJoint(g, v) !== isPassThroughJoint(gNext, v)) return 'the edit joins or splits a run at a splice or tap box';
   // The 310.15(E) count of its circuit (analyze/circuits.ts) reads these; the rest of the circuit is the nodes'.
   if (before.neutral !== after.neutral || before.nonlinearLoad !== after.nonlinearLoad || before.currentCarrying !== after.currentCarrying) return 'the edit changes the circuit makeup';
   // A conductor without a length or a Table 9 impedance counts as zero, makes the fault current below it an upper
