@@ -865,7 +865,11 @@ function equipmentSection(ctx: FixedContext, index: ReadonlyMap<string, number>,
   const { graph: g, runs, verdicts } = ctx;
   // A full run meets a verdict first at its first run (runs judged as one share it).
   const firstRunOf = (verdict: RunVerdict) => runs.runOf[index.get(verdict.facts.conductorIds[0]!)!]!;
-  const firstRunInto = (v: number) => Math.min(...g.inEdges[v]!.map((e) => (e >= 0 ? firstRunOf(verdicts[runs.runOf[e]!]!) : Number.POSITIVE_INFINITY)));
+  // A transformer's finding comes from the verdict of a run into it, whose conductors it names: the first one named gives that run.
+  const producedBy = (f: Finding) => {
+    const c = f.related.find((r) => r.kind === 'conductor');
+    return c ? firstRunOf(verdicts[runs.runOf[index.get(c.id)!]!]!) : Number.POSITIVE_INFINITY;
+  };
   const txs: [number, Finding][] = [];
   const panels: [number, Finding][] = [];
   const rest: Finding[] = [];
@@ -873,7 +877,7 @@ function equipmentSection(ctx: FixedContext, index: ReadonlyMap<string, number>,
   for (const f of section) {
     const v = f.subject.kind === 'node' ? g.nodeIndex.get(f.subject.id)! : -1;
     if (f.ruleId === transformerProtection.id) {
-      if (!transformers.has(v)) txs.push([firstRunInto(v), f]);
+      if (!transformers.has(v)) txs.push([producedBy(f), f]);
     } else if (f.ruleId === panelboardProtection.id) {
       if (!redone.has(v)) panels.push([v, f]);
     } else rest.push(f);
