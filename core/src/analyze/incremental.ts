@@ -441,6 +441,8 @@ function recheckLoad(state: AnalysisState, next: Project, v: number, before: Nod
   // A load without a known current adds a note to the voltage-drop study.
   if ((loads.loadCircuits[v] === null) !== (loadCircuit(after, ...sys) === null)) return "whether the load's current is known changed";
   if (prev.onCycle[v] || g0.outEdges[v]!.length !== 0) return 'the load supplies something';
+  // A load supplied by nothing (or by several) has a finding about the network's shape that names it.
+  if (before.label !== after.label && g0.inEdges[v]!.length !== 1) return "the load's name is in a finding about the network";
 
   // The supply path, load first: every node on it supplied once, so the roll-up changes along it alone.
   const path: number[] = [];
