@@ -597,7 +597,9 @@ function rejudgeOnce(state: AnalysisState, base: Omit<FixedContext, 'verdicts' |
     const b = verdicts[r]!;
     const members = runs.members[r]!;
     if (b.facts.conductorIds.length !== members.length) return `${a.facts.conductorIds[0]} is now judged with the run it continues`;
-    if (a.verdict === b.verdict && a.rule === b.rule && a.family === b.family && a.deviceNode === b.deviceNode && a.generatorNode === b.generatorNode) continue;
+    // What is supplied through a run reads its verdict, and of an incomplete one whether only its size is missing (classify.ts isUnsizedOnOcpd).
+    const sameUnsized = (a.facts.size === null) === (b.facts.size === null) && (a.facts.supplyOcpdA === null) === (b.facts.supplyOcpdA === null);
+    if (a.verdict === b.verdict && a.rule === b.rule && a.family === b.family && a.deviceNode === b.deviceNode && a.generatorNode === b.generatorNode && sameUnsized) continue;
     // A new verdict reaches what is supplied through the run (judged again here only when it is in `rs`).
     if (a.deviceNode !== b.deviceNode || a.generatorNode !== b.generatorNode) return `the device ${a.facts.conductorIds[0]} is judged against changed`;
     const end = graph.conductorTo[members[members.length - 1]!]!;
