@@ -171,6 +171,18 @@ function violationIds(findings: readonly Finding[]): Set<string> {
 /** A box in flow coordinates. */
 export type Box = Segment;
 
+/** The smallest box holding every point (an empty box, x1 > x2, when there are none). */
+export function boundsOf(pts: readonly Pt[]): Box {
+  const b = { x1: Infinity, y1: Infinity, x2: -Infinity, y2: -Infinity };
+  for (const p of pts) {
+    if (p.x < b.x1) b.x1 = p.x;
+    if (p.x > b.x2) b.x2 = p.x;
+    if (p.y < b.y1) b.y1 = p.y;
+    if (p.y > b.y2) b.y2 = p.y;
+  }
+  return b;
+}
+
 /**
  * Where two scenes of one layout differ: the wires and badges of the conductors whose family moved and
  * the pieces whose flag moved (a length edit that keeps every verdict differs nowhere). `pad` covers
@@ -180,13 +192,7 @@ export function sceneChanges(before: OverviewScene, after: OverviewScene, pad: n
   const out: Box[] = [];
   if (before.family !== after.family) after.layout.conductors.forEach((c, i) => {
     if (before.family[i] === after.family[i]) return;
-    const b = { x1: c.badge.x, y1: c.badge.y, x2: c.badge.x, y2: c.badge.y };
-    for (const p of c.points) {
-      b.x1 = Math.min(b.x1, p.x);
-      b.y1 = Math.min(b.y1, p.y);
-      b.x2 = Math.max(b.x2, p.x);
-      b.y2 = Math.max(b.y2, p.y);
-    }
+    const b = boundsOf([c.badge, ...c.points]);
     out.push({ x1: b.x1 - pad, y1: b.y1 - pad, x2: b.x2 + pad, y2: b.y2 + pad });
   });
   const was = new Map(before.flags.map((f) => [f.id, f.severity]));

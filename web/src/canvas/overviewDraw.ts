@@ -1,6 +1,6 @@
 import { FAMILY_LOOK, SEVERITY_LOOK, type VerdictFamily } from '../analysis/verdicts';
 import type { Pt } from './geometry';
-import type { Box, OverviewScene, Segment } from './overview';
+import { boundsOf, type Box, type OverviewScene, type Segment } from './overview';
 
 /** The pens of styles.css the overview draws with (--ink, --sel, .lw-edge-halo, .lw-buslink-outer). */
 const INK = '#1d232b';
@@ -56,14 +56,8 @@ export function drawOverview(g: CanvasRenderingContext2D, scene: OverviewScene, 
   const right = only ? only.x2 + pad : (v.width - v.x) / v.zoom + pad;
   const bottom = only ? only.y2 + pad : (v.height - v.y) / v.zoom + pad;
   const inView = (pts: readonly Pt[]) => {
-    let x1 = Infinity, x2 = -Infinity, y1 = Infinity, y2 = -Infinity;
-    for (const p of pts) {
-      if (p.x < x1) x1 = p.x;
-      if (p.x > x2) x2 = p.x;
-      if (p.y < y1) y1 = p.y;
-      if (p.y > y2) y2 = p.y;
-    }
-    return x2 >= left && x1 <= right && y2 >= top && y1 <= bottom;
+    const b = boundsOf(pts);
+    return b.x2 >= left && b.x1 <= right && b.y2 >= top && b.y1 <= bottom;
   };
   const polylines = (lines: readonly (readonly Pt[])[]) => {
     g.beginPath();
