@@ -20,7 +20,6 @@ import { segmentDistance } from './pointDistance';
  */
 export const OVERVIEW_ZOOM = 0.1;
 
-
 /** A straight stroke, in flow coordinates. */
 export interface Segment {
   x1: number;
@@ -30,7 +29,6 @@ export interface Segment {
 }
 const barSegment = (b: Bar): Segment => ({ x1: b.x1, y1: b.y, x2: b.x2, y2: b.y });
 
-/** What does not change with a check: positions, geometry, selection. */
 /** A conductor or bus link as the overview picks it: its ends and its wire. */
 export interface OverviewLink {
   kind: 'conductor' | 'busLink';
@@ -40,6 +38,7 @@ export interface OverviewLink {
   points: Pt[];
 }
 
+/** What does not change with a check: positions, geometry, selection. */
 export interface OverviewLayout {
   /** Each piece of equipment's box, for picking. */
   nodes: { id: string; x: number; y: number; w: number; h: number }[];
