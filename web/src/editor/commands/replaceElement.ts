@@ -51,8 +51,7 @@ export const replaceElement = defineCommand<ReplaceArg>({
     if (!parsed.ok) return;
     const t = a.target;
     const doc = store.getState().doc;
-    const current =
-      t.kind === 'project' ? doc.project : (t.kind === 'node' ? doc.nodes : t.kind === 'conductor' ? doc.conductors : doc.busLinks).find((x) => x.id === t.id);
+    const current = t.kind === 'project' ? doc.project : (doc[LIST_OF[t.kind]] as readonly { id: string }[]).find((x) => x.id === t.id);
     if (current !== undefined && JSON.stringify(current) === JSON.stringify(parsed.value)) return;
     if (t.kind !== 'project' && (parsed.value as { id: string }).id === t.id) {
       store.replaceElements(a.label, [{ list: LIST_OF[t.kind], value: parsed.value as { id: string } }]);
@@ -63,7 +62,7 @@ export const replaceElement = defineCommand<ReplaceArg>({
         d.project = parsed.value as ProjectSettings;
         return;
       }
-      const list = (t.kind === 'node' ? d.nodes : t.kind === 'conductor' ? d.conductors : d.busLinks) as { id: string }[];
+      const list = d[LIST_OF[t.kind]] as { id: string }[];
       const i = list.findIndex((x) => x.id === t.id);
       if (i < 0) return;
       // An id change must follow every reference to the element.
