@@ -7,6 +7,7 @@ import { StudyLayers } from '../studies/StudyLayers';
 import type { EquipmentKind } from '@linewright/core';
 import { EQUIPMENT_KINDS } from '@linewright/core';
 import { addEquipment, connect, moveNodes } from '../editor/commands';
+import { LIST_OF } from '../editor/commands/replaceElement';
 import { kindSpec } from '../editor/equipment';
 import { connectionKindFor } from '../editor/placement';
 import { useCommandContext, useEditorState } from '../editor/useEditor';
@@ -44,7 +45,7 @@ const PICK_REACH_PX = 8;
 
 /** The selection after a click far out picked `hit`: it alone, or, with Ctrl or Cmd held, it added to or taken from `cur`. */
 function selectionAfterPick(cur: Selection, hit: OverviewHit, add: boolean): Selection {
-  const key = hit.kind === 'node' ? 'nodes' : hit.kind === 'conductor' ? 'conductors' : 'busLinks';
+  const key = LIST_OF[hit.kind];
   if (!add) return { nodes: [], conductors: [], busLinks: [], [key]: [hit.id] };
   const list = cur[key];
   return { ...cur, [key]: list.includes(hit.id) ? list.filter((id) => id !== hit.id) : [...list, hit.id] };
