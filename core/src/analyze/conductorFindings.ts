@@ -1,5 +1,6 @@
-import { VERDICT_LABELS, type Citation, type ElementRef, type Finding, type Fix, type RuleTrial } from './types';
+import { VERDICT_LABELS, type ElementRef, type Finding, type Fix, type RuleTrial } from './types';
 import { conductorName, formatNumber } from '../rules/define';
+import { cite } from '../tables/citations';
 import { calculatedLoadFails, calculatedLoadTrial } from './trials';
 import type { Graph } from '../topology/graph';
 import type { RunVerdict } from './classify';
@@ -35,15 +36,11 @@ export function conductorFindingsOf(ctx: FixedContext, ci: number, out: Finding[
     // The code says "shall" for parallel sets (310.10(G)) and for the insulation's temperature (310.14(A)(3)): violations; a missing fact is a warning.
     const field = amp.problem.field;
     const shall = field === 'parallelSets' ? '310.10(G)' : field === 'ambientC' ? '310.14(A)(3)' : null;
-    out.push(finding({ ruleId: 'ampacity', messageId: `no-ampacity-${field}`, severity: shall ? 'violation' : 'warning', cites: citeIn(edition, shall ?? '310.16'), subject: { kind: 'conductor', id: c.id }, message: `${describeConductor(c, c.parallelSets)}: ${amp.problem.message}` }));
+    out.push(finding({ ruleId: 'ampacity', messageId: `no-ampacity-${field}`, severity: shall ? 'violation' : 'warning', cites: cite(shall ?? '310.16', edition), subject: { kind: 'conductor', id: c.id }, message: `${describeConductor(c, c.parallelSets)}: ${amp.problem.message}` }));
   }
   // The run's own findings once, on its first conductor.
   if (f.conductorIds[0] !== c.id) return;
   runFindings(ctx, c, v, ctx.fixes[runs.runOf[ci]!]!, out);
-}
-
-function citeIn(edition: FixedContext['edition'], section: string): Citation {
-  return { code: 'NEC', edition, section };
 }
 
 /** A run's finding: on its first conductor, naming the run's other segments first among the related elements. */
@@ -64,7 +61,7 @@ function runFindings(ctx: FixedContext, c: Graph['conductors'][number], v: RunVe
           ruleId: 'tap-from-tap',
           messageId: 'fed-from-unprotected',
           severity: 'violation',
-          cites: citeIn(edition, '240.21'),
+          cites: cite('240.21', edition),
           subject: { kind: 'conductor', id: c.id },
           related: [...f.suppliedFrom.conductorIds.map((id): ElementRef => ({ kind: 'conductor', id })), ...deviceRefs(g, v)],
           fixes,
@@ -78,7 +75,7 @@ function runFindings(ctx: FixedContext, c: Graph['conductors'][number], v: RunVe
         ruleId: n?.ruleId ?? 'protected',
         messageId: 'no-rule-fits',
         severity: 'violation',
-        cites: n?.cites ?? citeIn(edition, '240.4'),
+        cites: n?.cites ?? cite('240.4', edition),
         subject: { kind: 'conductor', id: c.id },
         related: deviceRefs(g, v),
         fixes,
@@ -92,7 +89,7 @@ function runFindings(ctx: FixedContext, c: Graph['conductors'][number], v: RunVe
         ruleId: 'tap-from-tap',
         messageId: 'supply',
         severity: 'violation',
-        cites: citeIn(edition, '240.21'),
+        cites: cite('240.21', edition),
         subject: { kind: 'conductor', id: c.id },
         related: [...(f.suppliedFrom?.conductorIds ?? []).map((id): ElementRef => ({ kind: 'conductor', id })), ...deviceRefs(g, v)],
         fixes,
@@ -111,7 +108,7 @@ function runFindings(ctx: FixedContext, c: Graph['conductors'][number], v: RunVe
         ruleId: 'protected-next-size',
         messageId: 'round-up-used',
         severity: 'info',
-        cites: citeIn(edition, '240.4(B)'),
+        cites: cite('240.4(B)', edition),
         subject: { kind: 'conductor', id: c.id },
         related: deviceRefs(g, v),
         message: `${describeRun(c, f)}: the ${formatNumber(f.supplyOcpdA ?? 0)} A device is the next standard rating above its ${formatNumber(f.ampacityA ?? 0)} A ampacity (240.4(B)); confirm the circuit is not a multioutlet branch circuit for cord-and-plug loads.`,
@@ -139,7 +136,7 @@ function runFindings(ctx: FixedContext, c: Graph['conductors'][number], v: RunVe
     const t = v.tried[0];
     // More than six service disconnects is a finding of its own (230.71), apart from the conductors' protection.
     const tooMany = t.conditions.find((x) => x.id === 'disconnects' && x.status === 'fail');
-    if (tooMany) pushRunFinding(out, f, { ruleId: t.ruleId, messageId: 'too-many-disconnects', severity: 'violation', cites: citeIn(edition, '230.71'), subject: { kind: 'conductor', id: c.id }, message: `${describeRun(c, f)}: ${tooMany.text} Fails 230.71.` });
+    if (tooMany) pushRunFinding(out, f, { ruleId: t.ruleId, messageId: 'too-many-disconnects', severity: 'violation', cites: cite('230.71', edition), subject: { kind: 'conductor', id: c.id }, message: `${describeRun(c, f)}: ${tooMany.text} Fails 230.71.` });
     const rest = t.conditions.filter((x) => x.status === 'fail' && x !== tooMany).map((x) => x.text);
     if (rest.length > 0) pushRunFinding(out, f, { ruleId: t.ruleId, messageId: 'fails', severity: 'violation', cites: t.cites, subject: { kind: 'conductor', id: c.id }, message: `${describeRun(c, f)}: ${rest.join(' ')} Fails ${t.cites.section}.` });
   }
@@ -154,7 +151,7 @@ function runFindings(ctx: FixedContext, c: Graph['conductors'][number], v: RunVe
         ruleId: 'calculated-load',
         messageId: cond.id === 'continuous' ? 'below-calculated-load' : 'below-load',
         severity: 'violation',
-        cites: citeIn(edition, part),
+        cites: cite(part, edition),
         subject: { kind: 'conductor', id: c.id },
         data: cond.data,
         message: `${describeRun(c, f)}: ${cond.text.replace(/\.$/, '')} (${part}).`,
