@@ -8,10 +8,8 @@ import type { ElementRef, Finding } from './types';
 /** Most elements a single topology finding lists. */
 const MAX_RELATED = 50;
 
-/** Equipment that passes power on: with nothing below it, a conductor or load is probably missing. */
-const PASSES_POWER_ON: ReadonlySet<string> = new Set(['splice', 'bus', 'disconnect', 'breaker', 'fuse']);
-/** The same by kind code (Graph.nodeKind), read without reaching the node. */
-const PASSES_POWER_ON_CODE: ReadonlySet<number> = new Set([...PASSES_POWER_ON].map((k) => KIND[k as keyof typeof KIND]));
+/** Equipment that passes power on, by kind code (Graph.nodeKind): with nothing below it, a conductor or load is probably missing. */
+const PASSES_POWER_ON: ReadonlySet<number> = new Set([KIND.splice, KIND.bus, KIND.disconnect, KIND.breaker, KIND.fuse]);
 
 /** Stage: findings about the shape of the network: loose equipment, several supplies, no source, dangling ends, loops. */
 export function topologyFindings(ctx: AnalysisContext): Finding[] {
@@ -25,7 +23,7 @@ export function topologyFindings(ctx: AnalysisContext): Finding[] {
     if (onCycle[v]) cycleNodes.push({ kind: 'node', id: g.nodes[v]!.id });
     // Nearly every node has one supply and either something below it or no need of it (a load): no finding
     // here, so its name and subject are made only for a node that may have one.
-    if (ins === 1 && (outs > 0 || !PASSES_POWER_ON_CODE.has(g.nodeKind[v]!))) continue;
+    if (ins === 1 && (outs > 0 || !PASSES_POWER_ON.has(g.nodeKind[v]!))) continue;
     const n = g.nodes[v]!;
     const subject: ElementRef = { kind: 'node', id: n.id };
     const name = `${nodeLabel(n)}${n.label ? ` (${n.id})` : ''}`;
@@ -48,7 +46,7 @@ export function topologyFindings(ctx: AnalysisContext): Finding[] {
     if (ins === 0 && n.kind !== 'utility' && n.kind !== 'generator') {
       push({ ruleId: 'topology', messageId: 'no-source', severity: 'warning', cites: null, subject, message: `Nothing supplies ${name}; the conductors below it cannot be judged. Connect it to a source.` });
     }
-    if (outs === 0 && ins > 0 && PASSES_POWER_ON.has(n.kind)) {
+    if (outs === 0 && ins > 0 && PASSES_POWER_ON.has(g.nodeKind[v]!)) {
       push({ ruleId: 'topology', messageId: 'dangling-end', severity: 'info', cites: null, subject, message: `${name} supplies nothing; is a conductor or load missing below it?` });
     }
   }
