@@ -5,7 +5,7 @@ import { edgeFrom, KIND, type Graph } from '../topology/graph';
 import { isJoint } from '../topology/runs';
 import { joinFacts } from './runFacts';
 import type { FactsContext } from './context';
-import { deviceTypeOf, effectiveRatingA, generatorFacts, transformerFacts } from './equipment';
+import { deviceTypeOf, effectiveRatingA, generatorFacts, isOcpdKind, transformerFacts } from './equipment';
 import { firstHolding, protectionTrial, triedList } from './trials';
 import { FAILING_VERDICTS, type ConductorRole, type RuleTrial, type Verdict } from './types';
 
@@ -154,7 +154,7 @@ function secondariesByTransformer(ctx: FactsContext): Map<number, RunFacts[]> {
 
 function supplyAt(walk: Walk, v: number): Supply {
   const code = walk.ctx.graph.nodeKind[v]!;
-  if (code === KIND.breaker || code === KIND.fuse) return (walk.sources[v] ??= { kind: 'ocpd', node: v });
+  if (isOcpdKind(code)) return (walk.sources[v] ??= { kind: 'ocpd', node: v });
   if (code === KIND.utility) return (walk.sources[v] ??= { kind: 'utility', node: v });
   if (code === KIND.generator) return (walk.sources[v] ??= { kind: 'generator', node: v });
   if (code === KIND.transformer) return (walk.sources[v] ??= { kind: 'transformer', node: v });
@@ -175,7 +175,7 @@ function toJudge(walk: Walk, r: number, supply: Supply): RunToJudge {
   const endKind = endNode >= 0 ? g.nodeKind[endNode]! : -1;
   const endsAtTransformer = endKind === KIND.transformer;
   // Conductors into distribution equipment (a panelboard, switchboard, tap box…) are feeders even with nothing drawn below it.
-  const feedsDevice = endNode >= 0 && (endKind === KIND.breaker || endKind === KIND.fuse || endKind === KIND.bus || walk.below[endNode] === 1);
+  const feedsDevice = endNode >= 0 && (isOcpdKind(endKind) || endKind === KIND.bus || walk.below[endNode] === 1);
   if (endsAtTransformer) {
     facts.secondaries = walk.secondariesOf.get(endNode) ?? [];
     facts.transformer = transformerFacts(g, endNode, { ratingA: null, id: null }, facts.secondaries.map((s) => s.termination));
@@ -388,7 +388,7 @@ function ocpdBelow(g: Graph, order: Int32Array, count: number): Uint8Array {
       const e = outs[i]!;
       const w = e >= 0 ? g.conductorTo[e]! : g.linkTo[-e - 1]!;
       const kind = g.nodeKind[w]!;
-      if (below[w] || kind === KIND.breaker || kind === KIND.fuse || kind === KIND.transformer) {
+      if (below[w] || isOcpdKind(kind) || kind === KIND.transformer) {
         below[v] = 1;
         break;
       }

@@ -1,7 +1,7 @@
 import type { EquipmentNode } from '../model/schema';
 import type { RunFacts, Termination } from '../rules/facts';
 import { transformerFullLoadA } from '../tables/transformer';
-import type { Graph } from '../topology/graph';
+import { KIND, type Graph } from '../topology/graph';
 
 /**
  * Facts of one piece of equipment as the rules read them: the rating that
@@ -28,6 +28,8 @@ export function deviceTypeOf(node: EquipmentNode): RunFacts['supplyDeviceType'] 
 }
 
 export const isOcpd = (node: EquipmentNode): boolean => node.kind === 'breaker' || node.kind === 'fuse';
+/** The same by kind code (Graph.nodeKind), without reaching the node. */
+export const isOcpdKind = (kind: number): boolean => kind === KIND.breaker || kind === KIND.fuse;
 
 export function nodeLabel(node: EquipmentNode): string {
   return node.label && node.label.trim() !== '' ? node.label : node.id;
