@@ -45,7 +45,7 @@ export function buildGraph(project: Project): Graph {
 }
 
 /** Equipment kinds as small integers (Graph.nodeKind); a kind the schema does not know (an unchecked project) reads UNKNOWN_KIND. */
-export const UNKNOWN_KIND = 255;
+const UNKNOWN_KIND = 255;
 export const KIND: Readonly<Record<EquipmentKind, number>> = Object.freeze(Object.fromEntries(EQUIPMENT_KINDS.map((k, i) => [k, i])) as Record<EquipmentKind, number>);
 
 /** Not frozen: a frozen array has another shape, and every loop over the lists would then see two. */
