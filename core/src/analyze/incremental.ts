@@ -12,7 +12,7 @@ import type { AnalysisReport, Finding } from './types';
 import type { RunFacts } from '../rules/facts';
 import { hasImpedance, restepBelow } from '../studies/faultCurrent/faultCurrent';
 import { redropBelow, redropPath } from '../studies/voltageDrop/voltageDrop';
-import { conductorDropRow, faultDutyFinding, NO_RATING, nodeFault, redoDropFindings, seriesByLoadSide, tapWithstand, voltageDropInputs, type ConductorDrop, type NodeFault, type StudiesReport, type WithstandResult } from '../studies/index';
+import { conductorDropRow, faultDutyFinding, NO_RATING, nodeFault, redoDropFindings, RELIES_ON_DEVICE_AHEAD, seriesByLoadSide, tapWithstand, voltageDropInputs, type ConductorDrop, type NodeFault, type StudiesReport, type WithstandResult } from '../studies/index';
 import { lazyTable } from '../studies/lazyTable';
 import { conductorWithstand } from '../rules/conductor-withstand';
 import { equipmentSccr } from '../rules/equipment-sccr';
@@ -521,9 +521,6 @@ function recheckDevice(state: AnalysisState, next: Project, d: number, before: N
   return reported(state, judged, { panelboards }, state.report.studies!);
 }
 
-/** Verdicts whose runs the studies judge for short-circuit withstand (studies/index.ts runStudies). */
-const WITHSTAND_VERDICT = /^(tap-(?!from-tap)|secondary-)/;
-
 /** Runs judged again and what comes of it. */
 interface Rejudged {
   readonly ctx: FixedContext;
@@ -622,11 +619,11 @@ function rewithstand(state: AnalysisState, ctx: FixedContext, rs: readonly numbe
   const old = state.report.findings.slice(state.studyFindingStart);
   const before = state.ctx.verdicts;
   const g0 = state.ctx.graph;
-  const withstands = (r: number) => WITHSTAND_VERDICT.test(before[r]!.verdict) || WITHSTAND_VERDICT.test(ctx.verdicts[r]!.verdict);
+  const withstands = (r: number) => RELIES_ON_DEVICE_AHEAD.has(before[r]!.verdict) || RELIES_ON_DEVICE_AHEAD.has(ctx.verdicts[r]!.verdict);
   const changed = (r: number) => {
     const a = before[r]!;
     const b = ctx.verdicts[r]!;
-    if (WITHSTAND_VERDICT.test(a.verdict) !== WITHSTAND_VERDICT.test(b.verdict) || a.deviceNode !== b.deviceNode) return true;
+    if (RELIES_ON_DEVICE_AHEAD.has(a.verdict) !== RELIES_ON_DEVICE_AHEAD.has(b.verdict) || a.deviceNode !== b.deviceNode) return true;
     if (b.deviceNode >= 0 && g0.nodes[b.deviceNode] !== ctx.graph.nodes[b.deviceNode]) return true;
     return ctx.runs.members[r]!.some((ci) => g0.conductors[ci] !== ctx.graph.conductors[ci]);
   };
@@ -650,7 +647,7 @@ function rewithstand(state: AnalysisState, ctx: FixedContext, rs: readonly numbe
   }
   for (const r of redo) {
     const v = ctx.verdicts[r]!;
-    if (!WITHSTAND_VERDICT.test(v.verdict)) continue;
+    if (!RELIES_ON_DEVICE_AHEAD.has(v.verdict)) continue;
     const w = tapWithstand(ctx.edition, g, state.studies.fault, { conductors: runs.members[r]!, deviceNode: v.deviceNode });
     if (!w) continue;
     added.push([r, w.row]);

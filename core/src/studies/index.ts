@@ -57,7 +57,7 @@ export function runStudies(ctx: VerdictContext): StudiesResult {
 }
 
 /** The verdicts whose conductors rely on the device ahead to clear a fault (withstand is judged): taps, but a tap from a tap, and transformer secondaries. */
-const RELIES_ON_DEVICE_AHEAD: ReadonlySet<string> = new Set(VERDICTS.filter((v) => (v.startsWith('tap-') && v !== 'tap-from-tap') || v.startsWith('secondary-')));
+export const RELIES_ON_DEVICE_AHEAD: ReadonlySet<string> = new Set(VERDICTS.filter((v) => (v.startsWith('tap-') && v !== 'tap-from-tap') || v.startsWith('secondary-')));
 
 /** The network the studies read: the project, its graph and order, the loads and each conductor's circuit. */
 export type StudiedNetwork = Pick<AnalysisContext, 'project' | 'graph' | 'order' | 'count' | 'loads' | 'circuits'>;
