@@ -401,11 +401,7 @@ function recheckConductor(state: AnalysisState, next: Project, ci: number): Anal
   }
   const ampacities = prev.ampacities.slice();
   ampacities[ci] = conductorAmpacity(next.conductors[ci]!, prev.edition, next.project.terminationDefault, prev.circuits[ci]!.currentCarrying.adjustmentCount);
-  const r = runs.runOf[ci]!;
-  const rs = new Set([r]);
-  // A transformer's primary reads the facts of its secondaries (240.21(B)(3)).
-  const from = graph.conductorFrom[runs.members[r]![0]!]!;
-  if (from >= 0 && graph.nodeKind[from] === KIND.transformer) for (const e of graph.inEdges[from]!) if (e >= 0) rs.add(runs.runOf[e]!);
+  const rs = withPrimaries(graph, runs, new Set([runs.runOf[ci]!]));
   const judged = rejudge(state, { ...prev, project: next, graph, ampacities }, rs);
   if (typeof judged === 'string') return judged;
 
@@ -498,13 +494,8 @@ function recheckDevice(state: AnalysisState, next: Project, d: number, before: N
   const ends = [d];
   for (const e of g0.inEdges[d]!) if (e < 0) ends.push(edgeFrom(g0, e));
   for (const u of ends) for (const e of u >= 0 ? g0.inEdges[u]! : []) if (e >= 0) rs.add(runs.runOf[e]!);
-  // A transformer's primary reads the ends of its secondaries.
-  for (const r of [...rs]) {
-    const from = g0.conductorFrom[runs.members[r]![0]!]!;
-    if (from >= 0 && g0.nodes[from]!.kind === 'transformer') for (const e of g0.inEdges[from]!) if (e >= 0) rs.add(runs.runOf[e]!);
-  }
   const graph: Graph = { ...g0, nodes: next.nodes };
-  const judged = rejudge(state, { ...prev, project: next, graph }, rs);
+  const judged = rejudge(state, { ...prev, project: next, graph }, withPrimaries(g0, runs, rs));
   if (typeof judged === 'string') return judged;
   // 408.36: the panelboards below the device, up to the next OCPD (their walk up stops at this one).
   const panelboards: number[] = [];
@@ -519,6 +510,18 @@ function recheckDevice(state: AnalysisState, next: Project, d: number, before: N
     }
   }
   return reported(state, judged, { panelboards }, state.report.studies!);
+}
+
+/**
+ * `rs` with the primary runs of every transformer a run of `rs` leaves: a transformer's primary reads
+ * the facts of its secondaries (240.21(B)(3)). Adds to `rs` and returns it.
+ */
+function withPrimaries(g: Graph, runs: FixedContext['runs'], rs: Set<number>): Set<number> {
+  for (const r of [...rs]) {
+    const from = g.conductorFrom[runs.members[r]![0]!]!;
+    if (from >= 0 && g.nodeKind[from] === KIND.transformer) for (const e of g.inEdges[from]!) if (e >= 0) rs.add(runs.runOf[e]!);
+  }
+  return rs;
 }
 
 /** Runs judged again and what comes of it. */
