@@ -62,13 +62,15 @@ const conductorChangeArb: fc.Arbitrary<ConductorChange> = fc.oneof(
   fc.record({ field: fc.constant('label' as const), label: fc.option(fc.constantFrom('Feeder F-1', 'Tap T-3', ' '), { nil: undefined }) }),
 );
 
+/** `o` without its optional field `key` (absent, as in a drawing that never had it). */
+function without<T extends object>(o: T, key: keyof T & string): T {
+  const copy = { ...o } as Record<string, unknown>;
+  delete copy[key];
+  return copy as T;
+}
+
 /** The conductor after one change of its other facts. */
 function changeConductor(c: Conductor, change: ConductorChange): Conductor {
-  const without = (key: 'terminalTempC' | 'label'): Conductor => {
-    const copy = { ...c } as Record<string, unknown>;
-    delete copy[key];
-    return copy as Conductor;
-  };
   switch (change.field) {
     case 'ambientC':
       return { ...c, ambientC: change.value };
@@ -79,9 +81,9 @@ function changeConductor(c: Conductor, change: ConductorChange): Conductor {
     case 'damageProtection':
       return { ...c, damageProtection: change.value };
     case 'terminalTempC':
-      return change.value === undefined ? without('terminalTempC') : { ...c, terminalTempC: change.value };
+      return change.value === undefined ? without(c, 'terminalTempC') : { ...c, terminalTempC: change.value };
     case 'label':
-      return change.label === undefined ? without('label') : { ...c, label: change.label };
+      return change.label === undefined ? without(c, 'label') : { ...c, label: change.label };
   }
 }
 
@@ -128,28 +130,23 @@ const deviceChangeArb: fc.Arbitrary<DeviceChange> = fc.oneof(
 
 /** The device after one change of its rating or type. */
 function changeDevice(node: DeviceNode, change: DeviceChange): DeviceNode {
-  const without = <K extends string>(key: K): DeviceNode => {
-    const copy = { ...node } as Record<string, unknown>;
-    delete copy[key];
-    return copy as DeviceNode;
-  };
   switch (change.field) {
     case 'ratingA':
-      return change.value === undefined ? without('ratingA') : { ...node, ratingA: change.value };
+      return change.value === undefined ? without(node, 'ratingA') : { ...node, ratingA: change.value };
     case 'type':
       if (node.kind === 'breaker') return { ...node, tripType: node.tripType === 'instantaneous' ? 'inverse-time' : 'instantaneous' };
-      return node.timeDelay === undefined ? { ...node, timeDelay: true } : node.timeDelay ? { ...node, timeDelay: false } : without('timeDelay');
+      return node.timeDelay === undefined ? { ...node, timeDelay: true } : node.timeDelay ? { ...node, timeDelay: false } : without(node, 'timeDelay');
     case 'adjustableTrip':
       if (node.kind !== 'breaker') return node;
-      return change.maxSettingA === undefined ? without('adjustableTrip') : { ...node, adjustableTrip: { maxSettingA: change.maxSettingA, longTimeSettingA: change.maxSettingA / 2, restrictedAccess: change.restrictedAccess } };
+      return change.maxSettingA === undefined ? without(node, 'adjustableTrip') : { ...node, adjustableTrip: { maxSettingA: change.maxSettingA, longTimeSettingA: change.maxSettingA / 2, restrictedAccess: change.restrictedAccess } };
     case 'arrangement':
       return { ...node, arrangement: node.arrangement === 'single' ? 'group' : 'single' };
     case 'atDisconnectingMeans':
       return { ...node, atDisconnectingMeans: !node.atDisconnectingMeans };
     case 'clearingTimeS':
-      return change.value === undefined ? without('clearingTimeS') : { ...node, clearingTimeS: change.value };
+      return change.value === undefined ? without(node, 'clearingTimeS') : { ...node, clearingTimeS: change.value };
     case 'interruptingKA':
-      return change.value === undefined ? without('interruptingKA') : { ...node, interruptingKA: change.value };
+      return change.value === undefined ? without(node, 'interruptingKA') : { ...node, interruptingKA: change.value };
   }
 }
 
