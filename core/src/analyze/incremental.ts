@@ -768,7 +768,6 @@ interface DropsAmong {
 
 /** The state and report after `judged`: the runs' findings and report lines, the transformers they feed, the panelboards and drops that moved. */
 function reported(state: AnalysisState, judged: Rejudged, moved: Moved, studiesReport: NonNullable<AnalysisReport['studies']>): AnalysisState {
-  let studies = studiesReport;
   const { ctx, walk } = judged;
   const { graph, runs } = ctx;
   const own = new Map<number, Finding[]>();
@@ -785,10 +784,10 @@ function reported(state: AnalysisState, judged: Rejudged, moved: Moved, studiesR
   const conductorMoved = moved.conductorMoved ?? new Uint8Array(graph.conductors.length);
   const nodeMoved = moved.nodeMoved ?? new Uint8Array(graph.nodes.length);
   const extra = moved.withstandRuns ?? [];
-  const withstood = rewithstand(state, ctx, judged.runs, extra, studies);
+  const withstood = rewithstand(state, ctx, judged.runs, extra, studiesReport);
   const studySection = moved.faultNodes ? refaultDuty(ctx, state.studies.fault, withstood.findings, moved.faultNodes) : withstood.findings;
   const { findings, conductorFindingStart, studyFindingStart } = spliceFindings(state, ctx, own, conductorMoved, nodeMoved, { transformers, panelboards: moved.panelboards ?? [] }, studySection, moved.among);
-  studies = withstood.studies;
+  const { studies } = withstood;
 
   // Report lines: the runs', those whose withstand was judged again, and those whose voltage-drop warning came or went.
   const old = state.report;
