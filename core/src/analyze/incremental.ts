@@ -848,9 +848,10 @@ function spliceFindings(
       for (let k = ci + 1; k <= m; k++) conductorFindingStart[k] = start[k]! + delta;
     }
   }
-  const equipmentStart = equipment.transformers.size === 0 && equipment.panelboards.length === 0 ? state.studyFindingStart : start[m]!;
+  const redoEquipment = equipment.transformers.size > 0 || equipment.panelboards.length > 0;
+  const equipmentStart = redoEquipment ? start[m]! : state.studyFindingStart;
   for (let k = from; k < equipmentStart; k++) findings.push(old[k]!);
-  if (equipmentStart < state.studyFindingStart || equipmentStart === start[m]) for (const f of equipmentSection(ctx, conductorIndexOf(state), old.slice(equipmentStart, state.studyFindingStart), equipment.transformers, equipment.panelboards)) findings.push(f);
+  if (redoEquipment) for (const f of equipmentSection(ctx, conductorIndexOf(state), old.slice(equipmentStart, state.studyFindingStart), equipment.transformers, equipment.panelboards)) findings.push(f);
   const studyFindingStart = findings.length;
   const { fault, drop } = state.studies;
   const studyFindings = redoDropFindings(ctx.project, ctx.graph, fault, drop, studySection, conductorMoved, nodeMoved, conductorIndexOf(state), among);
