@@ -222,8 +222,7 @@ function recheckLeaf(state: AnalysisState, next: Project, ci: number): AnalysisS
   const conductor = next.conductors[ci]!;
   const graph = { ...prev.graph, conductors: next.conductors };
   const r = prev.runs.runOf[ci]!;
-  const ampacities = prev.ampacities.slice();
-  ampacities[ci] = conductorAmpacity(conductor, prev.edition, next.project.terminationDefault, prev.circuits[ci]!.currentCarrying.adjustmentCount);
+  const ampacities = ampacitiesAfter(prev, next, ci);
   const base = { ...prev, project: next, graph, ampacities };
   const oldVerdict = prev.verdicts[r]!;
   const facts = runFactsOf(base, r, oldVerdict.facts.site);
@@ -256,6 +255,13 @@ function recheckLeaf(state: AnalysisState, next: Project, ci: number): AnalysisS
     counts: { conductors: conductors.length, byVerdict, bySeverity: countsOf([], findings).bySeverity },
   };
   return { ...state, ctx, studies: { ...state.studies, report: studies }, conductorFindingStart, studyFindingStart, report };
+}
+
+/** The ampacities after conductor `ci`'s own data changed (its circuit's makeup unchanged): its own again, the rest kept. */
+function ampacitiesAfter(prev: FixedContext, next: Project, ci: number): FixedContext['ampacities'] {
+  const ampacities = prev.ampacities.slice();
+  ampacities[ci] = conductorAmpacity(next.conductors[ci]!, prev.edition, next.project.terminationDefault, prev.circuits[ci]!.currentCarrying.adjustmentCount);
+  return ampacities;
 }
 
 /** The report's assumptions after conductor `ci` changed: they name the termination ratings in use and count the conductors that state none. */
@@ -399,8 +405,7 @@ function recheckConductor(state: AnalysisState, next: Project, ci: number): Anal
     const inBelow = new Set(below);
     if (marked.some((m) => inBelow.has(graph.nodeIndex.get(m.nodeId)!))) return 'a service marking (110.24) reads the fault current below the conductor';
   }
-  const ampacities = prev.ampacities.slice();
-  ampacities[ci] = conductorAmpacity(next.conductors[ci]!, prev.edition, next.project.terminationDefault, prev.circuits[ci]!.currentCarrying.adjustmentCount);
+  const ampacities = ampacitiesAfter(prev, next, ci);
   const rs = withPrimaries(graph, runs, new Set([runs.runOf[ci]!]));
   const judged = rejudge(state, { ...prev, project: next, graph, ampacities }, rs);
   if (typeof judged === 'string') return judged;
