@@ -40,6 +40,32 @@ export function compileSchema(schema: z.ZodType): Validator {
   return compile((schema as unknown as { _zod: { def: Def } })._zod.def);
 }
 
+/**
+ * How deep a value the compiled validator accepts can nest (the root object is level 0, its values
+ * level 1, and so on): it accepts nothing but the schema's own objects and arrays, so a value it
+ * accepts is never deeper than the schema. The load step relies on this to skip its depth check
+ * on a valid file.
+ */
+export function schemaDepth(schema: z.ZodType): number {
+  return depthOf((schema as unknown as { _zod: { def: Def } })._zod.def);
+}
+
+function depthOf(def: Def): number {
+  switch (def.type) {
+    case 'optional':
+    case 'default':
+      return depthOf(def.innerType!._zod.def);
+    case 'array':
+      return 1 + depthOf(def.element!._zod.def);
+    case 'object':
+      return 1 + Math.max(0, ...Object.values(def.shape!).map((f) => depthOf(f._zod.def)));
+    case 'union':
+      return Math.max(0, ...def.options!.map((o) => depthOf(o._zod.def)));
+    default:
+      return 0;
+  }
+}
+
 function compile(def: Def): Validator {
   switch (def.type) {
     case 'string': {
@@ -66,6 +92,9 @@ function compile(def: Def): Validator {
     }
     case 'default': {
       const inner = compile(def.innerType!._zod.def);
+      // zod's defaultValue is a getter that clones; a primitive default is read once.
+      const once = def.defaultValue;
+      if (once === null || (typeof once !== 'object' && typeof once !== 'function')) return (v) => (v === undefined ? once : inner(v));
       return (v) => (v === undefined ? fresh(def.defaultValue) : inner(v));
     }
     case 'array': {

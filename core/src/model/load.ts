@@ -1,12 +1,12 @@
 import type { z } from 'zod';
-import { CONDUCTOR_SIZES, project, type Project } from './schema';
+import { CONDUCTOR_SIZES, PROJECT_FORMAT, PROJECT_VERSION, project, type Project } from './schema';
 import { migrateToCurrent } from './migrations';
-import { compileSchema, FAIL } from './fastParse';
+import { compileSchema, FAIL, schemaDepth } from './fastParse';
 import { foundText } from './found';
 import { rememberEdgeEnds, rememberNodeIndex } from './nodeIndex';
+import type { LoadError } from '../analyze/types';
 
 const fastProject = compileSchema(project);
-import type { LoadError } from '../analyze/types';
 
 export type LoadResult =
   | { ok: true; project: Project; notices: string[] }
@@ -21,6 +21,10 @@ const MAX_ERRORS = 50;
  * hostile file (thousands of nested arrays) before any recursive step could overflow the stack.
  */
 export const MAX_DEPTH = 64;
+
+// A file the compiled validator accepts holds only the schema's own objects and arrays, so it is never
+// deeper than the schema: loadProject checks the depth only of a file it does not accept at once.
+if (schemaDepth(project) > MAX_DEPTH) throw new Error(`The project schema nests deeper than MAX_DEPTH (${MAX_DEPTH}); raise the limit.`);
 
 /**
  * Read a project from JSON text or an already-parsed value: parse, migrate,
@@ -41,6 +45,11 @@ export function loadProject(input: unknown): LoadResult {
   if (typeof raw !== 'object' || raw === null || Array.isArray(raw)) {
     return fail([{ path: '', message: `A project file is a JSON object; this one holds ${describe(raw)}.` }]);
   }
+  // The common case first: a valid file of the current version needs no migration, and the compiled
+  // validator accepting it proves it shallow (see schemaDepth above), so the depth walk is skipped.
+  const current = raw as Record<string, unknown>;
+  const accepted = current.format === PROJECT_FORMAT && current.version === PROJECT_VERSION ? fastProject(current) : FAIL;
+  if (accepted !== FAIL) return consistent(accepted as Project, []);
   const tooDeep = findTooDeep(raw, MAX_DEPTH);
   if (tooDeep !== null) {
     return fail([
@@ -55,7 +64,7 @@ export function loadProject(input: unknown): LoadResult {
 
   const notices = migrated.migratedFrom === null ? [] : [`Upgraded from file version ${migrated.migratedFrom}.`];
   // The compiled validator answers for valid files; zod is asked only to explain a failure.
-  let data = fastProject(migrated.value) as Project | typeof FAIL;
+  let data = (migrated.value === raw ? FAIL : fastProject(migrated.value)) as Project | typeof FAIL;
   if (data === FAIL) {
     const source = migrated.value;
     let parsed = project.safeParse(source);
@@ -75,7 +84,11 @@ export function loadProject(input: unknown): LoadResult {
     if (!parsed.success) return fail(parsed.error.issues.slice(0, MAX_ERRORS).map((issue) => issueToError(issue, source)));
     data = parsed.data;
   }
+  return consistent(data, notices);
+}
 
+/** The loaded project, or the first errors of what the schema cannot check. */
+function consistent(data: Project, notices: string[]): LoadResult {
   const errors = checkConsistency(data);
   if (errors.length > 0) return fail(errors.slice(0, MAX_ERRORS));
   return { ok: true, project: data, notices };
@@ -190,24 +203,38 @@ export function checkConsistency(p: Project): LoadError[] {
   const errors: LoadError[] = [];
   // Each node id's position (the last, should one repeat); the graph reuses it (./nodeIndex.ts).
   const nodeIndex = new Map<string, number>();
-  // Where each id was first seen, as (list, index); a path string is built only for an error.
+  // Where a node id repeated was first seen; empty for a valid file.
+  const firstNode = new Map<string, number>();
+  // Where each conductor or bus link id was first seen, as list * 1e7 + index; a path string is built only for an error.
   const seen = new Map<string, number>();
   // Each end's node position (-1 for none), kept for the graph with the index (./nodeIndex.ts).
   const ends = { from: new Int32Array(p.conductors.length), to: new Int32Array(p.conductors.length) };
   const linkEnds = { from: new Int32Array(p.busLinks.length), to: new Int32Array(p.busLinks.length) };
   const lists = ['nodes', 'conductors', 'busLinks'] as const;
   const pathOf = (list: number, i: number) => `${lists[list]}[${i}]`;
+  const repeated = (id: string, first: string, list: number, i: number) => {
+    errors.push({ path: `${pathOf(list, i)}.id`, message: `Id "${id}" is already used at ${first}; every id must be unique.` });
+  };
+  // Node ids come first, so an id used by a node is first seen at that node's first position.
+  const firstNodeOf = (id: string): number | undefined => (firstNode.size === 0 ? nodeIndex.get(id) : (firstNode.get(id) ?? nodeIndex.get(id)));
   const claim = (id: string, list: number, i: number) => {
+    const node = firstNodeOf(id);
+    if (node !== undefined) {
+      repeated(id, pathOf(0, node), list, i);
+      return;
+    }
     const first = seen.get(id);
     if (first === undefined) seen.set(id, list * 1e7 + i);
-    else {
-      const at = pathOf(Math.floor(first / 1e7), first % 1e7);
-      errors.push({ path: `${pathOf(list, i)}.id`, message: `Id "${id}" is already used at ${at}; every id must be unique.` });
-    }
+    else repeated(id, pathOf(Math.floor(first / 1e7), first % 1e7), list, i);
   };
   for (let i = 0; i < p.nodes.length; i++) {
     const n = p.nodes[i]!;
-    claim(n.id, 0, i);
+    const before = nodeIndex.get(n.id);
+    if (before !== undefined) {
+      const first = firstNode.get(n.id) ?? before;
+      firstNode.set(n.id, first);
+      repeated(n.id, pathOf(0, first), 0, i);
+    }
     nodeIndex.set(n.id, i);
     if (n.kind === 'load' && n.motor && n.motor.hp === undefined && n.motor.fullLoadA === undefined) {
       errors.push({ path: `nodes[${i}].motor.hp`, message: 'A motor needs its horsepower ("hp", for Tables 430.248/430.250) or its nameplate full-load current ("fullLoadA").' });
