@@ -8,6 +8,7 @@ import {
   boundHistory,
   cacheProjectJson,
   draftJson,
+  jsonSize,
   projectJson,
   savedAtMsOf,
   storedDraft,
@@ -133,6 +134,24 @@ describe('write-ahead copy of the drawing (localStorage)', () => {
     expect(writeWal(ls, draft())).toBe(true);
     expect(ls.map.has(`${WAL_PREFIX}old`)).toBe(false);
     expect(readWal(ls, 'd1')).not.toBeNull();
+  });
+
+  it('knows the length of a step’s or a drawing’s JSON without writing it, and stops counting past a limit', () => {
+    const h = harness();
+    drawTap(h, { lengthFt: 20 });
+    const doc = h.doc();
+    // Before and after the elements' texts are remembered, over the document, its undo steps and odd values.
+    for (const v of [doc, h.store.historySnapshot(), { a: undefined, b: [undefined, 1, 'q"\u00e9'], c: null, d: 2.5e-7 }]) expect(jsonSize(v)).toBe(JSON.stringify(v).length);
+    cacheProjectJson(doc, () => false);
+    expect(jsonSize(doc)).toBe(JSON.stringify(doc).length);
+    const opened = new EditorStore(emptyProject());
+    opened.replaceDocument('Open', doc);
+    const step = opened.historySnapshot().past[0]!;
+    expect(jsonSize(step)).toBe(JSON.stringify(step).length);
+    const cut = jsonSize(step, 100);
+    expect(cut).toBeGreaterThan(100);
+    expect(cut).toBeLessThan(JSON.stringify(step).length);
+    expect(boundHistory(opened.historySnapshot(), 100).past).toEqual([]);
   });
 
   it('keeps the newest undo steps within the step and size budgets', () => {

@@ -1,5 +1,6 @@
 import type { AnalysisReport, AnalysisSession, Project } from '@linewright/core';
 import type { EditorStore, EditorState } from '../editor/store';
+import { whenIdle } from '../idle';
 import { coreCreateAnalysis } from './coreApi';
 
 /**
@@ -8,6 +9,8 @@ import { coreCreateAnalysis } from './coreApi';
  * check itself on big drawings. Slower checks go after the commit.
  */
 const INLINE_BUDGET_MS = 60;
+/** Longest the study tables of a whole analysis wait for an idle moment (settleWhenIdle). */
+const SETTLE_WITHIN_MS = 2000;
 /** How many of the last bounded re-checks say what one typically takes. */
 const TYPICAL_OF = 5;
 
@@ -42,6 +45,7 @@ export function startAnalysis(store: EditorStore, debounceMs = 8): () => void {
       // flip the mode; before the first bounded re-check (a drawing just opened) one is expected.
       stats.typicalMs = bounded.length ? [...bounded].sort((a, b) => a - b)[(bounded.length - 1) >> 1]! : 0;
       stats.runs++;
+      if (session.last.mode === 'full') settleWhenIdle(report, () => session?.report ?? null);
       return { report, error: null };
     } catch (e) {
       // A crash in the analyzer must not cost the user the drawing: keep editing, say why.
@@ -58,10 +62,20 @@ export function startAnalysis(store: EditorStore, debounceMs = 8): () => void {
     store.setReport(r.report, docVersion, r.error);
   };
   store.inlineAnalysis = (doc) => (stats.runs > 0 && stats.typicalMs < INLINE_BUDGET_MS ? check(doc) : null);
+  let frame = 0;
   const schedule = (s: EditorState) => {
     if (s.reportVersion === s.docVersion) return;
     if (timer !== null) clearTimeout(timer);
-    timer = setTimeout(runLater, debounceMs);
+    if (frame !== 0) cancelAnimationFrame(frame);
+    frame = 0;
+    // A drawing with no report yet (just opened or restored: the store shows it as being checked) is
+    // painted first and checked right after that paint; a hidden page paints nothing, so it is not waited for.
+    if (s.report === null && document.visibilityState === 'visible') {
+      frame = requestAnimationFrame(() => {
+        frame = 0;
+        timer = setTimeout(runLater, 0);
+      });
+    } else timer = setTimeout(runLater, debounceMs);
   };
   const off = store.onDocumentCommitted(schedule);
   schedule(store.getState());
@@ -69,7 +83,25 @@ export function startAnalysis(store: EditorStore, debounceMs = 8): () => void {
     off();
     store.inlineAnalysis = null;
     if (timer !== null) clearTimeout(timer);
+    if (frame !== 0) cancelAnimationFrame(frame);
   };
 }
+
+/**
+ * After a whole analysis, builds the report's study tables in an idle moment. They are built when first
+ * read (core/src/studies/lazyTable.ts), and the first re-check that changes the studies in place must
+ * build them first, so the edit after opening a drawing paid for them: about 30 ms at 10 000 conductors.
+ * Reading them here changes no figure; it only moves that work off the edit.
+ */
+function settleWhenIdle(report: AnalysisReport, current: () => AnalysisReport | null): void {
+  whenIdle(() => {
+    if (current() !== report || !report.studies) return;
+    void report.studies.faults.length;
+    whenIdle(() => {
+      if (current() === report) void report.studies?.voltageDrop.conductors.length;
+    }, SETTLE_WITHIN_MS);
+  }, SETTLE_WITHIN_MS);
+}
+
 
 export const stats = { runs: 0, lastMs: 0, typicalMs: 0 };

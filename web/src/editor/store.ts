@@ -138,7 +138,7 @@ export class EditorStore {
     if (redo.length === 0) return false;
     if (this.refused(redo)) return false;
     if (intent !== 'skip') this.history.push({ label, redo, undo }, intent === 'merge');
-    this.commitDoc(next);
+    this.commitDoc(next, undefined, replacesWhole(redo));
     return true;
   }
 
@@ -173,12 +173,18 @@ export class EditorStore {
     return true;
   }
 
-  private commitDoc(doc: Project, extra?: Partial<EditorState>): void {
+  /**
+   * Commits a new document. A whole new document (a file opened, a drawing restored, the undo of either)
+   * is drawn first with no report, every verdict shown as being checked, and checked after that paint:
+   * its check is a whole analysis, which would otherwise hold back the drawing. Every other edit may be
+   * checked inside the commit (inlineAnalysis).
+   */
+  private commitDoc(doc: Project, extra?: Partial<EditorState>, whole = false): void {
     const s = this.state;
     const docVersion = s.docVersion + 1;
     const view = { ...s.view, selection: pruneSelection(s.view.selection, doc), dragPositions: null };
-    const checked = this.inlineAnalysis?.(doc);
-    const report = checked ? { report: checked.report, reportVersion: docVersion, analysisError: checked.error } : {};
+    const checked = whole ? null : this.inlineAnalysis?.(doc);
+    const report = checked ? { report: checked.report, reportVersion: docVersion, analysisError: checked.error } : whole ? { report: null, analysisError: null } : {};
     this.set({ ...s, ...extra, ...report, doc, docVersion, view, history: this.historySummary() }, true);
   }
 
@@ -197,7 +203,7 @@ export class EditorStore {
       this.history.takeRedo();
       return false;
     }
-    this.commitDoc(applyPatches(this.state.doc, e.undo));
+    this.commitDoc(applyPatches(this.state.doc, e.undo), undefined, replacesWhole(e.undo));
     return true;
   }
 
@@ -208,7 +214,7 @@ export class EditorStore {
       this.history.takeUndo();
       return false;
     }
-    this.commitDoc(applyPatches(this.state.doc, e.redo));
+    this.commitDoc(applyPatches(this.state.doc, e.redo), undefined, replacesWhole(e.redo));
     return true;
   }
 
@@ -222,7 +228,7 @@ export class EditorStore {
   resetDocument(doc: Project, history?: HistorySnapshot): void {
     this.history.clear();
     if (history) this.history.restore(history);
-    this.commitDoc(doc, { view: { ...this.state.view, selection: EMPTY_SELECTION } });
+    this.commitDoc(doc, { view: { ...this.state.view, selection: EMPTY_SELECTION } }, true);
   }
 
   /** The undo and redo stacks, for the autosave to keep beside the document. */
@@ -257,6 +263,11 @@ export class EditorStore {
   requestFrame(nodeIds: readonly string[]): void {
     this.setView({ frameRequest: { seq: ++this.frameSeq, nodeIds } });
   }
+}
+
+/** True when the patches replace the whole document (open, restore, or the undo of one). */
+function replacesWhole(patches: readonly Patch[]): boolean {
+  return patches.some((p) => p.path.length === 0);
 }
 
 function sameList(a: readonly string[], b: readonly string[]): boolean {

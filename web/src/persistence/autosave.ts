@@ -1,4 +1,5 @@
 import type { EditorStore } from '../editor/store';
+import { whenIdle } from '../idle';
 import {
   LATEST_KEY,
   asDraft,
@@ -170,11 +171,6 @@ const IDLE_WAIT_MS = 1000;
 /** Longest one idle moment spends writing the text of a drawing's elements before yielding. */
 const SLICE_MS = 8;
 
-/** Runs `fn` when the page is idle (requestIdleCallback where there is one), within `timeoutMs`. */
-function whenIdle(fn: () => void, timeoutMs: number): void {
-  if (typeof requestIdleCallback === 'function') requestIdleCallback(fn, { timeout: timeoutMs });
-  else setTimeout(fn, 0);
-}
 
 /**
  * Saves the document after committed edits, with its undo history (bounded), once the editing pauses:
@@ -256,7 +252,8 @@ export function startAutosave(store: EditorStore, identity: TabIdentity, events:
       slicing = false;
       takePending();
       writeAhead(false);
-      void flush();
+      // The IndexedDB copy (the drawing's text joined, then copied into the store) in an idle moment of its own.
+      whenIdle(() => void flush(), IDLE_WAIT_MS);
     };
     slice();
   };

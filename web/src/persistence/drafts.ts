@@ -68,7 +68,6 @@ function entryJson(e: HistoryEntry): string {
   entryTexts.set(e, { label: e.label, redo: e.redo, undo: e.undo, text });
   return text;
 }
-const entrySize = (e: HistoryEntry): number => entryJson(e).length;
 
 /**
  * JSON of a document's lists and their elements, by object. The editor's documents are immutable and
@@ -85,6 +84,42 @@ function cachedJson(v: unknown): string {
     jsonTexts.set(v, text);
   }
   return text;
+}
+
+const jsonSizes = new WeakMap<object, number>();
+
+/**
+ * The length of `JSON.stringify(v)` for plain data, read off the remembered texts of elements and the
+ * remembered sizes of frozen objects, with nothing joined; once it passes `limit` it returns at once
+ * with some length past it. The size of a step that replaced a whole 10 000-conductor drawing (an open)
+ * is known this way in a millisecond, where its text took 30 ms only to learn it does not fit.
+ */
+export function jsonSize(v: unknown, limit = Infinity): number {
+  if (v === undefined || typeof v === 'function') return 0;
+  if (v === null || typeof v !== 'object') return JSON.stringify(v).length;
+  const known = jsonTexts.get(v)?.length ?? jsonSizes.get(v);
+  if (known !== undefined) return known;
+  if (typeof (v as { toJSON?: unknown }).toJSON === 'function') return JSON.stringify(v).length;
+  let n = 1;
+  if (Array.isArray(v)) {
+    for (let i = 0; i < v.length; i++) {
+      const x: unknown = v[i];
+      n += (i ? 1 : 0) + (x === undefined || typeof x === 'function' ? 4 : jsonSize(x, limit - n));
+      if (n > limit) return n;
+    }
+  } else {
+    let first = true;
+    for (const [k, x] of Object.entries(v)) {
+      if (x === undefined || typeof x === 'function') continue;
+      n += (first ? 0 : 1) + JSON.stringify(k).length + 1 + jsonSize(x, limit - n);
+      first = false;
+      if (n > limit) return n;
+    }
+  }
+  n += 1;
+  // The document and its elements are frozen; a history step's lists are not (a merge replaces them).
+  if (Object.isFrozen(v)) jsonSizes.set(v, n);
+  return n;
 }
 
 /**
@@ -151,7 +186,7 @@ export function boundHistory(h: HistorySnapshot, maxChars = HISTORY_MAX_CHARS, m
   const take = (entries: readonly HistoryEntry[]): HistoryEntry[] => {
     const kept: HistoryEntry[] = [];
     for (let i = entries.length - 1; i >= 0 && kept.length < maxSteps; i--) {
-      const size = entrySize(entries[i]!);
+      const size = jsonSize(entries[i], budget);
       if (size > budget) break;
       budget -= size;
       kept.push(entries[i]!);
@@ -225,9 +260,10 @@ export function walSavedAtMs(store: KeyValueStore, docId: string): number | null
  * Returns false when no copy could be kept.
  */
 export function writeWal(store: KeyValueStore, draft: Draft, maxChars = WAL_MAX_CHARS): boolean {
-  let text = draftJson(draft);
+  // A drawing past the bound on its own is not joined into a text only to be dropped.
+  let text = jsonSize(draft.project, maxChars) > maxChars ? '' : draftJson(draft);
   if (text.length > maxChars && draft.history) text = draftJson(draft, false);
-  if (text.length > maxChars) {
+  if (text === '' || text.length > maxChars) {
     store.removeItem(WAL_PREFIX + draft.docId);
     return false;
   }
