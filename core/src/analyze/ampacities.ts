@@ -20,6 +20,9 @@ export function terminalTempOf(c: Pick<Conductor, 'terminalTempC' | 'size'>, set
   return 75;
 }
 
+/** What of a conductor its ampacity reads. */
+export type AmpacityInputs = Pick<Conductor, 'size' | 'material' | 'insulation' | 'parallelSets' | 'ambientC' | 'terminalTempC' | 'currentCarrying'>;
+
 export interface ConductorAmpacity {
   working: AmpacityWorking | null;
   /** Why there is no ampacity: the field and how to fix it. */
@@ -40,7 +43,7 @@ const INSULATION_INDEX = new Map<string, number>(INSULATIONS.map((x, i) => [x, i
  * memo needs no string per conductor; NaN when an input falls outside the
  * packing (an ambient with more than two decimals), which skips the memo.
  */
-function ampacityKey(c: Conductor, size: ConductorSize, edition: CodeEdition, terminalTempC: 60 | 75 | 90, currentCarrying: number): number {
+function ampacityKey(c: AmpacityInputs, size: ConductorSize, edition: CodeEdition, terminalTempC: 60 | 75 | 90, currentCarrying: number): number {
   const ambient = Math.round(c.ambientC * 100);
   if (ambient !== c.ambientC * 100) return Number.NaN;
   const term = terminalTempC === 60 ? 0 : terminalTempC === 75 ? 1 : 2;
@@ -60,7 +63,7 @@ const NO_SIZE: ConductorAmpacity = Object.freeze({ working: null, problem: Objec
  * `currentCarrying` is the count Table 310.15(C)(1) adjusts for: the circuit's 310.15(E) count
  * from analyze/circuits.ts (the takeoff reports the same), or the run's stated count alone.
  */
-export function conductorAmpacity(c: Conductor, edition: CodeEdition, terminationDefault: TerminationDefault = 'listed-75', currentCarrying = c.currentCarrying): ConductorAmpacity {
+export function conductorAmpacity(c: AmpacityInputs, edition: CodeEdition, terminationDefault: TerminationDefault = 'listed-75', currentCarrying = c.currentCarrying): ConductorAmpacity {
   if (c.size === undefined) return NO_SIZE;
   const terminalTempC = terminalTempOf(c, terminationDefault);
   const key = ampacityKey(c, c.size, edition, terminalTempC, currentCarrying);

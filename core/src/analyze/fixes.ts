@@ -126,11 +126,13 @@ function mayHoldAtSomeSize(rule: Rule, trials: readonly RuleTrial[]): boolean {
 function cheapestPerRule(run: RunUnderTest): Map<string, SizingConfig> {
   const { facts, rules } = run;
   const found = new Map<string, SizingConfig>();
+  // One copy of the facts, rewritten for each configuration: the checks are pure and keep nothing of it.
+  const trial: RunFacts = { ...facts };
   for (const config of configsByCost([facts.material], Math.max(MAX_PARALLEL_SETS, facts.parallelSets))) {
     if (found.size >= rules.length) break;
     const at = trialAmpacity(run.members, config, run.edition, run.terminationDefault, run.mode);
     if (at === null || (facts.ampacityA !== null && at.ampacityA <= facts.ampacityA)) continue;
-    const trial = trialFacts(facts, config, at);
+    trialFacts(facts, config, at, facts.supplyOcpdA, trial);
     for (const rule of rules) {
       if (!found.has(rule.id) && outcomeOf(rule.check(trial)) === 'holds') found.set(rule.id, config);
     }

@@ -214,23 +214,25 @@ export interface LoadConnection {
  * calculation, the neutral of the circuit and its voltage drop all read this.
  */
 export function loadConnection(node: NodeOfKind<'load'>, sysV: number, sysPhases: number, sysLN: number): LoadConnection | null {
-  if (!(sysV > 0)) return null;
-  const ph: 1 | 3 = node.phases ?? (sysPhases === 1 ? 1 : 3);
-  if (ph === 3 && sysPhases === 1) return null;
-  if (ph === 3) return new Connection(sysV, 3, 'three-phase', 'three-phase', node, sysV, sysLN);
-  if (node.connection === 'line-to-neutral') {
-    if (!(sysLN > 0)) return null;
-    return new Connection(sysLN, 1, 'line-to-neutral', 'line-to-neutral', node, sysV, sysLN);
-  }
-  if (node.connection === 'line-to-line' || !(sysLN > 0)) return new Connection(sysV, 1, 'line-to-line', 'line-to-line', node, sysV, sysLN);
-  // Connection not stated: a load given in amperes counts its volt-amperes at the higher voltage.
-  if (node.currentA !== undefined) return new Connection(sysV, 1, 'line-to-line', 'unstated-amperes', node, sysV, sysLN);
-  // Connection not stated: a load given in kVA draws its current at the lower voltage.
-  return new Connection(sysLN, 1, 'line-to-neutral', 'unstated-kva', node, sysV, sysLN);
+  const decided = decideConnection(node, sysV, sysPhases, sysLN);
+  return decided === null ? null : new Connection(decided, node, sysV, sysLN);
 }
 
 /** How the connection was decided: as drawn, or (not stated) by what the load is given in. */
 type Decided = LoadCircuit['connection'] | 'unstated-amperes' | 'unstated-kva';
+
+/** loadConnection's decision alone (nothing built): null when the system cannot give the voltage across the load. */
+function decideConnection(node: NodeOfKind<'load'>, sysV: number, sysPhases: number, sysLN: number): Decided | null {
+  if (!(sysV > 0)) return null;
+  const ph: 1 | 3 = node.phases ?? (sysPhases === 1 ? 1 : 3);
+  if (ph === 3 && sysPhases === 1) return null;
+  if (ph === 3) return 'three-phase';
+  if (node.connection === 'line-to-neutral') return sysLN > 0 ? 'line-to-neutral' : null;
+  if (node.connection === 'line-to-line' || !(sysLN > 0)) return 'line-to-line';
+  // Connection not stated: a load given in amperes counts its volt-amperes at the higher voltage,
+  // a load given in kVA draws its current at the lower voltage.
+  return node.currentA !== undefined ? 'unstated-amperes' : 'unstated-kva';
+}
 
 /**
  * A load's connection. Its `basis` (the working in words) is written on first read: the load
@@ -245,10 +247,11 @@ class Connection implements LoadConnection {
   readonly #node: NodeOfKind<'load'>;
   readonly #sysV: number;
   readonly #sysLN: number;
-  constructor(volts: number, phases: 1 | 3, connection: LoadCircuit['connection'], decided: Decided, node: NodeOfKind<'load'>, sysV: number, sysLN: number) {
-    this.volts = volts;
-    this.phases = phases;
-    this.connection = connection;
+  constructor(decided: Decided, node: NodeOfKind<'load'>, sysV: number, sysLN: number) {
+    const lineToNeutral = decided === 'line-to-neutral' || decided === 'unstated-kva';
+    this.volts = lineToNeutral ? sysLN : sysV;
+    this.phases = decided === 'three-phase' ? 3 : 1;
+    this.connection = decided === 'three-phase' ? 'three-phase' : lineToNeutral ? 'line-to-neutral' : 'line-to-line';
     this.#decided = decided;
     this.#node = node;
     this.#sysV = sysV;
@@ -278,18 +281,19 @@ class Connection implements LoadConnection {
  * do not list and without a nameplate).
  */
 export function loadCircuit(node: NodeOfKind<'load'>, sysV: number, sysPhases: number, sysLN: number): LoadCircuit | null {
-  const on = loadConnection(node, sysV, sysPhases, sysLN);
-  if (on === null) return null;
-  const { volts } = on;
-  const k = on.phases === 3 ? Math.sqrt(3) * volts : volts;
+  const decided = decideConnection(node, sysV, sysPhases, sysLN);
+  if (decided === null) return null;
+  const volts = decided === 'line-to-neutral' || decided === 'unstated-kva' ? sysLN : sysV;
+  const phases = decided === 'three-phase' ? 3 : 1;
+  const k = phases === 3 ? Math.sqrt(3) * volts : volts;
   if (node.hvac) {
     // The nameplate MCA already holds 125 % of the largest motor-compressor (440.33): counted as it stands, noncontinuous.
     const lineA = node.hvac.mcaA;
-    return new Circuit(on, lineA * k, lineA, false, null, { ...node.hvac }, node);
+    return new Circuit(decided, node, sysV, sysLN, lineA * k, lineA, false, null, { ...node.hvac });
   }
   if (node.motor) {
     const m = node.motor;
-    const table = m.hp === undefined ? null : motorTableFlcA(m.hp, volts, on.phases);
+    const table = m.hp === undefined ? null : motorTableFlcA(m.hp, volts, phases);
     let fullLoadA: number;
     let source: string;
     if (table) {
@@ -299,42 +303,35 @@ export function loadCircuit(node: NodeOfKind<'load'>, sysV: number, sysPhases: n
       fullLoadA = m.fullLoadA;
       source = m.hp === undefined ? 'nameplate full-load current' : `nameplate full-load current (${formatHp(m.hp)} hp at ${volts} V is not in the tables)`;
     } else return null;
-    return new Circuit(on, fullLoadA * k, fullLoadA, false, { fullLoadA, source, hp: m.hp ?? null, motorType: m.motorType ?? 'induction' }, null, node);
+    return new Circuit(decided, node, sysV, sysLN, fullLoadA * k, fullLoadA, false, { fullLoadA, source, hp: m.hp ?? null, motorType: m.motorType ?? 'induction' }, null);
   }
   if (node.kva !== undefined) {
     const va = node.kva * 1000;
-    return new Circuit(on, va, round2(va / k), node.continuous, null, null, node);
+    return new Circuit(decided, node, sysV, sysLN, va, round2(va / k), node.continuous, null, null);
   }
-  if (node.currentA !== undefined) return new Circuit(on, node.currentA * k, node.currentA, node.continuous, null, null, node);
+  if (node.currentA !== undefined) return new Circuit(decided, node, sysV, sysLN, node.currentA * k, node.currentA, node.continuous, null, null);
   return null;
 }
 
-/** A load's circuit; like its connection, the `basis` text is written on first read. */
-class Circuit implements LoadCircuit {
-  readonly volts: number;
-  readonly phases: 1 | 3;
-  readonly connection: LoadCircuit['connection'];
+/** A load's circuit: its connection (one object, not two) and its current; the `basis` text is written on first read. */
+class Circuit extends Connection implements LoadCircuit {
   readonly va: number;
   readonly lineA: number;
   readonly continuous: boolean;
   readonly motor: LoadCircuit['motor'];
   readonly hvac: LoadCircuit['hvac'];
-  readonly #on: LoadConnection;
   readonly #node: NodeOfKind<'load'>;
-  constructor(on: LoadConnection, va: number, lineA: number, continuous: boolean, motor: LoadCircuit['motor'], hvac: LoadCircuit['hvac'], node: NodeOfKind<'load'>) {
-    this.volts = on.volts;
-    this.phases = on.phases;
-    this.connection = on.connection;
+  constructor(decided: Decided, node: NodeOfKind<'load'>, sysV: number, sysLN: number, va: number, lineA: number, continuous: boolean, motor: LoadCircuit['motor'], hvac: LoadCircuit['hvac']) {
+    super(decided, node, sysV, sysLN);
     this.va = va;
     this.lineA = lineA;
     this.continuous = continuous;
     this.motor = motor;
     this.hvac = hvac;
-    this.#on = on;
     this.#node = node;
   }
-  get basis(): string {
-    const basis = this.#on.basis;
+  override get basis(): string {
+    const basis = super.basis;
     if (this.hvac) return `${basis}; HVAC equipment at its nameplate MCA, ${this.lineA} A`;
     if (this.motor) return `${basis}; motor full-load current ${this.motor.fullLoadA} A from ${this.motor.source} (430.6(A))`;
     if (this.#node.kva === undefined && this.#node.currentA !== undefined) return `${this.#node.currentA} A; ${basis}`;

@@ -1,4 +1,4 @@
-import { conductorAmpacity, type TerminationDefault } from '../analyze/ampacities';
+import { conductorAmpacity, type AmpacityInputs, type TerminationDefault } from '../analyze/ampacities';
 import type { CodeEdition, Conductor, ConductorId } from '../model/schema';
 import type { RunFacts } from '../rules/facts';
 import { sizeIndexOf } from '../tables/sizes';
@@ -46,8 +46,7 @@ export function trialAmpacity(members: readonly Conductor[], config: SizingConfi
   let uncorrectedA = Number.POSITIVE_INFINITY;
   let small: number | null = null;
   for (const c of members) {
-    const built = keepsSegment(c, config, mode) ? c : { ...c, ...config };
-    const w = conductorAmpacity(built, edition, terminationDefault).working;
+    const w = conductorAmpacity(keepsSegment(c, config, mode) ? c : rebuilt(c, config), edition, terminationDefault).working;
     if (w === null) return null;
     ampacityA = Math.min(ampacityA, w.ampacityA);
     uncorrectedA = Math.min(uncorrectedA, Math.round(w.terminalLimitA * w.parallelSets * 100) / 100);
@@ -56,18 +55,37 @@ export function trialAmpacity(members: readonly Conductor[], config: SizingConfi
   return { ampacityA, uncorrectedA, smallConductorMaxOcpdA: small };
 }
 
-/** The run's facts as the rules would see them in the trial configuration (supply, load and site unchanged). */
-export function trialFacts(facts: RunFacts, config: SizingConfig, at: TrialAmpacity, supplyOcpdA: number | null = facts.supplyOcpdA): RunFacts {
-  return {
-    ...facts,
-    size: config.size,
-    material: config.material,
-    parallelSets: config.parallelSets,
-    ampacityA: at.ampacityA,
-    ampacityUncorrectedA: at.uncorrectedA,
-    smallConductorMaxOcpdA: at.smallConductorMaxOcpdA,
-    supplyOcpdA,
-  };
+/**
+ * Segment `c` built in the configuration, as its ampacity reads it. One object rewritten for every
+ * segment and configuration tried (the search tries thousands): conductorAmpacity keeps nothing of it.
+ */
+function rebuilt(c: AmpacityInputs, config: SizingConfig): AmpacityInputs {
+  const b = scratchSegment;
+  b.size = config.size;
+  b.material = config.material;
+  b.parallelSets = config.parallelSets;
+  b.insulation = c.insulation;
+  b.ambientC = c.ambientC;
+  b.terminalTempC = c.terminalTempC;
+  b.currentCarrying = c.currentCarrying;
+  return b;
+}
+const scratchSegment: { -readonly [K in keyof AmpacityInputs]: AmpacityInputs[K] } = { size: undefined, material: 'cu', insulation: 'THHN', parallelSets: 1, ambientC: 30, terminalTempC: undefined, currentCarrying: 3 };
+
+/**
+ * The run's facts as the rules would see them in the trial configuration (supply, load and site
+ * unchanged): a copy, or `into` (a copy made earlier for the same run) rewritten, so a search over
+ * many configurations copies the facts once.
+ */
+export function trialFacts(facts: RunFacts, config: SizingConfig, at: TrialAmpacity, supplyOcpdA: number | null = facts.supplyOcpdA, into: RunFacts = { ...facts }): RunFacts {
+  into.size = config.size;
+  into.material = config.material;
+  into.parallelSets = config.parallelSets;
+  into.ampacityA = at.ampacityA;
+  into.ampacityUncorrectedA = at.uncorrectedA;
+  into.smallConductorMaxOcpdA = at.smallConductorMaxOcpdA;
+  into.supplyOcpdA = supplyOcpdA;
+  return into;
 }
 
 /** Relative cost of the whole run after the change: each segment's length (1 ft when not given) × its cost per foot. */
