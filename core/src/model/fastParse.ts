@@ -129,14 +129,22 @@ function compileObject(def: Def): Validator {
   return (v) => {
     if (typeof v !== 'object' || v === null || Array.isArray(v)) return FAIL;
     const input = v as Record<string, unknown>;
-    if (strict) for (const k in input) if (!known.has(k)) return FAIL;
     const out: Record<string, unknown> = {};
+    // Known keys holding a value: when the input has that many keys, it has no other (a parsed file holds no undefined).
+    let given = 0;
     for (let i = 0; i < keys.length; i++) {
       const k = keys[i]!;
-      const r = fields[i]!(input[k]);
+      const value = input[k];
+      if (value !== undefined) given++;
+      const r = fields[i]!(value);
       if (r === FAIL) return FAIL;
       // Like zod: an absent optional key stays absent.
       if (r !== undefined || k in input) out[k] = r;
+    }
+    if (strict) {
+      let count = 0;
+      for (const k in input) if (k !== undefined) count++;
+      if (count !== given) for (const k in input) if (!known.has(k)) return FAIL;
     }
     return out;
   };
