@@ -49,19 +49,29 @@ interface Walk {
   /** One read-only Supply per source node and per run, made when first asked for (not one per conductor). */
   readonly sources: (Supply | undefined)[];
   readonly onRuns: (Supply | undefined)[];
+  /** The run being judged: one object rewritten for each run (no judge keeps it), see toJudge. */
+  readonly judging: RunToJudge;
 }
 
 /** One run about to be judged: the one input of every judge below. */
 interface RunToJudge {
   readonly walk: Walk;
   /** Run index. */
-  readonly run: number;
-  readonly supply: Supply;
+  run: number;
+  supply: Supply;
   /** The base facts; this stage's own copy, so the judges fill in the supply facts in place. */
-  readonly facts: RunFacts;
+  facts: RunFacts;
   /** The role the run has if something protects it: feeder, branch circuit or transformer primary. */
-  readonly role: ConductorRole;
+  role: ConductorRole;
 }
+
+/** A walk of the classifier; `judging` starts out on no run. */
+function newWalk(ctx: FactsContext, parts: Omit<Walk, 'ctx' | 'joined' | 'judging'>): Walk {
+  const walk = { ctx, ...parts, joined: new Map(), judging: undefined as unknown as RunToJudge };
+  walk.judging = { walk, run: -1, supply: NO_SUPPLY, facts: undefined as unknown as RunFacts, role: 'unknown' };
+  return walk;
+}
+const NO_SUPPLY: Supply = Object.freeze({ kind: 'none', node: -1 });
 
 /**
  * Stage: walks the network once in supply-to-load order. Each node learns
@@ -83,16 +93,14 @@ export interface KeptWalk {
 /** `classifyRuns`, also returning what the walk learned (see KeptWalk). */
 export function classifyRunsKeeping(ctx: FactsContext): { verdicts: RunVerdict[]; walk: KeptWalk } {
   const { graph: g, runs, order, count } = ctx;
-  const walk: Walk = {
-    ctx,
+  const walk = newWalk(ctx, {
     nodeSupply: new Array(g.nodes.length),
     results: new Array(runs.members.length),
     secondariesOf: secondariesByTransformer(ctx),
     below: ocpdBelow(g, order, count),
-    joined: new Map(),
     sources: new Array(g.nodes.length),
     onRuns: new Array(runs.members.length),
-  };
+  });
   for (let k = 0; k < count; k++) {
     const v = order[k]!;
     const ins = g.inEdges[v]!;
@@ -125,7 +133,7 @@ export function classifyRunsKeeping(ctx: FactsContext): { verdicts: RunVerdict[]
  * supplied from out of `verdicts`, where its own new verdict is written (see incremental.ts).
  */
 export function rejudgeRuns(ctx: FactsContext, kept: KeptWalk, verdicts: RunVerdict[], rs: readonly number[]): void {
-  const walk: Walk = { ctx, nodeSupply: kept.nodeSupply as Supply[], results: verdicts, secondariesOf: kept.secondariesOf, below: kept.below, joined: new Map(), sources: [], onRuns: [] };
+  const walk = newWalk(ctx, { nodeSupply: kept.nodeSupply as Supply[], results: verdicts, secondariesOf: kept.secondariesOf, below: kept.below, sources: [], onRuns: [] });
   for (const r of rs) verdicts[r] = judgeRun(toJudge(walk, r, supplyAt(walk, ctx.graph.conductorFrom[ctx.runs.members[r]![0]!]!)));
 }
 
@@ -134,7 +142,7 @@ export function rejudgeRuns(ctx: FactsContext, kept: KeptWalk, verdicts: RunVerd
  * OCPD (`supply`), whose verdict depends on nothing upstream but the device (see incremental.ts).
  */
 export function judgeFedByOcpd(ctx: FactsContext, r: number, supply: Supply, device: number, facts: RunFacts): RunVerdict {
-  const walk: Walk = { ctx, nodeSupply: [], results: [], secondariesOf: new Map(), below: new Uint8Array(0), joined: new Map(), sources: [], onRuns: [] };
+  const walk = newWalk(ctx, { nodeSupply: [], results: [], secondariesOf: new Map(), below: new Uint8Array(0), sources: [], onRuns: [] });
   return fedByOcpd({ walk, run: r, supply, facts, role: 'branch' }, device);
 }
 
@@ -180,7 +188,12 @@ function toJudge(walk: Walk, r: number, supply: Supply): RunToJudge {
     facts.secondaries = walk.secondariesOf.get(endNode) ?? [];
     facts.transformer = transformerFacts(g, endNode, { ratingA: null, id: null }, facts.secondaries.map((s) => s.termination));
   }
-  return { walk, run: r, supply, facts, role: endsAtTransformer ? 'transformer-primary' : feedsDevice ? 'feeder' : 'branch' };
+  const j = walk.judging;
+  j.run = r;
+  j.supply = supply;
+  j.facts = facts;
+  j.role = endsAtTransformer ? 'transformer-primary' : feedsDevice ? 'feeder' : 'branch';
+  return j;
 }
 
 function judgeRun(j: RunToJudge): RunVerdict {

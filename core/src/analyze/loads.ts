@@ -344,7 +344,7 @@ function formatHp(hp: number): string {
   return fractions[String(Math.round(hp * 10000) / 10000)] ?? String(hp);
 }
 
-/** The load a conductor from `fromNode` into `toNode` carries. Null when it cannot be known. */
+/** The load a conductor from `fromNode` into `toNode` carries (written into `into` when given). Null when it cannot be known. */
 export interface ConductorLoad {
   /** What flows: continuous plus noncontinuous, A. */
   flowingA: number;
@@ -352,7 +352,7 @@ export interface ConductorLoad {
   calculatedA: number;
 }
 
-export function conductorLoadA(s: SystemLoads, fromNode: number, toNode: number): ConductorLoad | null {
+export function conductorLoadA(s: SystemLoads, fromNode: number, toNode: number, into?: ConductorLoad): ConductorLoad | null {
   const v = s.voltsLL[fromNode]!;
   if (!(v > 0) || toNode < 0 || s.unknown[toNode]) return null;
   const k = s.phases[fromNode] === 3 ? Math.sqrt(3) * v : v;
@@ -362,5 +362,8 @@ export function conductorLoadA(s: SystemLoads, fromNode: number, toNode: number)
   const flowingA = Math.max((non + cont) / k, s.singleA[toNode]!);
   const calculatedA = Math.max((non + 1.25 * cont + 0.25 * motor) / k, s.singleCalcA[toNode]!);
   if (!Number.isFinite(flowingA) || !Number.isFinite(calculatedA)) return null;
-  return { flowingA: round2(flowingA), calculatedA: round2(calculatedA) };
+  if (!into) return { flowingA: round2(flowingA), calculatedA: round2(calculatedA) };
+  into.flowingA = round2(flowingA);
+  into.calculatedA = round2(calculatedA);
+  return into;
 }

@@ -2,7 +2,7 @@ import type { Conductor } from '../model/schema';
 import type { RunFacts } from '../rules/facts';
 import type { AnalysisContext } from './context';
 import { terminationOf } from './equipment';
-import { conductorLoadA } from './loads';
+import { conductorLoadA, type ConductorLoad } from './loads';
 
 const RACEWAYS: ReadonlySet<Conductor['wiring']> = new Set(['steel-conduit', 'aluminum-conduit', 'pvc-conduit']);
 
@@ -76,7 +76,7 @@ export function runFactsOf(ctx: AnalysisContext, r: number, site: RunFacts['site
   }
   const lastIndex = members[members.length - 1]!;
   const toNode = g.conductorTo[lastIndex]!;
-  const load = conductorLoadA(loads, g.conductorFrom[members[0]!]!, toNode);
+  const load = conductorLoadA(loads, g.conductorFrom[members[0]!]!, toNode, scratchLoad);
   // The one load the run serves (for a branch circuit: through no OCPD), when it is a motor or HVAC unit.
   const only = toNode >= 0 ? loads.onlyLoad[toNode]! : -1;
   const circuit = only >= 0 ? loads.loadCircuits[only] ?? null : null;
@@ -114,6 +114,9 @@ export function runFactsOf(ctx: AnalysisContext, r: number, site: RunFacts['site
     suppliedFrom: null,
   };
 }
+
+/** The load of the run being read, rewritten for each (its two numbers are copied into the facts). */
+const scratchLoad: ConductorLoad = { flowingA: 0, calculatedA: 0 };
 
 /** Shared by every run that ends elsewhere than at a transformer (facts are read-only; the classifier replaces the list, never fills it). */
 const NO_SECONDARIES: RunFacts[] = [];

@@ -1,4 +1,4 @@
-import { runRule, type Rule } from '../rules/define';
+import { runRule, shareConditionsOf, type Rule } from '../rules/define';
 import type { RunFacts } from '../rules/facts';
 import { calculatedLoad, PROTECTION_RULES } from '../rules/index';
 import { carriesLoad, coversCalculatedLoad } from '../rules/calculated-load';
@@ -64,16 +64,19 @@ export function triedList(first: RuleTrial, second?: RuleTrial): RuleTrial[] {
 
 /** Try rules in code order; every rule is tried and kept, the first that holds names the verdict. */
 export function firstHolding(rules: readonly Rule[], facts: RunFacts, tried: RuleTrial[]): { verdict: Verdict; rule: Rule | null } {
-  let winner: Rule | null = null;
-  let unknown = false;
-  for (const rule of rules) {
-    const t = runRule(rule, facts);
-    tried.push(t);
-    if (t.outcome === 'holds' && winner === null) winner = rule;
-    if (t.outcome === 'unknown') unknown = true;
-  }
-  if (winner) return { verdict: winner.verdict!, rule: winner };
-  return { verdict: unknown ? 'incomplete' : 'unprotected', rule: null };
+  // The conditions several rules of the family share (load, damage, the device at the end…) are made once for the run.
+  return shareConditionsOf(facts, () => {
+    let winner: Rule | null = null;
+    let unknown = false;
+    for (const rule of rules) {
+      const t = runRule(rule, facts);
+      tried.push(t);
+      if (t.outcome === 'holds' && winner === null) winner = rule;
+      if (t.outcome === 'unknown') unknown = true;
+    }
+    if (winner) return { verdict: winner.verdict!, rule: winner };
+    return { verdict: unknown ? 'incomplete' : 'unprotected', rule: null };
+  });
 }
 
 

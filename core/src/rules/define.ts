@@ -31,6 +31,12 @@ export class Check<K extends string = string> implements ConditionResult {
   get text(): string {
     return (this.#text ??= renderTemplate(this.template || this.id, this.data));
   }
+  /** The same condition under another rule's message (a shared condition, see shareConditionsOf). */
+  withTemplate(template: string): Check<K> {
+    const c = new Check(this.id, this.status, this.data, this.needsAhj);
+    c.template = template;
+    return c;
+  }
   toJSON(): ConditionResult {
     return { id: this.id, status: this.status, text: this.text, data: this.data, ...(this.needsAhj ? { needsAhj: true } : {}) };
   }
@@ -104,12 +110,54 @@ export function ruleCitation(rule: Pick<Rule, 'section'>, edition: CodeEdition):
 
 export function runRule<F extends { edition: CodeEdition }>(rule: Rule<string, F>, facts: F): RuleTrial {
   const conditions = rule.check(facts);
-  for (const c of conditions) c.template = rule.messages[c.id] ?? c.id;
+  for (let i = 0; i < conditions.length; i++) {
+    const c = conditions[i]!;
+    const template = rule.messages[c.id] ?? c.id;
+    // A condition already kept by another rule's trial (a shared one) is kept as it is when its message reads the same.
+    if (c.template === '') c.template = template;
+    else if (c.template !== template) conditions[i] = c.withTemplate(template);
+  }
   return { ruleId: rule.id, title: rule.title, cites: ruleCitation(rule, facts.edition), outcome: outcomeOf(conditions), conditions };
+}
+
+/**
+ * The conditions below are shared by several rules of a family. While one run's facts are tried
+ * under the whole family (analyze/trials.ts `firstHolding`), each is made once for the run and kept
+ * by every trial that states it (conditions are read-only, and a rule whose message differs gets its
+ * own copy in runRule): a feeder tap tried under five rules makes its load condition once, not four times.
+ */
+interface SharedConditions {
+  damage?: Check<'damage'>;
+  single?: Check<'single'>;
+  device?: Check<'device'>;
+  load?: Check<'load'>;
+  third?: Check<'third'>;
+}
+let sharingFor: object | null = null;
+let shared: SharedConditions = {};
+
+/** Runs `tryAll` with the shared conditions of `facts` made once (the facts must not change meanwhile). */
+export function shareConditionsOf<T>(facts: object, tryAll: () => T): T {
+  sharingFor = facts;
+  shared = {};
+  try {
+    return tryAll();
+  } finally {
+    sharingFor = null;
+    shared = {};
+  }
+}
+
+function sharedCondition<K extends keyof SharedConditions, F extends object>(f: F, key: K, make: (f: F) => NonNullable<SharedConditions[K]>): NonNullable<SharedConditions[K]> {
+  if (f !== sharingFor) return make(f);
+  return (shared[key] ??= make(f)) as NonNullable<SharedConditions[K]>;
 }
 
 /** Shared condition: protection from physical damage (240.21(B)(2)–(5), (C)(3)–(6)). */
 export function damageCheck(f: Pick<RunFacts, 'damageProtection'>): Check<'damage'> {
+  return sharedCondition(f, 'damage', damageCondition);
+}
+function damageCondition(f: Pick<RunFacts, 'damageProtection'>): Check<'damage'> {
   const p = f.damageProtection;
   const protection = p === 'raceway' ? 'a raceway' : p === 'other-approved-means' ? 'other approved means' : 'nothing';
   return new Check('damage', p === 'none' ? 'fail' : 'pass', { protection }, p === 'other-approved-means');
@@ -117,12 +165,18 @@ export function damageCheck(f: Pick<RunFacts, 'damageProtection'>): Check<'damag
 
 /** Shared condition: ends in a single breaker or set of fuses. */
 export function singleDeviceCheck(f: RunFacts): Check<'single'> {
+  return sharedCondition(f, 'single', singleDeviceCondition);
+}
+function singleDeviceCondition(f: RunFacts): Check<'single'> {
   const t = f.termination;
   return when('single', t.kind === 'ocpd' && t.single, { termination: t.label || t.kind });
 }
 
 /** Shared condition: the device at the end limits the load to the run's ampacity. */
 export function deviceLimitCheck(f: RunFacts): Check<'device'> {
+  return sharedCondition(f, 'device', deviceLimitCondition);
+}
+function deviceLimitCondition(f: RunFacts): Check<'device'> {
   const t = f.termination;
   if (t.kind !== 'ocpd') return when('device', false, { deviceA: '—', ampacityA: f.ampacityA ?? '?' });
   return when('device', t.ratingA === null || f.ampacityA === null ? null : t.ratingA <= f.ampacityA, {
@@ -142,12 +196,18 @@ export function atLeast(a: number | null, b: number | null): boolean | null {
 
 /** Shared condition: the run carries the load it serves (unfactored sum, DOMAIN.md §7). */
 export function loadCheck(f: RunFacts): Check<'load'> {
+  return sharedCondition(f, 'load', loadCondition);
+}
+function loadCondition(f: RunFacts): Check<'load'> {
   return when('load', atLeast(f.ampacityA, f.loadA), { ampacityA: f.ampacityA ?? '?', loadA: f.loadA ?? '?' });
 }
 export const LOAD_MESSAGE = 'Ampacity ({{ampacityA}} A) must be at least the load it serves ({{loadA}} A).';
 
 /** Shared condition: at least one third of the feeder device ahead (240.21(B)(2)–(4)); no round-up. */
 export function oneThirdCheck(f: RunFacts): Check<'third'> {
+  return sharedCondition(f, 'third', oneThirdCondition);
+}
+function oneThirdCondition(f: RunFacts): Check<'third'> {
   const minA = f.supplyOcpdA === null ? null : f.supplyOcpdA / 3;
   return when('third', atLeast(f.ampacityA, minA), { ampacityA: f.ampacityA ?? '?', feederA: f.supplyOcpdA ?? '?', minA: minA ?? '?' });
 }
