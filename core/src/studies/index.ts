@@ -15,6 +15,7 @@ import { SIZE_INDEX_14 } from '../tables/sizes';
 import { KIND, type Graph } from '../topology/graph';
 import { studyFaultCurrent, type FaultStudy } from './faultCurrent/faultCurrent';
 import { lazyTable } from './lazyTable';
+import { studyColumns, type StudyColumns } from './columns';
 import type { ConductorDrop, NodeFault, ServiceMarking, StudiesReport, WithstandResult } from './types';
 import { studyVoltageDrop, type VoltageDropInputs, type VoltageDropStudy } from './voltageDrop/voltageDrop';
 
@@ -62,9 +63,9 @@ export const RELIES_ON_DEVICE_AHEAD: ReadonlySet<string> = new Set(VERDICTS.filt
 /** The network the studies read: the project, its graph and order, the loads and each conductor's circuit. */
 export type StudiedNetwork = Pick<AnalysisContext, 'project' | 'graph' | 'order' | 'count' | 'loads' | 'circuits'>;
 
-/** The voltage-drop study on the supply tree and conductor impedances the fault study already read. */
-export function studyVoltageDropAfterFault(net: Omit<StudiedNetwork, 'project'>, fault: FaultStudy): VoltageDropStudy {
-  return studyVoltageDrop(net.graph, voltageDropInputs(net, fault));
+/** The voltage-drop study on the supply tree and conductor impedances the fault study already read (and what it read of the network, `cols`). */
+export function studyVoltageDropAfterFault(net: Omit<StudiedNetwork, 'project'>, fault: FaultStudy, cols?: StudyColumns): VoltageDropStudy {
+  return studyVoltageDrop(net.graph, voltageDropInputs(net, fault), cols);
 }
 
 /** What the voltage-drop study reads: the network's and what the fault study found (supply tree, voltages, Table 9 values). */
@@ -86,8 +87,10 @@ export function voltageDropInputs(net: Omit<StudiedNetwork, 'project'>, fault: F
 export function studyNetwork(net: StudiedNetwork, taps: readonly TapRun[]): StudiesResult {
   const { project, graph: g, order, count } = net;
   const edition = project.project.codeEdition;
-  const fault = studyFaultCurrent(g, order, count);
-  const drop = studyVoltageDropAfterFault(net, fault);
+  // Each node and conductor read once for both studies.
+  const cols = studyColumns(g);
+  const fault = studyFaultCurrent(g, order, count, cols);
+  const drop = studyVoltageDropAfterFault(net, fault, cols);
   const findings: Finding[] = [];
 
   // 110.9 and 110.10, one pass over the equipment.

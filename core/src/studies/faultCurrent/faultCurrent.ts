@@ -8,6 +8,7 @@ import {
 } from '../../tables/sourceImpedance';
 import { edgeFrom, KIND, type Graph } from '../../topology/graph';
 import { settleTables } from '../lazyTable';
+import { studyColumns, type StudyColumns } from '../columns';
 
 const UTILITY = KIND.utility;
 const GENERATOR = KIND.generator;
@@ -79,8 +80,8 @@ export interface FaultStudy {
 
 const SQRT3 = Math.sqrt(3);
 
-/** The three-phase (or single-phase line-to-line) bolted fault at every node; see FaultStudy. */
-export function studyFaultCurrent(g: Graph, order: Int32Array, count: number): FaultStudy {
+/** The three-phase (or single-phase line-to-line) bolted fault at every node; see FaultStudy. `cols` are what it reads of the nodes and conductors. */
+export function studyFaultCurrent(g: Graph, order: Int32Array, count: number, cols: StudyColumns = studyColumns(g)): FaultStudy {
   const n = g.nodes.length;
   const r = new Float64Array(n).fill(Number.NaN);
   const x = new Float64Array(n).fill(Number.NaN);
@@ -138,21 +139,22 @@ export function studyFaultCurrent(g: Graph, order: Int32Array, count: number): F
     infinite[v] = infinite[u]!;
     unknownWhy[v] = unknownWhy[u]!;
     atTerminals[v] = e < 0 ? atTerminals[u]! : 0;
-    // Only a transformer or a load can start a single-phase loop: no other node object is read here.
-    const isLoop = kind === TRANSFORMER || kind === LOAD ? loopAt(g.nodes[v]!, loop[u]!) : loop[u]!;
+    // Only a single-phase transformer or load starts a single-phase loop.
+    const isLoop = (kind === TRANSFORMER || kind === LOAD) && cols.singlePhase[v] === 1 ? 1 : loop[u]!;
     loop[v] = isLoop;
     voltsLL[v] = voltsLL[u]!;
     let known = true;
     if (e >= 0) {
-      const c = g.conductors[e]!;
-      if (!readConductor(c, e, rOhmPerKft, xOhmPerKft)) {
+      // Its Table 9 values; without them or a length it counts as zero impedance.
+      xOhmPerKft[e] = cols.xOhmPerKft[e]!;
+      if (Number.isNaN((rOhmPerKft[e] = cols.rOhmPerKft[e]!)) || cols.noLength[e] === 1) {
         known = false;
         upperBound[v] = 1;
-        if (c.size === undefined) notes.add('A conductor without a size has no known impedance and counts as zero: the fault current below it is an upper bound ("at most"); enter the size for the value.');
+        if (cols.noSize[e] === 1) notes.add('A conductor without a size has no known impedance and counts as zero: the fault current below it is an upper bound ("at most"); enter the size for the value.');
         else notes.add('A conductor without a length or a Chapter 9 Table 9 value counts as zero impedance: the fault current below it is an upper bound ("at most").');
       }
     }
-    const t = impedanceAt(g, steps, v, u, e, known);
+    const t = impedanceAt(g, steps, v, u, e, known, known ? cols.lengthFt[e]! : 0, known ? cols.parallelSets[e]! : 1);
     if (kind === TRANSFORMER) {
       const node = g.nodes[v] as NodeOfKind<'transformer'>;
       voltsLL[v] = node.secondaryVoltsLL;
@@ -172,7 +174,7 @@ export function studyFaultCurrent(g: Graph, order: Int32Array, count: number): F
   const zoneMotorA = new Float64Array(n);
   for (let v = 0; v < n; v++) {
     // Only a load's node object is read here.
-    if (g.nodeKind[v] !== LOAD || zone[v]! < 0) continue;
+    if (g.nodeKind[v] !== LOAD || zone[v]! < 0 || cols.motorGiven[v] !== 1) continue;
     const node = g.nodes[v] as NodeOfKind<'load'>;
     if (node.faultContributionXFlc === undefined) continue;
     const flc = loadFullLoadA(node, voltsLL[v]!, loop[v] ? 1 : 3);
@@ -234,11 +236,6 @@ export function magnitude(r: number, x: number): number {
   return Math.sqrt(na * na + nb * nb) * max;
 }
 
-/** 1 where the circuit arriving at a node is single phase: a single-phase transformer or load on a three-phase system sees the line-to-line loop. */
-function loopAt(node: EquipmentNode, parentLoop: number): number {
-  return (node.kind === 'transformer' || node.kind === 'load') && node.phases === 1 ? 1 : parentLoop;
-}
-
 /** The supply side's R or X as a node sees it: doubled where a single-phase loop starts on a three-phase system. */
 function seenFrom(ohms: number, isLoop: number, parentLoop: number): number {
   return isLoop && !parentLoop ? ohms * 2 : ohms;
@@ -258,28 +255,25 @@ export function hasImpedance(c: Conductor): boolean {
   return c.lengthFt !== undefined && c.size !== undefined && !Number.isNaN(table9ROhmPerKft(c.material, c.size, racewayColumn(c.wiring)));
 }
 
-/** What multiplies the per-1000 ft impedance: the length (twice for a single-phase loop) over the sets. */
-function stepFactor(c: Conductor, isLoop: number): number {
-  return ((isLoop ? 2 : 1) * c.lengthFt!) / 1000 / c.parallelSets;
-}
-
 /** What the step from a node's supply to the node reads and writes: R and X so far, the loop flag, the steps, the conductors' Table 9 values. */
 type Impedances = Pick<FaultStudy, 'r' | 'x' | 'loop' | 'stepR' | 'stepX' | 'rOhmPerKft' | 'xOhmPerKft'>;
 
 /**
  * R and X at node `v` (its loop flag set) from its supply `u` through edge `e`: the supply side as
- * `v` sees it, plus the conductor when `conductorKnown` (its Table 9 values read), referred to the
+ * `v` sees it, plus the conductor when `conductorKnown` (its Table 9 values read; its length and
+ * parallel sets given: the length, twice for a single-phase loop, over the sets multiplies the
+ * per-1000 ft impedance), referred to the
  * secondary with the rest of the primary side at a transformer, whose own impedance is then the
  * step. Returns that transformer impedance at a transformer (null without %Z: nothing added).
  */
-function impedanceAt(g: Graph, f: Impedances, v: number, u: number, e: number, conductorKnown: boolean): ReturnType<typeof transformerImpedance> | undefined {
+function impedanceAt(g: Graph, f: Impedances, v: number, u: number, e: number, conductorKnown: boolean, lengthFt: number, parallelSets: number): ReturnType<typeof transformerImpedance> | undefined {
   const isLoop = f.loop[v]!;
   let ru = seenFrom(f.r[u]!, isLoop, f.loop[u]!);
   let xu = seenFrom(f.x[u]!, isLoop, f.loop[u]!);
   let dr = 0;
   let dx = 0;
   if (e >= 0 && conductorKnown) {
-    const factor = stepFactor(g.conductors[e]!, isLoop);
+    const factor = ((isLoop ? 2 : 1) * lengthFt) / 1000 / parallelSets;
     dr = f.rOhmPerKft[e]! * factor;
     dx = f.xOhmPerKft[e]! * factor;
   }
@@ -312,7 +306,9 @@ export function restepBelow(g: Graph, f: FaultStudy, c: number, below: readonly 
   readConductor(g.conductors[c]!, c, f.rOhmPerKft, f.xOhmPerKft);
   for (const v of below) {
     const e = f.parentEdge[v]!;
-    impedanceAt(g, f, v, f.parent[v]!, e, e >= 0 && !Number.isNaN(f.rOhmPerKft[e]!) && g.conductors[e]!.lengthFt !== undefined);
+    const c = e >= 0 ? g.conductors[e]! : undefined;
+    const known = c !== undefined && !Number.isNaN(f.rOhmPerKft[e]!) && c.lengthFt !== undefined;
+    impedanceAt(g, f, v, f.parent[v]!, e, known, known ? c.lengthFt! : 0, known ? c.parallelSets : 1);
     if (!f.unknownWhy[v]) figuresAt(g, f, v, atTransformerTerminals(g, f, v));
   }
 }

@@ -3,6 +3,7 @@ import type { SystemLoads } from '../../analyze/loads';
 import type { NodeOfKind } from '../../model/schema';
 import { KIND, orderPositions, type Graph } from '../../topology/graph';
 import { settleTables } from '../lazyTable';
+import type { StudyColumns } from '../columns';
 
 /**
  * Voltage drop per conductor and cumulative from the source to every load,
@@ -81,13 +82,27 @@ function circuitVolts(inp: Pick<VoltageDropInputs, 'circuits' | 'voltsLL' | 'loa
   return three ? inp.voltsLL[from]! : circuit.makeup.kind === 'two-wire' && circuit.system.arrangement !== 'single-2w' ? inp.loads.voltsLN[from]! : inp.voltsLL[from]!;
 }
 
-/** Conductor `c`'s own drop, % of its circuit's `volts`, carrying `amps` at power factor `pf`; NaN without a length or Table 9 value. */
-function dropPct(g: Graph, inp: Pick<VoltageDropInputs, 'rOhmPerKft' | 'xOhmPerKft'>, c: number, amps: number, pf: number, three: boolean, volts: number): number {
+/**
+ * Conductor `c`'s own drop, % of its circuit's `volts`, carrying `amps` at power factor `pf`; NaN without a length or Table 9 value.
+ * Its length and sets are read from `cols` when given (a whole study), else from the conductor.
+ */
+function dropPct(g: Graph, inp: Pick<VoltageDropInputs, 'rOhmPerKft' | 'xOhmPerKft'>, c: number, amps: number, pf: number, three: boolean, volts: number, cols?: StudyColumns): number {
   const r = inp.rOhmPerKft[c]!;
-  const lengthFt = g.conductors[c]!.lengthFt;
-  if (Number.isNaN(r) || lengthFt === undefined) return Number.NaN;
+  if (Number.isNaN(r)) return Number.NaN;
+  let lengthFt: number;
+  let sets: number;
+  if (cols) {
+    if (cols.noLength[c] === 1) return Number.NaN;
+    lengthFt = cols.lengthFt[c]!;
+    sets = cols.parallelSets[c]!;
+  } else {
+    const conductor = g.conductors[c]!;
+    if (conductor.lengthFt === undefined) return Number.NaN;
+    lengthFt = conductor.lengthFt;
+    sets = conductor.parallelSets;
+  }
   const zEff = r * pf + inp.xOhmPerKft[c]! * Math.sqrt(1 - pf * pf);
-  const vd = ((three ? SQRT3 : 2) * amps * zEff * lengthFt) / 1000 / g.conductors[c]!.parallelSets;
+  const vd = ((three ? SQRT3 : 2) * amps * zEff * lengthFt) / 1000 / sets;
   return (100 * vd) / volts;
 }
 
@@ -132,7 +147,8 @@ export function redropBelow(g: Graph, drop: VoltageDropStudy, inp: VoltageDropIn
   }
 }
 
-export function studyVoltageDrop(g: Graph, inp: VoltageDropInputs): VoltageDropStudy {
+/** The study over the whole network; `cols`, when given, are what it reads of the nodes and conductors (else each is read itself). */
+export function studyVoltageDrop(g: Graph, inp: VoltageDropInputs, cols?: StudyColumns): VoltageDropStudy {
   const n = g.nodes.length;
   const m = g.conductors.length;
   const { order, count, parent, parentEdge } = inp;
@@ -143,7 +159,7 @@ export function studyVoltageDrop(g: Graph, inp: VoltageDropInputs): VoltageDropS
   let unknownLoad = false;
   for (let k = count - 1; k >= 0; k--) {
     const v = order[k]!;
-    if (!addOwnPower(g, loadCircuits, p, q, v)) unknownLoad = true;
+    if (!addOwnPower(g, loadCircuits, p, q, v, cols)) unknownLoad = true;
     const u = parent[v]!;
     if (u >= 0) {
       p[u] = p[u]! + p[v]!;
@@ -163,7 +179,7 @@ export function studyVoltageDrop(g: Graph, inp: VoltageDropInputs): VoltageDropS
     // (the grounded conductor carries the return); a 2-wire system's circuit 2 over its voltage; a line-to-line
     // or 3-wire single-phase circuit 2 over V_LL (balanced: the neutral carries no current).
     singlePhase[c] = isThreePhase(inp, c) ? 0 : 1;
-    dropOf(g, inp, study, c);
+    dropOf(g, inp, study, c, cols);
   }
 
   const { totalPct, circuitPct } = study;
@@ -176,19 +192,19 @@ export function studyVoltageDrop(g: Graph, inp: VoltageDropInputs): VoltageDropS
   return study;
 }
 
-/** A load node's own real and reactive power added at `v`; false for a load without a known circuit. */
-function addOwnPower(g: Graph, loadCircuits: VoltageDropInputs['loads']['loadCircuits'], p: Float64Array, q: Float64Array, v: number): boolean {
+/** A load node's own real and reactive power added at `v`; false for a load without a known circuit. Its power factor from `cols` when given. */
+function addOwnPower(g: Graph, loadCircuits: VoltageDropInputs['loads']['loadCircuits'], p: Float64Array, q: Float64Array, v: number, cols?: StudyColumns): boolean {
   if (g.nodeKind[v] !== KIND.load) return true;
   const lc = loadCircuits[v];
   if (!lc) return false;
-  const pf = (g.nodes[v] as NodeOfKind<'load'>).powerFactor;
+  const pf = cols ? cols.powerFactor[v]! : (g.nodes[v] as NodeOfKind<'load'>).powerFactor;
   p[v] = p[v]! + lc.va * pf;
   q[v] = q[v]! + lc.va * Math.sqrt(1 - pf * pf);
   return true;
 }
 
 /** Conductor `c` on the supply tree: its current and power factor from what its load end draws, and its own drop. */
-function dropOf(g: Graph, inp: VoltageDropInputs, drop: VoltageDropStudy, c: number): void {
+function dropOf(g: Graph, inp: VoltageDropInputs, drop: VoltageDropStudy, c: number, cols?: StudyColumns): void {
   const three = drop.singlePhase[c] === 0;
   const volts = circuitVolts(inp, c, g.conductorFrom[c]!, three);
   if (!(volts > 0)) return;
@@ -200,7 +216,7 @@ function dropOf(g: Graph, inp: VoltageDropInputs, drop: VoltageDropStudy, c: num
   const pf = s > 0 ? pt / s : 1;
   drop.currentA[c] = amps;
   drop.powerFactor[c] = pf;
-  drop.pct[c] = dropPct(g, inp, c, amps, pf, three, volts);
+  drop.pct[c] = dropPct(g, inp, c, amps, pf, three, volts, cols);
 }
 
 /**
