@@ -126,28 +126,70 @@ function compileObject(def: Def): Validator {
   const known = new Set(keys);
   const strict = def.catchall?._zod.def.type === 'never';
   if (def.catchall && !strict) throw new Error('fastParse: only strict or plain objects are supported');
+  return generateObject(keys, fields, known, strict) ?? objectValidator(keys, fields, known, strict);
+}
+
+/** The object validator as a closure over the schema's keys. */
+function objectValidator(keys: readonly string[], fields: readonly Validator[], known: ReadonlySet<string>, strict: boolean): Validator {
   return (v) => {
     if (typeof v !== 'object' || v === null || Array.isArray(v)) return FAIL;
     const input = v as Record<string, unknown>;
+    if (strict) for (const k in input) if (!known.has(k)) return FAIL;
     const out: Record<string, unknown> = {};
-    // Known keys holding a value: when the input has that many keys, it has no other (a parsed file holds no undefined).
-    let given = 0;
     for (let i = 0; i < keys.length; i++) {
       const k = keys[i]!;
-      const value = input[k];
-      if (value !== undefined) given++;
-      const r = fields[i]!(value);
+      const r = fields[i]!(input[k]);
       if (r === FAIL) return FAIL;
       // Like zod: an absent optional key stays absent.
       if (r !== undefined || k in input) out[k] = r;
     }
-    if (strict) {
-      let count = 0;
-      for (const k in input) if (k !== undefined) count++;
-      if (count !== given) for (const k in input) if (!known.has(k)) return FAIL;
-    }
     return out;
   };
+}
+
+/**
+ * The same validator as objectValidator, written out as code with each key by name where the
+ * runtime allows it (not under a Content Security Policy without 'unsafe-eval', as in the editor:
+ * null there, and the closure serves). One closure shared by every object of the schema reads and
+ * writes its keys by a variable name, which the engine cannot specialise; each generated function
+ * reads one object's keys, which it can, so a large file validates several times faster. Only the
+ * schema's own key names go into the code, each as a JSON string literal.
+ */
+function generateObject(keys: readonly string[], fields: readonly Validator[], known: ReadonlySet<string>, strict: boolean): Validator | null {
+  if (!canGenerate()) return null;
+  const lines: string[] = [];
+  keys.forEach((k, i) => {
+    const key = JSON.stringify(k);
+    lines.push(`x = v[${key}]; r = f[${i}](x); if (r === FAIL) return FAIL; if (r !== undefined || ${key} in v) out[${key}] = r;`);
+  });
+  const strictCheck = strict ? 'for (const k in v) if (!known.has(k)) return FAIL;' : '';
+  const body = `return function (v) {
+  if (typeof v !== 'object' || v === null || Array.isArray(v)) return FAIL;
+  ${strictCheck}
+  const out = {};
+  let x, r;
+  ${lines.join('\n  ')}
+  return out;
+};`;
+  try {
+    return new Function('f', 'FAIL', 'known', body)(fields, FAIL, known) as Validator;
+  } catch {
+    return null;
+  }
+}
+
+let generates: boolean | undefined;
+function canGenerate(): boolean {
+  if (generates === undefined) {
+    // A page (the editor) ships a policy without 'unsafe-eval': it is not asked, so no violation is reported.
+    if ((globalThis as { document?: unknown }).document !== undefined) return (generates = false);
+    try {
+      generates = typeof new Function('return 1') === 'function';
+    } catch {
+      generates = false;
+    }
+  }
+  return generates;
 }
 
 function compileDiscriminated(def: Def): Validator {
