@@ -13,7 +13,8 @@ export function conductorReports(ctx: FixedContext & { findings: readonly Findin
   for (const v of verdicts) if (v.facts.conductorIds.length > 1) chains.set(v.facts.conductorIds[0]!, v.facts.conductorIds);
   const findingIdsBySubject = findingIdsByConductor(ctx.findings, (id) => chains.get(id));
   const conductors: ConductorReport[] = new Array(graph.conductors.length);
-  for (let ci = 0; ci < graph.conductors.length; ci++) conductors[ci] = conductorReport(ctx, ci, findingIdsBySubject.get(graph.conductors[ci]!.id));
+  const shared = sharedParts(graph);
+  for (let ci = 0; ci < graph.conductors.length; ci++) conductors[ci] = conductorReport(ctx, ci, findingIdsBySubject.get(graph.conductors[ci]!.id), shared);
   return conductors;
 }
 
@@ -38,13 +39,38 @@ export function findingIdsByConductor(findings: readonly Finding[], chainOf: (id
   return findingIdsBySubject;
 }
 
+/**
+ * What report lines share, looked up once for all the lines of a report: the device and supply
+ * objects by node, and the citation and summary of the line before, which the next line (the next
+ * branch circuit of the same board) mostly repeats.
+ */
+interface SharedParts {
+  devices: (DeviceRef | undefined)[];
+  supplies: (ConductorReport['supply'] | undefined)[];
+  rule: RunVerdict['rule'];
+  cites: ConductorReport['cites'];
+  /** The last protected line's summary, by its verdict, device rating and ampacity. */
+  summaryVerdict: RunVerdict['verdict'] | null;
+  summaryR: number;
+  summaryA: number;
+  summary: string;
+}
+
+function sharedParts(graph: Graph): SharedParts {
+  return { devices: byNodeOf(deviceRefs, graph), supplies: byNodeOf(supplyRefs, graph), rule: null, cites: null, summaryVerdict: null, summaryR: 0, summaryA: 0, summary: '' };
+}
+
 /** The report line of conductor `ci`, given the ids of its findings. Built straight from its run's verdict: no object per run in between. */
-export function conductorReport(ctx: FixedContext, ci: number, findingIds: string[] | undefined): ConductorReport {
+export function conductorReport(ctx: FixedContext, ci: number, findingIds: string[] | undefined, shared: SharedParts = sharedParts(ctx.graph)): ConductorReport {
   const { graph, runs, verdicts, ampacities, edition } = ctx;
   const c = graph.conductors[ci]!;
   const r = runs.runOf[ci]!;
   const v = verdicts[r]!;
   const f = v.facts;
+  if (v.rule !== shared.rule) {
+    shared.rule = v.rule;
+    shared.cites = v.rule ? ruleCitation(v.rule, edition) : null;
+  }
   return {
     id: c.id,
     label: c.label ?? c.id,
@@ -52,16 +78,16 @@ export function conductorReport(ctx: FixedContext, ci: number, findingIds: strin
     to: c.to,
     verdict: v.verdict,
     rule: v.rule?.id ?? null,
-    cites: v.rule ? ruleCitation(v.rule, edition) : null,
+    cites: shared.cites,
     role: v.role,
-    summary: summaryOf(v),
+    summary: summaryOf(v, shared),
     size: c.size ?? null,
     material: c.material,
     parallelSets: c.parallelSets,
     lengthFt: c.lengthFt ?? null,
     ampacity: ampacities[ci]!.working,
-    upstreamDevice: v.deviceNode >= 0 ? deviceRef(graph, v.deviceNode) : null,
-    supply: supplyOf(graph, v),
+    upstreamDevice: v.deviceNode >= 0 ? deviceRef(graph, shared.devices, v.deviceNode) : null,
+    supply: supplyOf(graph, shared.supplies, v),
     chain: f.conductorIds,
     tapLengthFt: tapLengthOf(v),
     load: f.loadA === null || f.calculatedLoadA === null ? null : { flowingA: f.loadA, calculatedA: f.calculatedLoadA },
@@ -72,10 +98,10 @@ export function conductorReport(ctx: FixedContext, ci: number, findingIds: strin
 }
 
 /** What the upstream walk ended on: the source or OCPD itself, or the device ahead of a run supplied from another. */
-function supplyOf(graph: Graph, v: RunVerdict): ConductorReport['supply'] {
+function supplyOf(graph: Graph, byNode: (ConductorReport['supply'] | undefined)[], v: RunVerdict): ConductorReport['supply'] {
   const s = v.supply;
-  if (s.kind === 'ocpd' || s.kind === 'utility' || s.kind === 'generator' || s.kind === 'transformer') return supplyRef(graph, s.kind, s.node);
-  return v.deviceNode >= 0 ? supplyRef(graph, 'ocpd', v.deviceNode) : NO_SUPPLY;
+  if (s.kind === 'ocpd' || s.kind === 'utility' || s.kind === 'generator' || s.kind === 'transformer') return supplyRef(graph, byNode, s.kind, s.node);
+  return v.deviceNode >= 0 ? supplyRef(graph, byNode, 'ocpd', v.deviceNode) : NO_SUPPLY;
 }
 
 /** The tap length the rule counted: a feeder tap's, a tap from a tap's or a secondary's run length; a transformer tap's total. */
@@ -87,9 +113,7 @@ function tapLengthOf(v: RunVerdict): number | null {
 
 /** One DeviceRef per device node, shared by every run it feeds (reports are read-only); kept while the nodes are (an incremental re-check of a conductor keeps them). */
 const deviceRefs = new WeakMap<Graph['nodes'], (DeviceRef | undefined)[]>();
-function deviceRef(graph: Graph, v: number): DeviceRef {
-  let byNode = deviceRefs.get(graph.nodes);
-  if (!byNode) deviceRefs.set(graph.nodes, (byNode = new Array(graph.nodes.length)));
+function deviceRef(graph: Graph, byNode: (DeviceRef | undefined)[], v: number): DeviceRef {
   let d = byNode[v];
   if (!d) {
     const n = graph.nodes[v]!;
@@ -101,13 +125,18 @@ function deviceRef(graph: Graph, v: number): DeviceRef {
 /** What a run's supply end is: one object per node, shared by every run it supplies (reports are read-only); kept while the nodes are. */
 const supplyRefs = new WeakMap<Graph['nodes'], (ConductorReport['supply'] | undefined)[]>();
 const NO_SUPPLY: ConductorReport['supply'] = { kind: 'none', id: null };
-function supplyRef(graph: Graph, kind: 'ocpd' | 'utility' | 'generator' | 'transformer', v: number): ConductorReport['supply'] {
-  let byNode = supplyRefs.get(graph.nodes);
-  if (!byNode) supplyRefs.set(graph.nodes, (byNode = new Array(graph.nodes.length)));
+function supplyRef(graph: Graph, byNode: (ConductorReport['supply'] | undefined)[], kind: 'ocpd' | 'utility' | 'generator' | 'transformer', v: number): ConductorReport['supply'] {
   const ref = byNode[v];
   // A node is one kind of supply (an OCPD or a source), so the kind always agrees; were it not to, the line gets its own.
   if (ref) return ref.kind === kind ? ref : { kind, id: graph.nodes[v]!.id };
   return (byNode[v] = { kind, id: graph.nodes[v]!.id });
+}
+
+/** The objects kept for the nodes of `graph` in `refs`, made on first use. */
+function byNodeOf<T>(refs: WeakMap<Graph['nodes'], (T | undefined)[]>, graph: Graph): (T | undefined)[] {
+  let byNode = refs.get(graph.nodes);
+  if (!byNode) refs.set(graph.nodes, (byNode = new Array<T | undefined>(graph.nodes.length)));
+  return byNode;
 }
 
 /**
@@ -116,11 +145,19 @@ function supplyRef(graph: Graph, kind: 'ocpd' | 'utility' | 'generator' | 'trans
  */
 const protectedSummaries = { protected: new Map<number, Map<number, string>>(), 'protected-next-size': new Map<number, Map<number, string>>() };
 let protectedSummaryCount = 0;
-function summaryOf(v: RunVerdict): string {
+function summaryOf(v: RunVerdict, shared: SharedParts): string {
   const R = v.facts.supplyOcpdA;
   const A = v.facts.ampacityA;
   if ((v.verdict !== 'protected' && v.verdict !== 'protected-next-size') || R === null || A === null) return describeRun(v);
-  const byR = protectedSummaries[v.verdict];
+  if (shared.summaryVerdict === v.verdict && shared.summaryR === R && shared.summaryA === A) return shared.summary;
+  shared.summaryVerdict = v.verdict;
+  shared.summaryR = R;
+  shared.summaryA = A;
+  return (shared.summary = protectedSummary(v, R, A));
+}
+
+function protectedSummary(v: RunVerdict, R: number, A: number): string {
+  const byR = protectedSummaries[v.verdict as 'protected' | 'protected-next-size'];
   let byA = byR.get(R);
   let text = byA?.get(A);
   if (text !== undefined) return text;
