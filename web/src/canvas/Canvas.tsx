@@ -7,7 +7,6 @@ import { StudyLayers } from '../studies/StudyLayers';
 import type { EquipmentKind } from '@linewright/core';
 import { EQUIPMENT_KINDS } from '@linewright/core';
 import { addEquipment, connect, moveNodes } from '../editor/commands';
-import { LIST_OF } from '../editor/commands/replaceElement';
 import { kindSpec } from '../editor/equipment';
 import { connectionKindFor } from '../editor/placement';
 import { useCommandContext, useEditorState } from '../editor/useEditor';
@@ -18,7 +17,7 @@ import { DrawingTools } from '../panels/Toolbar';
 import { FlowDeriver, selectionAfter, type FlowEdge, type FlowNode } from './flowElements';
 import { Overview } from './Overview';
 import { OVERVIEW_ZOOM, overviewLayout, pickAt, selectionInBox, type OverviewHit } from './overview';
-import type { Selection } from '../editor/store';
+import { LIST_OF, type Selection } from '../editor/store';
 import { useReviewView } from '../review/reviewState';
 
 /**

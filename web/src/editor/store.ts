@@ -20,6 +20,9 @@ export type ConnectAs = 'conductor' | 'busLink';
 /** The document's lists of elements, each element with an id. */
 export type ElementList = 'nodes' | 'conductors' | 'busLinks';
 
+/** The document list each kind of element lives in. */
+export const LIST_OF: Record<'node' | 'conductor' | 'busLink', ElementList> = { node: 'nodes', conductor: 'conductors', busLink: 'busLinks' };
+
 export interface Notice {
   id: number;
   tone: 'info' | 'error';

@@ -1,6 +1,6 @@
 import { busLink, conductor, equipmentNode, projectSettings } from '@linewright/core';
 import type { BusLink, Conductor, EquipmentNode, ProjectSettings } from '@linewright/core';
-import type { ElementList } from '../store';
+import { LIST_OF } from '../store';
 import { defineCommand } from './types';
 
 export type ElementTarget =
@@ -8,9 +8,6 @@ export type ElementTarget =
   | { kind: 'conductor'; id: string }
   | { kind: 'busLink'; id: string }
   | { kind: 'project' };
-
-/** The document list each kind of element lives in. */
-export const LIST_OF: Record<Exclude<ElementTarget['kind'], 'project'>, ElementList> = { node: 'nodes', conductor: 'conductors', busLink: 'busLinks' };
 
 export interface ReplaceArg {
   target: ElementTarget;

@@ -1,5 +1,6 @@
 import type { BusLink, Conductor, EquipmentNode } from '@linewright/core';
-import { LIST_OF, parseElement, type ElementTarget } from './replaceElement';
+import { LIST_OF } from '../store';
+import { parseElement, type ElementTarget } from './replaceElement';
 import { defineCommand } from './types';
 
 export interface ReplaceManyArg {
