@@ -2,7 +2,7 @@ import './schedules.css';
 import { memo, useMemo, useRef, useState } from 'react';
 import { useCommandContext, useEditorState } from '../editor/useEditor';
 import { openImport, readScheduleFile } from '../import/importState';
-import { count as plural } from '../words';
+import { count as plural, thousands } from '../words';
 import { CONDUCTOR_COLUMNS, EQUIPMENT_COLUMNS, conductorRows, equipmentRows, type ConductorRow, type EquipmentRow } from './scheduleColumns';
 import { ScheduleGrid } from './ScheduleGrid';
 
@@ -46,10 +46,10 @@ export const Schedules = memo(function Schedules() {
     <section className={`lw-schedules${tab ? ' is-open' : ''}`} aria-label="Schedules" data-testid="schedules">
       <div className="lw-schedules-bar" role="toolbar" aria-label="Schedules">
         <button type="button" aria-pressed={tab === 'conductors'} onClick={() => toggle('conductors')} data-testid="schedule-tab-conductors">
-          Conductor schedule ({doc.conductors.length.toLocaleString('en-US')})
+          Conductor schedule ({thousands(doc.conductors.length)})
         </button>
         <button type="button" aria-pressed={tab === 'equipment'} onClick={() => toggle('equipment')} data-testid="schedule-tab-equipment">
-          Equipment schedule ({doc.nodes.length.toLocaleString('en-US')})
+          Equipment schedule ({thousands(doc.nodes.length)})
         </button>
         <button type="button" onClick={() => file.current?.click()} data-testid="cmd-import-schedule" title="Import a feeder schedule from a CSV or XLSX file: from, to, size, sets, material, length, insulation, device rating. You see every row before anything changes.">
           Import schedule…
