@@ -1,6 +1,7 @@
 import type { Project } from '@linewright/core';
 import { stats as analysisStats } from './analysis/scheduler';
 import { drawingGeometry } from './canvas/geometry';
+import { portsOf } from './canvas/ports';
 import { openProject, replaceElement, type CommandContext } from './editor/commands';
 import { conductorLine, kindSpec } from './editor/equipment';
 import { stats as saveStats } from './persistence/autosave';
@@ -17,8 +18,14 @@ export interface TestHook {
   doc(): Project;
   open(text: string, fileName?: string): Promise<void>;
   setConductorLength(id: string, lengthFt: number): number;
-  /** Where the drawing puts each piece (its box) and each conductor (its wire), in flow coordinates. */
-  geometry(): { nodes: { id: string; x: number; y: number; w: number; h: number }[]; conductors: { id: string; points: { x: number; y: number }[] }[] };
+  /**
+   * Where the drawing puts each piece (its box, and its ports as React Flow is told them before it draws the
+   * piece, relative to the box) and each conductor (its wire), in flow coordinates.
+   */
+  geometry(): {
+    nodes: { id: string; x: number; y: number; w: number; h: number; ports: { id: string | null; x: number; y: number; width: number; height: number }[] }[];
+    conductors: { id: string; points: { x: number; y: number }[] }[];
+  };
   /** What is selected now. */
   selection(): { nodes: readonly string[]; conductors: readonly string[]; busLinks: readonly string[] };
   /** Selects elements, as a click on the drawing would. */
@@ -52,7 +59,10 @@ export function installTestHook(ctx: CommandContext): void {
       const pos = new Map<string, { x: number; y: number }>(nodes.map((n) => [n.id, n.position ?? { x: 0, y: 0 }]));
       const geo = drawingGeometry(nodes, conductors, busLinks, (id) => pos.get(id), conductorLine);
       return {
-        nodes: nodes.map((n) => ({ id: n.id, ...pos.get(n.id)!, w: kindSpec(n.kind).width, h: kindSpec(n.kind).height })),
+        nodes: nodes.map((n) => ({
+          id: n.id, ...pos.get(n.id)!, w: kindSpec(n.kind).width, h: kindSpec(n.kind).height,
+          ports: portsOf(n.kind).map((p) => ({ id: p.id ?? null, x: p.x, y: p.y, width: p.width ?? 0, height: p.height ?? 0 })),
+        })),
         conductors: [...geo.conductors].map(([id, g]) => ({ id, points: g.points })),
       };
     },

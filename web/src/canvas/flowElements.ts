@@ -5,6 +5,7 @@ import type { EditorState, Selection } from '../editor/store';
 import type { BusLinkEdgeData, ConductorEdgeData, EquipmentNodeData } from './flowTypes';
 import { drawingGeometry, labelWidth, type Bar, type BusLinkGeometry, type ConductorGeometry, type Pt } from './geometry';
 import { spokenNameId } from './looks';
+import { portsOf } from './ports';
 
 export type FlowNode = Node<EquipmentNodeData>;
 export type FlowEdge = Edge<ConductorEdgeData> | Edge<BusLinkEdgeData>;
@@ -67,7 +68,7 @@ export class FlowDeriver {
         e = {
           src: n, selected, x: p.x, y: p.y,
           out: {
-            id: n.id, type: n.kind, position: { x: p.x, y: p.y }, data, selected, width: spec.width, height: spec.height,
+            id: n.id, type: n.kind, position: { x: p.x, y: p.y }, data, selected, width: spec.width, height: spec.height, handles: portsOf(n.kind),
             domAttributes: { 'aria-labelledby': spokenNameId('node', n.id) },
           },
         };
