@@ -1,7 +1,7 @@
 import { memo, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import {
   Background, BackgroundVariant, ConnectionLineType, Controls, MiniMap, Panel, ReactFlow, useReactFlow, useStore, useStoreApi,
-  type Connection, type EdgeChange, type IsValidConnection, type NodeChange, type ReactFlowInstance,
+  type Connection, type EdgeChange, type IsValidConnection, type NodeChange, type ReactFlowInstance, type ReactFlowState,
 } from '@xyflow/react';
 import { StudyLayers } from '../studies/StudyLayers';
 import type { EquipmentKind } from '@linewright/core';
@@ -17,7 +17,7 @@ import { DrawingTools } from '../panels/Toolbar';
 import { FlowDeriver, selectionAfter, type FlowEdge, type FlowNode } from './flowElements';
 import { Overview } from './Overview';
 import { OVERVIEW_ZOOM, overviewLayout, pickAt, selectionInBox, type OverviewHit } from './overview';
-import { LIST_OF, type Selection } from '../editor/store';
+import { EMPTY_SELECTION, LIST_OF, type Selection } from '../editor/store';
 import { useReviewView } from '../review/reviewState';
 
 /**
@@ -36,9 +36,28 @@ const GRID = 20;
 const SNAP_GRID: [number, number] = [GRID, GRID];
 // Hidden elements (the overview below) still count for framing.
 const FIT_VIEW_OPTIONS = { padding: 0.12, maxZoom: 1.2, includeHiddenNodes: true };
-/** From this many elements, a zoom below OVERVIEW_ZOOM shows the drawing as one bitmap (canvas/Overview.tsx). */
+/**
+ * From this many elements, a zoom below OVERVIEW_ZOOM, or a view holding more than MOUNT_AT_MOST pieces of
+ * equipment, shows the drawing as one bitmap (canvas/Overview.tsx). Mounting a view of 770 pieces with their
+ * wires (20 000 DOM elements) took over 2 s on the shared 2-core machine; 300 take a few hundred ms.
+ */
 const OVERVIEW_FROM = 2000;
-const isOverviewZoom = (s: { transform: [number, number, number] }) => s.transform[2] < OVERVIEW_ZOOM;
+const MOUNT_AT_MOST = 300;
+
+/** True when the view holds more than `most` of the pieces (boxes at least partly inside it). */
+function crowdedView(nodes: readonly FlowNode[], s: { transform: [number, number, number]; width: number; height: number }, most: number): boolean {
+  const [tx, ty, zoom] = s.transform;
+  const x1 = -tx / zoom;
+  const y1 = -ty / zoom;
+  const x2 = x1 + s.width / zoom;
+  const y2 = y1 + s.height / zoom;
+  let n = 0;
+  for (const node of nodes) {
+    const { x, y } = node.position;
+    if (x <= x2 && y <= y2 && x + (node.width ?? 0) >= x1 && y + (node.height ?? 0) >= y1 && ++n > most) return true;
+  }
+  return false;
+}
 /** How near a click far out must come to an element to pick it, in screen pixels (the grown badges are about 9 px). */
 const PICK_REACH_PX = 8;
 
@@ -50,9 +69,15 @@ function selectionAfterPick(cur: Selection, hit: OverviewHit, add: boolean): Sel
   return { ...cur, [key]: list.includes(hit.id) ? list.filter((id) => id !== hit.id) : [...list, hit.id] };
 }
 
-/** The element as React Flow holds it while the overview draws it: hidden, one object per source object. */
+/**
+ * The piece of equipment as React Flow holds it while the overview draws it: hidden (still framed by a
+ * fit), one object per source object. The wires are not given to React Flow at all meanwhile: it keeps a
+ * component and a store subscription for every edge it holds, hidden or not, and ran all of them on every
+ * frame of a pan (10 000 conductors: 20 000 selectors a frame).
+ */
+const NO_EDGES: FlowEdge[] = [];
 const hiddenCopies = new WeakMap<object, object>();
-function hidden<T extends FlowNode | FlowEdge>(e: T): T {
+function hidden<T extends FlowNode>(e: T): T {
   let h = hiddenCopies.get(e) as T | undefined;
   if (!h) hiddenCopies.set(e, (h = { ...e, hidden: true }));
   return h;
@@ -74,9 +99,13 @@ export const Canvas = memo(function Canvas() {
   // view and the fitted one never mount thousands of elements only to drop them for the overview. A
   // large drawing the page starts with (restored after a reload) is framed the same way.
   const [fitting, setFitting] = useState(() => elementCount(store.getState().doc) >= OVERVIEW_FROM);
-  const overview = (useStore(isOverviewZoom) || fitting) && nodes.length + edges.length >= OVERVIEW_FROM;
+  const large = nodes.length + edges.length >= OVERVIEW_FROM;
+  const farOrCrowded = useStore(
+    useCallback((s: ReactFlowState) => large && (s.transform[2] < OVERVIEW_ZOOM || crowdedView(nodes, s, MOUNT_AT_MOST)), [large, nodes]),
+  );
+  const overview = large && (farOrCrowded || fitting);
   const flowNodes = useMemo(() => (overview ? nodes.map(hidden) : nodes), [nodes, overview]);
-  const flowEdges = useMemo(() => (overview ? edges.map(hidden) : edges), [edges, overview]);
+  const flowEdges = overview ? NO_EDGES : edges;
   const flowStore = useStoreApi<FlowNode, FlowEdge>();
   // Far out the elements are hidden, so React Flow picks nothing: a click and a selection box pick from the overview's layout.
   const layout = useMemo(() => (overview ? overviewLayout(nodes, edges) : null), [overview, nodes, edges]);
@@ -84,10 +113,14 @@ export const Canvas = memo(function Canvas() {
     (e: React.MouseEvent) => {
       if (!layout) return;
       const hit = pickAt(layout, rf.screenToFlowPosition({ x: e.clientX, y: e.clientY }), PICK_REACH_PX / rf.getZoom());
-      if (!hit) return;
       const cur = store.getState().view.selection;
       const add = e.ctrlKey || e.metaKey;
-      // React Flow clears the selection right after this handler returns: pick once it has.
+      // React Flow clears the selection right after this handler returns: pick once it has. It holds no wires
+      // far out, so a click on paper clears the selected conductors and bus links here.
+      if (!hit) {
+        if (!add) queueMicrotask(() => store.setSelection(EMPTY_SELECTION));
+        return;
+      }
       queueMicrotask(() => store.setSelection(selectionAfterPick(cur, hit, add)));
     },
     [layout, rf, store],

@@ -7,13 +7,18 @@ import { drawOverview, overviewPad, type View } from './overviewDraw';
 
 /** Room drawn beyond each side of the view, as a share of its size: a pan shows it before the next redraw. */
 const MARGIN = 0.25;
-/** A pan redraws once it has rested this long; until then the bitmap is moved. */
-const PAN_REDRAW_MS = 90;
+/** A zoom, or a pan past the margin drawn, redraws once it has rested this long; until then the bitmap is moved and scaled. */
+const REST_MS = 90;
+/** Most boxes of changed looks drawn one by one after a check; more redraw the whole view. */
+const MAX_BOXES = 8;
 
 /**
  * The drawing far out as one canvas over the flow (canvas/overview.ts): React Flow holds the elements
- * hidden meanwhile, so the canvas (Canvas.tsx) picks a click and a selection box from the same layout. A pan moves the bitmap (a compositor transform, no redraw) and redraws when it
- * rests; a zoom step, an edit, a new report or a selection redraws on the next frame.
+ * hidden meanwhile, so the canvas (Canvas.tsx) picks a click and a selection box from the same layout. A pan
+ * or a zoom moves and scales the bitmap drawn last (a compositor transform, no redraw); it is drawn again when
+ * the gesture rests, after a zoom or a pan past the margin drawn around the view (a whole redraw of 10 000
+ * conductors took tens of milliseconds a wheel step). An edit or a new report redraws only the boxes whose
+ * look changed; a selection or a resize redraws on the next frame.
  */
 export function Overview({ layout }: { layout: OverviewLayout }) {
   const ref = useRef<HTMLCanvasElement>(null);
@@ -52,7 +57,7 @@ export function Overview({ layout }: { layout: OverviewLayout }) {
       }
       const mx = (v.width - flow.getState().width) / 2;
       const my = (v.height - flow.getState().height) / 2;
-      Object.assign(canvas.style, { left: `${-mx}px`, top: `${-my}px`, width: `${v.width}px`, height: `${v.height}px`, transform: '' });
+      Object.assign(canvas.style, { left: `${-mx}px`, top: `${-my}px`, width: `${v.width}px`, height: `${v.height}px`, transform: '', transformOrigin: '0 0' });
       drawOverview(g, sceneNow(), v);
       drawn = v;
     };
@@ -73,19 +78,31 @@ export function Overview({ layout }: { layout: OverviewLayout }) {
       if (boxes.length === 0) return;
       if (frame !== 0 && dirty === null) return; // a whole redraw is already due
       dirty = [...(dirty ?? []), ...boxes];
+      // Each box is a pass over the whole scene: past a few, one whole redraw is cheaper (the first verdicts
+      // of a drawing just opened change every conductor: box by box that was 10 000 passes).
+      if (dirty.length > MAX_BOXES) return redrawSoon();
       if (frame === 0) frame = requestAnimationFrame(drawChanges);
     };
 
     const onFlow = () => {
       const v = viewNow();
-      if (!drawn || v.zoom !== drawn.zoom || v.width !== drawn.width || v.height !== drawn.height) return redrawSoon();
-      if (v.x === drawn.x && v.y === drawn.y) return;
-      canvas.style.transform = `translate(${v.x - drawn.x}px, ${v.y - drawn.y}px)`;
+      if (!drawn || v.width !== drawn.width || v.height !== drawn.height) return redrawSoon();
+      // A flow point drawn at drawn.x + p·drawn.zoom belongs at v.x + p·v.zoom: scale by k about the bitmap's corner, then move.
+      const k = v.zoom / drawn.zoom;
+      const dx = v.x - drawn.x * k;
+      const dy = v.y - drawn.y * k;
       if (rest !== null) clearTimeout(rest);
+      rest = null;
+      if (k === 1) {
+        // Whole pixels, so a bitmap that is not drawn again stays sharp.
+        canvas.style.transform = dx === 0 && dy === 0 ? '' : `translate(${Math.round(dx)}px, ${Math.round(dy)}px)`;
+        // The margin drawn around the view still covers it: nothing to draw.
+        if (Math.abs(dx) <= (v.width - flow.getState().width) / 2 && Math.abs(dy) <= (v.height - flow.getState().height) / 2) return;
+      } else canvas.style.transform = `translate(${dx}px, ${dy}px) scale(${k})`;
       rest = setTimeout(() => {
         rest = null;
         redrawSoon();
-      }, PAN_REDRAW_MS);
+      }, REST_MS);
     };
     const onStore = () => {
       if (scene && scene.report === store.getState().report) return;
