@@ -1,4 +1,4 @@
-import { runRule } from '../rules/define';
+import { atLeast, runRule } from '../rules/define';
 import { panelboardProtection, type PanelboardFacts } from '../rules/panelboard-protection';
 import { largestStandardRatingAtMost } from '../tables/standardRatings';
 import { edgeFrom, KIND, type Graph } from '../topology/graph';
@@ -29,7 +29,11 @@ export function panelboardFindingOf(ctx: Pick<AnalysisContext, 'graph' | 'editio
   const { graph: g, edition } = ctx;
   const n = g.nodes[v]!;
   if (n.kind !== 'bus' || n.busType !== 'panelboard' || g.inEdges[v]!.length !== 1 || ctx.onCycle[v]) return null;
-  const facts = panelboardFacts(g, v, edition);
+  const walk = walkUp(g, v);
+  // Most panelboards: an OCPD ahead with no transformer between, rated within the panelboard's rating, or
+  // either rating not given (the rule cannot fail then): no facts are built for those.
+  if (walk !== null && walk.device >= 0 && walk.transformer < 0 && atLeast(n.busRatingA ?? null, effectiveRatingA(g.nodes[walk.device]!)) !== false) return null;
+  const facts = walk === null ? null : panelboardFacts(g, v, walk, edition);
   if (!facts) return null;
   const t = runRule(panelboardProtection, facts);
   if (t.outcome !== 'fails') return null;
@@ -50,26 +54,38 @@ export function panelboardFindingOf(ctx: Pick<AnalysisContext, 'graph' | 'editio
   });
 }
 
-/** Walks up from a panelboard bus to the first OCPD (a main when bus-linked straight into it), noting a transformer passed. */
-function panelboardFacts(g: Graph, v: number, edition: PanelboardFacts['edition']): PanelboardFacts | null {
-  const n = g.nodes[v]!;
-  if (n.kind !== 'bus') return null;
-  let transformer: PanelboardFacts['transformer'] = null;
+/** What the walk up from a panelboard met: the OCPD (-1 for none: a source, or nothing, supplies it), whether it is the panelboard's main, the first transformer passed (-1 for none). */
+interface Walk {
+  device: number;
+  main: boolean;
+  transformer: number;
+}
+
+/** Walks up from panelboard bus `v` to the first OCPD (a main when bus-linked straight into it), noting a transformer passed; null where it cannot tell (several supplies, a loose end, a loop). */
+function walkUp(g: Graph, v: number): Walk | null {
+  let transformer = -1;
   let u = v;
   for (let step = 0; step < MAX_WALK; step++) {
     const ins = g.inEdges[u]!;
-    if (ins.length !== 1) return ins.length === 0 ? { edition, id: n.id, label: nodeLabel(n), ratingA: n.busRatingA ?? null, device: null, transformer } : null;
+    if (ins.length !== 1) return ins.length === 0 ? { device: -1, main: false, transformer } : null;
     const e = ins[0]!;
     const w = edgeFrom(g, e);
     if (w < 0) return null;
     const up = g.nodes[w]!;
-    if (isOcpd(up)) {
-      const where = u === v && e < 0 && transformer === null ? 'main' : 'supply-side';
-      return { edition, id: n.id, label: nodeLabel(n), ratingA: n.busRatingA ?? null, device: { id: up.id, label: nodeLabel(up), ratingA: effectiveRatingA(up), where }, transformer };
-    }
-    if (up.kind === 'transformer' && transformer === null) transformer = transformerFacts(g, w, { ratingA: null, id: null });
-    if (up.kind === 'utility' || up.kind === 'generator') return { edition, id: n.id, label: nodeLabel(n), ratingA: n.busRatingA ?? null, device: null, transformer };
+    if (isOcpd(up)) return { device: w, main: u === v && e < 0 && transformer < 0, transformer };
+    if (up.kind === 'transformer' && transformer < 0) transformer = w;
+    if (up.kind === 'utility' || up.kind === 'generator') return { device: -1, main: false, transformer };
     u = w;
   }
   return null;
+}
+
+/** The facts 408.36 reads of panelboard `v`, from what the walk up met. */
+function panelboardFacts(g: Graph, v: number, walk: Walk, edition: PanelboardFacts['edition']): PanelboardFacts | null {
+  const n = g.nodes[v]!;
+  if (n.kind !== 'bus') return null;
+  const transformer = walk.transformer < 0 ? null : transformerFacts(g, walk.transformer, { ratingA: null, id: null });
+  const up = walk.device < 0 ? null : g.nodes[walk.device]!;
+  const device = up === null ? null : { id: up.id, label: nodeLabel(up), ratingA: effectiveRatingA(up), where: walk.main ? ('main' as const) : ('supply-side' as const) };
+  return { edition, id: n.id, label: nodeLabel(n), ratingA: n.busRatingA ?? null, device, transformer };
 }
