@@ -151,7 +151,7 @@ function secondariesByTransformer(ctx: FactsContext): Map<number, RunFacts[]> {
   const out = new Map<number, RunFacts[]>();
   for (let r = 0; r < runs.members.length; r++) {
     const from = g.conductorFrom[runs.members[r]![0]!]!;
-    if (from >= 0 && g.nodes[from]!.kind === 'transformer') {
+    if (from >= 0 && g.nodeKind[from] === KIND.transformer) {
       const list = out.get(from) ?? [];
       list.push(ctx.facts[r]!);
       out.set(from, list);

@@ -40,6 +40,8 @@ export interface SystemLoads {
   onlyLoad: Int32Array;
   /** Each load node's own circuit, or null (not a load, or its current is unknown). */
   loadCircuits: (LoadCircuit | null)[];
+  /** 1 where the node's own circuit is a motor's or an HVAC unit's: what a run's facts read of it, without reaching the circuit of every other load. */
+  ownArticle: Uint8Array;
 }
 
 /** One load's own circuit: the voltage across it, its line current, and how they were taken. */
@@ -107,7 +109,7 @@ export function rollUpLoads(g: Graph, order: Int32Array, count: number): SystemL
   const onlyLoad = new Int32Array(n).fill(-1);
   const loadCount = new Uint32Array(n);
   const loadCircuits: (LoadCircuit | null)[] = new Array(n).fill(null);
-  const s: SystemLoads = { voltsLL, phases, voltsLN, vaNoncontinuous, vaContinuous, largestMotorVA, singleA, singleCalcA, unknown, onlyLoad, loadCircuits };
+  const s: SystemLoads = { voltsLL, phases, voltsLN, vaNoncontinuous, vaContinuous, largestMotorVA, singleA, singleCalcA, unknown, onlyLoad, loadCircuits, ownArticle: new Uint8Array(n) };
   for (let k = count - 1; k >= 0; k--) {
     const v = order[k]!;
     if (g.nodeKind[v] === KIND.load) {
@@ -140,6 +142,7 @@ export function rollUpAt(g: Graph, s: SystemLoads, v: number): void {
   if (kind === KIND.load) {
     const c = loadCircuit(g.nodes[v] as NodeOfKind<'load'>, s.voltsLL[v]!, s.phases[v]!, s.voltsLN[v]!);
     s.loadCircuits[v] = c;
+    s.ownArticle[v] = c !== null && (c.motor !== null || c.hvac !== null) ? 1 : 0;
     if (c === null) unknown[v] = 1;
     else {
       if (c.continuous) vaContinuous[v] = c.va;

@@ -79,7 +79,7 @@ export function runFactsOf(ctx: AnalysisContext, r: number, site: RunFacts['site
   const load = conductorLoadA(loads, g.conductorFrom[members[0]!]!, toNode, scratchLoad);
   // The one load the run serves (for a branch circuit: through no OCPD), when it is a motor or HVAC unit.
   const only = toNode >= 0 ? loads.onlyLoad[toNode]! : -1;
-  const circuit = only >= 0 ? loads.loadCircuits[only] ?? null : null;
+  const circuit = only >= 0 && loads.ownArticle[only] === 1 ? loads.loadCircuits[only] ?? null : null;
   return {
     edition,
     conductorIds: idsOf(g, members),
