@@ -93,10 +93,11 @@ export interface KeptWalk {
 /** `classifyRuns`, also returning what the walk learned (see KeptWalk). */
 export function classifyRunsKeeping(ctx: FactsContext): { verdicts: RunVerdict[]; walk: KeptWalk } {
   const { graph: g, runs, order, count } = ctx;
+  const { start, end } = runEnds(ctx);
   const walk = newWalk(ctx, {
     nodeSupply: new Array(g.nodes.length),
     results: new Array(runs.members.length),
-    secondariesOf: secondariesByTransformer(ctx),
+    secondariesOf: secondariesByTransformer(ctx, start),
     below: ocpdBelow(g, order, count),
     sources: new Array(g.nodes.length),
     onRuns: new Array(runs.members.length),
@@ -115,13 +116,13 @@ export function classifyRunsKeeping(ctx: FactsContext): { verdicts: RunVerdict[]
       const e = outs[i]!;
       if (e < 0) continue;
       const r = runs.runOf[e]!;
-      if (runs.members[r]![0] !== e) continue;
-      walk.results[r] = judgeRun(toJudge(walk, r, supplyAt(walk, v)));
+      if (start[r] !== e) continue;
+      walk.results[r] = judgeRun(toJudge(walk, r, supplyAt(walk, v), end[r]!));
     }
   }
   for (let r = 0; r < runs.members.length; r++) {
     if (walk.results[r]) continue;
-    const from = g.conductorFrom[runs.members[r]![0]!]!;
+    const from = g.conductorFrom[start[r]!]!;
     walk.results[r] = incomplete({ walk, run: r, supply: { kind: 'cycle', node: from }, facts: ctx.facts[r]!, role: 'unknown' });
   }
   return { verdicts: walk.results as RunVerdict[], walk: { nodeSupply: walk.nodeSupply, secondariesOf: walk.secondariesOf, below: walk.below } };
@@ -134,7 +135,11 @@ export function classifyRunsKeeping(ctx: FactsContext): { verdicts: RunVerdict[]
  */
 export function rejudgeRuns(ctx: FactsContext, kept: KeptWalk, verdicts: RunVerdict[], rs: readonly number[]): void {
   const walk = newWalk(ctx, { nodeSupply: kept.nodeSupply as Supply[], results: verdicts, secondariesOf: kept.secondariesOf, below: kept.below, sources: [], onRuns: [] });
-  for (const r of rs) verdicts[r] = judgeRun(toJudge(walk, r, supplyAt(walk, ctx.graph.conductorFrom[ctx.runs.members[r]![0]!]!)));
+  const g = ctx.graph;
+  for (const r of rs) {
+    const members = ctx.runs.members[r]!;
+    verdicts[r] = judgeRun(toJudge(walk, r, supplyAt(walk, g.conductorFrom[members[0]!]!), g.conductorTo[members[members.length - 1]!]!));
+  }
 }
 
 /**
@@ -146,11 +151,28 @@ export function judgeFedByOcpd(ctx: FactsContext, r: number, supply: Supply, dev
   return fedByOcpd({ walk, run: r, supply, facts, role: 'branch' }, device);
 }
 
-function secondariesByTransformer(ctx: FactsContext): Map<number, RunFacts[]> {
+/**
+ * Each run's first conductor and the node it ends at, read in one pass in run order: the walk
+ * below meets runs in supply-to-load order and then reads these instead of each run's member list.
+ */
+function runEnds(ctx: FactsContext): { start: Int32Array; end: Int32Array } {
   const { graph: g, runs } = ctx;
+  const n = runs.members.length;
+  const start = new Int32Array(n);
+  const end = new Int32Array(n);
+  for (let r = 0; r < n; r++) {
+    const members = runs.members[r]!;
+    start[r] = members[0]!;
+    end[r] = g.conductorTo[members[members.length - 1]!]!;
+  }
+  return { start, end };
+}
+
+function secondariesByTransformer(ctx: FactsContext, start: Int32Array): Map<number, RunFacts[]> {
+  const g = ctx.graph;
   const out = new Map<number, RunFacts[]>();
-  for (let r = 0; r < runs.members.length; r++) {
-    const from = g.conductorFrom[runs.members[r]![0]!]!;
+  for (let r = 0; r < start.length; r++) {
+    const from = g.conductorFrom[start[r]!]!;
     if (from >= 0 && g.nodeKind[from] === KIND.transformer) {
       const list = out.get(from) ?? [];
       list.push(ctx.facts[r]!);
@@ -174,12 +196,10 @@ function pointOnRun(walk: Walk, r: number): Supply {
   return (walk.onRuns[r] ??= { kind: 'run', run: r });
 }
 
-/** The run's facts with what its load end says about it: the role it plays and the transformer it feeds. */
-function toJudge(walk: Walk, r: number, supply: Supply): RunToJudge {
-  const { graph: g, runs } = walk.ctx;
+/** The run's facts with what its load end (node `endNode`) says about it: the role it plays and the transformer it feeds. */
+function toJudge(walk: Walk, r: number, supply: Supply, endNode: number): RunToJudge {
+  const g = walk.ctx.graph;
   const facts: RunFacts = walk.ctx.facts[r]!;
-  const members = runs.members[r]!;
-  const endNode = g.conductorTo[members[members.length - 1]!]!;
   const endKind = endNode >= 0 ? g.nodeKind[endNode]! : -1;
   const endsAtTransformer = endKind === KIND.transformer;
   // Conductors into distribution equipment (a panelboard, switchboard, tap box…) are feeders even with nothing drawn below it.
