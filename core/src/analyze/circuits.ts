@@ -65,6 +65,10 @@ export interface NetworkSystems {
   serves: Serves[];
   /** 1 where the node lies on service conductors: a utility, or a splice or disconnect reached from one without a device. */
   service: Uint8Array;
+  /** Which system each node is on, as a small integer: 0 unknown, else one per source or transformer (the same SystemAt object in `at`). */
+  systemId: Int32Array;
+  /** `serves` as bit flags, per node. */
+  servesBits: Uint8Array;
 }
 
 /** One conductor's circuit. */
@@ -85,7 +89,6 @@ const UNKNOWN: SystemAt = Object.freeze({ voltsLL: null, phases: null, arrangeme
 const SERVES_BY_BITS: readonly Serves[] = Array.from({ length: 16 }, (_, b) =>
   Object.freeze({ lineToNeutralLoads: (b & LN) !== 0, lineToLineLoads: (b & LL) !== 0, threePhaseLoads: (b & THREE) !== 0, distribution: (b & DISTRIBUTION) !== 0 }),
 );
-const NOTHING = SERVES_BY_BITS[0]!;
 
 function sourceSystem(node: EquipmentNode): SystemAt | null {
   switch (node.kind) {
@@ -122,11 +125,14 @@ export function networkSystems(g: Graph, order: Int32Array, count: number, loads
   const n = g.nodes.length;
   const at: SystemAt[] = new Array<SystemAt>(n).fill(UNKNOWN);
   const service = new Uint8Array(n);
+  const systemId = new Int32Array(n);
+  let systems = 0;
   for (let k = 0; k < count; k++) {
     const v = order[k]!;
     const kind = g.nodeKind[v]!;
     if (kind === KIND.utility || kind === KIND.generator || kind === KIND.transformer) {
       at[v] = sourceSystem(g.nodes[v]!)!;
+      systemId[v] = ++systems;
       service[v] = kind === KIND.utility ? 1 : 0;
       continue;
     }
@@ -136,6 +142,7 @@ export function networkSystems(g: Graph, order: Int32Array, count: number, loads
     const u = e >= 0 ? g.conductorFrom[e]! : g.linkFrom[-e - 1]!;
     if (u < 0) continue;
     at[v] = at[u]!;
+    systemId[v] = systemId[u]!;
     service[v] = kind === KIND.splice || kind === KIND.disconnect ? service[u]! : 0;
   }
   // Bit flags, so a node reached along several paths is still counted once per kind.
@@ -163,7 +170,7 @@ export function networkSystems(g: Graph, order: Int32Array, count: number, loads
   }
   const serves: Serves[] = new Array<Serves>(n);
   for (let v = 0; v < n; v++) serves[v] = SERVES_BY_BITS[bits[v]!]!;
-  return { at, serves, service };
+  return { at, serves, service, systemId, servesBits: bits };
 }
 
 function connectionBits(on: Pick<LoadConnection, 'connection'>): number {
@@ -296,22 +303,20 @@ function ownCount(makeup: Pick<CircuitMakeup, 'ungroundedPerSet' | 'hasNeutral' 
  */
 export function conductorCircuits(g: Graph, systems: NetworkSystems): ConductorCircuit[] {
   const memo = new Map<number, ConductorCircuit>();
-  const systemIds = new Map<SystemAt, number>();
   const out: ConductorCircuit[] = new Array<ConductorCircuit>(g.conductors.length);
   for (let ci = 0; ci < g.conductors.length; ci++) {
     const c = g.conductors[ci]!;
     const from = g.conductorFrom[ci]!;
     const to = g.conductorTo[ci]!;
-    const system = from >= 0 ? systems.at[from]! : UNKNOWN;
-    const serves = to >= 0 ? systems.serves[to]! : NOTHING;
+    const servesBits = to >= 0 ? systems.servesBits[to]! : 0;
     const service = from >= 0 && systems.service[from] === 1;
     const nonlinear = c.nonlinearLoad ?? false;
-    // The system object is shared by every node of one source or transformer, so its identity is part of the key.
-    let sid = systemIds.get(system);
-    if (sid === undefined) systemIds.set(system, (sid = systemIds.size));
-    const key = circuitKey(sid, SERVES_BY_BITS.indexOf(serves), service, c.neutral, nonlinear, c.currentCarrying);
+    // The system object is shared by every node of one source or transformer, so which one it is is part of the key.
+    const key = circuitKey(from >= 0 ? systems.systemId[from]! : 0, servesBits, service, c.neutral, nonlinear, c.currentCarrying);
     let hit = memo.get(key);
     if (!hit) {
+      const system = from >= 0 ? systems.at[from]! : UNKNOWN;
+      const serves = SERVES_BY_BITS[servesBits]!;
       const makeup = circuitMakeup(c, service, system, serves);
       hit = Object.freeze({ system, serves, service, makeup: Object.freeze(makeup), currentCarrying: Object.freeze(countCurrentCarrying(makeup, nonlinear, c.currentCarrying)) });
       if (!Number.isNaN(key)) memo.set(key, hit);
