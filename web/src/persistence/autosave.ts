@@ -76,8 +76,14 @@ async function tx<T>(mode: IDBTransactionMode, fn: (s: IDBObjectStore) => IDBReq
 
 async function readIdbDraft(docId: string | null): Promise<Draft | null> {
   const v = await tx<unknown>('readonly', (s) => s.get(docId ?? LEGACY_KEY));
-  if (v === undefined && docId !== null) return asDraft(await tx<unknown>('readonly', (s) => s.get(LEGACY_KEY)));
-  return asDraft(v);
+  if (v === undefined && docId !== null) return asDraft(await withText(await tx<unknown>('readonly', (s) => s.get(LEGACY_KEY))));
+  return asDraft(await withText(v));
+}
+
+/** A stored draft whose text is a Blob (StoredDraft), with the text read out. */
+async function withText(v: unknown): Promise<unknown> {
+  const json = (v as { json?: unknown } | null | undefined)?.json;
+  return json instanceof Blob ? { ...(v as object), json: await json.text() } : v;
 }
 
 async function writeIdbDraft(d: Draft): Promise<void> {
