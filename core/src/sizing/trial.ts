@@ -60,10 +60,7 @@ export function trialAmpacity(members: readonly Conductor[], config: SizingConfi
  * segment and configuration tried (the search tries thousands): conductorAmpacity keeps nothing of it.
  */
 function rebuilt(c: AmpacityInputs, config: SizingConfig): AmpacityInputs {
-  const b = scratchSegment;
-  b.size = config.size;
-  b.material = config.material;
-  b.parallelSets = config.parallelSets;
+  const b = withConfig(scratchSegment, config);
   b.insulation = c.insulation;
   b.ambientC = c.ambientC;
   b.terminalTempC = c.terminalTempC;
@@ -72,15 +69,21 @@ function rebuilt(c: AmpacityInputs, config: SizingConfig): AmpacityInputs {
 }
 const scratchSegment: { -readonly [K in keyof AmpacityInputs]: AmpacityInputs[K] } = { size: undefined, material: 'cu', insulation: 'THHN', parallelSets: 1, ambientC: 30, terminalTempC: undefined, currentCarrying: 3 };
 
+/** `target` (a segment or a run's facts, rewritten in place) given the configuration's size, material and sets. */
+function withConfig<T extends { size?: SizingConfig['size'] | null; material: SizingConfig['material']; parallelSets: number }>(target: T, config: SizingConfig): T {
+  target.size = config.size;
+  target.material = config.material;
+  target.parallelSets = config.parallelSets;
+  return target;
+}
+
 /**
  * The run's facts as the rules would see them in the trial configuration (supply, load and site
  * unchanged): a copy, or `into` (a copy made earlier for the same run) rewritten, so a search over
  * many configurations copies the facts once.
  */
 export function trialFacts(facts: RunFacts, config: SizingConfig, at: TrialAmpacity, supplyOcpdA: number | null = facts.supplyOcpdA, into: RunFacts = { ...facts }): RunFacts {
-  into.size = config.size;
-  into.material = config.material;
-  into.parallelSets = config.parallelSets;
+  withConfig(into, config);
   into.ampacityA = at.ampacityA;
   into.ampacityUncorrectedA = at.uncorrectedA;
   into.smallConductorMaxOcpdA = at.smallConductorMaxOcpdA;
