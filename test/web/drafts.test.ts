@@ -97,7 +97,8 @@ describe('write-ahead copy of the drawing (localStorage)', () => {
     // An element changed in the first piece, in the last (short) piece, one added, one removed: each save is the whole text.
     const nodes = h.doc().nodes;
     for (const at of [3, 1050]) {
-      h.store.replaceElements('Rename', [{ list: 'nodes', value: { ...nodes[at]!, label: `L-${at}` } }]);
+      const renamed = { ...nodes[at]!, label: `L-${at}` };
+      h.store.replaceElements('Rename', [{ list: 'nodes', value: renamed }]);
       expect(await texts()).toBe(JSON.stringify(draft({ project: h.doc() })));
     }
     addEquipment.run(h.ctx, { kind: 'load' });
