@@ -213,8 +213,13 @@ describe('project files', () => {
     await openProject.run(other.ctx, { fileName: 'tap.json', text });
     expect(other.doc()).toEqual(drawn);
     expect(projectFileText(other.doc())).toBe(text);
+    // Frozen through its elements, as an edit leaves a document.
+    const opened = other.doc();
+    expect(Object.isFrozen(opened) && Object.isFrozen(opened.conductors) && Object.isFrozen(opened.conductors[0]) && Object.isFrozen(opened.nodes[0]!.position)).toBe(true);
     undo.run(other.ctx);
     expect(other.doc().nodes).toHaveLength(0);
+    redo.run(other.ctx);
+    expect(other.doc()).toBe(opened);
   });
 
   it('a file that fails to load leaves the drawing untouched and names the path', async () => {
