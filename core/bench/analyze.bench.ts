@@ -10,9 +10,8 @@
  * compiles it (keepNames: every function made at run time is also named by a call), slower; the
  * first printed line and the JSON's `compiledBy` say which.
  *
- * Per size: warm-up runs, then timed runs; medians are reported. Each timed run starts on a
- * collected heap (gc() before it, as a fresh CLI process starts), and nothing of an earlier run is
- * held while it runs but the first run's project, which the floor reads.
+ * Per size: warm-up runs, then timed runs; medians are reported. Nothing of an earlier run is held
+ * while one runs but the first run's project, which the floor reads.
  *   parse     = JSON.parse of the file text
  *   load      = loadProject (schema, defaults, references) of the parsed file
  *   analyze   = analyze(project)
@@ -214,11 +213,9 @@ function measure({ conductors, warmup, runs }: (typeof SIZES)[number]): SizeResu
   const pipeline: number[] = [];
   const floor: number[] = [];
   for (let i = 0; i < runs; i++) {
-    // Alternate so drift in machine load hits both the same way. Each starts on a collected heap, as a
-    // fresh `linewright check` process does, so no run pays for the garbage of the one before.
-    gc?.();
+    // Alternate so drift in machine load hits both the same way. No gc() between runs: a full collection
+    // shrinks the young generation, so the run after it scavenges far more often (10k: 87 -> 198 ms).
     floor.push(floorOnce());
-    gc?.();
     const run = once();
     parse.push(run.parse);
     load.push(run.load);
