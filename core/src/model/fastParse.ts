@@ -36,9 +36,23 @@ interface CheckDef {
   format?: string;
 }
 
-export function compileSchema(schema: z.ZodType): Validator {
-  return compile((schema as unknown as { _zod: { def: Def } })._zod.def);
+/**
+ * The validator of `schema`. Its object checks are written out as code where the runtime allows it
+ * (see generateObject); `generate: false` keeps the closures, the editor's path, so tests can hold
+ * both to zod.
+ */
+export function compileSchema(schema: z.ZodType, options: { generate?: boolean } = {}): Validator {
+  const before = generating;
+  generating = options.generate ?? canGenerate();
+  try {
+    return compile((schema as unknown as { _zod: { def: Def } })._zod.def);
+  } finally {
+    generating = before;
+  }
 }
+
+/** Whether the compileSchema call under way writes object checks out as code. */
+let generating = false;
 
 /**
  * How deep a value the compiled validator accepts can nest (the root object is level 0, its values
@@ -126,7 +140,7 @@ function compileObject(def: Def): Validator {
   const known = new Set(keys);
   const strict = def.catchall?._zod.def.type === 'never';
   if (def.catchall && !strict) throw new Error('fastParse: only strict or plain objects are supported');
-  return generateObject(keys, fields, known, strict) ?? objectValidator(keys, fields, known, strict);
+  return (generating ? generateObject(keys, fields, known, strict) : null) ?? objectValidator(keys, fields, known, strict);
 }
 
 /** The object validator as a closure over the schema's keys. */
@@ -156,7 +170,6 @@ function objectValidator(keys: readonly string[], fields: readonly Validator[], 
  * schema's own key names go into the code, each as a JSON string literal.
  */
 function generateObject(keys: readonly string[], fields: readonly Validator[], known: ReadonlySet<string>, strict: boolean): Validator | null {
-  if (!canGenerate()) return null;
   const lines: string[] = [];
   keys.forEach((k, i) => {
     const key = JSON.stringify(k);
