@@ -1,5 +1,5 @@
 import type { Conductor, EquipmentNode, NodeOfKind, Project } from '../model/schema';
-import { conductorReport, findingIdsByConductor } from './conductorReports';
+import { conductorReport, sharedParts, findingIdsByConductor } from './conductorReports';
 import { conductorFindingsOf } from './conductorFindings';
 import { conductorAmpacity, terminalTempOf } from './ampacities';
 import { judgeFedByOcpd, rejudgeRuns, type KeptWalk, type RunVerdict } from './classify';
@@ -811,7 +811,8 @@ function reported(state: AnalysisState, judged: Rejudged, moved: Moved, studiesR
   for (const id of warnedAfter) if (!warnedBefore.has(id)) lines.add(index.get(id)!);
   const ids = findingIdsOf(state, ctx.verdicts, { findings, conductorFindingStart, studyFindingStart }, lines);
   const conductors = old.conductors.slice();
-  for (const ci of lines) conductors[ci] = conductorReport(ctx, ci, ids.get(graph.conductors[ci]!.id));
+  const shared = sharedParts(graph);
+  for (const ci of lines) conductors[ci] = conductorReport(ctx, ci, ids.get(graph.conductors[ci]!.id), shared);
   const byVerdict = { ...old.counts.byVerdict };
   for (const ci of own.keys()) {
     byVerdict[old.conductors[ci]!.verdict]--;
