@@ -39,25 +39,14 @@ export function findingIdsByConductor(findings: readonly Finding[], chainOf: (id
   return findingIdsBySubject;
 }
 
-/**
- * What report lines share, looked up once for all the lines of a report: the device and supply
- * objects by node, and the citation and summary of the line before, which the next line (the next
- * branch circuit of the same board) mostly repeats.
- */
+/** What report lines share, looked up once for all the lines a report builds: the device and supply objects by node. */
 export interface SharedParts {
   devices: Map<number, DeviceRef>;
   supplies: Map<number, ConductorReport['supply']>;
-  rule: RunVerdict['rule'];
-  cites: ConductorReport['cites'];
-  /** The last protected line's summary, by its verdict, device rating and ampacity. */
-  summaryVerdict: RunVerdict['verdict'] | null;
-  summaryR: number;
-  summaryA: number;
-  summary: string;
 }
 
 export function sharedParts(graph: Graph): SharedParts {
-  return { devices: byNodeOf(deviceRefs, graph), supplies: byNodeOf(supplyRefs, graph), rule: null, cites: null, summaryVerdict: null, summaryR: 0, summaryA: 0, summary: '' };
+  return { devices: byNodeOf(deviceRefs, graph), supplies: byNodeOf(supplyRefs, graph) };
 }
 
 /** The report line of conductor `ci`, given the ids of its findings. Built straight from its run's verdict: no object per run in between. */
@@ -67,10 +56,6 @@ export function conductorReport(ctx: FixedContext, ci: number, findingIds: strin
   const r = runs.runOf[ci]!;
   const v = verdicts[r]!;
   const f = v.facts;
-  if (v.rule !== shared.rule) {
-    shared.rule = v.rule;
-    shared.cites = v.rule ? ruleCitation(v.rule, edition) : null;
-  }
   return {
     id: c.id,
     label: c.label ?? c.id,
@@ -78,9 +63,9 @@ export function conductorReport(ctx: FixedContext, ci: number, findingIds: strin
     to: c.to,
     verdict: v.verdict,
     rule: v.rule?.id ?? null,
-    cites: shared.cites,
+    cites: v.rule ? ruleCitation(v.rule, edition) : null,
     role: v.role,
-    summary: summaryOf(v, shared),
+    summary: summaryOf(v),
     size: c.size ?? null,
     material: c.material,
     parallelSets: c.parallelSets,
@@ -151,19 +136,11 @@ function byNodeOf<T>(refs: WeakMap<Graph['nodes'], Map<number, T>>, graph: Graph
  */
 const protectedSummaries = { protected: new Map<number, Map<number, string>>(), 'protected-next-size': new Map<number, Map<number, string>>() };
 let protectedSummaryCount = 0;
-function summaryOf(v: RunVerdict, shared: SharedParts): string {
+function summaryOf(v: RunVerdict): string {
   const R = v.facts.supplyOcpdA;
   const A = v.facts.ampacityA;
   if ((v.verdict !== 'protected' && v.verdict !== 'protected-next-size') || R === null || A === null) return describeRun(v);
-  if (shared.summaryVerdict === v.verdict && shared.summaryR === R && shared.summaryA === A) return shared.summary;
-  shared.summaryVerdict = v.verdict;
-  shared.summaryR = R;
-  shared.summaryA = A;
-  return (shared.summary = protectedSummary(v, R, A));
-}
-
-function protectedSummary(v: RunVerdict, R: number, A: number): string {
-  const byR = protectedSummaries[v.verdict as 'protected' | 'protected-next-size'];
+  const byR = protectedSummaries[v.verdict];
   let byA = byR.get(R);
   let text = byA?.get(A);
   if (text !== undefined) return text;
