@@ -203,58 +203,39 @@ export function checkConsistency(p: Project): LoadError[] {
   const errors: LoadError[] = [];
   // Each node id's position (the last, should one repeat); the graph reuses it (./nodeIndex.ts).
   const nodeIndex = new Map<string, number>();
-  // Each conductor and bus link id, as list * 1e7 + index.
+  // Where a node id repeated was first seen; empty for a valid file.
+  const firstNode = new Map<string, number>();
+  // Where each conductor or bus link id was first seen, as list * 1e7 + index; a path string is built only for an error.
   const seen = new Map<string, number>();
-  // Where each id was first seen, kept only once an id repeats (a valid file never needs them): a set
-  // that does not grow says an id repeats, and a path string is built only for an error.
-  let firstNode: Map<string, number> | null = null;
-  let firstEdge: Map<string, number> | null = null;
   // Each end's node position (-1 for none), kept for the graph with the index (./nodeIndex.ts).
   const ends = { from: new Int32Array(p.conductors.length), to: new Int32Array(p.conductors.length) };
   const linkEnds = { from: new Int32Array(p.busLinks.length), to: new Int32Array(p.busLinks.length) };
   const lists = ['nodes', 'conductors', 'busLinks'] as const;
-  const byList = [p.nodes, p.conductors, p.busLinks] as const;
   const pathOf = (list: number, i: number) => `${lists[list]}[${i}]`;
   const repeated = (id: string, first: string, list: number, i: number) => {
     errors.push({ path: `${pathOf(list, i)}.id`, message: `Id "${id}" is already used at ${first}; every id must be unique.` });
   };
-  /** The first position of each id in `list` before `end` (and in the lists before it, from `from`), as list * 1e7 + index. */
-  const firstPositions = (from: number, list: number, end: number) => {
-    const first = new Map<string, number>();
-    for (let l = from; l <= list; l++) {
-      const items = byList[l]!;
-      for (let i = 0; i < (l === list ? end : items.length); i++) if (!first.has(items[i]!.id)) first.set(items[i]!.id, l * 1e7 + i);
-    }
-    return first;
-  };
   // Node ids come first, so an id used by a node is first seen at that node's first position.
-  const firstNodeOf = (id: string): number | undefined => (firstNode === null ? nodeIndex.get(id) : firstNode.get(id));
+  const firstNodeOf = (id: string): number | undefined => (firstNode.size === 0 ? nodeIndex.get(id) : (firstNode.get(id) ?? nodeIndex.get(id)));
   const claim = (id: string, list: number, i: number) => {
     const node = firstNodeOf(id);
     if (node !== undefined) {
       repeated(id, pathOf(0, node), list, i);
       return;
     }
-    if (firstEdge === null) {
-      const size = seen.size;
-      seen.set(id, list * 1e7 + i);
-      if (seen.size > size) return;
-      firstEdge = firstPositions(1, list, i);
-    }
-    const first = firstEdge.get(id);
-    if (first === undefined) firstEdge.set(id, list * 1e7 + i);
+    const first = seen.get(id);
+    if (first === undefined) seen.set(id, list * 1e7 + i);
     else repeated(id, pathOf(Math.floor(first / 1e7), first % 1e7), list, i);
   };
   for (let i = 0; i < p.nodes.length; i++) {
     const n = p.nodes[i]!;
-    const size = nodeIndex.size;
-    nodeIndex.set(n.id, i);
-    if (nodeIndex.size === size || firstNode !== null) {
-      firstNode ??= firstPositions(0, 0, i);
-      const first = firstNode.get(n.id);
-      if (first === undefined) firstNode.set(n.id, i);
-      else repeated(n.id, pathOf(0, first), 0, i);
+    const before = nodeIndex.get(n.id);
+    if (before !== undefined) {
+      const first = firstNode.get(n.id) ?? before;
+      firstNode.set(n.id, first);
+      repeated(n.id, pathOf(0, first), 0, i);
     }
+    nodeIndex.set(n.id, i);
     if (n.kind === 'load' && n.motor && n.motor.hp === undefined && n.motor.fullLoadA === undefined) {
       errors.push({ path: `nodes[${i}].motor.hp`, message: 'A motor needs its horsepower ("hp", for Tables 430.248/430.250) or its nameplate full-load current ("fullLoadA").' });
     } else if (n.kind === 'load' && n.motor && n.hvac) {
