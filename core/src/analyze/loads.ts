@@ -224,6 +224,14 @@ export function loadConnection(node: NodeOfKind<'load'>, sysV: number, sysPhases
 /** How the connection was decided: as drawn, or (not stated) by what the load is given in. */
 type Decided = LoadCircuit['connection'] | 'unstated-amperes' | 'unstated-kva';
 
+/** A load decided line to neutral (drawn so, or a kVA load whose connection is not stated) sees sysLN; every other sees sysV. */
+function isLineToNeutral(decided: Decided): boolean {
+  return decided === 'line-to-neutral' || decided === 'unstated-kva';
+}
+function voltsAcross(decided: Decided, sysV: number, sysLN: number): number {
+  return isLineToNeutral(decided) ? sysLN : sysV;
+}
+
 /** loadConnection's decision alone (nothing built): null when the system cannot give the voltage across the load. */
 function decideConnection(node: NodeOfKind<'load'>, sysV: number, sysPhases: number, sysLN: number): Decided | null {
   if (!(sysV > 0)) return null;
@@ -251,10 +259,9 @@ class Connection implements LoadConnection {
   readonly #sysV: number;
   readonly #sysLN: number;
   constructor(decided: Decided, node: NodeOfKind<'load'>, sysV: number, sysLN: number) {
-    const lineToNeutral = decided === 'line-to-neutral' || decided === 'unstated-kva';
-    this.volts = lineToNeutral ? sysLN : sysV;
+    this.volts = voltsAcross(decided, sysV, sysLN);
     this.phases = decided === 'three-phase' ? 3 : 1;
-    this.connection = decided === 'three-phase' ? 'three-phase' : lineToNeutral ? 'line-to-neutral' : 'line-to-line';
+    this.connection = decided === 'three-phase' ? 'three-phase' : isLineToNeutral(decided) ? 'line-to-neutral' : 'line-to-line';
     this.#decided = decided;
     this.#node = node;
     this.#sysV = sysV;
@@ -286,7 +293,7 @@ class Connection implements LoadConnection {
 export function loadCircuit(node: NodeOfKind<'load'>, sysV: number, sysPhases: number, sysLN: number): LoadCircuit | null {
   const decided = decideConnection(node, sysV, sysPhases, sysLN);
   if (decided === null) return null;
-  const volts = decided === 'line-to-neutral' || decided === 'unstated-kva' ? sysLN : sysV;
+  const volts = voltsAcross(decided, sysV, sysLN);
   const phases = decided === 'three-phase' ? 3 : 1;
   const k = phases === 3 ? Math.sqrt(3) * volts : volts;
   if (node.hvac) {
