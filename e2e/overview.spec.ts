@@ -138,3 +138,32 @@ test('a big drawing restored by a reload is framed whole before any of its eleme
   expect(await page.evaluate(() => (window as unknown as { __mounted: number }).__mounted)).toBe(0);
   await shot(page, info, 'overview-restored');
 });
+
+test('up close on a big drawing, a finding far off is framed and drawn', async ({ page }, info) => {
+  await openApp(page);
+  await checked(page);
+  await page.evaluate((text) => window.__linewright!.open(text, 'campus.json'), JSON.stringify(drawing));
+  await checked(page);
+  await expect(page.getByTestId('overview')).toBeVisible();
+  const violations = page.locator('[data-testid="finding"][data-severity="violation"]');
+  expect(await violations.count()).toBeGreaterThan(1);
+  /** The element a pick selected, as React Flow draws it up close. */
+  const drawnSelection = async () => {
+    const sel = await page.evaluate(() => window.__linewright!.selection());
+    const id = sel.conductors[0] ?? sel.nodes[0] ?? sel.busLinks[0];
+    expect(id).toBeDefined();
+    return page.locator(sel.nodes[0] === id ? `.react-flow__node[data-id="${id}"]` : `[data-testid="conductor-label-${id}"], [data-testid="buslink-${id}"]`);
+  };
+  // The first violation: framed up close, past the overview, and drawn.
+  await violations.first().click();
+  await expect.poll(async () => (await view(page)).zoom).toBeGreaterThan(0.5);
+  await expect(page.getByTestId('overview')).toHaveCount(0);
+  const first = await drawnSelection();
+  await expect(first).toBeVisible();
+  // The last one sits elsewhere on the campus: framed from up close, it is drawn there too, and the first is let go.
+  await violations.last().click();
+  const last = await drawnSelection();
+  await expect(last).toBeVisible();
+  await expect(first).toHaveCount(0);
+  await shot(page, info, 'overview-far-finding');
+});

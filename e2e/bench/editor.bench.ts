@@ -11,7 +11,10 @@
  *     the new verdicts painted), median and p95, and its split into the core's re-check and the
  *     editor's share (everything else: commit, render, paint),
  *   - frame time during a scripted pan and a scripted zoom, from
- *     requestAnimationFrame deltas, median and p95.
+ *     requestAnimationFrame deltas, median and p95,
+ *   - frame time while zooming in from the fitted view to a working scale (where a large drawing's
+ *     overview hands over to the drawn elements: the longest frame is that hand-over) and while
+ *     panning at that scale, median, p95 and longest.
  * The last line is one JSON object with every figure. Figures only: nothing passes or fails.
  *
  * Run: npm run bench:web   (builds first)
@@ -26,6 +29,8 @@ const PORT = Number(process.env.BENCH_PORT ?? 4184);
 const BASE = `http://127.0.0.1:${PORT}`;
 const SIZES = (process.env.BENCH_CONDUCTORS ?? '2000,10000').split(',').map(Number);
 const EDITS = 25;
+/** The scale the zoom-in ends at: equipment names and wires readable. */
+const WORK_ZOOM = 0.6;
 const webDir = fileURLToPath(new URL('../../web/', import.meta.url));
 
 function quantile(xs: number[], q: number): number {
@@ -157,6 +162,31 @@ async function measure(page: Page, conductors: number) {
       await page.waitForTimeout(16);
     }
   });
+  // Zoom in from the fitted view to a working scale (wires and labels drawn), then pan there: on a large
+  // drawing this is where the overview hands over to React Flow's own elements. The longest frame is the hitch.
+  const viewZoom = () =>
+    page.evaluate(() => Number(/scale\(([\d.]+)\)/.exec(document.querySelector<HTMLElement>('.react-flow__viewport')?.style.transform ?? '')?.[1] ?? NaN));
+  let workSteps = 0;
+  const zoomIn = await framesDuring(page, async () => {
+    await page.mouse.move(cx, cy);
+    while ((await viewZoom()) < WORK_ZOOM && workSteps < 60) {
+      await page.mouse.wheel(0, -120);
+      await page.waitForTimeout(16);
+      workSteps++;
+    }
+    await page.locator('.react-flow__edge').first().waitFor({ state: 'attached' });
+  });
+  const detailPan = await framesDuring(page, async () => {
+    await page.keyboard.down('Space');
+    await page.mouse.move(cx, cy);
+    await page.mouse.down();
+    for (let i = 0; i < 60; i++) {
+      await page.mouse.move(cx + Math.sin(i / 9) * 400, cy + Math.cos(i / 9) * 240);
+      await page.waitForTimeout(16);
+    }
+    await page.mouse.up();
+    await page.keyboard.up('Space');
+  });
   return {
     elements: p.nodes + p.conductors + p.busLinks,
     nodes: p.nodes,
@@ -174,6 +204,8 @@ async function measure(page: Page, conductors: number) {
     editRestMs: { median: r1(quantile(rests, 0.5)), p95: r1(quantile(rests, 0.95)), n: rests.length },
     panFrameMs: { median: r1(quantile(pan, 0.5)), p95: r1(quantile(pan, 0.95)), n: pan.length },
     zoomFrameMs: { median: r1(quantile(zoom, 0.5)), p95: r1(quantile(zoom, 0.95)), n: zoom.length },
+    zoomInFrameMs: { median: r1(quantile(zoomIn, 0.5)), longest: r1(Math.max(...zoomIn)), n: zoomIn.length, steps: workSteps },
+    detailPanFrameMs: { median: r1(quantile(detailPan, 0.5)), p95: r1(quantile(detailPan, 0.95)), longest: r1(Math.max(...detailPan)), n: detailPan.length },
   };
 }
 
@@ -224,7 +256,9 @@ async function main() {
           `first render ${r.firstRenderMs} ms, first verdicts ${r.firstVerdictMs} ms (analysis ${r.analysisMs} ms); ` +
           `edit→verdict median ${r.editToVerdictMs.median} ms, p95 ${r.editToVerdictMs.p95} ms ` +
           `(of which the core's re-check median ${r.editCheckMs.median} ms, p95 ${r.editCheckMs.p95} ms; the editor's share median ${r.editRestMs.median} ms, p95 ${r.editRestMs.p95} ms); ` +
-          `pan frame median ${r.panFrameMs.median} ms, p95 ${r.panFrameMs.p95} ms; zoom frame median ${r.zoomFrameMs.median} ms, p95 ${r.zoomFrameMs.p95} ms`,
+          `pan frame median ${r.panFrameMs.median} ms, p95 ${r.panFrameMs.p95} ms; zoom frame median ${r.zoomFrameMs.median} ms, p95 ${r.zoomFrameMs.p95} ms; ` +
+          `zoom in to ${WORK_ZOOM} (${r.zoomInFrameMs.steps} wheel steps): frame median ${r.zoomInFrameMs.median} ms, longest ${r.zoomInFrameMs.longest} ms; ` +
+          `pan there: frame median ${r.detailPanFrameMs.median} ms, p95 ${r.detailPanFrameMs.p95} ms, longest ${r.detailPanFrameMs.longest} ms`,
       );
       await ctx.close();
     }

@@ -1,6 +1,6 @@
 import { memo, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import {
-  Background, BackgroundVariant, ConnectionLineType, Controls, MiniMap, Panel, ReactFlow, useReactFlow, useStore, useStoreApi,
+  Background, BackgroundVariant, ConnectionLineType, Controls, MiniMap, Panel, ReactFlow, getNodesBounds, getViewportForBounds, useReactFlow, useStore, useStoreApi,
   type Connection, type EdgeChange, type IsValidConnection, type NodeChange, type ReactFlowInstance, type ReactFlowState,
 } from '@xyflow/react';
 import { StudyLayers } from '../studies/StudyLayers';
@@ -17,6 +17,7 @@ import { DrawingTools } from '../panels/Toolbar';
 import { FlowDeriver, selectionAfter, type FlowEdge, type FlowNode } from './flowElements';
 import { Overview } from './Overview';
 import { OVERVIEW_ZOOM, overviewLayout, pickAt, selectionInBox, type OverviewHit } from './overview';
+import { areaNear, elementsNear, viewArea, type Area } from './nearView';
 import { EMPTY_SELECTION, LIST_OF, type Selection } from '../editor/store';
 import { useReviewView } from '../review/reviewState';
 
@@ -46,11 +47,7 @@ const MOUNT_AT_MOST = 300;
 
 /** True when the view holds more than `most` of the pieces (boxes at least partly inside it). */
 function crowdedView(nodes: readonly FlowNode[], s: { transform: [number, number, number]; width: number; height: number }, most: number): boolean {
-  const [tx, ty, zoom] = s.transform;
-  const x1 = -tx / zoom;
-  const y1 = -ty / zoom;
-  const x2 = x1 + s.width / zoom;
-  const y2 = y1 + s.height / zoom;
+  const { x1, y1, x2, y2 } = viewArea(s.transform, s.width, s.height);
   let n = 0;
   for (const node of nodes) {
     const { x, y } = node.position;
@@ -104,8 +101,17 @@ export const Canvas = memo(function Canvas() {
     useCallback((s: ReactFlowState) => large && (s.transform[2] < OVERVIEW_ZOOM || crowdedView(nodes, s, MOUNT_AT_MOST)), [large, nodes]),
   );
   const overview = large && (farOrCrowded || fitting);
-  const flowNodes = useMemo(() => (overview ? nodes.map(hidden) : nodes), [nodes, overview]);
-  const flowEdges = overview ? NO_EDGES : edges;
+  // Up close on a large drawing React Flow holds only what is near the view (canvas/nearView.ts).
+  const heldArea = useRef<Area | null>(null);
+  const area = useStore(
+    useCallback(
+      (s: ReactFlowState) => (large && !overview ? (heldArea.current = areaNear(viewArea(s.transform, s.width, s.height), heldArea.current)) : (heldArea.current = null)),
+      [large, overview],
+    ),
+  );
+  const near = useMemo(() => (area ? elementsNear(nodes, edges, area) : null), [nodes, edges, area]);
+  const flowNodes = useMemo(() => (overview ? nodes.map(hidden) : (near?.nodes ?? nodes)), [nodes, overview, near]);
+  const flowEdges = overview ? NO_EDGES : (near?.edges ?? edges);
   const flowStore = useStoreApi<FlowNode, FlowEdge>();
   // Far out the elements are hidden, so React Flow picks nothing: a click and a selection box pick from the overview's layout.
   const layout = useMemo(() => (overview ? overviewLayout(nodes, edges) : null), [overview, nodes, edges]);
@@ -208,10 +214,20 @@ export const Canvas = memo(function Canvas() {
     };
   }, [fitting, rf]);
 
+  // Framed from the drawing's own positions: up close on a large drawing React Flow may not hold the element.
+  const latestNodes = useRef(nodes);
+  latestNodes.current = nodes;
   useEffect(() => {
     if (!frameRequest) return;
-    requestAnimationFrame(() => void rf.fitView({ nodes: frameRequest.nodeIds.map((id) => ({ id })), padding: 0.6, maxZoom: 1.1, duration: 250, includeHiddenNodes: true }));
-  }, [frameRequest, rf]);
+    const ids = new Set(frameRequest.nodeIds);
+    const boxes = latestNodes.current.filter((n) => ids.has(n.id));
+    if (boxes.length === 0) return;
+    const bounds = getNodesBounds(boxes);
+    requestAnimationFrame(() => {
+      const { width, height, minZoom } = flowStore.getState();
+      void rf.setViewport(getViewportForBounds(bounds, width, height, minZoom, 1.1, 0.6), { duration: 250 });
+    });
+  }, [frameRequest, rf, flowStore]);
 
   // Escape during a drag puts the equipment back where it was (the drag was never committed).
   const dragCancelled = useRef(false);
