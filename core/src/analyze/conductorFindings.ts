@@ -119,7 +119,8 @@ function runFindings(ctx: FixedContext, c: Graph['conductors'][number], v: RunVe
   }
   for (let i = 0; v.rule && i < v.tried.length; i++) {
     const t = v.tried[i]!;
-    if (t.outcome !== 'holds' || t.ruleId !== v.rule.id) continue;
+    // The rule first: the trials after the one that holds are made only when read (analyze/trials.ts).
+    if (t.ruleId !== v.rule.id || t.outcome !== 'holds') continue;
     if (hasNeedsAhj(t)) {
       pushRunFinding(out, f, {
         ruleId: t.ruleId,

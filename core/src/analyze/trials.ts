@@ -1,9 +1,9 @@
-import { runRule, shareConditionsOf, type Rule } from '../rules/define';
+import { ruleCitation, runRule, shareConditionsOf, type Rule } from '../rules/define';
 import type { RunFacts } from '../rules/facts';
 import { calculatedLoad, PROTECTION_RULES } from '../rules/index';
 import { carriesLoad, coversCalculatedLoad } from '../rules/calculated-load';
 import { sizeIndexOf } from '../tables/sizes';
-import type { RuleTrial, Verdict } from './types';
+import type { Citation, RuleTrial, Verdict } from './types';
 
 /**
  * Protection trials depend on four numbers only, and a riser repeats the same
@@ -62,23 +62,63 @@ export function triedList(first: RuleTrial, second?: RuleTrial): RuleTrial[] {
   return list;
 }
 
-/** Try rules in code order; every rule is tried and kept, the first that holds names the verdict. */
+/**
+ * Try rules in code order; every rule is kept in the working, the first that holds names the verdict.
+ * The rules after it are kept as trials made when first read (see LaterTrial): the verdict does not
+ * depend on them, and most runs' working is never read beyond the rule that holds.
+ */
 export function firstHolding(rules: readonly Rule[], facts: RunFacts, tried: RuleTrial[]): { verdict: Verdict; rule: Rule | null } {
   // The conditions several rules of the family share (load, damage, the device at the end…) are made once for the run.
   return shareConditionsOf(facts, () => {
-    let winner: Rule | null = null;
     let unknown = false;
-    for (const rule of rules) {
+    for (let i = 0; i < rules.length; i++) {
+      const rule = rules[i]!;
       const t = runRule(rule, facts);
       tried.push(t);
-      if (t.outcome === 'holds' && winner === null) winner = rule;
+      if (t.outcome === 'holds') {
+        for (let k = i + 1; k < rules.length; k++) tried.push(new LaterTrial(rules[k]!, facts));
+        return { verdict: rule.verdict!, rule };
+      }
       if (t.outcome === 'unknown') unknown = true;
     }
-    if (winner) return { verdict: winner.verdict!, rule: winner };
     return { verdict: unknown ? 'incomplete' : 'unprotected', rule: null };
   });
 }
 
+/**
+ * The trial of a rule tried after the one that names a run's verdict, made when its outcome or
+ * conditions are first read. The rules are pure and the classifier has finished writing the run's
+ * facts before any rule is tried, so the trial reads what it would have read then. `facts` is kept
+ * in the open so that comparing two trials compares what they are made of.
+ */
+class LaterTrial implements RuleTrial {
+  readonly ruleId: string;
+  readonly title: string;
+  readonly cites: Citation;
+  readonly facts: RunFacts;
+  readonly #rule: Rule;
+  #made: RuleTrial | undefined;
+  constructor(rule: Rule, facts: RunFacts) {
+    this.ruleId = rule.id;
+    this.title = rule.title;
+    this.cites = ruleCitation(rule, facts.edition);
+    this.facts = facts;
+    this.#rule = rule;
+  }
+  #trial(): RuleTrial {
+    return (this.#made ??= runRule(this.#rule, this.facts));
+  }
+  get outcome(): RuleTrial['outcome'] {
+    return this.#trial().outcome;
+  }
+  get conditions(): RuleTrial['conditions'] {
+    return this.#trial().conditions;
+  }
+  toJSON(): RuleTrial {
+    const { outcome, conditions } = this.#trial();
+    return { ruleId: this.ruleId, title: this.title, cites: this.cites, outcome, conditions };
+  }
+}
 
 /** The calculated-load trial of the run has a failed condition: what its findings need to know first (most runs pass). */
 export function calculatedLoadFails(f: RunFacts): boolean {
