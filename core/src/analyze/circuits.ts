@@ -136,41 +136,55 @@ export function networkSystems(g: Graph, order: Int32Array, count: number, loads
       service[v] = kind === KIND.utility ? 1 : 0;
       continue;
     }
-    const ins = g.inEdges[v]!;
-    if (ins.length !== 1) continue;
-    const e = ins[0]!;
-    const u = e >= 0 ? g.conductorFrom[e]! : g.linkFrom[-e - 1]!;
-    if (u < 0) continue;
-    at[v] = at[u]!;
-    systemId[v] = systemId[u]!;
-    service[v] = kind === KIND.splice || kind === KIND.disconnect ? service[u]! : 0;
+    systemFromSupply(g, { at, service, systemId }, v);
   }
   // Bit flags, so a node reached along several paths is still counted once per kind.
   const bits = new Uint8Array(n);
-  for (let k = count - 1; k >= 0; k--) {
-    const v = order[k]!;
-    const kind = g.nodeKind[v]!;
-    if (kind === KIND.transformer) {
-      // One load of its own phases to the system ahead of it; what it serves is another system.
-      bits[v] = (g.nodes[v] as NodeOfKind<'transformer'>).phases === 1 ? LL : THREE;
-      continue;
-    }
-    if (kind === KIND.load) {
-      // The roll-up has already decided the connection of every load whose current it knows.
-      const known = loads.loadCircuits?.[v];
-      bits[v]! |= known ? connectionBits(known) : loadBits(g.nodes[v] as NodeOfKind<'load'>, loads.voltsLL[v]!, loads.phases[v]!, loads.voltsLN[v]!, at[v]!);
-    }
-    else if (kind === KIND.bus) bits[v]! |= DISTRIBUTION;
-    const outs = g.outEdges[v]!;
-    for (let i = 0; i < outs.length; i++) {
-      const e = outs[i]!;
-      const w = edgeTo(g, e);
-      if (w >= 0) bits[v]! |= bits[w]!;
-    }
-  }
+  for (let k = count - 1; k >= 0; k--) bits[order[k]!] = servesBitsAt(g, loads, at, bits, order[k]!);
   const serves: Serves[] = new Array<Serves>(n);
   for (let v = 0; v < n; v++) serves[v] = SERVES_BY_BITS[bits[v]!]!;
   return { at, serves, service, systemId, servesBits: bits };
+}
+
+/** What node `v` serves as bit flags, from its own kind and the flags of what it supplies (theirs known). Also how incremental.ts updates a supply path. */
+export function servesBitsAt(g: Graph, loads: Pick<SystemLoads, 'voltsLL' | 'phases' | 'voltsLN'> & Partial<Pick<SystemLoads, 'loadCircuits'>>, at: readonly SystemAt[], bits: Uint8Array, v: number): number {
+  const kind = g.nodeKind[v]!;
+  // A transformer is one load of its own phases to the system ahead of it; what it serves is another system.
+  if (kind === KIND.transformer) return (g.nodes[v] as NodeOfKind<'transformer'>).phases === 1 ? LL : THREE;
+  let own = 0;
+  if (kind === KIND.load) {
+    // The roll-up has already decided the connection of every load whose current it knows.
+    const known = loads.loadCircuits?.[v];
+    own = known ? connectionBits(known) : loadBits(g.nodes[v] as NodeOfKind<'load'>, loads.voltsLL[v]!, loads.phases[v]!, loads.voltsLN[v]!, at[v]!);
+  } else if (kind === KIND.bus) own = DISTRIBUTION;
+  const outs = g.outEdges[v]!;
+  for (let i = 0; i < outs.length; i++) {
+    const w = edgeTo(g, outs[i]!);
+    if (w >= 0) own |= bits[w]!;
+  }
+  return own;
+}
+
+/** The flags `servesBits` holds, as the Serves object they stand for. */
+export function servesOfBits(bits: number): Serves {
+  return SERVES_BY_BITS[bits]!;
+}
+
+/**
+ * Node `v` (not a source or transformer) on the system of its one supply, and on the service where it is a
+ * splice or disconnect on service conductors; left unknown with no supply or several. Also how incremental.ts
+ * places a node added below one already placed.
+ */
+export function systemFromSupply(g: Graph, systems: Pick<NetworkSystems, 'at' | 'service' | 'systemId'>, v: number): void {
+  const ins = g.inEdges[v]!;
+  if (ins.length !== 1) return;
+  const e = ins[0]!;
+  const u = e >= 0 ? g.conductorFrom[e]! : g.linkFrom[-e - 1]!;
+  if (u < 0) return;
+  const kind = g.nodeKind[v]!;
+  systems.at[v] = systems.at[u]!;
+  systems.systemId[v] = systems.systemId[u]!;
+  systems.service[v] = kind === KIND.splice || kind === KIND.disconnect ? systems.service[u]! : 0;
 }
 
 function connectionBits(on: Pick<LoadConnection, 'connection'>): number {
@@ -304,26 +318,29 @@ function ownCount(makeup: Pick<CircuitMakeup, 'ungroundedPerSet' | 'hasNeutral' 
 export function conductorCircuits(g: Graph, systems: NetworkSystems): ConductorCircuit[] {
   const memo = new Map<number, ConductorCircuit>();
   const out: ConductorCircuit[] = new Array<ConductorCircuit>(g.conductors.length);
-  for (let ci = 0; ci < g.conductors.length; ci++) {
-    const c = g.conductors[ci]!;
-    const from = g.conductorFrom[ci]!;
-    const to = g.conductorTo[ci]!;
-    const servesBits = to >= 0 ? systems.servesBits[to]! : 0;
-    const service = from >= 0 && systems.service[from] === 1;
-    const nonlinear = c.nonlinearLoad ?? false;
-    // The system object is shared by every node of one source or transformer, so which one it is is part of the key.
-    const key = circuitKey(from >= 0 ? systems.systemId[from]! : 0, servesBits, service, c.neutral, nonlinear, c.currentCarrying);
-    let hit = memo.get(key);
-    if (!hit) {
-      const system = from >= 0 ? systems.at[from]! : UNKNOWN;
-      const serves = SERVES_BY_BITS[servesBits]!;
-      const makeup = circuitMakeup(c, service, system, serves);
-      hit = Object.freeze({ system, serves, service, makeup: Object.freeze(makeup), currentCarrying: Object.freeze(countCurrentCarrying(makeup, nonlinear, c.currentCarrying)) });
-      if (!Number.isNaN(key)) memo.set(key, hit);
-    }
-    out[ci] = hit;
-  }
+  for (let ci = 0; ci < g.conductors.length; ci++) out[ci] = conductorCircuit(g, systems, ci, memo);
   return out;
+}
+
+/** Conductor `ci`'s circuit; equal circuits share the one in `memo`. Also how incremental.ts makes the circuit of a conductor added to the drawing. */
+export function conductorCircuit(g: Graph, systems: Pick<NetworkSystems, 'at' | 'service' | 'systemId' | 'servesBits'>, ci: number, memo: Map<number, ConductorCircuit>): ConductorCircuit {
+  const c = g.conductors[ci]!;
+  const from = g.conductorFrom[ci]!;
+  const to = g.conductorTo[ci]!;
+  const servesBits = to >= 0 ? systems.servesBits[to]! : 0;
+  const service = from >= 0 && systems.service[from] === 1;
+  const nonlinear = c.nonlinearLoad ?? false;
+  // The system object is shared by every node of one source or transformer, so which one it is is part of the key.
+  const key = circuitKey(from >= 0 ? systems.systemId[from]! : 0, servesBits, service, c.neutral, nonlinear, c.currentCarrying);
+  let hit = memo.get(key);
+  if (!hit) {
+    const system = from >= 0 ? systems.at[from]! : UNKNOWN;
+    const serves = SERVES_BY_BITS[servesBits]!;
+    const makeup = circuitMakeup(c, service, system, serves);
+    hit = Object.freeze({ system, serves, service, makeup: Object.freeze(makeup), currentCarrying: Object.freeze(countCurrentCarrying(makeup, nonlinear, c.currentCarrying)) });
+    if (!Number.isNaN(key)) memo.set(key, hit);
+  }
+  return hit;
 }
 
 const NEUTRAL_INDEX: Readonly<Record<string, number>> = { auto: 0, yes: 1, no: 2 };

@@ -104,13 +104,7 @@ export function classifyRunsKeeping(ctx: FactsContext): { verdicts: RunVerdict[]
   });
   for (let k = 0; k < count; k++) {
     const v = order[k]!;
-    const ins = g.inEdges[v]!;
-    if (ins.length === 0) walk.nodeSupply[v] = { kind: 'none', node: v };
-    else if (ins.length > 1) walk.nodeSupply[v] = { kind: 'several', node: v };
-    else {
-      const e = ins[0]!;
-      walk.nodeSupply[v] = e >= 0 ? pointOnRun(walk, runs.runOf[e]!) : supplyAt(walk, edgeFrom(g, e));
-    }
+    walk.nodeSupply[v] = nodeSupplyOf(walk, v);
     const outs = g.outEdges[v]!;
     for (let i = 0; i < outs.length; i++) {
       const e = outs[i]!;
@@ -140,6 +134,21 @@ export function rejudgeRuns(ctx: FactsContext, kept: KeptWalk, verdicts: RunVerd
     const members = ctx.runs.members[r]!;
     verdicts[r] = judgeRun(toJudge(walk, r, supplyAt(walk, g.conductorFrom[members[0]!]!), g.conductorTo[members[members.length - 1]!]!));
   }
+}
+
+/** What supplies node `v`, read against a kept walk: for a node added below what the walk has seen (incremental.ts). */
+export function keptNodeSupply(ctx: FactsContext, kept: KeptWalk, v: number): Supply {
+  return nodeSupplyOf(newWalk(ctx, { nodeSupply: kept.nodeSupply as Supply[], results: [], secondariesOf: kept.secondariesOf, below: kept.below, sources: [], onRuns: [] }), v);
+}
+
+/** What supplies node `v`: nothing, several supplies, a point on the run arriving at it, or what supplies the node bus-linked into it. */
+function nodeSupplyOf(walk: Walk, v: number): Supply {
+  const g = walk.ctx.graph;
+  const ins = g.inEdges[v]!;
+  if (ins.length === 0) return { kind: 'none', node: v };
+  if (ins.length > 1) return { kind: 'several', node: v };
+  const e = ins[0]!;
+  return e >= 0 ? pointOnRun(walk, walk.ctx.runs.runOf[e]!) : supplyAt(walk, edgeFrom(g, e));
 }
 
 /**
@@ -414,18 +423,18 @@ function primarySupply(walk: Walk, tx: number): { device: number; run: RunVerdic
 /** For each node: is there an OCPD or transformer anywhere on its load side? Decides feeder vs branch circuit. */
 function ocpdBelow(g: Graph, order: Int32Array, count: number): Uint8Array {
   const below = new Uint8Array(g.nodes.length);
-  for (let k = count - 1; k >= 0; k--) {
-    const v = order[k]!;
-    const outs = g.outEdges[v]!;
-    for (let i = 0; i < outs.length; i++) {
-      const e = outs[i]!;
-      const w = e >= 0 ? g.conductorTo[e]! : g.linkTo[-e - 1]!;
-      const kind = g.nodeKind[w]!;
-      if (below[w] || isOcpdKind(kind) || kind === KIND.transformer) {
-        below[v] = 1;
-        break;
-      }
-    }
-  }
+  for (let k = count - 1; k >= 0; k--) below[order[k]!] = ocpdBelowAt(g, below, order[k]!);
   return below;
+}
+
+/** `below` of node `v` from what it supplies (theirs known): 1 when an OCPD or transformer lies on its load side. Also how incremental.ts updates a supply path. */
+export function ocpdBelowAt(g: Graph, below: Uint8Array, v: number): number {
+  const outs = g.outEdges[v]!;
+  for (let i = 0; i < outs.length; i++) {
+    const e = outs[i]!;
+    const w = e >= 0 ? g.conductorTo[e]! : g.linkTo[-e - 1]!;
+    const kind = g.nodeKind[w]!;
+    if (below[w] || isOcpdKind(kind) || kind === KIND.transformer) return 1;
+  }
+  return 0;
 }

@@ -78,27 +78,7 @@ export function rollUpLoads(g: Graph, order: Int32Array, count: number): SystemL
       voltsLL[v] = node.secondaryVoltsLL;
       phases[v] = node.phases;
       voltsLN[v] = secondaryNeutralV(node);
-    } else {
-      // Several supplies that agree on the system give it; supplies that disagree leave it unknown.
-      let first = true;
-      const ins = g.inEdges[v]!;
-      for (let i = 0; i < ins.length; i++) {
-        const e = ins[i]!;
-        const u = edgeFrom(g, e);
-        const ok = u >= 0 && voltsLL[u]! > 0;
-        if (first && ok) {
-          voltsLL[v] = voltsLL[u]!;
-          phases[v] = phases[u]!;
-          voltsLN[v] = voltsLN[u]!;
-        } else if (!ok || voltsLL[u] !== voltsLL[v] || phases[u] !== phases[v]) {
-          voltsLL[v] = Number.NaN;
-          voltsLN[v] = Number.NaN;
-          phases[v] = 0;
-          break;
-        }
-        first = false;
-      }
-    }
+    } else systemFromSupplies(g, { voltsLL, phases, voltsLN }, v);
   }
   const vaNoncontinuous = new Float64Array(n);
   const vaContinuous = new Float64Array(n);
@@ -127,6 +107,32 @@ export function rollUpLoads(g: Graph, order: Int32Array, count: number): SystemL
     rollUpAt(g, s, v);
   }
   return s;
+}
+
+/**
+ * The system at node `v` (not a source or transformer) from its supplies, theirs known: several that agree
+ * give it, supplies that disagree leave it unknown (NaN). Also how incremental.ts places a node added to the drawing.
+ */
+export function systemFromSupplies(g: Graph, s: Pick<SystemLoads, 'voltsLL' | 'phases' | 'voltsLN'>, v: number): void {
+  const { voltsLL, phases, voltsLN } = s;
+  let first = true;
+  const ins = g.inEdges[v]!;
+  for (let i = 0; i < ins.length; i++) {
+    const e = ins[i]!;
+    const u = edgeFrom(g, e);
+    const ok = u >= 0 && voltsLL[u]! > 0;
+    if (first && ok) {
+      voltsLL[v] = voltsLL[u]!;
+      phases[v] = phases[u]!;
+      voltsLN[v] = voltsLN[u]!;
+    } else if (!ok || voltsLL[u] !== voltsLL[v] || phases[u] !== phases[v]) {
+      voltsLL[v] = Number.NaN;
+      voltsLN[v] = Number.NaN;
+      phases[v] = 0;
+      break;
+    }
+    first = false;
+  }
 }
 
 /**

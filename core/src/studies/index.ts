@@ -104,20 +104,7 @@ export function studyNetwork(net: StudiedNetwork, taps: readonly TapRun[]): Stud
     if (f === NO_RATING) noRating.push(g.nodes[v]!.id);
     else if (f) findings.push(f);
   }
-  if (noRating.length > 0) {
-    findings.push({
-      id: `${interruptingRating.id}:project:no-rating`,
-      ruleId: interruptingRating.id,
-      messageId: 'no-rating',
-      severity: 'info',
-      cites: { code: 'NEC', edition, section: '110.9' },
-      subject: { kind: 'project' },
-      related: noRating.slice(0, MAX_RELATED).map((id) => ({ kind: 'node', id })),
-      message: `${noRating.length} breaker${noRating.length === 1 ? '' : 's'} or fuse${noRating.length === 1 ? '' : 's'} with a known available fault current ha${noRating.length === 1 ? 's' : 've'} no interrupting rating, so 110.9 is not checked there: enter interruptingKA.`,
-      data: { count: noRating.length },
-      fixes: [],
-    });
-  }
+  if (noRating.length > 0) findings.push(noRatingFinding(edition, noRating.length, noRating.slice(0, MAX_RELATED)));
 
   // Conductor withstand of taps and secondaries.
   const withstand: WithstandResult[] = [];
@@ -152,6 +139,25 @@ export function studyNetwork(net: StudiedNetwork, taps: readonly TapRun[]): Stud
   lazyTable(report, 'faults', () => faultTable(g, fault), [fault]);
   return { report, findings, fault, drop };
 }
+
+/** The project's finding that counts the breakers and fuses with a known fault current and no interrupting rating, naming the first `MAX_RELATED` (`first`, in node order). */
+export function noRatingFinding(edition: CodeEdition, count: number, first: readonly NodeId[]): Finding {
+  return {
+    id: NO_RATING_ID,
+    ruleId: interruptingRating.id,
+    messageId: 'no-rating',
+    severity: 'info',
+    cites: { code: 'NEC', edition, section: '110.9' },
+    subject: { kind: 'project' },
+    related: first.map((id) => ({ kind: 'node', id })),
+    message: `${count} breaker${count === 1 ? '' : 's'} or fuse${count === 1 ? '' : 's'} with a known available fault current ha${count === 1 ? 's' : 've'} no interrupting rating, so 110.9 is not checked there: enter interruptingKA.`,
+    data: { count },
+    fixes: [],
+  };
+}
+/** The id of `noRatingFinding`; how many it names at most. */
+export const NO_RATING_ID = `${interruptingRating.id}:project:no-rating`;
+export const NO_RATING_MAX_RELATED = MAX_RELATED;
 
 /** The short-circuit table: a row per node, in file order. */
 function faultTable(g: Graph, fault: FaultStudy): NodeFault[] {

@@ -80,6 +80,10 @@ export interface FaultStudy {
 
 const SQRT3 = Math.sqrt(3);
 
+/** The notes of a conductor counted as zero impedance: without a size, and without a length or a Table 9 value. */
+const NO_SIZE_NOTE = 'A conductor without a size has no known impedance and counts as zero: the fault current below it is an upper bound ("at most"); enter the size for the value.';
+const NO_IMPEDANCE_NOTE = 'A conductor without a length or a Chapter 9 Table 9 value counts as zero impedance: the fault current below it is an upper bound ("at most").';
+
 /** The three-phase (or single-phase line-to-line) bolted fault at every node; see FaultStudy. `cols` are what it reads of the nodes and conductors. */
 export function studyFaultCurrent(g: Graph, order: Int32Array, count: number, cols: StudyColumns = studyColumns(g)): FaultStudy {
   const n = g.nodes.length;
@@ -150,8 +154,7 @@ export function studyFaultCurrent(g: Graph, order: Int32Array, count: number, co
       if (Number.isNaN((rOhmPerKft[e] = cols.rOhmPerKft[e]!)) || cols.noLength[e] === 1) {
         known = false;
         upperBound[v] = 1;
-        if (cols.noSize[e] === 1) notes.add('A conductor without a size has no known impedance and counts as zero: the fault current below it is an upper bound ("at most"); enter the size for the value.');
-        else notes.add('A conductor without a length or a Chapter 9 Table 9 value counts as zero impedance: the fault current below it is an upper bound ("at most").');
+        notes.add(cols.noSize[e] === 1 ? NO_SIZE_NOTE : NO_IMPEDANCE_NOTE);
       }
     }
     const t = impedanceAt(g, steps, v, u, e, known, known ? cols.lengthFt[e]! : 0, known ? cols.parallelSets[e]! : 1);
@@ -189,8 +192,8 @@ export function studyFaultCurrent(g: Graph, order: Int32Array, count: number, co
   const lineToGroundKA = new Float64Array(n).fill(Number.NaN);
   const study: FaultStudy = { kA, xOverR, r, x, loop, voltsLL, motorKA, lineToGroundKA, upperBound, unknownWhy, parent, parentEdge, stepR, stepX, zone, zoneMotorA, rOhmPerKft, xOhmPerKft, notes: [] };
   for (let v = 0; v < n; v++) {
-    if (!unknownWhy[v] && infinite[v]) unknownWhy[v] = `the source ahead of ${g.nodes[v]!.id} has no available fault current (infinite bus) and no transformer limits it; enter availableFaultKA`;
-    if (!unknownWhy[v] && Number.isNaN(r[v]!)) unknownWhy[v] = `${g.nodes[v]!.id} is not reached from a source`;
+    if (!unknownWhy[v] && infinite[v]) unknownWhy[v] = infiniteBusWhy(g.nodes[v]!.id);
+    if (!unknownWhy[v] && Number.isNaN(r[v]!)) unknownWhy[v] = notReachedWhy(g.nodes[v]!.id);
     if (!unknownWhy[v]) figuresAt(g, study, v, atTerminals[v] === 1);
   }
   let lineToGround = false;
@@ -200,6 +203,10 @@ export function studyFaultCurrent(g: Graph, order: Int32Array, count: number, co
   study.notes = [...notes];
   return study;
 }
+
+/** Why the fault current at node `id` is unknown: an infinite bus ahead with no transformer; no source reached. */
+const infiniteBusWhy = (id: string) => `the source ahead of ${id} has no available fault current (infinite bus) and no transformer limits it; enter availableFaultKA`;
+const notReachedWhy = (id: string) => `${id} is not reached from a source`;
 
 /** kA, X/R, motor contribution and (at a transformer's terminals) line-to-ground at node `v`, from its R and X. */
 function figuresAt(g: Graph, f: FaultStudy, v: number, atTerminals: boolean): void {
@@ -311,6 +318,34 @@ export function restepBelow(g: Graph, f: FaultStudy, c: number, below: readonly 
     impedanceAt(g, f, v, f.parent[v]!, e, known, known ? c.lengthFt! : 0, known ? c.parallelSets : 1);
     if (!f.unknownWhy[v]) figuresAt(g, f, v, atTransformerTerminals(g, f, v));
   }
+}
+
+/**
+ * Node `v` added to the drawing below node `u` (its one supply, through edge `e`; see
+ * analyze/incremental.ts): its place on the supply tree, R, X and figures, or why they are unknown,
+ * as the whole study finds them. `v` is neither a source nor a transformer and supplies nothing, so
+ * nothing else moves; the arrays are the study's own, one longer. Returns the note the study then
+ * makes (a conductor counted as zero impedance), or null.
+ */
+export function stepAppended(g: Graph, f: FaultStudy, v: number, u: number, e: number): string | null {
+  f.parent[v] = u;
+  f.parentEdge[v] = e;
+  f.zone[v] = f.zone[u]!;
+  f.upperBound[v] = f.upperBound[u]!;
+  // What is unknown above is unknown here: an infinite bus or no source named for this node, any other reason as it stands.
+  const whyU = f.unknownWhy[u]!;
+  const id = g.nodes[u]!.id;
+  f.unknownWhy[v] = whyU === infiniteBusWhy(id) ? infiniteBusWhy(g.nodes[v]!.id) : whyU === notReachedWhy(id) ? notReachedWhy(g.nodes[v]!.id) : whyU;
+  const node = g.nodes[v]!;
+  // Only a single-phase transformer or load starts a single-phase loop.
+  f.loop[v] = node.kind === 'load' && node.phases === 1 ? 1 : f.loop[u]!;
+  f.voltsLL[v] = f.voltsLL[u]!;
+  const c = e >= 0 ? g.conductors[e]! : undefined;
+  const known = c === undefined || readConductor(c, e, f.rOhmPerKft, f.xOhmPerKft);
+  if (!known) f.upperBound[v] = 1;
+  impedanceAt(g, f, v, u, e, known, known && c ? c.lengthFt! : 0, known && c ? c.parallelSets : 1);
+  if (!f.unknownWhy[v]) figuresAt(g, f, v, atTransformerTerminals(g, f, v));
+  return known ? null : c!.size === undefined ? NO_SIZE_NOTE : NO_IMPEDANCE_NOTE;
 }
 
 /** A transformer, or equipment bus-linked alone to one (where the line-to-ground figure is given). */

@@ -72,7 +72,7 @@ const SQRT3 = Math.sqrt(3);
  * (the grounded conductor carries the return); a 2-wire system's circuit 2 over its voltage; a line-to-line
  * or 3-wire single-phase circuit 2 over V_LL (balanced: the neutral carries no current).
  */
-function isThreePhase(inp: Pick<VoltageDropInputs, 'circuits'>, c: number): boolean {
+export function isThreePhase(inp: Pick<VoltageDropInputs, 'circuits'>, c: number): boolean {
   const kind = inp.circuits[c]!.makeup.kind;
   return kind === 'three-phase-4w' || kind === 'three-phase-3w';
 }
