@@ -43,7 +43,7 @@ import { cpus, loadavg } from 'node:os';
 import { resolve } from 'node:path';
 import { setFlagsFromString } from 'node:v8';
 import { runInNewContext } from 'node:vm';
-import { analyze, createAnalysis, loadProject, toJsonReport, type Project } from '../src/index';
+import { analyze, conductor as conductorSchema, createAnalysis, equipmentNode, loadProject, toJsonReport, type Project } from '../src/index';
 import { buildCli } from '../../scripts/build-cli.mjs';
 import { generateProject } from './generateProject';
 import { printStudiesBench } from './studies';
@@ -272,6 +272,27 @@ const lengthEdit =
     return { ...project, conductors: project.conductors.map((x, j) => (j === i ? { ...c, lengthFt: (c.lengthFt ?? 0) + (k % 2 ? -1 : 1) } : x)) };
   };
 
+/** The `k`th (spread over the drawing) of the nodes `pick` chooses. */
+const spread = (project: Project, k: number, pick: (n: Project['nodes'][number], i: number) => boolean): Project['nodes'][number] => {
+  const chosen = project.nodes.filter(pick);
+  return chosen[(k * 7919) % chosen.length]!;
+};
+
+/** The editor's "add equipment" below `from`: the new node with its kind's defaults and a conductor (sized or, as the editor draws it, not) or a bus link. */
+const addBelow = (project: Project, from: Project['nodes'][number], node: Record<string, unknown> & { kind: string }, how: 'link' | 'sized' | 'unsized', k: number): Project => {
+  const id = `bench-${node.kind}-${k}`;
+  const added = equipmentNode.parse({ ...node, id });
+  if (how === 'link') return { ...project, nodes: [...project.nodes, added], busLinks: [...project.busLinks, { id: `bench-bl-${k}` as Project['busLinks'][number]['id'], from: from.id, to: added.id }] };
+  const c = conductorSchema.parse({ id: `bench-c-${k}`, from: from.id, to: id, ...(how === 'sized' ? { size: '12', lengthFt: 60 } : {}) });
+  return { ...project, nodes: [...project.nodes, added], conductors: [...project.conductors, c] };
+};
+
+/** A branch-circuit breaker: bus-linked from a panelboard, one conductor out. */
+const branchBreaker = (project: Project) => {
+  const linked = new Set(project.busLinks.map((l) => l.to as string));
+  return (n: Project['nodes'][number]) => n.kind === 'breaker' && linked.has(n.id) && n.ratingA === 20;
+};
+
 const RECHECK_EDITS: { kind: string; edit: BenchEdit }[] = [
   { kind: 'branch-circuit length', edit: lengthEdit((c) => c.role === 'branch') },
   // Feeders to panelboards, transformers and distribution boards: the fault current and drops below them move.
@@ -297,6 +318,34 @@ const RECHECK_EDITS: { kind: string; edit: BenchEdit }[] = [
       if (n.kind !== 'breaker') return project;
       const ratingA = k % 2 ? n.ratingA! - 5 : n.ratingA! + 5;
       return { ...project, nodes: project.nodes.map((x, j) => (j === i ? { ...n, ratingA } : x)) };
+    },
+  },
+  // The editor's structural edits (web/src/editor/commands/): equipment added below a panelboard or breaker, a connection, a deletion.
+  {
+    kind: 'add breaker in a panelboard (bus link)',
+    edit: (project, _session, k) => addBelow(project, spread(project, k, (n) => n.kind === 'bus' && n.busType === 'panelboard'), { kind: 'breaker', ratingA: 20 }, 'link', k),
+  },
+  {
+    kind: 'add load below a breaker (sized conductor)',
+    edit: (project, _session, k) => addBelow(project, spread(project, k, branchBreaker(project)), { kind: 'load', kva: 1, powerFactor: 0.9, continuous: false, phases: 1 }, 'sized', k),
+  },
+  {
+    kind: 'add load below a breaker (conductor without size, as drawn)',
+    edit: (project, _session, k) => addBelow(project, spread(project, k, branchBreaker(project)), { kind: 'load', kva: 1, powerFactor: 0.9, continuous: false, phases: 1 }, 'unsized', k),
+  },
+  {
+    kind: 'connect a conductor between equipment drawn',
+    edit: (project, _session, k) => {
+      const from = spread(project, k, branchBreaker(project));
+      const to = spread(project, k + 1, (n) => n.kind === 'load');
+      return { ...project, conductors: [...project.conductors, conductorSchema.parse({ id: `bench-connect-${k}`, from: from.id, to: to.id, size: '12', lengthFt: 40 })] };
+    },
+  },
+  {
+    kind: 'delete a branch circuit (load and its conductor)',
+    edit: (project, _session, k) => {
+      const gone = spread(project, k, (n) => n.kind === 'load').id;
+      return { ...project, nodes: project.nodes.filter((n) => n.id !== gone), conductors: project.conductors.filter((c) => c.to !== gone) };
     },
   },
 ];

@@ -1,35 +1,37 @@
-import type { Conductor, EquipmentNode, NodeOfKind, Project } from '../model/schema';
+import type { Conductor, EquipmentNode, NodeId, NodeOfKind, Project } from '../model/schema';
 import { conductorReport, sharedParts, findingIdsByConductor } from './conductorReports';
 import { conductorFindingsOf } from './conductorFindings';
 import { conductorAmpacity, terminalTempOf } from './ampacities';
-import { judgeFedByOcpd, rejudgeRuns, type KeptWalk, type RunVerdict } from './classify';
+import { judgeFedByOcpd, keptNodeSupply, ocpdBelowAt, rejudgeRuns, type KeptWalk, type RunVerdict } from './classify';
+import { conductorCircuit, networkSystems, servesBitsAt, systemFromSupply, type ConductorCircuit, type NetworkSystems } from './circuits';
 import { fixesOfRun } from './fixes';
-import { loadCircuit, loadConnection, rollUpAt } from './loads';
-import { runFactsOf } from './runFacts';
+import { loadCircuit, loadConnection, rollUpAt, systemFromSupplies, type SystemLoads } from './loads';
+import { runFactsOf, siteFacts } from './runFacts';
 import { assumptionsFor, countsOf, runAnalysis, type AnalysisState } from './analyze';
 import type { FixedContext } from './context';
 import type { AnalysisReport, Finding } from './types';
 import type { RunFacts } from '../rules/facts';
-import { hasImpedance, restepBelow } from '../studies/faultCurrent/faultCurrent';
-import { redropBelow, redropPath } from '../studies/voltageDrop/voltageDrop';
-import { conductorDropRow, faultDutyFinding, NO_RATING, nodeFault, redoDropFindings, RELIES_ON_DEVICE_AHEAD, seriesByLoadSide, tapWithstand, voltageDropInputs, type ConductorDrop, type NodeFault, type StudiesReport, type WithstandResult } from '../studies/index';
+import { hasImpedance, restepBelow, stepAppended, type FaultStudy } from '../studies/faultCurrent/faultCurrent';
+import { isThreePhase, redropBelow, redropPath, type VoltageDropStudy } from '../studies/voltageDrop/voltageDrop';
+import { conductorDropRow, faultDutyFinding, NO_RATING, NO_RATING_ID, NO_RATING_MAX_RELATED, noRatingFinding, nodeFault, redoDropFindings, RELIES_ON_DEVICE_AHEAD, seriesByLoadSide, tapWithstand, voltageDropInputs, type ConductorDrop, type NodeFault, type StudiesReport, type WithstandResult } from '../studies/index';
 import { lazyTable } from '../studies/lazyTable';
 import { conductorWithstand } from '../rules/conductor-withstand';
 import { equipmentSccr } from '../rules/equipment-sccr';
 import { interruptingRating } from '../rules/interrupting-rating';
-import { edgeFrom, edgeTo, KIND, orderPositions, type Graph } from '../topology/graph';
-import { isPassThroughJoint } from '../topology/runs';
+import { edgeFrom, edgeTo, KIND, orderPositions, topologicalOrder, type Graph } from '../topology/graph';
+import { isJoint, isPassThroughJoint } from '../topology/runs';
 import { voltageDropRule } from '../rules/voltage-drop';
 import { transformerProtection } from '../rules/transformer-protection';
 import { panelboardProtection } from '../rules/panelboard-protection';
 import { isOcpd } from './equipment';
 import { transformerFindingOf } from './equipmentFindings';
 import { panelboardFindingOf } from './panelboardFindings';
+import { topologyFindings } from './topologyFindings';
 
 /** How the last re-check was done: only what the edit can change, or the whole analysis (and why). */
 export type UpdateMode =
   | { mode: 'incremental'; conductorId: string }
-  | { mode: 'incremental'; nodeId: string; edit: 'load' | 'device' | 'layout' }
+  | { mode: 'incremental'; nodeId: string; edit: 'load' | 'device' | 'layout' | 'added' }
   | { mode: 'full'; reason: string }
   /** `update` was given the project it already had. */
   | { mode: 'unchanged' };
@@ -57,8 +59,11 @@ export interface AnalysisSession {
  *   unchanged: the load roll-up along its supply path, the runs on that path (facts, verdicts,
  *   fixes, findings, report lines) and the voltage drops below the path;
  * - one OCPD's rating or type (`recheckDevice`), or its interrupting rating alone (its 110.9 finding);
- * - a node moved or its notes edited: nothing the analysis reads.
- * Any other edit, and any edit whose reach it cannot bound (a change of topology, of the project
+ * - a node moved or its notes edited: nothing the analysis reads;
+ * - one node added below a node already drawn with the conductor or bus link that supplies it (the
+ *   editor's "add equipment"): the new node and run, the loads, drops and runs along its supply path
+ *   (`recheckAppended`).
+ * Any other edit, and any edit whose reach it cannot bound (any other change of topology, of the project
  * settings, of a service conductor, of a circuit's makeup, a conductor gaining or losing its
  * impedance, one that adds or removes a study note, or past a quarter of the runs or nodes), runs
  * the whole analysis.
@@ -68,6 +73,7 @@ export function createAnalysis(project: Project): AnalysisSession {
   let state = runAnalysis(project);
   let current = project;
   let last: UpdateMode = { mode: 'full', reason: 'first analysis' };
+  const kept: KeptShape = { shape: null };
   return {
     get report() {
       return state.report;
@@ -80,7 +86,7 @@ export function createAnalysis(project: Project): AnalysisSession {
         last = { mode: 'unchanged' };
         return state.report;
       }
-      const result = recheck(state, current, next);
+      const result = recheck(state, current, next, kept);
       if (typeof result === 'string') {
         state = runAnalysis(next);
         last = { mode: 'full', reason: result };
@@ -95,14 +101,22 @@ export function createAnalysis(project: Project): AnalysisSession {
 }
 
 /** The state after the edit from `prev` to `next` re-checked on its own, or why it cannot be. */
-function recheck(state: AnalysisState, prev: Project, next: Project): { state: AnalysisState; mode: UpdateMode } | string {
+function recheck(state: AnalysisState, prev: Project, next: Project, kept: KeptShape): { state: AnalysisState; mode: UpdateMode } | string {
   let conductorsChanged = false;
   let nodesChanged = false;
+  let linksChanged = false;
   for (const key of new Set([...Object.keys(prev), ...Object.keys(next)]) as Set<keyof Project>) {
     if (prev[key] === next[key]) continue;
     if (key === 'conductors') conductorsChanged = true;
     else if (key === 'nodes') nodesChanged = true;
+    else if (key === 'busLinks') linksChanged = true;
     else return `${key} changed`;
+  }
+  if (linksChanged || prev.nodes.length !== next.nodes.length || prev.conductors.length !== next.conductors.length) {
+    const leaf = appendedLeaf(state, prev, next);
+    if (typeof leaf === 'string') return leaf;
+    const result = recheckAppended(state, next, leaf, kept);
+    return typeof result === 'string' ? result : { state: result, mode: { mode: 'incremental', nodeId: next.nodes[leaf.node]!.id, edit: 'added' } };
   }
   if (conductorsChanged && nodesChanged) return 'conductors and nodes changed';
   if (conductorsChanged) {
@@ -580,12 +594,13 @@ function rejudgeOnce(state: AnalysisState, base: Omit<FixedContext, 'verdicts' |
   const facts: RunFacts[] = [];
   let secondariesOf = state.walk.secondariesOf;
   for (const r of ordered) {
-    const old = prev.verdicts[r]!.facts;
+    // A run added to the drawing (recheckAppended) has no verdict yet.
+    const old = prev.verdicts[r]?.facts;
     if (at(r) < 0) return 'a run is not reached from a supply';
-    if (old.conductorIds.length !== runs.members[r]!.length) return `${old.conductorIds[0]} is judged with the run it continues`;
-    facts[r] = runFactsOf(base, r, old.site);
+    if (old && old.conductorIds.length !== runs.members[r]!.length) return `${old.conductorIds[0]} is judged with the run it continues`;
+    facts[r] = runFactsOf(base, r, old?.site ?? siteFacts(base.project));
     const list = secondariesOf.get(fromOf(r));
-    if (list) {
+    if (list && old) {
       // A transformer's primary reads the facts of its secondaries (240.21(B)(3)).
       const k = list.indexOf(old);
       if (k < 0) return 'a secondary run is judged with another';
@@ -598,10 +613,12 @@ function rejudgeOnce(state: AnalysisState, base: Omit<FixedContext, 'verdicts' |
   rejudgeRuns({ ...base, facts }, walk, verdicts, ordered);
   const reached: number[] = [];
   for (const r of ordered) {
-    const a = prev.verdicts[r]!;
+    const a = prev.verdicts[r];
     const b = verdicts[r]!;
     const members = runs.members[r]!;
-    if (b.facts.conductorIds.length !== members.length) return `${a.facts.conductorIds[0]} is now judged with the run it continues`;
+    if (b.facts.conductorIds.length !== members.length) return `${b.facts.conductorIds[0]} is now judged with the run it continues`;
+    // A new run supplies nothing yet.
+    if (!a) continue;
     // What is supplied through a run reads its verdict, and of an incomplete one whether only its size is missing (classify.ts isUnsizedOnOcpd).
     const sameUnsized = (a.facts.size === null) === (b.facts.size === null) && (a.facts.supplyOcpdA === null) === (b.facts.supplyOcpdA === null);
     if (a.verdict === b.verdict && a.rule === b.rule && a.family === b.family && a.deviceNode === b.deviceNode && a.generatorNode === b.generatorNode && sameUnsized) continue;
@@ -627,10 +644,12 @@ function rewithstand(state: AnalysisState, ctx: FixedContext, rs: readonly numbe
   const old = state.report.findings.slice(state.studyFindingStart);
   const before = state.ctx.verdicts;
   const g0 = state.ctx.graph;
-  const withstands = (r: number) => RELIES_ON_DEVICE_AHEAD.has(before[r]!.verdict) || RELIES_ON_DEVICE_AHEAD.has(ctx.verdicts[r]!.verdict);
+  // A run added to the drawing (recheckAppended) has no verdict before.
+  const withstands = (r: number) => (before[r] !== undefined && RELIES_ON_DEVICE_AHEAD.has(before[r].verdict)) || RELIES_ON_DEVICE_AHEAD.has(ctx.verdicts[r]!.verdict);
   const changed = (r: number) => {
-    const a = before[r]!;
+    const a = before[r];
     const b = ctx.verdicts[r]!;
+    if (!a) return true;
     if (RELIES_ON_DEVICE_AHEAD.has(a.verdict) !== RELIES_ON_DEVICE_AHEAD.has(b.verdict) || a.deviceNode !== b.deviceNode) return true;
     if (b.deviceNode >= 0 && g0.nodes[b.deviceNode] !== ctx.graph.nodes[b.deviceNode]) return true;
     return ctx.runs.members[r]!.some((ci) => g0.conductors[ci] !== ctx.graph.conductors[ci]);
@@ -708,7 +727,7 @@ function withstandRunsOf(state: AnalysisState, table: readonly WithstandResult[]
  * count in the project's "no interrupting rating" finding does not change (a fault current known
  * stays known).
  */
-function refaultDuty(ctx: FixedContext, fault: AnalysisState['studies']['fault'], section: readonly Finding[], nodes: readonly number[]): readonly Finding[] {
+function refaultDuty(ctx: FixedContext, fault: AnalysisState['studies']['fault'], section: readonly Finding[], nodes: readonly number[], added: readonly number[] = []): readonly Finding[] {
   const g = ctx.graph;
   const redo = new Set<number>();
   for (const v of nodes) {
@@ -726,12 +745,21 @@ function refaultDuty(ctx: FixedContext, fault: AnalysisState['studies']['fault']
     if (!redo.has(v)) found.push([v, f]);
   }
   const series = seriesByLoadSide(ctx.project);
+  const unrated: NodeId[] = [];
   for (const v of redo) {
     const f = faultDutyFinding(ctx.edition, g, fault, series, v);
     if (f !== null && f !== NO_RATING) found.push([v, f]);
+    else if (f === NO_RATING && added.includes(v)) unrated.push(g.nodes[v]!.id);
   }
   found.sort((a, b) => a[0] - b[0]);
-  return [...found.map((x) => x[1]), ...section.slice(end)];
+  const rest = section.slice(end);
+  if (unrated.length > 0) {
+    // A device added without a rating joins the project's count; it comes last in node order, so after those it names.
+    const counted = rest[0]?.id === NO_RATING_ID ? rest.shift()! : null;
+    const names = [...(counted?.related ?? []).flatMap((r) => (r.kind === 'node' ? [r.id] : [])), ...unrated].slice(0, NO_RATING_MAX_RELATED);
+    rest.unshift(noRatingFinding(ctx.edition, (counted ? Number(counted.data.count) : 0) + unrated.length, names));
+  }
+  return [...found.map((x) => x[1]), ...rest];
 }
 
 /**
@@ -763,6 +791,10 @@ interface Moved {
   withstandRuns?: readonly number[];
   /** Every conductor and node that may be marked in `conductorMoved`, `nodeMoved` (absent: any may be). */
   among?: DropsAmong;
+  /** Nodes new to the drawing (among `faultNodes`): a breaker or fuse without an interrupting rating counts in the project's 110.9 finding. */
+  addedNodes?: readonly number[];
+  /** The shape of the network changed: its findings (loose equipment, dangling ends…) are made again. */
+  topology?: boolean;
 }
 
 /** The conductors and nodes whose drop figures an edit may have moved (the voltage-drop warnings looked at again). */
@@ -790,8 +822,8 @@ function reported(state: AnalysisState, judged: Rejudged, moved: Moved, studiesR
   const nodeMoved = moved.nodeMoved ?? new Uint8Array(graph.nodes.length);
   const extra = moved.withstandRuns ?? [];
   const withstood = rewithstand(state, ctx, judged.runs, extra, studiesReport);
-  const studySection = moved.faultNodes ? refaultDuty(ctx, state.studies.fault, withstood.findings, moved.faultNodes) : withstood.findings;
-  const { findings, conductorFindingStart, studyFindingStart } = spliceFindings(state, ctx, own, conductorMoved, nodeMoved, { transformers, panelboards: moved.panelboards ?? [] }, studySection, moved.among);
+  const studySection = moved.faultNodes ? refaultDuty(ctx, state.studies.fault, withstood.findings, moved.faultNodes, moved.addedNodes) : withstood.findings;
+  const { findings, conductorFindingStart, studyFindingStart } = spliceFindings(state, ctx, own, conductorMoved, nodeMoved, { transformers, panelboards: moved.panelboards ?? [], topology: moved.topology ?? false }, studySection, moved.among);
   const { studies } = withstood;
 
   // Report lines: the runs', those whose withstand was judged again, and those whose voltage-drop warning came or went.
@@ -815,10 +847,11 @@ function reported(state: AnalysisState, judged: Rejudged, moved: Moved, studiesR
   for (const ci of lines) conductors[ci] = conductorReport(ctx, ci, ids.get(graph.conductors[ci]!.id), shared);
   const byVerdict = { ...old.counts.byVerdict };
   for (const ci of own.keys()) {
-    byVerdict[old.conductors[ci]!.verdict]--;
+    // A conductor added to the drawing (recheckAppended) had no line.
+    if (ci < old.conductors.length) byVerdict[old.conductors[ci]!.verdict]--;
     byVerdict[conductors[ci]!.verdict]++;
   }
-  const report: AnalysisReport = { ...old, conductors, findings, studies, counts: { ...old.counts, byVerdict, bySeverity: countsOf([], findings).bySeverity } };
+  const report: AnalysisReport = { ...old, conductors, findings, studies, counts: { conductors: conductors.length, byVerdict, bySeverity: countsOf([], findings).bySeverity } };
   return { ctx, studies: { ...state.studies, report: studies }, walk, conductorFindingStart, studyFindingStart, report };
 }
 
@@ -833,7 +866,7 @@ function spliceFindings(
   own: ReadonlyMap<number, Finding[]>,
   conductorMoved: Uint8Array,
   nodeMoved: Uint8Array,
-  equipment: { transformers: ReadonlySet<number>; panelboards: readonly number[] } = { transformers: new Set(), panelboards: [] },
+  equipment: { transformers: ReadonlySet<number>; panelboards: readonly number[]; topology?: boolean } = { transformers: new Set(), panelboards: [] },
   studySection: readonly Finding[] = state.report.findings.slice(state.studyFindingStart),
   among?: DropsAmong,
 ): Pick<AnalysisState, 'conductorFindingStart' | 'studyFindingStart'> & { findings: Finding[] } {
@@ -854,10 +887,10 @@ function spliceFindings(
       for (let k = ci + 1; k <= m; k++) conductorFindingStart[k] = start[k]! + delta;
     }
   }
-  const redoEquipment = equipment.transformers.size > 0 || equipment.panelboards.length > 0;
+  const redoEquipment = equipment.transformers.size > 0 || equipment.panelboards.length > 0 || equipment.topology === true;
   const equipmentStart = redoEquipment ? start[m]! : state.studyFindingStart;
   for (let k = from; k < equipmentStart; k++) findings.push(old[k]!);
-  if (redoEquipment) for (const f of equipmentSection(ctx, conductorIndexOf(state), old.slice(equipmentStart, state.studyFindingStart), equipment.transformers, equipment.panelboards)) findings.push(f);
+  if (redoEquipment) for (const f of equipmentSection(ctx, conductorIndexOf(state), old.slice(equipmentStart, state.studyFindingStart), equipment.transformers, equipment.panelboards, equipment.topology === true)) findings.push(f);
   const studyFindingStart = findings.length;
   const { fault, drop } = state.studies;
   const studyFindings = redoDropFindings(ctx.project, ctx.graph, fault, drop, studySection, conductorMoved, nodeMoved, conductorIndexOf(state), among);
@@ -868,10 +901,11 @@ function spliceFindings(
 /**
  * The equipment and network findings (what comes between the conductors' and the studies') with the
  * Table 450.3(B) findings of `transformers` and the 408.36 findings of `panelboards` judged again,
- * in the order a full run writes them: transformers by the first run that ends at them, panelboards
- * by node, then the network's shape.
+ * and the network's shape when `topology` (after equipment was added or removed), in the order a full
+ * run writes them: transformers by the first run that ends at them, panelboards by node, then the
+ * network's shape.
  */
-function equipmentSection(ctx: FixedContext, index: ReadonlyMap<string, number>, section: readonly Finding[], transformers: ReadonlySet<number>, panelboards: readonly number[]): Finding[] {
+function equipmentSection(ctx: FixedContext, index: ReadonlyMap<string, number>, section: readonly Finding[], transformers: ReadonlySet<number>, panelboards: readonly number[], topology: boolean): Finding[] {
   const { graph: g, runs, verdicts } = ctx;
   // A full run meets a verdict first at its first run (runs judged as one share it).
   const firstRunOf = (verdict: RunVerdict) => runs.runOf[index.get(verdict.facts.conductorIds[0]!)!]!;
@@ -908,7 +942,7 @@ function equipmentSection(ctx: FixedContext, index: ReadonlyMap<string, number>,
     if (f) panels.push([v, f]);
   }
   const byKey = (a: [number, Finding], b: [number, Finding]) => a[0] - b[0];
-  return [...txs.sort(byKey).map((x) => x[1]), ...panels.sort(byKey).map((x) => x[1]), ...rest];
+  return [...txs.sort(byKey).map((x) => x[1]), ...panels.sort(byKey).map((x) => x[1]), ...(topology ? topologyFindings(ctx) : rest)];
 }
 
 /**
@@ -949,8 +983,8 @@ function chainLookup(state: AnalysisState, verdicts: readonly RunVerdict[]): (id
 }
 
 /** Conductor index by id, built once per topology (the graph's typed arrays are kept while the topology is). */
-const conductorIndexes = new WeakMap<Int32Array, Map<string, number>>();
-function conductorIndexOf(state: AnalysisState): Map<string, number> {
+const conductorIndexes = new WeakMap<Int32Array, ReadonlyMap<string, number>>();
+function conductorIndexOf(state: AnalysisState): ReadonlyMap<string, number> {
   const g = state.ctx.graph;
   let index = conductorIndexes.get(g.conductorFrom);
   if (!index) {
@@ -958,4 +992,341 @@ function conductorIndexOf(state: AnalysisState): Map<string, number> {
     conductorIndexes.set(g.conductorFrom, index);
   }
   return index;
+}
+
+/**
+ * What the analysis computes of the network's shape and does not keep, kept by the session for the
+ * edits that add to the drawing (`recheckAppended`): the system at and what is served below each node,
+ * and how many loads lie at and below each. Built from the analysis on the first such edit and kept up
+ * with each; a whole analysis leaves it behind (it belongs to the graph it was built for).
+ */
+interface Shape {
+  /** The graph's node kinds it was built for: a new graph (a whole analysis) makes a new one. */
+  readonly nodeKind: Uint8Array;
+  readonly systems: Pick<NetworkSystems, 'at' | 'service' | 'systemId' | 'servesBits'>;
+  /** Loads at and below each node, as the roll-up counts them (loads.ts `onlyLoad`). */
+  readonly loadCount: Uint32Array;
+}
+interface KeptShape {
+  shape: Shape | null;
+}
+
+function shapeOf(state: AnalysisState, kept: KeptShape): Shape {
+  const { graph: g, order, count, loads } = state.ctx;
+  if (kept.shape && kept.shape.nodeKind === g.nodeKind) return kept.shape;
+  const loadCount = new Uint32Array(g.nodes.length);
+  for (let k = count - 1; k >= 0; k--) {
+    const v = order[k]!;
+    let c = g.nodeKind[v] === KIND.load ? 1 : 0;
+    for (const e of g.outEdges[v]!) c += loadCount[edgeTo(g, e)]!;
+    loadCount[v] = c;
+  }
+  return { nodeKind: g.nodeKind, systems: networkSystems(g, order, count, loads), loadCount };
+}
+
+/** One node added to the drawing with the one conductor or bus link that supplies it from a node already there. */
+interface AppendedLeaf {
+  /** The new node's index (the last). */
+  node: number;
+  /** The node supplying it. */
+  from: number;
+  /** The new edge: a conductor's index, or -(j + 1) for bus link j (graph.ts). */
+  edge: number;
+}
+
+/** The node and edge an edit appended (`AppendedLeaf`), or why the edit is something else. Compares by identity. */
+function appendedLeaf(state: AnalysisState, prev: Project, next: Project): AppendedLeaf | string {
+  const grew = (a: readonly unknown[], b: readonly unknown[]) => {
+    if (b.length < a.length) return -1;
+    for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return -1;
+    return b.length - a.length;
+  };
+  const nodes = grew(prev.nodes, next.nodes);
+  const conductors = grew(prev.conductors, next.conductors);
+  const links = grew(prev.busLinks, next.busLinks);
+  if (nodes < 0 || conductors < 0 || links < 0) return 'equipment or a connection was removed or replaced';
+  if (nodes === 0) return 'a connection was added between equipment already drawn';
+  if (nodes > 1 || conductors + links > 1) return 'more than one piece of equipment or connection was added';
+  if (conductors + links === 0) return 'equipment was added, connected to nothing';
+  const edge = conductors === 1 ? next.conductors[prev.conductors.length]! : next.busLinks[prev.busLinks.length]!;
+  const node = next.nodes[prev.nodes.length]!;
+  const from = state.ctx.graph.nodeIndex.get(edge.from);
+  if (edge.to !== node.id || from === undefined) return 'the new connection does not run from equipment already drawn to the new equipment';
+  return { node: prev.nodes.length, from, edge: conductors === 1 ? prev.conductors.length : -(prev.busLinks.length + 1) };
+}
+
+/** A copy of `a` one longer, its last element `fill`. */
+function grown<T extends Float64Array | Int32Array | Uint32Array | Uint8Array>(a: T, fill: number): T {
+  const out = new (a.constructor as new (n: number) => T)(a.length + 1);
+  out.set(a);
+  out[a.length] = fill;
+  return out;
+}
+
+/**
+ * An index of ids to positions with ids appended, standing on the one before it (copying a campus's
+ * index costs more than the rest of the re-check). Only `recheckAppended` makes one.
+ */
+class AppendedIndex implements ReadonlyMap<string, number> {
+  readonly #base: ReadonlyMap<string, number>;
+  readonly #added: ReadonlyMap<string, number>;
+  constructor(before: ReadonlyMap<string, number>, id: string, at: number) {
+    // One level deep: the ids appended since the base, copied (they are few next to it).
+    this.#base = before instanceof AppendedIndex ? before.#base : before;
+    this.#added = new Map([...(before instanceof AppendedIndex ? before.#added : []), [id, at]]);
+  }
+  get size(): number {
+    return this.#base.size + this.#added.size;
+  }
+  get(id: string): number | undefined {
+    return this.#base.get(id) ?? this.#added.get(id);
+  }
+  has(id: string): boolean {
+    return this.#base.has(id) || this.#added.has(id);
+  }
+  *entries(): MapIterator<[string, number]> {
+    yield* this.#base.entries();
+    yield* this.#added.entries();
+  }
+  *keys(): MapIterator<string> {
+    for (const [k] of this.entries()) yield k;
+  }
+  *values(): MapIterator<number> {
+    for (const [, v] of this.entries()) yield v;
+  }
+  [Symbol.iterator](): MapIterator<[string, number]> {
+    return this.entries();
+  }
+  forEach(fn: (value: number, key: string, map: ReadonlyMap<string, number>) => void): void {
+    for (const [k, v] of this.entries()) fn(v, k, this);
+  }
+}
+
+/** The graph with node `leaf.node` and its edge appended: the earlier arrays copied one longer, the lists of its two ends new. */
+function appendToGraph(g0: Graph, next: Project, leaf: AppendedLeaf): Graph {
+  const { node: w, from: u, edge: e } = leaf;
+  const inEdges = [...g0.inEdges, [e]];
+  const outEdges = [...g0.outEdges, []];
+  // Conductors first, then bus links, each in file order (graph.ts edgeLists): a new conductor goes before the links.
+  const outs = g0.outEdges[u]!;
+  let at = outs.length;
+  if (e >= 0) while (at > 0 && outs[at - 1]! < 0) at--;
+  outEdges[u] = [...outs.slice(0, at), e, ...outs.slice(at)];
+  const graph: Graph = {
+    ...g0,
+    nodes: next.nodes,
+    conductors: next.conductors,
+    links: next.busLinks,
+    nodeIndex: new AppendedIndex(g0.nodeIndex, next.nodes[w]!.id, w),
+    nodeKind: grown(g0.nodeKind, KIND[next.nodes[w]!.kind]),
+    inEdges,
+    outEdges,
+  };
+  if (e >= 0) {
+    graph.conductorFrom = grown(g0.conductorFrom, u);
+    graph.conductorTo = grown(g0.conductorTo, w);
+  } else {
+    graph.linkFrom = grown(g0.linkFrom, u);
+    graph.linkTo = grown(g0.linkTo, w);
+  }
+  return graph;
+}
+
+/** Equipment whose addition starts a system or a supply of its own: the whole analysis places it. */
+const STARTS_A_SYSTEM: ReadonlySet<string> = new Set(['utility', 'generator', 'transformer']);
+
+/**
+ * Re-checks the network after one node was added below a node already drawn, with the conductor or
+ * bus link that supplies it (the editor's "add equipment" below a breaker or panelboard): the graph,
+ * runs, roll-up and studies grown by one node (and one conductor); the loads and drops along its
+ * supply path; every run on that path judged again with the new one (see `rejudge`), its findings and
+ * report lines; the new node's fault current and its 110.9/110.10 finding, the shape of the network
+ * (its dangling ends); the circuits on the path that now serve more (their neutral and 310.15(E)
+ * count) are made up again. Returns why not where the addition reaches further: a new source or
+ * transformer, a transformer secondary, a conductor that continues a run through a splice or tap box,
+ * one on the service, a node on the path with several supplies, a new study note (or one made earlier
+ * in the walk), a verdict on the path that changes (see `rejudge`), or a drawing with a loop.
+ */
+function recheckAppended(state: AnalysisState, next: Project, leaf: AppendedLeaf, kept: KeptShape): AnalysisState | string {
+  const prev = state.ctx;
+  const g0 = prev.graph;
+  const { node: w, from: u, edge: e } = leaf;
+  const node = next.nodes[w]!;
+  if (prev.count !== g0.nodes.length) return 'the drawing has a loop';
+  if (KIND[node.kind] === undefined || STARTS_A_SYSTEM.has(node.kind)) return `a ${node.kind} was added (it starts a system of its own)`;
+  if (g0.nodeIndex.has(node.id)) return 'the new equipment repeats an id';
+  if (e >= 0 ? conductorIndexOf(state).has(next.conductors[e]!.id) : next.busLinks.some((l, j) => l.id === next.busLinks[-e - 1]!.id && j !== -e - 1)) return 'the new connection repeats an id';
+  if (e >= 0 && g0.nodeKind[u] === KIND.transformer) return "a transformer secondary was added (the primary's rules read its secondaries)";
+  if (node.kind === 'load' && node.faultContributionXFlc !== undefined) return 'a load with a motor contribution was added (the fault current of its zone moves)';
+  const { fault: fault0, drop: drop0 } = state.studies;
+  // 110.24: equipment supplied by a conductor from a utility, through splices, has a service marking.
+  let up = u;
+  while (up >= 0 && g0.nodeKind[up] === KIND.splice) up = fault0.parent[up]!;
+  if (e >= 0 && up >= 0 && g0.nodeKind[up] === KIND.utility) return 'equipment was added on the service conductors (110.24)';
+  // The supply path, the new node first: every node on it supplied once, so its roll-up changes along it alone.
+  const path = [w];
+  for (let v = u; v >= 0; ) {
+    path.push(v);
+    const ins = g0.inEdges[v]!;
+    if (ins.length === 0) break;
+    if (ins.length > 1) return 'a node on the supply path has several supplies';
+    if (path.length > g0.nodes.length + 1) return 'the supply path loops';
+    v = edgeFrom(g0, ins[0]!);
+  }
+
+  const graph = appendToGraph(g0, next, leaf);
+  // A splice or tap box with one conductor in and one out joins them into one run (topology/runs.ts).
+  if (isJoint(g0, u) !== isJoint(graph, u)) return 'the new conductor continues a run through a splice or tap box, or splits one';
+  const { order, count, onCycle } = topologicalOrder(graph);
+
+  // The roll-up: the new node on its supply's system, then the totals and load counts along the path.
+  const l0 = prev.loads;
+  const loads: SystemLoads = {
+    voltsLL: grown(l0.voltsLL, Number.NaN),
+    phases: grown(l0.phases, 0),
+    voltsLN: grown(l0.voltsLN, Number.NaN),
+    vaNoncontinuous: grown(l0.vaNoncontinuous, 0),
+    vaContinuous: grown(l0.vaContinuous, 0),
+    largestMotorVA: grown(l0.largestMotorVA, 0),
+    singleA: grown(l0.singleA, 0),
+    singleCalcA: grown(l0.singleCalcA, 0),
+    unknown: grown(l0.unknown, 0),
+    onlyLoad: grown(l0.onlyLoad, -1),
+    loadCircuits: [...l0.loadCircuits, null],
+    ownArticle: grown(l0.ownArticle, 0),
+  };
+  systemFromSupplies(graph, loads, w);
+  const shape0 = shapeOf(state, kept);
+  const loadCount = grown(shape0.loadCount, 0);
+  const isLoad = node.kind === 'load';
+  for (const v of path) {
+    if (isLoad) {
+      loadCount[v] = loadCount[v]! + 1;
+      loads.onlyLoad[v] = loadCount[v] === 1 ? w : -1;
+    }
+    rollUpAt(graph, loads, v);
+  }
+
+  // What each circuit serves: the new node's, then up the path; a circuit above that now serves more is made up anew (the whole analysis).
+  const s0 = shape0.systems;
+  const systems = { at: [...s0.at, s0.at[u]!], service: grown(s0.service, 0), systemId: grown(s0.systemId, 0), servesBits: grown(s0.servesBits, 0) };
+  systemFromSupply(graph, systems, w);
+  for (const v of path) systems.servesBits[v] = servesBitsAt(graph, loads, systems.at, systems.servesBits, v);
+  // The circuits whose load end now serves more are made up again (their neutral and 310.15(E) count), with their ampacity.
+  const circuits = prev.circuits.slice();
+  const ampacities = prev.ampacities.slice();
+  const remade = e >= 0 ? [e] : [];
+  for (const v of path) if (systems.servesBits[v] !== s0.servesBits[v] && v !== w && graph.inEdges[v]![0]! >= 0) remade.push(graph.inEdges[v]![0]!);
+  const memo = new Map<number, ConductorCircuit>();
+  for (const c of remade) {
+    circuits[c] = conductorCircuit(graph, systems, c, memo);
+    ampacities[c] = conductorAmpacity(next.conductors[c]!, prev.edition, next.project.terminationDefault, circuits[c]!.currentCarrying.adjustmentCount);
+  }
+  const members = prev.runs.members.slice();
+  let runOf = prev.runs.runOf;
+  if (e >= 0) {
+    runOf = grown(runOf, members.length);
+    members.push([e]);
+  }
+  const runs = { members, runOf };
+  const base = { ...prev, project: next, graph, order, count, onCycle, loads, runs, circuits, ampacities };
+  // What the classifier learned: the new node's supply, and an OCPD below each node of the path.
+  const below = grown(state.walk.below, 0);
+  for (const v of path) below[v] = ocpdBelowAt(graph, below, v);
+  const walk0 = { ...state.walk, below };
+  const nodeSupply = [...state.walk.nodeSupply, keptNodeSupply({ ...base, facts: [] }, walk0, w)];
+  const walk: KeptWalk = { ...walk0, nodeSupply };
+
+  // The studies, one node (and conductor) longer: the new node's fault current; the drops along the path.
+  const fault = growFault(fault0, e >= 0);
+  const note = stepAppended(graph, fault, w, u, e);
+  // The study's notes come in the order the supply-to-load walk first makes them: the new one must be made earlier.
+  if (note !== null && (!fault.notes.includes(note) || !madeEarlier(graph, order, w, next.conductors[e]!))) return 'the fault study gains a note (a conductor counted as zero impedance), or makes one earlier';
+  if (isLoad && loads.loadCircuits[w] === null && drop0.notes.length === 1) return 'the voltage-drop study gains a note (a load without a known current)';
+  const drop = growDrop(drop0, e >= 0);
+  const studied = { ...state.studies, fault, drop };
+  const ctx0 = { ...base, verdicts: prev.verdicts, fixes: prev.fixes };
+  const inputs = voltageDropInputs(ctx0, fault);
+  for (const c of remade) drop.singlePhase[c] = isThreePhase(inputs, c) ? 0 : 1;
+  const conductorMoved = new Uint8Array(graph.conductors.length);
+  const nodeMoved = new Uint8Array(graph.nodes.length);
+  const among = { conductors: [] as number[], nodes: [] as number[] };
+  redropPath(graph, drop, inputs, path, conductorMoved, nodeMoved, among);
+
+  // The state as if the new node and conductor had always been there with no verdict: what the re-check stands on.
+  const start = grown(state.conductorFindingStart, state.conductorFindingStart[g0.conductors.length]!);
+  if (e >= 0) conductorIndexes.set(graph.conductorFrom, new AppendedIndex(conductorIndexOf(state), next.conductors[e]!.id, e));
+  const stood: AnalysisState = { ...state, ctx: { ...prev, graph, runs }, walk, studies: studied, conductorFindingStart: e >= 0 ? start : state.conductorFindingStart };
+  const rs = new Set<number>();
+  for (const v of path) for (const x of graph.inEdges[v]!) if (x >= 0) rs.add(runs.runOf[x]!);
+  const judged = rejudge(stood, base, rs);
+  if (typeof judged === 'string') return judged;
+  if (e >= 0 && judged.ctx.verdicts[runs.runOf[e]!]!.family === 'service') return 'the new conductor is a service conductor';
+  const dropRows = among.conductors.map((c): [number, ConductorDrop] => [c, conductorDropRow(graph, fault, drop, c)]);
+  const studies = withRows(state.report.studies!, [[w, nodeFault(graph, fault, w)]], dropRows);
+  const after = reported(stood, judged, { conductorMoved, nodeMoved, among, faultNodes: [w], addedNodes: [w], panelboards: node.kind === 'bus' ? [w] : [], topology: true }, studies);
+  kept.shape = { nodeKind: graph.nodeKind, systems, loadCount };
+  return e >= 0 ? { ...after, report: { ...after.report, assumptions: assumptionsFor(next) } } : after;
+}
+
+/**
+ * True when a node before `w` in the supply-to-load `order` is supplied by one conductor counted as
+ * zero impedance for the reason `c` is (no size; no length or Table 9 value): the fault study's note
+ * for it is made there first, so `c` adds nothing to the notes or their order.
+ */
+function madeEarlier(g: Graph, order: Int32Array, w: number, c: Conductor): boolean {
+  const sizeless = c.size === undefined;
+  for (let k = 0; k < order.length && order[k] !== w; k++) {
+    const ins = g.inEdges[order[k]!]!;
+    if (ins.length !== 1 || ins[0]! < 0 || g.conductorFrom[ins[0]!]! < 0) continue;
+    const d = g.conductors[ins[0]!]!;
+    if (!hasImpedance(d) && (d.size === undefined) === sizeless) return true;
+  }
+  return false;
+}
+
+/**
+ * The fault study with room for one more node (and conductor): the arrays copied one longer, as the
+ * whole study leaves a node it has not reached. Every array is copied: the tables of reports already
+ * handed out may still be built from the old ones (studies/lazyTable.ts).
+ */
+function growFault(f: FaultStudy, conductor: boolean): FaultStudy {
+  const nan = Number.NaN;
+  return {
+    kA: grown(f.kA, nan),
+    xOverR: grown(f.xOverR, nan),
+    r: grown(f.r, nan),
+    x: grown(f.x, nan),
+    loop: grown(f.loop, 0),
+    voltsLL: grown(f.voltsLL, nan),
+    motorKA: grown(f.motorKA, 0),
+    lineToGroundKA: grown(f.lineToGroundKA, nan),
+    upperBound: grown(f.upperBound, 0),
+    unknownWhy: [...f.unknownWhy, ''],
+    parent: grown(f.parent, -1),
+    parentEdge: grown(f.parentEdge, 0),
+    stepR: grown(f.stepR, 0),
+    stepX: grown(f.stepX, 0),
+    zone: grown(f.zone, -1),
+    zoneMotorA: grown(f.zoneMotorA, 0),
+    rOhmPerKft: conductor ? grown(f.rOhmPerKft, nan) : f.rOhmPerKft.slice(),
+    xOhmPerKft: conductor ? grown(f.xOhmPerKft, nan) : f.xOhmPerKft.slice(),
+    notes: f.notes,
+  };
+}
+
+/** The voltage-drop study with room for one more node (and conductor), as the whole study leaves what is not on the supply tree. */
+function growDrop(d: VoltageDropStudy, conductor: boolean): VoltageDropStudy {
+  const nan = Number.NaN;
+  return {
+    currentA: conductor ? grown(d.currentA, nan) : d.currentA.slice(),
+    powerFactor: conductor ? grown(d.powerFactor, nan) : d.powerFactor.slice(),
+    pct: conductor ? grown(d.pct, nan) : d.pct.slice(),
+    singlePhase: conductor ? grown(d.singlePhase, 0) : d.singlePhase.slice(),
+    totalPct: grown(d.totalPct, nan),
+    circuitPct: grown(d.circuitPct, nan),
+    p: grown(d.p, 0),
+    q: grown(d.q, 0),
+    notes: d.notes,
+  };
 }
