@@ -1,7 +1,7 @@
 import type { Conductor, CodeEdition } from '../model/schema';
 import { CONDUCTOR_SIZES } from '../model/schema';
 import { conductorName, outcomeOf, type Rule } from '../rules/define';
-import { RULES_BY_ID } from '../rules/index';
+import { PROTECTION_RULES, RULES_BY_ID } from '../rules/index';
 import { motorDeviceLimit } from '../rules/motor-device';
 import type { RunFacts } from '../rules/facts';
 import { configsByCost, MAX_PARALLEL_SETS } from '../sizing/configs';
@@ -13,6 +13,7 @@ import { isStandardRating, largestStandardRatingAtMost, nextStandardRatingAbove 
 
 const PROTECTION_IDS: ReadonlySet<string> = new Set(['protected', 'protected-next-size']);
 import type { VerdictContext } from './context';
+import { protectionTrial } from './trials';
 import type { Fix, RuleTrial } from './types';
 
 
@@ -134,12 +135,21 @@ function cheapestPerRule(run: RunUnderTest): Map<string, SizingConfig> {
     if (at === null || (facts.ampacityA !== null && at.ampacityA <= facts.ampacityA)) continue;
     trialFacts(facts, config, at, facts.supplyOcpdA, trial);
     for (const rule of rules) {
-      if (!found.has(rule.id) && outcomeOf(rule.check(trial)) === 'holds') found.set(rule.id, config);
+      if (!found.has(rule.id) && outcomeOn(rule, trial) === 'holds') found.set(rule.id, config);
     }
     // Once the run is protected outright, nothing costlier says anything new.
     if (found.has('protected') || found.has('protected-next-size')) break;
   }
   return found;
+}
+
+/**
+ * A rule's outcome on trial facts. 240.4 and 240.4(B) read a few numbers only and are looked up
+ * among the shared protection trials (trials.ts): the search tries the same sizes for every run
+ * on the same device, so after the first such run each is a look-up, not a check.
+ */
+function outcomeOn(rule: Rule, f: RunFacts): RuleTrial['outcome'] {
+  return PROTECTION_RULES.includes(rule) ? protectionTrial(rule, f).outcome : outcomeOf(rule.check(f));
 }
 
 /** "Upsize to 400 kcmil Cu", or "Use 2 sets of 250 kcmil Cu in parallel (…)" when the number of sets changes. */
