@@ -102,6 +102,9 @@ export function classifyRunsKeeping(ctx: FactsContext): { verdicts: RunVerdict[]
     sources: new Array(g.nodes.length),
     onRuns: new Array(runs.members.length),
   });
+  // Supply-to-load: what supplies each node, and the point each run starts from.
+  const runSupply = new Array<Supply | undefined>(runs.members.length);
+  const onOtherRuns: number[] = [];
   for (let k = 0; k < count; k++) {
     const v = order[k]!;
     walk.nodeSupply[v] = nodeSupplyOf(walk, v);
@@ -111,9 +114,19 @@ export function classifyRunsKeeping(ctx: FactsContext): { verdicts: RunVerdict[]
       if (e < 0) continue;
       const r = runs.runOf[e]!;
       if (start[r] !== e) continue;
-      walk.results[r] = judgeRun(toJudge(walk, r, supplyAt(walk, v), end[r]!));
+      const supply = supplyAt(walk, v);
+      runSupply[r] = supply;
+      if (supply.kind === 'run' || supply.kind === 'transformer') onOtherRuns.push(r);
     }
   }
+  // A run supplied at an OCPD, a source or nothing reads no other run's verdict: those (most runs) are judged in
+  // run order, which reads their facts and ends in the order they were made; then the runs supplied from another
+  // run or a transformer, in supply-to-load order, so the run each reads is judged before it.
+  for (let r = 0; r < runSupply.length; r++) {
+    const supply = runSupply[r];
+    if (supply && supply.kind !== 'run' && supply.kind !== 'transformer') walk.results[r] = judgeRun(toJudge(walk, r, supply, end[r]!));
+  }
+  for (const r of onOtherRuns) walk.results[r] = judgeRun(toJudge(walk, r, runSupply[r]!, end[r]!));
   for (let r = 0; r < runs.members.length; r++) {
     if (walk.results[r]) continue;
     const from = g.conductorFrom[start[r]!]!;
