@@ -18,37 +18,8 @@ export function topologyFindings(ctx: AnalysisContext): Finding[] {
   const push = (f: NewFinding) => out.push(finding(f));
   const cycleNodes: ElementRef[] = [];
   for (let v = 0; v < g.nodes.length; v++) {
-    const ins = g.inEdges[v]!.length;
-    const outs = g.outEdges[v]!.length;
     if (onCycle[v]) cycleNodes.push({ kind: 'node', id: g.nodes[v]!.id });
-    // Nearly every node has one supply and either something below it or no need of it (a load): no finding
-    // here, so its name and subject are made only for a node that may have one.
-    if (ins === 1 && (outs > 0 || !PASSES_POWER_ON.has(g.nodeKind[v]!))) continue;
-    const n = g.nodes[v]!;
-    const subject: ElementRef = { kind: 'node', id: n.id };
-    const name = `${nodeLabel(n)}${n.label ? ` (${n.id})` : ''}`;
-    if (ins === 0 && outs === 0) {
-      push({ ruleId: 'topology', messageId: 'isolated', severity: 'info', cites: null, subject, message: `${name} is not connected to anything.` });
-      continue;
-    }
-    if (ins > 1) {
-      push({
-        ruleId: 'topology',
-        messageId: 'several-supplies',
-        severity: 'warning',
-        cites: null,
-        subject,
-        related: g.inEdges[v]!.map((e) => edgeRef(g, e)),
-        data: { supplies: ins },
-        message: `${name} is fed from ${ins === 2 ? 'two' : ins} sources: ${supplyNames(g, v)}. Linewright judges radial systems, so the loads below it count against every supply and its voltage is known only where the supplies agree; show the transfer equipment, or remove all but one supply.`,
-      });
-    }
-    if (ins === 0 && n.kind !== 'utility' && n.kind !== 'generator') {
-      push({ ruleId: 'topology', messageId: 'no-source', severity: 'warning', cites: null, subject, message: `Nothing supplies ${name}; the conductors below it cannot be judged. Connect it to a source.` });
-    }
-    if (outs === 0 && ins > 0 && PASSES_POWER_ON.has(g.nodeKind[v]!)) {
-      push({ ruleId: 'topology', messageId: 'dangling-end', severity: 'info', cites: null, subject, message: `${name} supplies nothing; is a conductor or load missing below it?` });
-    }
+    nodeTopologyFindings(g, v, out);
   }
   if (cycleNodes.length > 0) {
     const first = cycleNodes[0]!;
@@ -63,6 +34,44 @@ export function topologyFindings(ctx: AnalysisContext): Finding[] {
     });
   }
   return out;
+}
+
+/**
+ * The findings about node `v`'s place in the network (loose, several supplies, no source, dangling
+ * end), appended to `out`. Also how incremental.ts makes again those of the nodes an edit connected.
+ */
+export function nodeTopologyFindings(g: Graph, v: number, out: Finding[]): void {
+  const ins = g.inEdges[v]!.length;
+  const outs = g.outEdges[v]!.length;
+  // Nearly every node has one supply and either something below it or no need of it (a load): no finding
+  // here, so its name and subject are made only for a node that may have one.
+  if (ins === 1 && (outs > 0 || !PASSES_POWER_ON.has(g.nodeKind[v]!))) return;
+  const push = (f: NewFinding) => out.push(finding(f));
+  const n = g.nodes[v]!;
+  const subject: ElementRef = { kind: 'node', id: n.id };
+  const name = `${nodeLabel(n)}${n.label ? ` (${n.id})` : ''}`;
+  if (ins === 0 && outs === 0) {
+    push({ ruleId: 'topology', messageId: 'isolated', severity: 'info', cites: null, subject, message: `${name} is not connected to anything.` });
+    return;
+  }
+  if (ins > 1) {
+    push({
+      ruleId: 'topology',
+      messageId: 'several-supplies',
+      severity: 'warning',
+      cites: null,
+      subject,
+      related: g.inEdges[v]!.map((e) => edgeRef(g, e)),
+      data: { supplies: ins },
+      message: `${name} is fed from ${ins === 2 ? 'two' : ins} sources: ${supplyNames(g, v)}. Linewright judges radial systems, so the loads below it count against every supply and its voltage is known only where the supplies agree; show the transfer equipment, or remove all but one supply.`,
+    });
+  }
+  if (ins === 0 && n.kind !== 'utility' && n.kind !== 'generator') {
+    push({ ruleId: 'topology', messageId: 'no-source', severity: 'warning', cites: null, subject, message: `Nothing supplies ${name}; the conductors below it cannot be judged. Connect it to a source.` });
+  }
+  if (outs === 0 && ins > 0 && PASSES_POWER_ON.has(g.nodeKind[v]!)) {
+    push({ ruleId: 'topology', messageId: 'dangling-end', severity: 'info', cites: null, subject, message: `${name} supplies nothing; is a conductor or load missing below it?` });
+  }
 }
 
 /** 'A and B', 'A, B and C': the equipment on the supply end of each edge into node v. */
