@@ -14,11 +14,11 @@ import type { RunFacts } from '../rules/facts';
 import { hasImpedance, restepBelow, stepAppended, type FaultStudy } from '../studies/faultCurrent/faultCurrent';
 import { isThreePhase, redropBelow, redropPath, type VoltageDropStudy } from '../studies/voltageDrop/voltageDrop';
 import { conductorDropRow, faultDutyFinding, NO_RATING, NO_RATING_ID, NO_RATING_MAX_RELATED, noRatingFinding, nodeFault, redoDropFindings, RELIES_ON_DEVICE_AHEAD, seriesByLoadSide, tapWithstand, voltageDropInputs, type ConductorDrop, type NodeFault, type StudiesReport, type WithstandResult } from '../studies/index';
-import { lazyTable } from '../studies/lazyTable';
+import { lazyTable, settleTables } from '../studies/lazyTable';
 import { conductorWithstand } from '../rules/conductor-withstand';
 import { equipmentSccr } from '../rules/equipment-sccr';
 import { interruptingRating } from '../rules/interrupting-rating';
-import { edgeFrom, edgeTo, KIND, orderPositions, topologicalOrder, type Graph } from '../topology/graph';
+import { edgeFrom, edgeTo, KIND, orderPositions, type Graph } from '../topology/graph';
 import { isJoint, isPassThroughJoint } from '../topology/runs';
 import { voltageDropRule } from '../rules/voltage-drop';
 import { transformerProtection } from '../rules/transformer-protection';
@@ -26,7 +26,7 @@ import { panelboardProtection } from '../rules/panelboard-protection';
 import { isOcpd } from './equipment';
 import { transformerFindingOf } from './equipmentFindings';
 import { panelboardFindingOf } from './panelboardFindings';
-import { topologyFindings } from './topologyFindings';
+import { nodeTopologyFindings } from './topologyFindings';
 
 /** How the last re-check was done: only what the edit can change, or the whole analysis (and why). */
 export type UpdateMode =
@@ -793,8 +793,8 @@ interface Moved {
   among?: DropsAmong;
   /** Nodes new to the drawing (among `faultNodes`): a breaker or fuse without an interrupting rating counts in the project's 110.9 finding. */
   addedNodes?: readonly number[];
-  /** The shape of the network changed: its findings (loose equipment, dangling ends…) are made again. */
-  topology?: boolean;
+  /** Nodes whose place in the network changed (an edge added at them): their findings about it (loose equipment, dangling ends…) are made again. */
+  topology?: readonly number[];
 }
 
 /** The conductors and nodes whose drop figures an edit may have moved (the voltage-drop warnings looked at again). */
@@ -823,7 +823,7 @@ function reported(state: AnalysisState, judged: Rejudged, moved: Moved, studiesR
   const extra = moved.withstandRuns ?? [];
   const withstood = rewithstand(state, ctx, judged.runs, extra, studiesReport);
   const studySection = moved.faultNodes ? refaultDuty(ctx, state.studies.fault, withstood.findings, moved.faultNodes, moved.addedNodes) : withstood.findings;
-  const { findings, conductorFindingStart, studyFindingStart } = spliceFindings(state, ctx, own, conductorMoved, nodeMoved, { transformers, panelboards: moved.panelboards ?? [], topology: moved.topology ?? false }, studySection, moved.among);
+  const { findings, conductorFindingStart, studyFindingStart } = spliceFindings(state, ctx, own, conductorMoved, nodeMoved, { transformers, panelboards: moved.panelboards ?? [], topology: moved.topology ?? [] }, studySection, moved.among);
   const { studies } = withstood;
 
   // Report lines: the runs', those whose withstand was judged again, and those whose voltage-drop warning came or went.
@@ -866,7 +866,7 @@ function spliceFindings(
   own: ReadonlyMap<number, Finding[]>,
   conductorMoved: Uint8Array,
   nodeMoved: Uint8Array,
-  equipment: { transformers: ReadonlySet<number>; panelboards: readonly number[]; topology?: boolean } = { transformers: new Set(), panelboards: [] },
+  equipment: { transformers: ReadonlySet<number>; panelboards: readonly number[]; topology?: readonly number[] } = { transformers: new Set(), panelboards: [] },
   studySection: readonly Finding[] = state.report.findings.slice(state.studyFindingStart),
   among?: DropsAmong,
 ): Pick<AnalysisState, 'conductorFindingStart' | 'studyFindingStart'> & { findings: Finding[] } {
@@ -887,10 +887,10 @@ function spliceFindings(
       for (let k = ci + 1; k <= m; k++) conductorFindingStart[k] = start[k]! + delta;
     }
   }
-  const redoEquipment = equipment.transformers.size > 0 || equipment.panelboards.length > 0 || equipment.topology === true;
+  const redoEquipment = equipment.transformers.size > 0 || equipment.panelboards.length > 0 || (equipment.topology ?? []).length > 0;
   const equipmentStart = redoEquipment ? start[m]! : state.studyFindingStart;
   for (let k = from; k < equipmentStart; k++) findings.push(old[k]!);
-  if (redoEquipment) for (const f of equipmentSection(ctx, conductorIndexOf(state), old.slice(equipmentStart, state.studyFindingStart), equipment.transformers, equipment.panelboards, equipment.topology === true)) findings.push(f);
+  if (redoEquipment) for (const f of equipmentSection(ctx, conductorIndexOf(state), old.slice(equipmentStart, state.studyFindingStart), equipment.transformers, equipment.panelboards, equipment.topology ?? [])) findings.push(f);
   const studyFindingStart = findings.length;
   const { fault, drop } = state.studies;
   const studyFindings = redoDropFindings(ctx.project, ctx.graph, fault, drop, studySection, conductorMoved, nodeMoved, conductorIndexOf(state), among);
@@ -900,12 +900,13 @@ function spliceFindings(
 
 /**
  * The equipment and network findings (what comes between the conductors' and the studies') with the
- * Table 450.3(B) findings of `transformers` and the 408.36 findings of `panelboards` judged again,
- * and the network's shape when `topology` (after equipment was added or removed), in the order a full
- * run writes them: transformers by the first run that ends at them, panelboards by node, then the
- * network's shape.
+ * Table 450.3(B) findings of `transformers`, the 408.36 findings of `panelboards` and the findings
+ * about the place in the network of the nodes `topology` (an edge added at them) made again, in the
+ * order a full run writes them: transformers by the first run that ends at them, panelboards by node,
+ * then the network's shape by node (a drawing with a loop, whose finding comes last, is not re-checked
+ * this way).
  */
-function equipmentSection(ctx: FixedContext, index: ReadonlyMap<string, number>, section: readonly Finding[], transformers: ReadonlySet<number>, panelboards: readonly number[], topology: boolean): Finding[] {
+function equipmentSection(ctx: FixedContext, index: ReadonlyMap<string, number>, section: readonly Finding[], transformers: ReadonlySet<number>, panelboards: readonly number[], topology: readonly number[]): Finding[] {
   const { graph: g, runs, verdicts } = ctx;
   // A full run meets a verdict first at its first run (runs judged as one share it).
   const firstRunOf = (verdict: RunVerdict) => runs.runOf[index.get(verdict.facts.conductorIds[0]!)!]!;
@@ -916,15 +917,21 @@ function equipmentSection(ctx: FixedContext, index: ReadonlyMap<string, number>,
   };
   const txs: [number, Finding][] = [];
   const panels: [number, Finding][] = [];
-  const rest: Finding[] = [];
+  const shape: [number, Finding][] = [];
   const redone = new Set(panelboards);
+  const placed = new Set(topology);
   for (const f of section) {
     const v = f.subject.kind === 'node' ? g.nodeIndex.get(f.subject.id)! : -1;
     if (f.ruleId === transformerProtection.id) {
       if (!transformers.has(v)) txs.push([producedBy(f), f]);
     } else if (f.ruleId === panelboardProtection.id) {
       if (!redone.has(v)) panels.push([v, f]);
-    } else rest.push(f);
+    } else if (!placed.has(v)) shape.push([v, f]);
+  }
+  for (const v of placed) {
+    const out: Finding[] = [];
+    nodeTopologyFindings(g, v, out);
+    for (const f of out) shape.push([v, f]);
   }
   for (const v of transformers) {
     const seen = new Set<RunVerdict>();
@@ -942,7 +949,7 @@ function equipmentSection(ctx: FixedContext, index: ReadonlyMap<string, number>,
     if (f) panels.push([v, f]);
   }
   const byKey = (a: [number, Finding], b: [number, Finding]) => a[0] - b[0];
-  return [...txs.sort(byKey).map((x) => x[1]), ...panels.sort(byKey).map((x) => x[1]), ...(topology ? topologyFindings(ctx) : rest)];
+  return [...txs.sort(byKey).map((x) => x[1]), ...panels.sort(byKey).map((x) => x[1]), ...shape.sort(byKey).map((x) => x[1])];
 }
 
 /**
@@ -1037,6 +1044,7 @@ interface AppendedLeaf {
 /** The node and edge an edit appended (`AppendedLeaf`), or why the edit is something else. Compares by identity. */
 function appendedLeaf(state: AnalysisState, prev: Project, next: Project): AppendedLeaf | string {
   const grew = (a: readonly unknown[], b: readonly unknown[]) => {
+    if (a === b) return 0;
     if (b.length < a.length) return -1;
     for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return -1;
     return b.length - a.length;
@@ -1055,11 +1063,33 @@ function appendedLeaf(state: AnalysisState, prev: Project, next: Project): Appen
   return { node: prev.nodes.length, from, edge: conductors === 1 ? prev.conductors.length : -(prev.busLinks.length + 1) };
 }
 
-/** A copy of `a` one longer, its last element `fill`. */
-function grown<T extends Float64Array | Int32Array | Uint32Array | Uint8Array>(a: T, fill: number): T {
-  const out = new (a.constructor as new (n: number) => T)(a.length + 1);
-  out.set(a);
+type Column = Float64Array | Int32Array | Uint32Array | Uint8Array;
+
+/**
+ * `a` one longer, its last element `fill`: a view of the same memory where its buffer has room (a
+ * buffer is made half as large again when it has none), so a run of additions copies each array now
+ * and then, not on every edit. The view shares the earlier elements with `a`: the session owns the
+ * analysis' arrays, as the re-checks that write them in place do (the studies' tables are settled first).
+ */
+function grown<T extends Column>(a: T, fill: number): T {
+  const Of = a.constructor as { new (buffer: ArrayBufferLike, byteOffset: number, length: number): T; BYTES_PER_ELEMENT: number };
+  let out: T;
+  if (a.byteOffset + (a.length + 1) * Of.BYTES_PER_ELEMENT <= a.buffer.byteLength) out = new Of(a.buffer, a.byteOffset, a.length + 1);
+  else {
+    out = new Of(new ArrayBuffer(Math.ceil(a.length * 1.5 + 16) * Of.BYTES_PER_ELEMENT), 0, a.length + 1);
+    out.set(a);
+  }
   out[a.length] = fill;
+  return out;
+}
+
+/**
+ * `a` with `x` added at its end, in place: the session owns the analysis' lists as it owns its arrays
+ * (`grown`), and copying a campus's lists on every edit costs more than the rest of the re-check.
+ */
+function plus<T>(a: readonly T[], x: T): T[] {
+  const out = a as T[];
+  out.push(x);
   return out;
 }
 
@@ -1102,11 +1132,11 @@ class AppendedIndex implements ReadonlyMap<string, number> {
   }
 }
 
-/** The graph with node `leaf.node` and its edge appended: the earlier arrays copied one longer, the lists of its two ends new. */
+/** The graph with node `leaf.node` and its edge appended (the earlier arrays and lists grown in place), the list of its supply's edges new. */
 function appendToGraph(g0: Graph, next: Project, leaf: AppendedLeaf): Graph {
   const { node: w, from: u, edge: e } = leaf;
-  const inEdges = [...g0.inEdges, [e]];
-  const outEdges = [...g0.outEdges, []];
+  const inEdges = plus(g0.inEdges, [e]);
+  const outEdges = plus<number[]>(g0.outEdges, []);
   // Conductors first, then bus links, each in file order (graph.ts edgeLists): a new conductor goes before the links.
   const outs = g0.outEdges[u]!;
   let at = outs.length;
@@ -1130,6 +1160,29 @@ function appendToGraph(g0: Graph, next: Project, leaf: AppendedLeaf): Graph {
     graph.linkTo = grown(g0.linkTo, w);
   }
   return graph;
+}
+
+/**
+ * The supply-to-load order with node `leaf.node` added: right after the last of the nodes its supply
+ * feeds before it (through an edge listed before its own) with no other supply, else right after its
+ * supply. What reads the order needs a node after its supply, and the nodes one node supplies in the
+ * order of its edges (the voltage-drop study sums them so, topology/graph.ts topologicalOrder); the
+ * whole order is not made again.
+ */
+function orderWith(g: Graph, order: Int32Array, count: number, leaf: AppendedLeaf): Int32Array {
+  const { node: w, from: u, edge: e } = leaf;
+  const pos = orderPositions(order, count);
+  let at = pos[u]!;
+  for (const x of g.outEdges[u]!) {
+    if (x === e) break;
+    const v = edgeTo(g, x);
+    if (v >= 0 && g.inEdges[v]!.length === 1 && pos[v]! > at) at = pos[v]!;
+  }
+  const out = new Int32Array(count + 1);
+  out.set(order.subarray(0, at + 1));
+  out[at + 1] = w;
+  out.set(order.subarray(at + 1, count), at + 2);
+  return out;
 }
 
 /** Equipment whose addition starts a system or a supply of its own: the whole analysis places it. */
@@ -1174,10 +1227,14 @@ function recheckAppended(state: AnalysisState, next: Project, leaf: AppendedLeaf
     v = edgeFrom(g0, ins[0]!);
   }
 
-  const graph = appendToGraph(g0, next, leaf);
   // A splice or tap box with one conductor in and one out joins them into one run (topology/runs.ts).
-  if (isJoint(g0, u) !== isJoint(graph, u)) return 'the new conductor continues a run through a splice or tap box, or splits one';
-  const { order, count, onCycle } = topologicalOrder(graph);
+  const wasJoint = isJoint(g0, u);
+  // From here the session's arrays and lists are grown in place: a re-check that gives up runs the whole analysis.
+  const graph = appendToGraph(g0, next, leaf);
+  if (wasJoint !== isJoint(graph, u)) return 'the new conductor continues a run through a splice or tap box, or splits one';
+  const order = orderWith(graph, prev.order, prev.count, leaf);
+  const count = prev.count + 1;
+  const onCycle = grown(prev.onCycle, 0);
 
   // The roll-up: the new node on its supply's system, then the totals and load counts along the path.
   const l0 = prev.loads;
@@ -1192,7 +1249,7 @@ function recheckAppended(state: AnalysisState, next: Project, leaf: AppendedLeaf
     singleCalcA: grown(l0.singleCalcA, 0),
     unknown: grown(l0.unknown, 0),
     onlyLoad: grown(l0.onlyLoad, -1),
-    loadCircuits: [...l0.loadCircuits, null],
+    loadCircuits: plus(l0.loadCircuits, null),
     ownArticle: grown(l0.ownArticle, 0),
   };
   systemFromSupplies(graph, loads, w);
@@ -1209,14 +1266,17 @@ function recheckAppended(state: AnalysisState, next: Project, leaf: AppendedLeaf
 
   // What each circuit serves: the new node's, then up the path; a circuit above that now serves more is made up anew (the whole analysis).
   const s0 = shape0.systems;
-  const systems = { at: [...s0.at, s0.at[u]!], service: grown(s0.service, 0), systemId: grown(s0.systemId, 0), servesBits: grown(s0.servesBits, 0) };
+  const systems = { at: plus(s0.at, s0.at[u]!), service: grown(s0.service, 0), systemId: grown(s0.systemId, 0), servesBits: grown(s0.servesBits, 0) };
   systemFromSupply(graph, systems, w);
-  for (const v of path) systems.servesBits[v] = servesBitsAt(graph, loads, systems.at, systems.servesBits, v);
   // The circuits whose load end now serves more are made up again (their neutral and 310.15(E) count), with their ampacity.
+  const remade = e >= 0 ? [e] : [];
+  for (const v of path) {
+    const bits = servesBitsAt(graph, loads, systems.at, systems.servesBits, v);
+    if (bits !== systems.servesBits[v] && v !== w && graph.inEdges[v]![0]! >= 0) remade.push(graph.inEdges[v]![0]!);
+    systems.servesBits[v] = bits;
+  }
   const circuits = prev.circuits.slice();
   const ampacities = prev.ampacities.slice();
-  const remade = e >= 0 ? [e] : [];
-  for (const v of path) if (systems.servesBits[v] !== s0.servesBits[v] && v !== w && graph.inEdges[v]![0]! >= 0) remade.push(graph.inEdges[v]![0]!);
   const memo = new Map<number, ConductorCircuit>();
   for (const c of remade) {
     circuits[c] = conductorCircuit(graph, systems, c, memo);
@@ -1234,7 +1294,7 @@ function recheckAppended(state: AnalysisState, next: Project, leaf: AppendedLeaf
   const below = grown(state.walk.below, 0);
   for (const v of path) below[v] = ocpdBelowAt(graph, below, v);
   const walk0 = { ...state.walk, below };
-  const nodeSupply = [...state.walk.nodeSupply, keptNodeSupply({ ...base, facts: [] }, walk0, w)];
+  const nodeSupply = plus(state.walk.nodeSupply, keptNodeSupply({ ...base, facts: [] }, walk0, w));
   const walk: KeptWalk = { ...walk0, nodeSupply };
 
   // The studies, one node (and conductor) longer: the new node's fault current; the drops along the path.
@@ -1264,7 +1324,7 @@ function recheckAppended(state: AnalysisState, next: Project, leaf: AppendedLeaf
   if (e >= 0 && judged.ctx.verdicts[runs.runOf[e]!]!.family === 'service') return 'the new conductor is a service conductor';
   const dropRows = among.conductors.map((c): [number, ConductorDrop] => [c, conductorDropRow(graph, fault, drop, c)]);
   const studies = withRows(state.report.studies!, [[w, nodeFault(graph, fault, w)]], dropRows);
-  const after = reported(stood, judged, { conductorMoved, nodeMoved, among, faultNodes: [w], addedNodes: [w], panelboards: node.kind === 'bus' ? [w] : [], topology: true }, studies);
+  const after = reported(stood, judged, { conductorMoved, nodeMoved, among, faultNodes: [w], addedNodes: [w], panelboards: node.kind === 'bus' ? [w] : [], topology: [u, w] }, studies);
   kept.shape = { nodeKind: graph.nodeKind, systems, loadCount };
   return e >= 0 ? { ...after, report: { ...after.report, assumptions: assumptionsFor(next) } } : after;
 }
@@ -1286,11 +1346,12 @@ function madeEarlier(g: Graph, order: Int32Array, w: number, c: Conductor): bool
 }
 
 /**
- * The fault study with room for one more node (and conductor): the arrays copied one longer, as the
- * whole study leaves a node it has not reached. Every array is copied: the tables of reports already
- * handed out may still be built from the old ones (studies/lazyTable.ts).
+ * The fault study with room for one more node (and conductor), as the whole study leaves a node it
+ * has not reached. Its arrays are written in place from here on: the tables of reports already handed
+ * out that are still to be built from them are built first (studies/lazyTable.ts).
  */
 function growFault(f: FaultStudy, conductor: boolean): FaultStudy {
+  settleTables(f);
   const nan = Number.NaN;
   return {
     kA: grown(f.kA, nan),
@@ -1302,27 +1363,28 @@ function growFault(f: FaultStudy, conductor: boolean): FaultStudy {
     motorKA: grown(f.motorKA, 0),
     lineToGroundKA: grown(f.lineToGroundKA, nan),
     upperBound: grown(f.upperBound, 0),
-    unknownWhy: [...f.unknownWhy, ''],
+    unknownWhy: plus(f.unknownWhy, ''),
     parent: grown(f.parent, -1),
     parentEdge: grown(f.parentEdge, 0),
     stepR: grown(f.stepR, 0),
     stepX: grown(f.stepX, 0),
     zone: grown(f.zone, -1),
     zoneMotorA: grown(f.zoneMotorA, 0),
-    rOhmPerKft: conductor ? grown(f.rOhmPerKft, nan) : f.rOhmPerKft.slice(),
-    xOhmPerKft: conductor ? grown(f.xOhmPerKft, nan) : f.xOhmPerKft.slice(),
+    rOhmPerKft: conductor ? grown(f.rOhmPerKft, nan) : f.rOhmPerKft,
+    xOhmPerKft: conductor ? grown(f.xOhmPerKft, nan) : f.xOhmPerKft,
     notes: f.notes,
   };
 }
 
 /** The voltage-drop study with room for one more node (and conductor), as the whole study leaves what is not on the supply tree. */
 function growDrop(d: VoltageDropStudy, conductor: boolean): VoltageDropStudy {
+  settleTables(d);
   const nan = Number.NaN;
   return {
-    currentA: conductor ? grown(d.currentA, nan) : d.currentA.slice(),
-    powerFactor: conductor ? grown(d.powerFactor, nan) : d.powerFactor.slice(),
-    pct: conductor ? grown(d.pct, nan) : d.pct.slice(),
-    singlePhase: conductor ? grown(d.singlePhase, 0) : d.singlePhase.slice(),
+    currentA: conductor ? grown(d.currentA, nan) : d.currentA,
+    powerFactor: conductor ? grown(d.powerFactor, nan) : d.powerFactor,
+    pct: conductor ? grown(d.pct, nan) : d.pct,
+    singlePhase: conductor ? grown(d.singlePhase, 0) : d.singlePhase,
     totalPct: grown(d.totalPct, nan),
     circuitPct: grown(d.circuitPct, nan),
     p: grown(d.p, 0),
