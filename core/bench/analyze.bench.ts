@@ -334,6 +334,13 @@ const RECHECK_EDITS: { kind: string; edit: BenchEdit }[] = [
     edit: (project, _session, k) => addBelow(project, spread(project, k, branchBreaker(project)), { kind: 'load', kva: 1, powerFactor: 0.9, continuous: false, phases: 1 }, 'unsized', k),
   },
   {
+    kind: 'rename a breaker',
+    edit: (project, _session, k) => {
+      const b = spread(project, k, (n) => n.kind === 'breaker');
+      return { ...project, nodes: project.nodes.map((n) => (n === b ? { ...b, label: `CB ${k}` } : n)) };
+    },
+  },
+  {
     kind: 'connect a conductor between equipment drawn',
     edit: (project, _session, k) => {
       const from = spread(project, k, branchBreaker(project));

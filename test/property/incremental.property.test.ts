@@ -44,6 +44,7 @@ type Edit =
   | { kind: 'add'; at: number }
   | { kind: 'delete'; at: number }
   | { kind: 'addEquipment'; at: number; equipment: NewEquipment }
+  | { kind: 'addAlone'; at: number; equipment: NewEquipment }
   | { kind: 'connect'; at: number; to: number }
   | { kind: 'paste'; at: number }
   | { kind: 'deleteBranch'; at: number }
@@ -251,7 +252,8 @@ const editArb: fc.Arbitrary<Edit> = fc.oneof(
   { weight: 1, arbitrary: fc.record({ kind: fc.constant('add' as const), at }) },
   { weight: 1, arbitrary: fc.record({ kind: fc.constant('delete' as const), at }) },
   { weight: 6, arbitrary: fc.record({ kind: fc.constant('addEquipment' as const), at, equipment: newEquipmentArb }) },
-  { weight: 1, arbitrary: fc.record({ kind: fc.constant('connect' as const), at, to: at }) },
+  { weight: 2, arbitrary: fc.record({ kind: fc.constant('addAlone' as const), at, equipment: newEquipmentArb }) },
+  { weight: 3, arbitrary: fc.record({ kind: fc.constant('connect' as const), at, to: at }) },
   { weight: 1, arbitrary: fc.record({ kind: fc.constant('paste' as const), at }) },
   { weight: 1, arbitrary: fc.record({ kind: fc.constant('deleteBranch' as const), at }) },
   { weight: 1, arbitrary: fc.record({ kind: fc.constant('rename' as const), at, label: fc.constantFrom('Spare', 'Pump P-4', 'Panel LP-2') }) },
@@ -292,10 +294,16 @@ function applyEdit(p: Project, e: Edit, step: number): Project {
       if (from.kind === 'bus' && isDevice(node.kind)) return { ...p, nodes: [...p.nodes, node], busLinks: [...p.busLinks, { id: `bl-new-${step}` as Project['busLinks'][number]['id'], from: from.id, to: node.id }] };
       return { ...p, nodes: [...p.nodes, node], conductors: [...p.conductors, newConductor(`c-new-${step}`, from.id, node.id, e.equipment.conductor)] };
     }
+    case 'addAlone':
+      // Equipment added with nothing selected: connected to nothing, until a connect.
+      return { ...p, nodes: [...p.nodes, newNode(`alone-${step}`, e.equipment)] };
     case 'connect': {
-      // A conductor between two pieces already drawn (the editor's connect).
-      const to = p.nodes[e.to % p.nodes.length]!;
-      const from = p.nodes[e.at % p.nodes.length]!;
+      // A conductor between two pieces already drawn (the editor's connect): to one drawn on its own when there is one.
+      const connected = new Set([...p.conductors, ...p.busLinks].flatMap((x) => [x.from as string, x.to as string]));
+      const alone = p.nodes.filter((x) => !connected.has(x.id));
+      const feeders = p.nodes.filter((x) => EQUIPMENT_FEEDS.has(x.kind) && connected.has(x.id));
+      const to = alone.length > 0 ? alone[e.to % alone.length]! : p.nodes[e.to % p.nodes.length]!;
+      const from = alone.length > 0 && feeders.length > 0 ? feeders[e.at % feeders.length]! : p.nodes[e.at % p.nodes.length]!;
       if (from === to) return p;
       return { ...p, conductors: [...p.conductors, newConductor(`c-link-${step}`, from.id, to.id, { size: 10, lengthFt: 50 })] };
     }
@@ -376,7 +384,7 @@ function checkSequence(start: Project, edits: readonly Edit[], tally: Tally = {}
     expect(report).toEqual(analyze(project));
     if (session.last.mode === 'incremental') incremental++;
     const ways = (tally[e.kind] ??= {});
-    const way = session.last.mode === 'full' && e.kind === 'addEquipment' ? `full: ${session.last.reason}` : session.last.mode;
+    const way = session.last.mode === 'full' && (e.kind === 'addEquipment' || e.kind === 'rename' || e.kind === 'connect') ? `full: ${session.last.reason}` : session.last.mode;
     ways[way] = (ways[way] ?? 0) + 1;
   });
   return incremental;
@@ -454,6 +462,13 @@ describe('incremental analysis equals a whole analysis after every edit', () => 
     expect(session.last).toEqual({ mode: 'incremental', nodeId: 'added-load', edit: 'added' });
     // The new branch circuit is judged like any other: 12 AWG on a 20 A breaker (240.4(D)(5), Table 310.16).
     expect(session.report.conductors.find((c) => c.id === 'added-c')?.verdict).toBe('protected');
+    // Drawn on its own (a whole analysis: a finding says it is connected to nothing), then connected below the new breaker's panelboard.
+    const alone = newNode('alone-cb', { kind: 'breaker', conductor: null, kva: undefined, phases: undefined, continuous: false, ratingA: 30, interruptingKA: 22 });
+    project = { ...project, nodes: [...project.nodes, alone] };
+    expect(session.update(project)).toEqual(analyze(project));
+    project = { ...project, busLinks: [...project.busLinks, { id: 'alone-bl' as Project['busLinks'][number]['id'], from: panel.id, to: alone.id }] };
+    expect(session.update(project)).toEqual(analyze(project));
+    expect(session.last).toEqual({ mode: 'incremental', nodeId: 'alone-cb', edit: 'connected' });
   });
 
   it('a feeder, tap, transformer primary or secondary edited (length, size, sets) is re-checked with what is below it, an interrupting rating on its own; a service conductor runs the whole analysis', () => {

@@ -31,7 +31,7 @@ import { nodeTopologyFindings } from './topologyFindings';
 /** How the last re-check was done: only what the edit can change, or the whole analysis (and why). */
 export type UpdateMode =
   | { mode: 'incremental'; conductorId: string }
-  | { mode: 'incremental'; nodeId: string; edit: 'load' | 'device' | 'layout' | 'added' }
+  | { mode: 'incremental'; nodeId: string; edit: 'load' | 'device' | 'layout' | 'added' | 'connected' }
   | { mode: 'full'; reason: string }
   /** `update` was given the project it already had. */
   | { mode: 'unchanged' };
@@ -116,7 +116,7 @@ function recheck(state: AnalysisState, prev: Project, next: Project, kept: KeptS
     const leaf = appendedLeaf(state, prev, next);
     if (typeof leaf === 'string') return leaf;
     const result = recheckAppended(state, next, leaf, kept);
-    return typeof result === 'string' ? result : { state: result, mode: { mode: 'incremental', nodeId: next.nodes[leaf.node]!.id, edit: 'added' } };
+    return typeof result === 'string' ? result : { state: result, mode: { mode: 'incremental', nodeId: next.nodes[leaf.node]!.id, edit: leaf.added ? 'added' : 'connected' } };
   }
   if (conductorsChanged && nodesChanged) return 'conductors and nodes changed';
   if (conductorsChanged) {
@@ -492,19 +492,23 @@ function recheckLoad(state: AnalysisState, next: Project, v: number, before: Nod
 }
 
 /**
- * Re-checks the network after one OCPD's rating or type changed (its rating, adjustable trip, trip
- * type, time delay, arrangement, disconnecting-means facts) with its name, interrupting rating and
+ * Re-checks the network after one OCPD's rating, type or name changed (its rating, adjustable trip, trip
+ * type, time delay, arrangement, disconnecting-means facts, label) with its interrupting rating and
  * series ratings unchanged: every run judged against it (their supply facts and the device their
  * report lines name), the runs that end at it or at the equipment it is linked into (the termination
  * they read, a board's grouped ratings), the transformers those feed (Table 450.3(B)) and the
  * panelboards it protects (408.36). Of the studies only the withstand of the taps and secondaries
- * judged against it reads the device (its clearing time); the rest stays.
+ * judged against it reads the device (its clearing time), and its 110.9 finding its name; the rest
+ * stays. A new name is also in the findings about its place in the network and what it feeds.
  */
 function recheckDevice(state: AnalysisState, next: Project, d: number, before: NodeOfKind<'breaker' | 'fuse'>, after: NodeOfKind<'breaker' | 'fuse'>): AnalysisState | string {
   const prev = state.ctx;
   const g0 = prev.graph;
   const { runs, verdicts } = prev;
-  if (before.label !== after.label) return 'the device was renamed';
+  // A name is read where the device is named: its runs' findings and lines (judged again here), its 110.9 finding, the
+  // shape findings of it and what it feeds; a service marking (110.24) names it too.
+  const renamed = before.label !== after.label;
+  if (renamed && state.report.studies!.serviceMarkings.some((m) => m.nodeId === before.id)) return 'a device with a service marking (110.24) was renamed';
   if (before.interruptingKA !== after.interruptingKA) return 'the interrupting rating changed (110.9)';
   if ((next.seriesRatings ?? []).some((s) => s.loadSideId === before.id || s.lineSideId === before.id)) return 'the device is part of a series rating';
   const rs = new Set<number>();
@@ -528,7 +532,8 @@ function recheckDevice(state: AnalysisState, next: Project, d: number, before: N
       stack.push(w);
     }
   }
-  return reported(state, judged, { panelboards }, state.report.studies!);
+  const named = renamed ? { faultNodes: [d], topology: [d, ...g0.outEdges[d]!.map((e) => edgeTo(g0, e)).filter((w) => w >= 0)] } : {};
+  return reported(state, judged, { panelboards, ...named }, state.report.studies!);
 }
 
 /**
@@ -1033,8 +1038,10 @@ function shapeOf(state: AnalysisState, kept: KeptShape): Shape {
 
 /** One node added to the drawing with the one conductor or bus link that supplies it from a node already there. */
 interface AppendedLeaf {
-  /** The new node's index (the last). */
+  /** The node it supplies: new (the last), or one drawn connected to nothing. */
   node: number;
+  /** True when `node` is new to the drawing. */
+  added: boolean;
   /** The node supplying it. */
   from: number;
   /** The new edge: a conductor's index, or -(j + 1) for bus link j (graph.ts). */
@@ -1053,14 +1060,21 @@ function appendedLeaf(state: AnalysisState, prev: Project, next: Project): Appen
   const conductors = grew(prev.conductors, next.conductors);
   const links = grew(prev.busLinks, next.busLinks);
   if (nodes < 0 || conductors < 0 || links < 0) return 'equipment or a connection was removed or replaced';
-  if (nodes === 0) return 'a connection was added between equipment already drawn';
   if (nodes > 1 || conductors + links > 1) return 'more than one piece of equipment or connection was added';
   if (conductors + links === 0) return 'equipment was added, connected to nothing';
   const edge = conductors === 1 ? next.conductors[prev.conductors.length]! : next.busLinks[prev.busLinks.length]!;
+  const g = state.ctx.graph;
+  const from = g.nodeIndex.get(edge.from);
+  const at = conductors === 1 ? prev.conductors.length : -(prev.busLinks.length + 1);
+  if (nodes === 0) {
+    // The editor's connect: to equipment drawn on its own (connected to nothing) it supplies a leaf, as if just added.
+    const to = g.nodeIndex.get(edge.to);
+    if (from === undefined || to === undefined || to === from || g.inEdges[to]!.length + g.outEdges[to]!.length > 0) return 'a connection was added between equipment already connected';
+    return { node: to, added: false, from, edge: at };
+  }
   const node = next.nodes[prev.nodes.length]!;
-  const from = state.ctx.graph.nodeIndex.get(edge.from);
   if (edge.to !== node.id || from === undefined) return 'the new connection does not run from equipment already drawn to the new equipment';
-  return { node: prev.nodes.length, from, edge: conductors === 1 ? prev.conductors.length : -(prev.busLinks.length + 1) };
+  return { node: prev.nodes.length, added: true, from, edge: at };
 }
 
 type Column = Float64Array | Int32Array | Uint32Array | Uint8Array;
@@ -1134,9 +1148,11 @@ class AppendedIndex implements ReadonlyMap<string, number> {
 
 /** The graph with node `leaf.node` and its edge appended (the earlier arrays and lists grown in place), the list of its supply's edges new. */
 function appendToGraph(g0: Graph, next: Project, leaf: AppendedLeaf): Graph {
-  const { node: w, from: u, edge: e } = leaf;
-  const inEdges = plus(g0.inEdges, [e]);
-  const outEdges = plus<number[]>(g0.outEdges, []);
+  const { node: w, from: u, edge: e, added } = leaf;
+  const inEdges = added ? plus(g0.inEdges, [e]) : (g0.inEdges as number[][]);
+  const outEdges = added ? plus<number[]>(g0.outEdges, []) : (g0.outEdges as number[][]);
+  // A node drawn connected to nothing has the graph's shared empty list: it gets its own.
+  if (!added) inEdges[w] = [e];
   // Conductors first, then bus links, each in file order (graph.ts edgeLists): a new conductor goes before the links.
   const outs = g0.outEdges[u]!;
   let at = outs.length;
@@ -1147,8 +1163,8 @@ function appendToGraph(g0: Graph, next: Project, leaf: AppendedLeaf): Graph {
     nodes: next.nodes,
     conductors: next.conductors,
     links: next.busLinks,
-    nodeIndex: new AppendedIndex(g0.nodeIndex, next.nodes[w]!.id, w),
-    nodeKind: grown(g0.nodeKind, KIND[next.nodes[w]!.kind]),
+    nodeIndex: added ? new AppendedIndex(g0.nodeIndex, next.nodes[w]!.id, w) : g0.nodeIndex,
+    nodeKind: added ? grown(g0.nodeKind, KIND[next.nodes[w]!.kind]) : g0.nodeKind,
     inEdges,
     outEdges,
   };
@@ -1178,10 +1194,13 @@ function orderWith(g: Graph, order: Int32Array, count: number, leaf: AppendedLea
     const v = edgeTo(g, x);
     if (v >= 0 && g.inEdges[v]!.length === 1 && pos[v]! > at) at = pos[v]!;
   }
-  const out = new Int32Array(count + 1);
-  out.set(order.subarray(0, at + 1));
+  // A node drawn connected to nothing leaves its place among the nodes supplied by nothing (they come first).
+  const rest = leaf.added ? order.subarray(0, count) : order.filter((v) => v !== w);
+  if (!leaf.added && pos[w]! < at) at--;
+  const out = new Int32Array(rest.length + 1);
+  out.set(rest.subarray(0, at + 1));
   out[at + 1] = w;
-  out.set(order.subarray(at + 1, count), at + 2);
+  out.set(rest.subarray(at + 1), at + 2);
   return out;
 }
 
@@ -1203,15 +1222,17 @@ const STARTS_A_SYSTEM: ReadonlySet<string> = new Set(['utility', 'generator', 't
 function recheckAppended(state: AnalysisState, next: Project, leaf: AppendedLeaf, kept: KeptShape): AnalysisState | string {
   const prev = state.ctx;
   const g0 = prev.graph;
-  const { node: w, from: u, edge: e } = leaf;
+  const { node: w, from: u, edge: e, added } = leaf;
   const node = next.nodes[w]!;
   if (prev.count !== g0.nodes.length) return 'the drawing has a loop';
-  if (KIND[node.kind] === undefined || STARTS_A_SYSTEM.has(node.kind)) return `a ${node.kind} was added (it starts a system of its own)`;
-  if (g0.nodeIndex.has(node.id)) return 'the new equipment repeats an id';
+  if (KIND[node.kind] === undefined || STARTS_A_SYSTEM.has(node.kind)) return `a ${node.kind} was ${added ? 'added' : 'connected'} (it starts a system of its own)`;
+  if (added && g0.nodeIndex.has(node.id)) return 'the new equipment repeats an id';
   if (e >= 0 ? conductorIndexOf(state).has(next.conductors[e]!.id) : next.busLinks.some((l, j) => l.id === next.busLinks[-e - 1]!.id && j !== -e - 1)) return 'the new connection repeats an id';
   if (e >= 0 && g0.nodeKind[u] === KIND.transformer) return "a transformer secondary was added (the primary's rules read its secondaries)";
   if (node.kind === 'load' && node.faultContributionXFlc !== undefined) return 'a load with a motor contribution was added (the fault current of its zone moves)';
   const { fault: fault0, drop: drop0 } = state.studies;
+  // A load drawn on its own has no known current: the voltage-drop study's note about such loads may go when it is connected.
+  if (!added && node.kind === 'load' && prev.loads.loadCircuits[w] === null && drop0.notes.length > 1) return 'a load without a known current was connected (the voltage-drop study may drop its note)';
   // 110.24: equipment supplied by a conductor from a utility, through splices, has a service marking.
   let up = u;
   while (up >= 0 && g0.nodeKind[up] === KIND.splice) up = fault0.parent[up]!;
@@ -1233,31 +1254,34 @@ function recheckAppended(state: AnalysisState, next: Project, leaf: AppendedLeaf
   const graph = appendToGraph(g0, next, leaf);
   if (wasJoint !== isJoint(graph, u)) return 'the new conductor continues a run through a splice or tap box, or splits one';
   const order = orderWith(graph, prev.order, prev.count, leaf);
-  const count = prev.count + 1;
-  const onCycle = grown(prev.onCycle, 0);
+  const count = prev.count + (added ? 1 : 0);
+  // Per node: one longer for a new node; a node connected keeps its place, written again below.
+  const perNode = <T extends Column>(a: T, fill: number): T => (added ? grown(a, fill) : a);
+  const onCycle = perNode(prev.onCycle, 0);
 
   // The roll-up: the new node on its supply's system, then the totals and load counts along the path.
   const l0 = prev.loads;
   const loads: SystemLoads = {
-    voltsLL: grown(l0.voltsLL, Number.NaN),
-    phases: grown(l0.phases, 0),
-    voltsLN: grown(l0.voltsLN, Number.NaN),
-    vaNoncontinuous: grown(l0.vaNoncontinuous, 0),
-    vaContinuous: grown(l0.vaContinuous, 0),
-    largestMotorVA: grown(l0.largestMotorVA, 0),
-    singleA: grown(l0.singleA, 0),
-    singleCalcA: grown(l0.singleCalcA, 0),
-    unknown: grown(l0.unknown, 0),
-    onlyLoad: grown(l0.onlyLoad, -1),
-    loadCircuits: plus(l0.loadCircuits, null),
-    ownArticle: grown(l0.ownArticle, 0),
+    voltsLL: perNode(l0.voltsLL, Number.NaN),
+    phases: perNode(l0.phases, 0),
+    voltsLN: perNode(l0.voltsLN, Number.NaN),
+    vaNoncontinuous: perNode(l0.vaNoncontinuous, 0),
+    vaContinuous: perNode(l0.vaContinuous, 0),
+    largestMotorVA: perNode(l0.largestMotorVA, 0),
+    singleA: perNode(l0.singleA, 0),
+    singleCalcA: perNode(l0.singleCalcA, 0),
+    unknown: perNode(l0.unknown, 0),
+    onlyLoad: perNode(l0.onlyLoad, -1),
+    loadCircuits: added ? plus(l0.loadCircuits, null) : l0.loadCircuits,
+    ownArticle: perNode(l0.ownArticle, 0),
   };
   systemFromSupplies(graph, loads, w);
   const shape0 = shapeOf(state, kept);
-  const loadCount = grown(shape0.loadCount, 0);
+  const loadCount = perNode(shape0.loadCount, 0);
   const isLoad = node.kind === 'load';
   for (const v of path) {
-    if (isLoad) {
+    // A node connected already counts itself.
+    if (isLoad && (added || v !== w)) {
       loadCount[v] = loadCount[v]! + 1;
       loads.onlyLoad[v] = loadCount[v] === 1 ? w : -1;
     }
@@ -1266,7 +1290,7 @@ function recheckAppended(state: AnalysisState, next: Project, leaf: AppendedLeaf
 
   // What each circuit serves: the new node's, then up the path; a circuit above that now serves more is made up anew (the whole analysis).
   const s0 = shape0.systems;
-  const systems = { at: plus(s0.at, s0.at[u]!), service: grown(s0.service, 0), systemId: grown(s0.systemId, 0), servesBits: grown(s0.servesBits, 0) };
+  const systems = { at: added ? plus(s0.at, s0.at[u]!) : s0.at, service: perNode(s0.service, 0), systemId: perNode(s0.systemId, 0), servesBits: perNode(s0.servesBits, 0) };
   systemFromSupply(graph, systems, w);
   // The circuits whose load end now serves more are made up again (their neutral and 310.15(E) count), with their ampacity.
   const remade = e >= 0 ? [e] : [];
@@ -1291,19 +1315,21 @@ function recheckAppended(state: AnalysisState, next: Project, leaf: AppendedLeaf
   const runs = { members, runOf };
   const base = { ...prev, project: next, graph, order, count, onCycle, loads, runs, circuits, ampacities };
   // What the classifier learned: the new node's supply, and an OCPD below each node of the path.
-  const below = grown(state.walk.below, 0);
+  const below = perNode(state.walk.below, 0);
   for (const v of path) below[v] = ocpdBelowAt(graph, below, v);
   const walk0 = { ...state.walk, below };
-  const nodeSupply = plus(state.walk.nodeSupply, keptNodeSupply({ ...base, facts: [] }, walk0, w));
+  const supply = keptNodeSupply({ ...base, facts: [] }, walk0, w);
+  const nodeSupply = added ? plus(state.walk.nodeSupply, supply) : (state.walk.nodeSupply as KeptWalk['nodeSupply'][number][]);
+  nodeSupply[w] = supply;
   const walk: KeptWalk = { ...walk0, nodeSupply };
 
   // The studies, one node (and conductor) longer: the new node's fault current; the drops along the path.
-  const fault = growFault(fault0, e >= 0);
+  const fault = growFault(fault0, e >= 0, added);
   const note = stepAppended(graph, fault, w, u, e);
   // The study's notes come in the order the supply-to-load walk first makes them: the new one must be made earlier.
   if (note !== null && (!fault.notes.includes(note) || !madeEarlier(graph, order, w, next.conductors[e]!))) return 'the fault study gains a note (a conductor counted as zero impedance), or makes one earlier';
   if (isLoad && loads.loadCircuits[w] === null && drop0.notes.length === 1) return 'the voltage-drop study gains a note (a load without a known current)';
-  const drop = growDrop(drop0, e >= 0);
+  const drop = growDrop(drop0, e >= 0, added);
   const studied = { ...state.studies, fault, drop };
   const ctx0 = { ...base, verdicts: prev.verdicts, fixes: prev.fixes };
   const inputs = voltageDropInputs(ctx0, fault);
@@ -1350,26 +1376,27 @@ function madeEarlier(g: Graph, order: Int32Array, w: number, c: Conductor): bool
  * has not reached. Its arrays are written in place from here on: the tables of reports already handed
  * out that are still to be built from them are built first (studies/lazyTable.ts).
  */
-function growFault(f: FaultStudy, conductor: boolean): FaultStudy {
+function growFault(f: FaultStudy, conductor: boolean, node: boolean): FaultStudy {
   settleTables(f);
   const nan = Number.NaN;
+  const perNode = <T extends Column>(a: T, fill: number): T => (node ? grown(a, fill) : a);
   return {
-    kA: grown(f.kA, nan),
-    xOverR: grown(f.xOverR, nan),
-    r: grown(f.r, nan),
-    x: grown(f.x, nan),
-    loop: grown(f.loop, 0),
-    voltsLL: grown(f.voltsLL, nan),
-    motorKA: grown(f.motorKA, 0),
-    lineToGroundKA: grown(f.lineToGroundKA, nan),
-    upperBound: grown(f.upperBound, 0),
-    unknownWhy: plus(f.unknownWhy, ''),
-    parent: grown(f.parent, -1),
-    parentEdge: grown(f.parentEdge, 0),
-    stepR: grown(f.stepR, 0),
-    stepX: grown(f.stepX, 0),
-    zone: grown(f.zone, -1),
-    zoneMotorA: grown(f.zoneMotorA, 0),
+    kA: perNode(f.kA, nan),
+    xOverR: perNode(f.xOverR, nan),
+    r: perNode(f.r, nan),
+    x: perNode(f.x, nan),
+    loop: perNode(f.loop, 0),
+    voltsLL: perNode(f.voltsLL, nan),
+    motorKA: perNode(f.motorKA, 0),
+    lineToGroundKA: perNode(f.lineToGroundKA, nan),
+    upperBound: perNode(f.upperBound, 0),
+    unknownWhy: node ? plus(f.unknownWhy, '') : f.unknownWhy,
+    parent: perNode(f.parent, -1),
+    parentEdge: perNode(f.parentEdge, 0),
+    stepR: perNode(f.stepR, 0),
+    stepX: perNode(f.stepX, 0),
+    zone: perNode(f.zone, -1),
+    zoneMotorA: perNode(f.zoneMotorA, 0),
     rOhmPerKft: conductor ? grown(f.rOhmPerKft, nan) : f.rOhmPerKft,
     xOhmPerKft: conductor ? grown(f.xOhmPerKft, nan) : f.xOhmPerKft,
     notes: f.notes,
@@ -1377,18 +1404,19 @@ function growFault(f: FaultStudy, conductor: boolean): FaultStudy {
 }
 
 /** The voltage-drop study with room for one more node (and conductor), as the whole study leaves what is not on the supply tree. */
-function growDrop(d: VoltageDropStudy, conductor: boolean): VoltageDropStudy {
+function growDrop(d: VoltageDropStudy, conductor: boolean, node: boolean): VoltageDropStudy {
   settleTables(d);
   const nan = Number.NaN;
+  const perNode = <T extends Column>(a: T, fill: number): T => (node ? grown(a, fill) : a);
   return {
     currentA: conductor ? grown(d.currentA, nan) : d.currentA,
     powerFactor: conductor ? grown(d.powerFactor, nan) : d.powerFactor,
     pct: conductor ? grown(d.pct, nan) : d.pct,
     singlePhase: conductor ? grown(d.singlePhase, 0) : d.singlePhase,
-    totalPct: grown(d.totalPct, nan),
-    circuitPct: grown(d.circuitPct, nan),
-    p: grown(d.p, 0),
-    q: grown(d.q, 0),
+    totalPct: perNode(d.totalPct, nan),
+    circuitPct: perNode(d.circuitPct, nan),
+    p: perNode(d.p, 0),
+    q: perNode(d.q, 0),
     notes: d.notes,
   };
 }
