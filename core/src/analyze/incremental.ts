@@ -58,11 +58,14 @@ export interface AnalysisSession {
  * - one load's data (its VA or amperes, continuous, motor, HVAC, power factor) with its connection
  *   unchanged: the load roll-up along its supply path, the runs on that path (facts, verdicts,
  *   fixes, findings, report lines) and the voltage drops below the path;
- * - one OCPD's rating or type (`recheckDevice`), or its interrupting rating alone (its 110.9 finding);
+ * - one OCPD's rating, type or name (`recheckDevice`), or its interrupting rating alone (its 110.9 finding);
  * - a node moved or its notes edited: nothing the analysis reads;
  * - one node added below a node already drawn with the conductor or bus link that supplies it (the
- *   editor's "add equipment"): the new node and run, the loads, drops and runs along its supply path
- *   (`recheckAppended`).
+ *   editor's "add equipment"), or one conductor or bus link from a node drawn to one connected to
+ *   nothing (the editor's "connect" after adding with nothing selected): the new node and run, the
+ *   loads, drops and runs along its supply path (`recheckAppended`).
+ * Removals (a deletion, a splice joined or split, a connection converted) run the whole analysis: they
+ * move the position of everything after them in the lists, and every index the stages keep with it.
  * Any other edit, and any edit whose reach it cannot bound (any other change of topology, of the project
  * settings, of a service conductor, of a circuit's makeup, a conductor gaining or losing its
  * impedance, one that adds or removes a study note, or past a quarter of the runs or nodes), runs
@@ -1050,6 +1053,7 @@ interface AppendedLeaf {
 
 /** The node and edge an edit appended (`AppendedLeaf`), or why the edit is something else. Compares by identity. */
 function appendedLeaf(state: AnalysisState, prev: Project, next: Project): AppendedLeaf | string {
+  // A removal moves every later element to a new index, and the stages keep what they found by index: the whole analysis.
   const grew = (a: readonly unknown[], b: readonly unknown[]) => {
     if (a === b) return 0;
     if (b.length < a.length) return -1;
@@ -1059,7 +1063,7 @@ function appendedLeaf(state: AnalysisState, prev: Project, next: Project): Appen
   const nodes = grew(prev.nodes, next.nodes);
   const conductors = grew(prev.conductors, next.conductors);
   const links = grew(prev.busLinks, next.busLinks);
-  if (nodes < 0 || conductors < 0 || links < 0) return 'equipment or a connection was removed or replaced';
+  if (nodes < 0 || conductors < 0 || links < 0) return 'equipment or a connection was removed or replaced (every later element moves to another index, which the analysis keeps its findings by)';
   if (nodes > 1 || conductors + links > 1) return 'more than one piece of equipment or connection was added';
   if (conductors + links === 0) return 'equipment was added, connected to nothing';
   const edge = conductors === 1 ? next.conductors[prev.conductors.length]! : next.busLinks[prev.busLinks.length]!;
