@@ -95,16 +95,19 @@ export function studyNetwork(net: StudiedNetwork, taps: readonly TapRun[]): Stud
 
   // 110.9 and 110.10, one pass over the equipment.
   const series = seriesByLoadSide(project);
+  // The devices without a rating are counted; the finding names only the first MAX_RELATED.
   const noRating: NodeId[] = [];
+  let noRatingCount = 0;
   for (let v = 0; v < g.nodes.length; v++) {
     // Only devices and buses are judged here: no other node object is read.
     const kind = g.nodeKind[v]!;
     if (kind !== KIND.breaker && kind !== KIND.fuse && kind !== KIND.bus) continue;
     const f = faultDutyFinding(edition, g, fault, series, v);
-    if (f === NO_RATING) noRating.push(g.nodes[v]!.id);
-    else if (f) findings.push(f);
+    if (f === NO_RATING) {
+      if (noRatingCount++ < MAX_RELATED) noRating.push(g.nodes[v]!.id);
+    } else if (f) findings.push(f);
   }
-  if (noRating.length > 0) findings.push(noRatingFinding(edition, noRating.length, noRating.slice(0, MAX_RELATED)));
+  if (noRatingCount > 0) findings.push(noRatingFinding(edition, noRatingCount, noRating));
 
   // Conductor withstand of taps and secondaries.
   const withstand: WithstandResult[] = [];
