@@ -334,6 +334,14 @@ const RECHECK_EDITS: { kind: string; edit: BenchEdit }[] = [
     edit: (project, _session, k) => addBelow(project, spread(project, k, branchBreaker(project)), { kind: 'load', kva: 1, powerFactor: 0.9, continuous: false, phases: 1 }, 'unsized', k),
   },
   {
+    kind: 'paste a breaker and its load in a panelboard',
+    edit: (project, _session, k) => {
+      const panel = spread(project, k, (n) => n.kind === 'bus' && n.busType === 'panelboard');
+      const withBreaker = addBelow(project, panel, { kind: 'breaker', ratingA: 20 }, 'link', k);
+      return addBelow(withBreaker, withBreaker.nodes[withBreaker.nodes.length - 1]!, { kind: 'load', kva: 1, powerFactor: 0.9, continuous: false, phases: 1 }, 'sized', k);
+    },
+  },
+  {
     kind: 'rename a breaker',
     edit: (project, _session, k) => {
       const b = spread(project, k, (n) => n.kind === 'breaker');

@@ -384,7 +384,7 @@ function checkSequence(start: Project, edits: readonly Edit[], tally: Tally = {}
     expect(report).toEqual(analyze(project));
     if (session.last.mode === 'incremental') incremental++;
     const ways = (tally[e.kind] ??= {});
-    const way = session.last.mode === 'full' && (e.kind === 'addEquipment' || e.kind === 'rename' || e.kind === 'connect') ? `full: ${session.last.reason}` : session.last.mode;
+    const way = session.last.mode === 'full' && (e.kind === 'addEquipment' || e.kind === 'rename' || e.kind === 'connect' || e.kind === 'paste') ? `full: ${session.last.reason}` : session.last.mode;
     ways[way] = (ways[way] ?? 0) + 1;
   });
   return incremental;

@@ -116,10 +116,17 @@ function recheck(state: AnalysisState, prev: Project, next: Project, kept: KeptS
     else return `${key} changed`;
   }
   if (linksChanged || prev.nodes.length !== next.nodes.length || prev.conductors.length !== next.conductors.length) {
-    const leaf = appendedLeaf(state, prev, next);
-    if (typeof leaf === 'string') return leaf;
-    const result = recheckAppended(state, next, leaf, kept);
-    return typeof result === 'string' ? result : { state: result, mode: { mode: 'incremental', nodeId: next.nodes[leaf.node]!.id, edit: leaf.added ? 'added' : 'connected' } };
+    const steps = appendedLeaves(state, prev, next);
+    if (typeof steps === 'string') return steps;
+    // Several nodes added at once (a paste) are re-checked one after another, each on the drawing as it stood then.
+    let after = state;
+    for (const { project, leaf } of steps) {
+      const result = recheckAppended(after, project, leaf, kept);
+      if (typeof result === 'string') return result;
+      after = result;
+    }
+    const { leaf } = steps[steps.length - 1]!;
+    return { state: after, mode: { mode: 'incremental', nodeId: next.nodes[leaf.node]!.id, edit: leaf.added ? 'added' : 'connected' } };
   }
   if (conductorsChanged && nodesChanged) return 'conductors and nodes changed';
   if (conductorsChanged) {
@@ -1052,6 +1059,46 @@ interface AppendedLeaf {
 }
 
 /** The node and edge an edit appended (`AppendedLeaf`), or why the edit is something else. Compares by identity. */
+/**
+ * The additions of an edit as steps of one node and the edge that supplies it (`AppendedLeaf`), each
+ * with the drawing as it stands after it (the last is `next`): the nodes in their order, each supplied
+ * by the next new conductor or bus link (from a node drawn before it), or one edge to a node drawn
+ * connected to nothing; or why the edit is something else. Compares by identity.
+ */
+function appendedLeaves(state: AnalysisState, prev: Project, next: Project): { project: Project; leaf: AppendedLeaf }[] | string {
+  const n0 = prev.nodes.length;
+  const m0 = prev.conductors.length;
+  const l0 = prev.busLinks.length;
+  const added = next.nodes.length - n0;
+  if (added <= 1) {
+    const leaf = appendedLeaf(state, prev, next);
+    return typeof leaf === 'string' ? leaf : [{ project: next, leaf }];
+  }
+  if (next.conductors.length - m0 + next.busLinks.length - l0 !== added) return 'equipment was pasted with more or fewer connections than pieces';
+  const steps: { project: Project; leaf: AppendedLeaf }[] = [];
+  let m = m0;
+  let l = l0;
+  let before = prev;
+  for (let k = 0; k < added; k++) {
+    const node = next.nodes[n0 + k]!;
+    // Its supply is the next new conductor or bus link, whichever ends at it.
+    const c = next.conductors[m];
+    const b = next.busLinks[l];
+    const byConductor = c !== undefined && c.to === node.id;
+    if (!byConductor && (b === undefined || b.to !== node.id)) return 'pasted equipment is not supplied in the order it is listed';
+    if (byConductor) m++;
+    else l++;
+    const last = k === added - 1;
+    const project = last ? next : { ...next, nodes: next.nodes.slice(0, n0 + k + 1), conductors: next.conductors.slice(0, m), busLinks: next.busLinks.slice(0, l) };
+    const leaf = appendedLeaf(state, before, project);
+    if (typeof leaf === 'string') return leaf;
+    steps.push({ project, leaf });
+    before = project;
+  }
+  return steps;
+}
+
+/** One step of `appendedLeaves`: `prev` may hold nodes pasted in earlier steps, after those of `state`'s drawing. */
 function appendedLeaf(state: AnalysisState, prev: Project, next: Project): AppendedLeaf | string {
   // A removal moves every later element to a new index, and the stages keep what they found by index: the whole analysis.
   const grew = (a: readonly unknown[], b: readonly unknown[]) => {
@@ -1068,7 +1115,8 @@ function appendedLeaf(state: AnalysisState, prev: Project, next: Project): Appen
   if (conductors + links === 0) return 'equipment was added, connected to nothing';
   const edge = conductors === 1 ? next.conductors[prev.conductors.length]! : next.busLinks[prev.busLinks.length]!;
   const g = state.ctx.graph;
-  const from = g.nodeIndex.get(edge.from);
+  let from = g.nodeIndex.get(edge.from);
+  for (let v = g.nodes.length; from === undefined && v < prev.nodes.length; v++) if (prev.nodes[v]!.id === edge.from) from = v;
   const at = conductors === 1 ? prev.conductors.length : -(prev.busLinks.length + 1);
   if (nodes === 0) {
     // The editor's connect: to equipment drawn on its own (connected to nothing) it supplies a leaf, as if just added.
