@@ -1,4 +1,3 @@
-import { keptConductorIndex } from '../model/nodeIndex';
 import { ruleCitation } from '../rules/define';
 import type { Graph } from '../topology/graph';
 import type { RunVerdict } from './classify';
@@ -12,28 +11,11 @@ export function conductorReports(ctx: FixedContext & { findings: readonly Findin
   const { graph, verdicts } = ctx;
   const chains = new Map<string, readonly string[]>();
   for (const v of verdicts) if (v.facts.conductorIds.length > 1) chains.set(v.facts.conductorIds[0]!, v.facts.conductorIds);
-  const findingIds = byConductorIndex(graph.conductors, findingIdsByConductor(ctx.findings, (id) => chains.get(id)));
+  const findingIdsBySubject = findingIdsByConductor(ctx.findings, (id) => chains.get(id));
   const conductors: ConductorReport[] = new Array(graph.conductors.length);
   const shared = sharedParts(graph);
-  for (let ci = 0; ci < graph.conductors.length; ci++) conductors[ci] = conductorReport(ctx, ci, findingIds[ci], shared);
+  for (let ci = 0; ci < graph.conductors.length; ci++) conductors[ci] = conductorReport(ctx, ci, findingIdsBySubject.get(graph.conductors[ci]!.id), shared);
   return conductors;
-}
-
-/**
- * The lists of `byId` by conductor index. Few conductors have findings: with the load step's index of
- * conductor ids (model/nodeIndex.ts) only their ids are looked up, else every conductor's id is.
- */
-function byConductorIndex<T>(conductors: Graph['conductors'], byId: ReadonlyMap<string, T>): (T | undefined)[] {
-  const out = new Array<T | undefined>(conductors.length);
-  const indexOf = keptConductorIndex(conductors);
-  if (indexOf) {
-    for (const [id, x] of byId) {
-      const ci = indexOf(id);
-      if (ci >= 0) out[ci] = x;
-    }
-  }
-  else for (let ci = 0; ci < conductors.length; ci++) out[ci] = byId.get(conductors[ci]!.id);
-  return out;
 }
 
 /**

@@ -3,7 +3,7 @@ import { CONDUCTOR_SIZES, PROJECT_FORMAT, PROJECT_VERSION, project, type Project
 import { migrateToCurrent } from './migrations';
 import { compileSchema, FAIL, schemaDepth } from './fastParse';
 import { foundText } from './found';
-import { rememberConductorIndex, rememberEdgeEnds, rememberNodeIndex } from './nodeIndex';
+import { rememberEdgeEnds, rememberNodeIndex } from './nodeIndex';
 import type { LoadError } from '../analyze/types';
 
 const fastProject = compileSchema(project);
@@ -198,9 +198,6 @@ function issueToError(issue: z.core.$ZodIssue, source: unknown): LoadError {
   }
 }
 
-/** `seen` in checkConsistency keeps list * LIST_STRIDE + position: more than any list's length. */
-const LIST_STRIDE = 1e7;
-
 /** What the schema cannot check alone: unique ids, ends that exist and point the right way, load data. */
 export function checkConsistency(p: Project): LoadError[] {
   const errors: LoadError[] = [];
@@ -208,8 +205,7 @@ export function checkConsistency(p: Project): LoadError[] {
   const nodeIndex = new Map<string, number>();
   // Where a node id repeated was first seen; empty for a valid file.
   const firstNode = new Map<string, number>();
-  // Where each conductor or bus link id was first seen, as list * LIST_STRIDE + index; a path string is built only
-  // for an error. For a valid file it is also the conductor index the report lines reuse (./nodeIndex.ts).
+  // Where each conductor or bus link id was first seen, as list * 1e7 + index; a path string is built only for an error.
   const seen = new Map<string, number>();
   // Each end's node position (-1 for none), kept for the graph with the index (./nodeIndex.ts).
   const ends = { from: new Int32Array(p.conductors.length), to: new Int32Array(p.conductors.length) };
@@ -228,8 +224,8 @@ export function checkConsistency(p: Project): LoadError[] {
       return;
     }
     const first = seen.get(id);
-    if (first === undefined) seen.set(id, list * LIST_STRIDE + i);
-    else repeated(id, pathOf(Math.floor(first / LIST_STRIDE), first % LIST_STRIDE), list, i);
+    if (first === undefined) seen.set(id, list * 1e7 + i);
+    else repeated(id, pathOf(Math.floor(first / 1e7), first % 1e7), list, i);
   };
   for (let i = 0; i < p.nodes.length; i++) {
     const n = p.nodes[i]!;
@@ -281,7 +277,6 @@ export function checkConsistency(p: Project): LoadError[] {
     rememberNodeIndex(p.nodes, nodeIndex);
     rememberEdgeEnds(p.conductors, nodeIndex, ends.from, ends.to);
     rememberEdgeEnds(p.busLinks, nodeIndex, linkEnds.from, linkEnds.to);
-    rememberConductorIndex(p.conductors, seen, LIST_STRIDE);
   }
   return errors;
 }

@@ -1,79 +1,40 @@
 import type { EquipmentNode } from './schema';
 
 /**
- * Ids interned once. The load step's consistency check (model/load.ts) builds the index of every
- * node id to its position, and of every conductor and bus link id, and looks up both ends of every
- * conductor and bus link in the node index; the analysis reuses them (the graph, topology/graph.ts;
- * the report lines, analyze/conductorReports.ts) instead of hashing every id a second time, for as
- * long as the project's lists still hold the ids they were built from. An edit makes a new list
- * (immer) or changes an id in place; either way the checks below see it and the analysis builds its own.
+ * Node ids interned once. The load step's consistency check (model/load.ts) builds the index of
+ * every node id to its position, and looks up both ends of every conductor and bus link in it; the
+ * analysis's graph (topology/graph.ts) reuses both instead of hashing every id a second time, for
+ * as long as the project's lists still hold the ids they were built from. An edit makes a new list
+ * (immer) or changes an id in place; either way the checks below see it and the graph builds its own.
  */
 interface Interned {
-  /** Each id to `offset` + its position in the list. */
   readonly index: ReadonlyMap<string, number>;
-  readonly offset: number;
   /** The ids in list order when the index was built. */
   readonly ids: readonly string[];
 }
 
-interface HasId {
-  readonly id: string;
-}
-
-const interned = new WeakMap<readonly HasId[], Interned>();
-
-/** Keeps `index` (each id of `list` to `offset` + its position, every id unique; it may hold other ids besides) for the look-ups below. */
-function remember(list: readonly HasId[], index: ReadonlyMap<string, number>, offset: number): void {
-  const ids = new Array<string>(list.length);
-  for (let i = 0; i < list.length; i++) ids[i] = list[i]!.id;
-  interned.set(list, { index, offset, ids });
-}
-
-/** What `remember` kept for `list`, if its ids are still the ones it kept. */
-function keptFor(list: readonly HasId[]): Interned | undefined {
-  const kept = interned.get(list);
-  return kept && sameIds(list, kept.ids) ? kept : undefined;
-}
+const interned = new WeakMap<readonly EquipmentNode[], Interned>();
 
 /** Keeps `index` (each id of `nodes` to its position, every id unique) for `nodeIndexOf`. */
 export function rememberNodeIndex(nodes: readonly EquipmentNode[], index: ReadonlyMap<string, number>): void {
-  remember(nodes, index, 0);
+  const ids = new Array<string>(nodes.length);
+  for (let i = 0; i < nodes.length; i++) ids[i] = nodes[i]!.id;
+  interned.set(nodes, { index, ids });
 }
 
 /** Each node id's position in `nodes` (the last one, should an id repeat). */
 export function nodeIndexOf(nodes: readonly EquipmentNode[]): ReadonlyMap<string, number> {
-  const kept = keptFor(nodes);
-  if (kept) return kept.index;
+  const kept = interned.get(nodes);
+  if (kept && sameIds(nodes, kept.ids)) return kept.index;
   const index = new Map<string, number>();
   for (let i = 0; i < nodes.length; i++) index.set(nodes[i]!.id, i);
   return index;
 }
 
-/** Keeps the load step's map of edge ids (`index`: a conductor's id to `offset` + its position) for `keptConductorIndex`. */
-export function rememberConductorIndex(conductors: readonly HasId[], index: ReadonlyMap<string, number>, offset: number): void {
-  remember(conductors, index, offset);
-}
-
-/**
- * Each conductor id's position in `conductors` (-1 for an id it lacks), when the load step's index
- * still holds for the list; else null (then a caller that looks up only a few ids is better off
- * without building an index of every conductor).
- */
-export function keptConductorIndex(conductors: readonly HasId[]): ((id: string) => number) | null {
-  const kept = keptFor(conductors);
-  if (!kept) return null;
-  const { index, offset } = kept;
-  const n = conductors.length;
-  return (id) => {
-    const k = (index.get(id) ?? -1) - offset;
-    return k >= 0 && k < n ? k : -1;
-  };
-}
-
 /** One pass comparing string references (equal strings compare fast): no hashing. */
-function sameIds(list: readonly HasId[], ids: readonly string[]): boolean {
-  if (list.length !== ids.length) return false;
-  for (let i = 0; i < list.length; i++) if (list[i]!.id !== ids[i]) return false;
+function sameIds(nodes: readonly EquipmentNode[], ids: readonly string[]): boolean {
+  if (nodes.length !== ids.length) return false;
+  for (let i = 0; i < nodes.length; i++) if (nodes[i]!.id !== ids[i]) return false;
   return true;
 }
 

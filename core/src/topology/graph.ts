@@ -34,7 +34,11 @@ export function buildGraph(project: Project): Graph {
   // Each end's node position: the load step's look-ups while the lists are as it left them (model/nodeIndex.ts).
   const { from: conductorFrom, to: conductorTo } = edgeEndsOf(conductors, nodeIndex);
   const { from: linkFrom, to: linkTo } = edgeEndsOf(links, nodeIndex);
-  const { inEdges, outEdges } = edgeLists(nodes.length, conductorFrom, conductorTo, linkFrom, linkTo);
+  // Every node has a list each way, but most lists are empty (a load feeds nothing, a source is fed by
+  // nothing): those share one empty list (read-only, like the whole graph), so a large drawing makes
+  // about one list per edge, not two per node.
+  const inEdges = edgeLists(nodes.length, conductorTo, linkTo);
+  const outEdges = edgeLists(nodes.length, conductorFrom, linkFrom);
   const nodeKind = new Uint8Array(nodes.length);
   for (let i = 0; i < nodes.length; i++) nodeKind[i] = KIND[nodes[i]!.kind] ?? UNKNOWN_KIND;
   return { nodes, conductors, links, nodeIndex, nodeKind, inEdges, outEdges, conductorFrom, conductorTo, linkFrom, linkTo };
@@ -47,46 +51,22 @@ export const KIND: Readonly<Record<EquipmentKind, number>> = Object.freeze(Objec
 /** Not frozen: a frozen array has another shape, and every loop over the lists would then see two. */
 const NO_EDGES: readonly number[] = [];
 
-/**
- * Each node's edges arriving (`inEdges`) and leaving (`outEdges`): conductors first, then bus links,
- * each in file order. Every node has a list each way, but most lists are empty (a load feeds nothing,
- * a source is fed by nothing): those share one empty list. Most of the rest list one edge, and an
- * edge alone at both its ends is listed at both by one list of itself (the lists are read-only, like
- * the whole graph; see singleEdge), so a large drawing makes about one list per edge, not two.
- */
-function edgeLists(n: number, conductorFrom: Int32Array, conductorTo: Int32Array, linkFrom: Int32Array, linkTo: Int32Array): Pick<Graph, 'inEdges' | 'outEdges'> {
-  const inDegree = new Int32Array(n);
-  const outDegree = new Int32Array(n);
-  countEnds(inDegree, conductorTo);
-  countEnds(inDegree, linkTo);
-  countEnds(outDegree, conductorFrom);
-  countEnds(outDegree, linkFrom);
-  const inEdges = new Array<number[]>(n).fill(NO_EDGES as number[]);
-  const outEdges = new Array<number[]>(n).fill(NO_EDGES as number[]);
-  const add = (e: number, from: number, to: number) => {
-    const alone = (to >= 0 && inDegree[to] === 1) || (from >= 0 && outDegree[from] === 1) ? [e] : null;
-    if (to >= 0) addEdge(inEdges, to, e, inDegree[to] === 1 ? alone : null);
-    if (from >= 0) addEdge(outEdges, from, e, outDegree[from] === 1 ? alone : null);
-  };
-  for (let i = 0; i < conductorTo.length; i++) add(i, conductorFrom[i]!, conductorTo[i]!);
-  for (let j = 0; j < linkTo.length; j++) add(-(j + 1), linkFrom[j]!, linkTo[j]!);
-  return { inEdges, outEdges };
-}
-
-/** Lists edge `e` at node `v`: by `alone` when it is the node's only edge, else in the node's own list. */
-function addEdge(lists: number[][], v: number, e: number, alone: number[] | null): void {
-  const list = lists[v]!;
-  if (alone) lists[v] = alone;
-  else if (list === NO_EDGES) lists[v] = [e];
-  else list.push(e);
-}
-
-/** A list holding only conductor `c`: the graph's, when `c` is alone at one of its ends (read-only, like the graph), else a new one. */
-export function singleEdge(g: Pick<Graph, 'inEdges' | 'outEdges' | 'conductorFrom' | 'conductorTo'>, c: number): number[] {
-  const to = g.conductorTo[c]!;
-  const from = g.conductorFrom[c]!;
-  const list = to >= 0 && g.inEdges[to]!.length === 1 ? g.inEdges[to]! : from >= 0 && g.outEdges[from]!.length === 1 ? g.outEdges[from]! : undefined;
-  return list !== undefined && list[0] === c ? list : [c];
+/** Per node, the edges whose end (`conductorEnd`, `linkEnd`) is that node: conductors first, then bus links, each in file order. */
+function edgeLists(n: number, conductorEnd: Int32Array, linkEnd: Int32Array): number[][] {
+  const lists = new Array<number[]>(n).fill(NO_EDGES as number[]);
+  for (let i = 0; i < conductorEnd.length; i++) {
+    const v = conductorEnd[i]!;
+    if (v < 0) continue;
+    if (lists[v] === NO_EDGES) lists[v] = [i];
+    else lists[v]!.push(i);
+  }
+  for (let j = 0; j < linkEnd.length; j++) {
+    const v = linkEnd[j]!;
+    if (v < 0) continue;
+    if (lists[v] === NO_EDGES) lists[v] = [-(j + 1)];
+    else lists[v]!.push(-(j + 1));
+  }
+  return lists;
 }
 
 export function edgeFrom(g: Graph, e: number): number {

@@ -1,5 +1,5 @@
 import type { NodeOfKind } from '../model/schema';
-import { KIND, singleEdge, type Graph } from './graph';
+import { KIND, type Graph } from './graph';
 
 /**
  * A run is one conductor, or several joined end to end at pass-through
@@ -53,24 +53,17 @@ export function buildRuns(g: Graph): Runs {
   }
   const runOf = new Int32Array(n).fill(-1);
   const members: number[][] = [];
-  for (let c = 0; c < n; c++) if (!hasPrev[c]) collect(g, members, runOf, next, c);
+  for (let c = 0; c < n; c++) if (!hasPrev[c]) collect(members, runOf, next, c);
   // Whatever is left lies on a ring of pass-through joints: a cycle, reported elsewhere.
-  for (let c = 0; c < n; c++) if (runOf[c] === -1) collect(g, members, runOf, next, c);
+  for (let c = 0; c < n; c++) if (runOf[c] === -1) collect(members, runOf, next, c);
   return { members, runOf };
 }
 
-/**
- * Appends the run that starts at conductor `start` and follows `next`. Most runs are one conductor:
- * their list is the graph's list of that conductor alone (read-only, like the runs), not a copy.
- */
-function collect(g: Graph, members: number[][], runOf: Int32Array, next: Int32Array, start: number): void {
+/** Appends the run that starts at conductor `start` and follows `next`; most runs are one conductor, a list of exactly one. */
+function collect(members: number[][], runOf: Int32Array, next: Int32Array, start: number): void {
   const id = members.length;
-  runOf[start] = id;
-  if (next[start]! < 0) {
-    members.push(singleEdge(g, start));
-    return;
-  }
   const run = [start];
+  runOf[start] = id;
   for (let c = next[start]!; c >= 0 && runOf[c] === -1; c = next[c]!) {
     runOf[c] = id;
     run.push(c);

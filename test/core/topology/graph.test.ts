@@ -3,7 +3,6 @@ import { describe, expect, it } from 'vitest';
 import { loadProject } from '../../../core/src/model/load';
 import type { NodeId, Project } from '../../../core/src/model/schema';
 import { buildGraph, type Graph } from '../../../core/src/topology/graph';
-import { buildRuns } from '../../../core/src/topology/runs';
 
 /**
  * The graph reuses the load step's look-ups of every node id and every conductor's and bus link's
@@ -52,37 +51,5 @@ describe('graph ends from the load step', () => {
     const g = buildGraph(r);
     expect(g.conductorFrom[0]).toBe(-1);
     expect(ends(r, g).graph.slice(1)).toEqual(ends(r, g).project.slice(1));
-  });
-});
-
-/** Each node's edges arriving and leaving, read straight off the lists: conductors first, then bus links, each in file order. */
-function listsOf(p: Project, g: Graph) {
-  const at = (end: 'from' | 'to') =>
-    g.nodes.map((n) => [
-      ...p.conductors.flatMap((c, i) => (c[end] === n.id ? [i] : [])),
-      ...p.busLinks.flatMap((l, j) => (l[end] === n.id ? [-(j + 1)] : [])),
-    ]);
-  return { inEdges: at('to'), outEdges: at('from') };
-}
-
-describe('edge lists shared where an edge is alone', () => {
-  it('list every edge at both its ends, in file order, however they are shared', () => {
-    const p = loaded();
-    const g = buildGraph(p);
-    expect({ inEdges: g.inEdges, outEdges: g.outEdges }).toEqual(listsOf(p, g));
-    // A run of one conductor is listed by itself; every conductor is in exactly one run.
-    const runs = buildRuns(g);
-    expect(runs.members.flat().sort((a, b) => a - b)).toEqual(p.conductors.map((_, i) => i));
-    for (const [r, members] of runs.members.entries()) for (const ci of members) expect(runs.runOf[ci]).toBe(r);
-  });
-
-  it('a node given a second edge gets a list of its own: the shared one still lists the first edge alone', () => {
-    const p = loaded();
-    const panel = p.nodes.find((n) => n.kind === 'bus' && p.conductors.filter((c) => c.from === n.id).length === 1)!;
-    const only = p.conductors.findIndex((c) => c.from === panel.id);
-    const load = p.nodes.find((n) => n.kind === 'load')!;
-    const q: Project = { ...p, conductors: [...p.conductors, { ...p.conductors[only]!, id: 'added-branch' as Project['conductors'][number]['id'], from: panel.id, to: load.id }] };
-    const g = buildGraph(q);
-    expect({ inEdges: g.inEdges, outEdges: g.outEdges }).toEqual(listsOf(q, g));
   });
 });
