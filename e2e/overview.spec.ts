@@ -17,11 +17,16 @@ async function view(page: Page) {
   return { x: m.e, y: m.f, zoom: m.a, left: box.x, top: box.y, width: box.width, height: box.height };
 }
 
-test('far out, a click picks a piece or a conductor and a Shift-drag box selects what it covers', async ({ page }, info) => {
+/** The app with the campus opened and checked. */
+async function openCampus(page: Page) {
   await openApp(page);
   await checked(page);
   await page.evaluate((text) => window.__linewright!.open(text, 'campus.json'), JSON.stringify(drawing));
   await checked(page);
+}
+
+test('far out, a click picks a piece or a conductor and a Shift-drag box selects what it covers', async ({ page }, info) => {
+  await openCampus(page);
   const overview = page.getByTestId('overview');
   await expect(overview).toBeVisible();
   await expect(page.locator('.react-flow__node')).toHaveCount(0);
@@ -112,10 +117,7 @@ test('far out, a click picks a piece or a conductor and a Shift-drag box selects
 });
 
 test('a big drawing restored by a reload is framed whole before any of its elements is mounted', async ({ page }, info) => {
-  await openApp(page);
-  await checked(page);
-  await page.evaluate((text) => window.__linewright!.open(text, 'campus.json'), JSON.stringify(drawing));
-  await checked(page);
+  await openCampus(page);
   await expect(page.getByTestId('overview')).toBeVisible();
   // Saved in this browser (IndexedDB) before the reload.
   await page.waitForFunction(() => {
@@ -140,10 +142,7 @@ test('a big drawing restored by a reload is framed whole before any of its eleme
 });
 
 test('up close on a big drawing, a finding far off is framed and drawn', async ({ page }, info) => {
-  await openApp(page);
-  await checked(page);
-  await page.evaluate((text) => window.__linewright!.open(text, 'campus.json'), JSON.stringify(drawing));
-  await checked(page);
+  await openCampus(page);
   await expect(page.getByTestId('overview')).toBeVisible();
   const violations = page.locator('[data-testid="finding"][data-severity="violation"]');
   expect(await violations.count()).toBeGreaterThan(1);

@@ -140,21 +140,24 @@ async function measure(page: Page, conductors: number) {
     return Number(/scale\(([\d.]+)\)/.exec(t)?.[1] ?? NaN);
   });
 
-  // Scripted pan: hold Space (React Flow's pan key) and drag across the drawing at the fitted zoom.
+  // Scripted pan across the drawing at the fitted zoom.
   const box = (await page.getByTestId('canvas').boundingBox())!;
   const cx = box.x + box.width / 2;
   const cy = box.y + box.height / 2;
-  const pan = await framesDuring(page, async () => {
-    await page.keyboard.down('Space');
-    await page.mouse.move(cx, cy);
-    await page.mouse.down();
-    for (let i = 0; i < 60; i++) {
-      await page.mouse.move(cx + Math.sin(i / 9) * 200, cy + Math.cos(i / 9) * 120);
-      await page.waitForTimeout(16);
-    }
-    await page.mouse.up();
-    await page.keyboard.up('Space');
-  });
+  /** Holds Space (React Flow's pan key) and drags around the centre, `rx` × `ry` pixels out. */
+  const panAround = (rx: number, ry: number) =>
+    framesDuring(page, async () => {
+      await page.keyboard.down('Space');
+      await page.mouse.move(cx, cy);
+      await page.mouse.down();
+      for (let i = 0; i < 60; i++) {
+        await page.mouse.move(cx + Math.sin(i / 9) * rx, cy + Math.cos(i / 9) * ry);
+        await page.waitForTimeout(16);
+      }
+      await page.mouse.up();
+      await page.keyboard.up('Space');
+    });
+  const pan = await panAround(200, 120);
   const zoom = await framesDuring(page, async () => {
     await page.mouse.move(cx, cy);
     for (let i = 0; i < 30; i++) {
@@ -176,17 +179,7 @@ async function measure(page: Page, conductors: number) {
     }
     await page.locator('.react-flow__edge').first().waitFor({ state: 'attached' });
   });
-  const detailPan = await framesDuring(page, async () => {
-    await page.keyboard.down('Space');
-    await page.mouse.move(cx, cy);
-    await page.mouse.down();
-    for (let i = 0; i < 60; i++) {
-      await page.mouse.move(cx + Math.sin(i / 9) * 400, cy + Math.cos(i / 9) * 240);
-      await page.waitForTimeout(16);
-    }
-    await page.mouse.up();
-    await page.keyboard.up('Space');
-  });
+  const detailPan = await panAround(400, 240);
   return {
     elements: p.nodes + p.conductors + p.busLinks,
     nodes: p.nodes,
