@@ -177,7 +177,9 @@ async function measure(page: Page, conductors: number) {
       await page.waitForTimeout(16);
       workSteps++;
     }
-    await page.locator('.react-flow__edge').first().waitFor({ state: 'attached' });
+    // Handed over (the view may hold paper only, so no element is waited for), then painted.
+    await page.getByTestId('overview').waitFor({ state: 'detached' });
+    await page.evaluate(() => new Promise<void>((r) => requestAnimationFrame(() => requestAnimationFrame(() => r()))));
   });
   const detailPan = await panAround(400, 240);
   return {
