@@ -3,7 +3,7 @@ import { analyze, createAnalysis } from '@linewright/core';
 import { FlowDeriver, conductorEdgeId } from '../../web/src/canvas/flowElements';
 import { conductorLook, nodeLook } from '../../web/src/canvas/looks';
 import { overviewLayout, overviewScene, pickAt, sceneChanges, selectionInBox } from '../../web/src/canvas/overview';
-import { replaceElement } from '../../web/src/editor/commands';
+import { addEquipment, connect, replaceElement } from '../../web/src/editor/commands';
 import { drawTap, harness } from './harness';
 
 // React Flow rebuilds its lookups over every edge when the edges array changes and re-renders an element
@@ -94,6 +94,34 @@ describe('React Flow elements derived from the document', () => {
       if (e1[i]!.id === conductorEdgeId(ids.tapId)) expect(e2[i]).toMatchObject({ selected: true });
       else expect(e2[i]).toBe(e1[i]);
     }
+  });
+
+  it('edges after selection changes alone equal the edges a fresh derivation gives, and an edit after them too', () => {
+    const { h, ids, d } = setup();
+    addEquipment.run(h.ctx, { kind: 'bus', position: { x: 300, y: 0 } });
+    addEquipment.run(h.ctx, { kind: 'breaker', position: { x: 300, y: 200 } });
+    const [bus, br] = h.doc().nodes.slice(-2).map((n) => n.id);
+    connect.run(h.ctx, { from: bus!, to: br!, as: 'busLink' });
+    const linkId = h.doc().busLinks[0]!.id;
+    const conductors = h.doc().conductors.map((c) => c.id);
+    const same = () => expect(d.edges(h.store.getState())).toEqual(new FlowDeriver().edges(h.store.getState()));
+    same();
+    for (const sel of [
+      { nodes: [], conductors: [ids.tapId], busLinks: [] },
+      { nodes: [ids.m], conductors: [conductors[0]!, ids.tapId], busLinks: [linkId] },
+      { nodes: [], conductors: [conductors[1]!], busLinks: [] },
+      { nodes: [], conductors: [], busLinks: [] },
+    ]) {
+      h.store.setSelection(sel);
+      same();
+    }
+    h.store.setSelection({ nodes: [], conductors: [ids.tapId], busLinks: [linkId] });
+    setLength(h, ids.tapId, 12);
+    same();
+    h.store.edit('Move', (doc) => void (doc.nodes.find((n) => n.id === ids.m)!.position = { x: 40, y: 400 }));
+    same();
+    h.store.setSelection({ nodes: [], conductors: [], busLinks: [] });
+    same();
   });
 });
 
