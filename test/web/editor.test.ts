@@ -235,3 +235,24 @@ describe('project files', () => {
     expect(le.errors.map((e) => e.path)).toContain('conductors[2].lengthFt');
   });
 });
+
+describe('the selection after a commit', () => {
+  it('keeps only ids the document still holds, a few ids or many, and stays the same object when nothing went', () => {
+    const h = harness();
+    for (let i = 0; i < 20; i++) addEquipment.run(h.ctx, { kind: 'load', position: { x: i * 100, y: 0 } });
+    const ids = h.doc().nodes.map((n) => n.id);
+    // Many: the ids of the list are put in a set.
+    h.store.setSelection({ nodes: ids, conductors: [], busLinks: [] });
+    h.store.edit('Delete three', (d) => void (d.nodes = d.nodes.filter((n) => !ids.slice(0, 3).includes(n.id))));
+    expect(h.store.getState().view.selection.nodes).toEqual(ids.slice(3));
+    // A few: each searched for.
+    h.store.setSelection({ nodes: [ids[3]!, ids[4]!], conductors: [], busLinks: [] });
+    h.store.edit('Delete one', (d) => void (d.nodes = d.nodes.filter((n) => n.id !== ids[4])));
+    expect(h.store.getState().view.selection.nodes).toEqual([ids[3]]);
+    // An edit that removes nothing selected keeps the selection object.
+    const sel = h.store.getState().view.selection;
+    h.store.edit('Rename', (d) => void (d.nodes[0]!.label = 'L-A'));
+    h.store.edit('Name', (d) => void (d.project.name = 'B'));
+    expect(h.store.getState().view.selection).toBe(sel);
+  });
+});
