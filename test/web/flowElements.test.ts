@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { analyze, createAnalysis } from '@linewright/core';
 import { FlowDeriver, conductorEdgeId } from '../../web/src/canvas/flowElements';
 import { conductorLook, nodeLook } from '../../web/src/canvas/looks';
-import { overviewLayout, overviewScene, pickAt, sceneChanges, selectionInBox } from '../../web/src/canvas/overview';
+import { OverviewLayouts, overviewLayout, overviewScene, pickAt, sceneChanges, selectionInBox } from '../../web/src/canvas/overview';
 import { addEquipment, connect, replaceElement } from '../../web/src/editor/commands';
 import { drawTap, harness } from './harness';
 
@@ -210,5 +210,45 @@ describe('the overview far out', () => {
       else expect(next.family).not.toEqual(scene.family);
       scene = next;
     }
+  });
+
+  it('a selection change keeps the layout’s geometry and the scene’s families, and equals a layout and a scene made afresh', () => {
+    const h = harness();
+    const ids = drawTap(h, { lengthFt: 40 });
+    h.store.edit('Spread', (doc) => doc.nodes.forEach((n, i) => void (n.position = { x: 0, y: i * 200 })));
+    const session = createAnalysis(h.doc());
+    h.store.setReport(session.report, h.store.getState().docVersion);
+    const d = new FlowDeriver();
+    const layouts = new OverviewLayouts();
+    const layoutNow = () => layouts.of(d.nodes(h.store.getState()), d.edges(h.store.getState()));
+    const fresh = () => {
+      const f = new FlowDeriver();
+      return overviewLayout(f.nodes(h.store.getState()), f.edges(h.store.getState()));
+    };
+    const plain = (x: ReturnType<typeof overviewScene>) => ({ family: x.family, wires: [...x.wires].sort(), badges: [...x.badges].sort(), flags: x.flags, layout: x.layout });
+    let layout = layoutNow();
+    let scene = overviewScene(layout, h.store.getState());
+    for (const sel of [
+      { nodes: [ids.m], conductors: [ids.tapId], busLinks: [] },
+      { nodes: [], conductors: [h.doc().conductors[0]!.id], busLinks: [] },
+      { nodes: [], conductors: [], busLinks: [] },
+    ]) {
+      h.store.setSelection(sel);
+      const next = layoutNow();
+      expect(next.conductors).toBe(layout.conductors);
+      expect(next).toEqual(fresh());
+      expect(next.selectedBoxes).toHaveLength(sel.nodes.length);
+      expect(next.selectedWires).toHaveLength(sel.conductors.length);
+      const nextScene = overviewScene(next, h.store.getState(), scene);
+      expect(nextScene.family).toBe(scene.family);
+      expect(plain(nextScene)).toEqual(plain(overviewScene(next, h.store.getState())));
+      layout = next;
+      scene = nextScene;
+    }
+    // A move is not a selection change: the geometry is laid out again.
+    h.store.edit('Move', (doc) => void (doc.nodes.find((n) => n.id === ids.m)!.position = { x: 60, y: 900 }));
+    const moved = layoutNow();
+    expect(moved.conductors).not.toBe(layout.conductors);
+    expect(moved).toEqual(fresh());
   });
 });

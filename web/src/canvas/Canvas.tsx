@@ -16,7 +16,7 @@ import { KIND_DRAG_TYPE } from '../panels/Palette';
 import { DrawingTools } from '../panels/Toolbar';
 import { FlowDeriver, selectionAfter, type FlowEdge, type FlowNode } from './flowElements';
 import { Overview } from './Overview';
-import { OVERVIEW_ZOOM, overviewLayout, pickAt, selectionInBox, type OverviewHit } from './overview';
+import { OVERVIEW_ZOOM, OverviewLayouts, pickAt, selectionInBox, type OverviewHit } from './overview';
 import { areaNear, elementsNear, viewArea, type Area } from './nearView';
 import { EMPTY_SELECTION, LIST_OF, type Selection } from '../editor/store';
 import { useReviewView } from '../review/reviewState';
@@ -114,7 +114,8 @@ export const Canvas = memo(function Canvas() {
   const flowEdges = overview ? NO_EDGES : (near?.edges ?? edges);
   const flowStore = useStoreApi<FlowNode, FlowEdge>();
   // Far out the elements are hidden, so React Flow picks nothing: a click and a selection box pick from the overview's layout.
-  const layout = useMemo(() => (overview ? overviewLayout(nodes, edges) : null), [overview, nodes, edges]);
+  const layouts = useMemo(() => new OverviewLayouts(), []);
+  const layout = useMemo(() => (overview ? layouts.of(nodes, edges) : null), [overview, layouts, nodes, edges]);
   const onPaneClick = useCallback(
     (e: React.MouseEvent) => {
       if (!layout) return;

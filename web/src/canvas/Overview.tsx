@@ -24,6 +24,8 @@ export function Overview({ layout }: { layout: OverviewLayout }) {
   const ref = useRef<HTMLCanvasElement>(null);
   const { store } = useCommandContext();
   const flow = useStoreApi<FlowNode, FlowEdge>();
+  // The last scene outlives a new layout: one that differs only in its selection keeps the scene's families.
+  const lastScene = useRef<OverviewScene | null>(null);
 
   useEffect(() => {
     const canvas = ref.current;
@@ -37,7 +39,7 @@ export function Overview({ layout }: { layout: OverviewLayout }) {
     // The layout follows the elements (this effect's inputs); the scene follows the report alone.
     const sceneNow = (): OverviewScene => {
       const s = store.getState();
-      if (!scene || scene.report !== s.report) scene = overviewScene(layout, s, scene);
+      if (!scene || scene.report !== s.report) scene = lastScene.current = overviewScene(layout, s, scene ?? lastScene.current);
       return scene;
     };
     const viewNow = (): View => {

@@ -71,6 +71,51 @@ export interface OverviewScene {
   family: VerdictFamily[];
 }
 
+/**
+ * Layouts one after another, as the canvas asks for them. When the elements differ from the last layout's
+ * only in what is selected (each element the same object, or a copy with the same data and place), that
+ * layout's geometry is kept and only the selected boxes and wires are read again: the scene drawn from it
+ * then keeps its families too (overviewScene), so a click far out on 10 000 conductors no longer lays out
+ * and colours the whole drawing again.
+ */
+export class OverviewLayouts {
+  private last: { nodes: readonly FlowNode[]; edges: readonly FlowEdge[]; layout: OverviewLayout } | null = null;
+
+  of(nodes: readonly FlowNode[], edges: readonly FlowEdge[]): OverviewLayout {
+    const last = this.last;
+    const layout = last && onlySelectionDiffers(last, nodes, edges) ? reselected(last.layout, nodes, edges) : overviewLayout(nodes, edges);
+    this.last = { nodes, edges, layout };
+    return layout;
+  }
+}
+
+function onlySelectionDiffers(last: { nodes: readonly FlowNode[]; edges: readonly FlowEdge[] }, nodes: readonly FlowNode[], edges: readonly FlowEdge[]): boolean {
+  if (last.nodes.length !== nodes.length || last.edges.length !== edges.length) return false;
+  for (let i = 0; i < nodes.length; i++) {
+    const a = last.nodes[i]!;
+    const b = nodes[i]!;
+    if (a !== b && (a.data !== b.data || a.position.x !== b.position.x || a.position.y !== b.position.y)) return false;
+  }
+  for (let i = 0; i < edges.length; i++) {
+    const a = last.edges[i]!;
+    const b = edges[i]!;
+    if (a !== b && (a.data !== b.data || a.source !== b.source || a.target !== b.target)) return false;
+  }
+  return true;
+}
+
+function reselected(layout: OverviewLayout, nodes: readonly FlowNode[], edges: readonly FlowEdge[]): OverviewLayout {
+  const selectedBoxes: OverviewLayout['selectedBoxes'] = [];
+  const selectedWires: OverviewLayout['selectedWires'] = [];
+  for (const n of nodes) {
+    if (!n.selected) continue;
+    const spec = kindSpec(n.data.node.kind);
+    selectedBoxes.push({ x: n.position.x, y: n.position.y, w: spec.width, h: spec.height });
+  }
+  for (const e of edges) if (e.selected) selectedWires.push((e.data as ConductorEdgeData | BusLinkEdgeData).geometry.points);
+  return { ...layout, selectedBoxes, selectedWires };
+}
+
 /** The layout of a drawing, from React Flow's elements (positions, geometry, selection). */
 export function overviewLayout(nodes: readonly FlowNode[], edges: readonly FlowEdge[]): OverviewLayout {
   const layout: OverviewLayout = { nodes: [], links: [], conductors: [], conductorAt: new Map(), bars: [], busLinks: [], stems: [], flagAt: new Map(), selectedWires: [], selectedBoxes: [] };
@@ -118,8 +163,9 @@ export function overviewScene(layout: OverviewLayout, s: Pick<EditorState, 'repo
     const at = layout.flagAt.get(id);
     if (at) flags.push({ id, at, severity });
   }
-  const family = (before && before.layout === layout && familiesAfter(before, report)) || layout.conductors.map((c) => familyOf(report, idx.conductor.get(c.id)));
-  if (before && family === before.family) return { ...before, report, flags };
+  // A layout that differs from the scene's only in its selection keeps the scene's conductors, so their families.
+  const family = (before && before.layout.conductors === layout.conductors && familiesAfter(before, report)) || layout.conductors.map((c) => familyOf(report, idx.conductor.get(c.id)));
+  if (before && family === before.family) return { ...before, layout, report, flags };
   const scene: OverviewScene = { layout, report, wires: new Map(), badges: new Map(), flags, family };
   layout.conductors.forEach((c, i) => {
     push(scene.wires, family[i]!, c.points);
